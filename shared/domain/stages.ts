@@ -1,0 +1,227 @@
+// Where an order stands, told the way a customer or a sales person understands it: a short
+// progress line of seven stages instead of twenty station steps.
+import { STATION_KINDS, type OrderStatus, type RoutingStep, type StationKind, type TrayPhase, type TravellerKind } from './vocabulary';
+
+export const CUSTOMER_STAGES = [
+  'artwork_moulds',
+  'metal_forming',
+  'colour',
+  'finishing_plating',
+  'inspection',
+  'packing',
+  'shipped',
+] as const;
+export type CustomerStage = (typeof CUSTOMER_STAGES)[number];
+
+/** The names a customer reads on the status page. */
+export const CUSTOMER_STAGE_NAMES: Record<CustomerStage, string> = {
+  artwork_moulds: 'Artwork and moulds',
+  metal_forming: 'Metal forming',
+  colour: 'Colour',
+  finishing_plating: 'Finishing and plating',
+  inspection: 'Inspection',
+  packing: 'Packing',
+  shipped: 'Shipped',
+};
+
+/** What happens in each stage, in words a sales person can repeat on the phone. */
+const STAGE_EXPLANATIONS: Record<CustomerStage, string> = {
+  artwork_moulds: 'the artwork proof and the moulds are being prepared',
+  metal_forming: 'the badges are being struck or cast from metal, trimmed and fitted with posts',
+  colour: 'enamel colours are being filled and cured',
+  finishing_plating: 'the badges are being stoned, polished, plated and printed',
+  inspection: 'every badge is being inspected',
+  packing: 'the badges are being fitted with backs, bagged and packed',
+  shipped: 'the order has left the factory',
+};
+
+/**
+ * Which customer stage each station kind belongs to. Clutch fitting and bagging come after
+ * inspection in every routing, so they belong with packing; printing and epoxy come after
+ * plating in hard enamel work, so they belong with finishing. Dispatch is the last packing
+ * step: the order only counts as shipped when that step has finished.
+ */
+export const STAGE_OF_STATION_KIND: Record<StationKind, CustomerStage> = {
+  engrave: 'artwork_moulds',
+  mould_check: 'artwork_moulds',
+  strike: 'metal_forming',
+  cast: 'metal_forming',
+  trim: 'metal_forming',
+  post: 'metal_forming',
+  fill: 'colour',
+  cure: 'colour',
+  stone: 'finishing_plating',
+  polish: 'finishing_plating',
+  plate: 'finishing_plating',
+  print: 'finishing_plating',
+  epoxy: 'finishing_plating',
+  inspect: 'inspection',
+  clutch: 'packing',
+  bag: 'packing',
+  pack: 'packing',
+  dispatch: 'packing',
+};
+
+/** Plain names of the station kinds, for the sales view. */
+export const STATION_KIND_NAMES: Record<StationKind, string> = {
+  engrave: 'mould engraving',
+  mould_check: 'mould check',
+  strike: 'die striking',
+  cast: 'zinc die casting',
+  trim: 'trimming',
+  post: 'post fitting',
+  fill: 'colour fill',
+  cure: 'curing oven',
+  stone: 'stoning',
+  polish: 'polishing',
+  plate: 'plating',
+  print: 'screen printing',
+  epoxy: 'epoxy',
+  inspect: 'final inspection',
+  clutch: 'clutch fitting',
+  bag: 'bagging',
+  pack: 'packing',
+  dispatch: 'dispatch',
+};
+
+/** What the stage computation needs to know about one traveller (tray or mould). */
+export interface TravellerProgress {
+  kind: TravellerKind;
+  phase: TrayPhase;
+  /** seq of the step it waits for or is in; null when done */
+  stepSeq: number | null;
+  routing: Pick<RoutingStep, 'seq' | 'stationKind'>[];
+  onHold?: boolean;
+}
+
+export interface OrderStage {
+  /** the stage the order is in; `null` only for a cancelled order */
+  stage: CustomerStage | null;
+  /** the progress line: every stage before the current one is done; shipped is done once shipped */
+  stages: { key: CustomerStage; name: string; done: boolean }[];
+  cancelled: boolean;
+}
+
+const PRE_RELEASE: readonly OrderStatus[] = ['draft', 'awaiting_payment', 'awaiting_proof'];
+
+/** True when a traveller has nothing left to do: finished, written off, or merged into another. */
+export function travellerIsFinished(t: Pick<TravellerProgress, 'phase' | 'stepSeq'>): boolean {
+  return t.phase === 'done' || t.phase === 'scrapped' || t.phase === 'merged' || t.stepSeq === null;
+}
+
+/** The steps a traveller has not finished yet (the one it is in counts as not finished). */
+export function remainingSteps(t: TravellerProgress): Pick<RoutingStep, 'seq' | 'stationKind'>[] {
+  if (travellerIsFinished(t)) return [];
+  const from = t.stepSeq as number;
+  return t.routing.filter((s) => s.seq >= from);
+}
+
+function stageIndex(stage: CustomerStage): number {
+  return CUSTOMER_STAGES.indexOf(stage);
+}
+
+function line(current: number, shipped: boolean): OrderStage['stages'] {
+  return CUSTOMER_STAGES.map((key, i) => ({
+    key,
+    name: CUSTOMER_STAGE_NAMES[key],
+    done: key === 'shipped' ? shipped : shipped || i < current,
+  }));
+}
+
+/**
+ * The customer stage of an order: the earliest stage that still has unfinished work on any of
+ * its travellers. Because the set of unfinished steps only ever shrinks, the stage never moves
+ * backwards, even when a routing visits stages out of their usual order (soft enamel is plated
+ * before its colours are filled).
+ */
+export function orderStage(input: { status: OrderStatus; travellers: TravellerProgress[] }): OrderStage {
+  const { status, travellers } = input;
+  if (status === 'cancelled') {
+    return { stage: null, stages: line(0, false).map((s) => ({ ...s, done: false })), cancelled: true };
+  }
+  if (status === 'shipped') {
+    return { stage: 'shipped', stages: line(stageIndex('shipped'), true), cancelled: false };
+  }
+  if (PRE_RELEASE.includes(status) || travellers.length === 0) {
+    return { stage: 'artwork_moulds', stages: line(0, false), cancelled: false };
+  }
+  let current = Number.POSITIVE_INFINITY;
+  for (const t of travellers) {
+    for (const step of remainingSteps(t)) {
+      current = Math.min(current, stageIndex(STAGE_OF_STATION_KIND[step.stationKind]));
+    }
+  }
+  if (!Number.isFinite(current)) {
+    // Every traveller is finished but the order is not marked shipped yet (the status update
+    // follows the last dispatch scan): it is still at packing, and not yet shipped.
+    current = stageIndex('packing');
+  }
+  const stage = CUSTOMER_STAGES[current];
+  return { stage, stages: line(current, false), cancelled: false };
+}
+
+export interface StageDescriptionInput {
+  status: OrderStatus;
+  travellers: TravellerProgress[];
+}
+
+function plural(n: number, one: string, many: string): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+/**
+ * The stage in plain words for sales: the stage, what it means, and where the trays stand
+ * ("Colour: enamel colours are being filled and cured. 3 trays at colour fill, 1 tray at curing
+ * oven, 2 trays at polishing.").
+ */
+export function describeStage(input: StageDescriptionInput): string {
+  const { status, travellers } = input;
+  switch (status) {
+    case 'cancelled':
+      return 'Cancelled: this order will not be made.';
+    case 'draft':
+      return 'Artwork and moulds: the order is being entered and is not on the floor yet.';
+    case 'awaiting_payment':
+      return 'Artwork and moulds: waiting for the payment before production can start.';
+    case 'awaiting_proof':
+      return 'Artwork and moulds: waiting for the customer to approve the artwork proof.';
+    case 'shipped':
+      return 'Shipped: the order has left the factory.';
+    default:
+      break;
+  }
+  const { stage } = orderStage({ status, travellers });
+  const current = stage ?? 'artwork_moulds';
+  const head = `${CUSTOMER_STAGE_NAMES[current]}: ${STAGE_EXPLANATIONS[current]}.`;
+
+  const at = new Map<StationKind, number>();
+  let finished = 0;
+  let held = 0;
+  for (const t of travellers) {
+    if (t.kind !== 'tray') continue;
+    if (travellerIsFinished(t)) {
+      if (t.phase === 'done') finished += 1;
+      continue;
+    }
+    const step = t.routing.find((s) => s.seq === t.stepSeq);
+    if (!step) continue;
+    if (t.onHold) held += 1;
+    at.set(step.stationKind, (at.get(step.stationKind) ?? 0) + 1);
+  }
+  const parts: string[] = [];
+  // In the order a routing usually runs, so the sentence reads from the back of the floor to the front.
+  const kinds = [...at.keys()].sort((a, b) => STATION_KINDS.indexOf(a) - STATION_KINDS.indexOf(b));
+  for (const kind of kinds) parts.push(`${plural(at.get(kind)!, 'tray', 'trays')} at ${STATION_KIND_NAMES[kind]}`);
+  if (finished > 0) parts.push(`${plural(finished, 'tray', 'trays')} dispatched`);
+  const moulds = travellers.filter((t) => t.kind === 'mould' && !travellerIsFinished(t)).length;
+  if (moulds > 0) parts.push(`${plural(moulds, 'mould', 'moulds')} in the making`);
+  let text = head;
+  if (parts.length > 0) text += ` ${capitalise(parts.join(', '))}.`;
+  if (status === 'on_hold') text += ' The order is on hold.';
+  else if (held > 0) text += ` ${capitalise(plural(held, 'tray is', 'trays are'))} on hold.`;
+  return text;
+}
+
+function capitalise(s: string): string {
+  return s.charAt(0).toUpperCase() + s.slice(1);
+}

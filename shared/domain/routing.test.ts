@@ -1,0 +1,269 @@
+import { describe, expect, it } from 'vitest';
+import {
+  DEFAULT_MOULD_TEMPLATE,
+  DEFAULT_ROUTING_TEMPLATES,
+  HARD_ENAMEL_CURE_MINUTES,
+  expandRouting,
+  mouldRouting,
+  renumber,
+  requiredMoulds,
+  routingProblems,
+  routingStandardMinutes,
+  type RoutingSpec,
+  type RoutingTemplate,
+} from './routing';
+import { PROCESSES, STATION_KINDS, type Process, type RoutingStep, type StationKind } from './vocabulary';
+
+function spec(process: Process, colours: number, extra: Partial<RoutingSpec> = {}): RoutingSpec {
+  return {
+    process,
+    colours: Array.from({ length: colours }, (_, i) => ({ name: `C${i + 1}` })),
+    backLogo: false,
+    printing: false,
+    epoxy: false,
+    backing: { type: 'butterfly_clutch', count: 1 },
+    ...extra,
+  };
+}
+
+const kinds = (steps: RoutingStep[]) => steps.map((s) => s.stationKind);
+const idx = (steps: RoutingStep[], kind: StationKind) => steps.findIndex((s) => s.stationKind === kind);
+const lastIdx = (steps: RoutingStep[], kind: StationKind) => steps.map((s) => s.stationKind).lastIndexOf(kind);
+const route = (s: RoutingSpec) => expandRouting(DEFAULT_ROUTING_TEMPLATES[s.process], s);
+
+const COLOUR_COUNTS = [1, 4, 8];
+
+describe('expandRouting: every process, 1, 4 and 8 colours, back logo on and off', () => {
+  for (const process of PROCESSES) {
+    for (const n of COLOUR_COUNTS) {
+      for (const backLogo of [false, true]) {
+        it(`${process}, ${n} colour(s), back logo ${backLogo ? 'on' : 'off'}: well-formed`, () => {
+          const steps = route(spec(process, n, { backLogo }));
+          // seq is 1-based and contiguous
+          expect(steps.map((s) => s.seq)).toEqual(steps.map((_, i) => i + 1));
+          expect(routingProblems(steps)).toEqual([]);
+          for (const s of steps) {
+            expect(STATION_KINDS).toContain(s.stationKind);
+            expect(s.trayMinutes).toBeGreaterThanOrEqual(0);
+            expect(s.pieceMinutes).toBeGreaterThanOrEqual(0);
+            if (s.stationKind === 'cure') expect(s.cureMinutes).toBeGreaterThan(0);
+            else expect(s.cureMinutes ?? null).toBeNull();
+          }
+          // striking, or casting for 3D die-cast, comes first (product.md, rule 2 and trade facts)
+          expect(steps[0].stationKind).toBe(process === 'die_cast_3d' ? 'cast' : 'strike');
+          expect(kinds(steps)).not.toContain(process === 'die_cast_3d' ? 'strike' : 'cast');
+          // the tail is the same for every process: inspect, clutches, bag, pack, dispatch (common practice)
+          expect(kinds(steps).slice(-5)).toEqual(['inspect', 'clutch', 'bag', 'pack', 'dispatch']);
+          // a back logo needs a back mould, not an extra tray step
+          expect(steps).toEqual(route(spec(process, n, { backLogo: !backLogo })));
+          expect(requiredMoulds({ backLogo })).toEqual(backLogo ? ['front', 'back'] : ['front']);
+        });
+      }
+    }
+  }
+});
+
+describe('hard enamel (product.md rule 2; order of steps: common practice)', () => {
+  for (const n of COLOUR_COUNTS) {
+    it(`${n} colour(s): one fill and one cure per colour, cured before the next colour goes in`, () => {
+      const steps = route(spec('hard_enamel', n));
+      const colourSteps = steps.filter((s) => s.colour != null);
+      expect(colourSteps).toHaveLength(2 * n);
+      for (let i = 1; i <= n; i++) {
+        const fill = steps.findIndex((s) => s.name === `Colour ${i} of ${n}: fill`);
+        const cure = steps.findIndex((s) => s.name === `Colour ${i} of ${n}: cure`);
+        expect(steps[fill].stationKind).toBe('fill');
+        expect(steps[fill].colour).toBe(i);
+        expect(steps[cure].stationKind).toBe('cure');
+        // each colour cures in an oven for two hours or more before the next colour (common practice)
+        expect(steps[cure].cureMinutes).toBeGreaterThanOrEqual(120);
+        expect(cure).toBe(fill + 1);
+      }
+      // posts fitted, colours filled and cured, stoned flush, polished, plated (common practice)
+      expect(idx(steps, 'post')).toBeLessThan(idx(steps, 'fill'));
+      expect(lastIdx(steps, 'cure')).toBeLessThan(idx(steps, 'stone'));
+      expect(idx(steps, 'stone')).toBeLessThan(idx(steps, 'polish'));
+      expect(idx(steps, 'polish')).toBeLessThan(idx(steps, 'plate'));
+      expect(idx(steps, 'plate')).toBeLessThan(idx(steps, 'inspect'));
+    });
+  }
+
+  it('the whole routing of a two-colour pin with printing and epoxy, in trade order', () => {
+    const steps = route(spec('hard_enamel', 2, { printing: true, epoxy: true }));
+    expect(steps.map((s) => s.name)).toEqual([
+      'Strike',
+      'Trim',
+      'Fit posts',
+      'Colour 1 of 2: fill',
+      'Colour 1 of 2: cure',
+      'Colour 2 of 2: fill',
+      'Colour 2 of 2: cure',
+      'Stone flush',
+      'Polish',
+      'Plate',
+      'Print',
+      'Epoxy dome',
+      'Epoxy: cure',
+      'Inspect',
+      'Fit clutches',
+      'Bag',
+      'Pack',
+      'Dispatch',
+    ]);
+    expect(steps.find((s) => s.name === 'Colour 2 of 2: cure')!.cureMinutes).toBe(HARD_ENAMEL_CURE_MINUTES);
+  });
+
+  it('printing and epoxy only when asked', () => {
+    const plain = route(spec('hard_enamel', 3));
+    expect(kinds(plain)).not.toContain('print');
+    expect(kinds(plain)).not.toContain('epoxy');
+    const printed = route(spec('hard_enamel', 3, { printing: true }));
+    expect(kinds(printed)).toContain('print');
+    expect(kinds(printed)).not.toContain('epoxy');
+    expect(printed).toHaveLength(plain.length + 1);
+    const domed = route(spec('hard_enamel', 3, { epoxy: true }));
+    expect(kinds(domed)).toContain('epoxy');
+    // dome, then its cure (warm cure 2–4 h: common practice)
+    const e = idx(domed, 'epoxy');
+    expect(domed[e + 1].stationKind).toBe('cure');
+    expect(domed[e + 1].cureMinutes).toBeGreaterThanOrEqual(120);
+    expect(domed[e + 1].cureMinutes).toBeLessThanOrEqual(240);
+  });
+
+  it('no posts or clutches for a badge without fittings; no posts for a magnet', () => {
+    const none = route(spec('hard_enamel', 1, { backing: { type: 'none', count: 0 } }));
+    expect(kinds(none)).not.toContain('post');
+    expect(kinds(none)).not.toContain('clutch');
+    const magnet = route(spec('hard_enamel', 1, { backing: { type: 'magnet', count: 1 } }));
+    expect(kinds(magnet)).not.toContain('post');
+    expect(kinds(magnet)).toContain('clutch');
+  });
+});
+
+describe('soft enamel (product.md rule 2: plate first, then fill and cure)', () => {
+  for (const n of COLOUR_COUNTS) {
+    it(`${n} colour(s): plated before filling, one bake after the last colour`, () => {
+      const steps = route(spec('soft_enamel', n));
+      expect(steps.filter((s) => s.stationKind === 'fill')).toHaveLength(n);
+      expect(steps.filter((s) => s.stationKind === 'cure')).toHaveLength(1);
+      expect(idx(steps, 'plate')).toBeLessThan(idx(steps, 'fill'));
+      expect(idx(steps, 'cure')).toBe(lastIdx(steps, 'fill') + 1);
+      expect(kinds(steps)).not.toContain('stone');
+      // about 230 °C for 12–15 min in some shops (common practice)
+      expect(steps[idx(steps, 'cure')].cureMinutes).toBeGreaterThanOrEqual(12);
+    });
+
+    it(`${n} colour(s): a cure per colour when the template says so`, () => {
+      const base = DEFAULT_ROUTING_TEMPLATES.soft_enamel;
+      const perColour: RoutingTemplate = {
+        ...base,
+        steps: base.steps.map((e) => (e.type === 'colours' ? { ...e, cure: 'each' as const } : e)),
+      };
+      const steps = expandRouting(perColour, spec('soft_enamel', n));
+      expect(steps.filter((s) => s.stationKind === 'cure')).toHaveLength(n);
+      for (let i = 1; i <= n; i++) {
+        const fill = steps.findIndex((s) => s.name === `Colour ${i} of ${n}: fill`);
+        expect(steps[fill + 1].name).toBe(`Colour ${i} of ${n}: cure`);
+      }
+    });
+  }
+
+  it('air-dried colours: no cure step at all', () => {
+    const base = DEFAULT_ROUTING_TEMPLATES.soft_enamel;
+    const airDry: RoutingTemplate = {
+      ...base,
+      steps: base.steps.map((e) => (e.type === 'colours' ? { ...e, cure: 'none' as const } : e)),
+    };
+    expect(kinds(expandRouting(airDry, spec('soft_enamel', 4)))).not.toContain('cure');
+  });
+});
+
+describe('other processes', () => {
+  for (const n of COLOUR_COUNTS) {
+    it(`die-struck with ${n} colour(s) listed: no enamel steps`, () => {
+      const steps = route(spec('die_struck', n));
+      expect(kinds(steps)).not.toContain('fill');
+      expect(kinds(steps)).not.toContain('cure');
+      expect(idx(steps, 'polish')).toBeLessThan(idx(steps, 'plate'));
+    });
+
+    it(`printed with ${n} colour(s): printed and domed even without the flags`, () => {
+      const steps = route(spec('printed', n));
+      expect(kinds(steps)).toContain('print');
+      expect(kinds(steps)).toContain('epoxy');
+      expect(kinds(steps)).not.toContain('fill');
+      expect(idx(steps, 'plate')).toBeLessThan(idx(steps, 'print'));
+      expect(idx(steps, 'print')).toBeLessThan(idx(steps, 'epoxy'));
+      // asking again for printing or epoxy does not double the steps
+      expect(route(spec('printed', n, { printing: true, epoxy: true }))).toEqual(steps);
+    });
+
+    it(`3D die-cast with ${n} colour(s): cast, never struck, one fill per colour`, () => {
+      const steps = route(spec('die_cast_3d', n));
+      expect(steps[0].stationKind).toBe('cast');
+      expect(steps.filter((s) => s.stationKind === 'fill')).toHaveLength(n);
+    });
+  }
+
+  it('3D die-cast without colours: no fill or bake', () => {
+    const steps = route(spec('die_cast_3d', 0));
+    expect(kinds(steps)).not.toContain('fill');
+    expect(kinds(steps)).not.toContain('cure');
+  });
+
+  it('refuses a template of another process', () => {
+    expect(() => expandRouting(DEFAULT_ROUTING_TEMPLATES.hard_enamel, spec('soft_enamel', 1))).toThrow(/hard_enamel/);
+  });
+
+  it('edited templates change the expansion (times are data, not code)', () => {
+    const base = DEFAULT_ROUTING_TEMPLATES.hard_enamel;
+    const slowerOven: RoutingTemplate = {
+      ...base,
+      steps: base.steps.map((e) => (e.type === 'colours' ? { ...e, cureStep: { ...e.cureStep, cureMinutes: 240 } } : e)),
+    };
+    const steps = expandRouting(slowerOven, spec('hard_enamel', 2));
+    expect(steps.filter((s) => s.stationKind === 'cure').map((s) => s.cureMinutes)).toEqual([240, 240]);
+  });
+});
+
+describe('mould travellers (product.md rule 3)', () => {
+  it('a new mould is engraved, then checked', () => {
+    const steps = mouldRouting({ reuse: false, side: 'back' });
+    expect(kinds(steps)).toEqual(['engrave', 'mould_check']);
+    expect(steps.map((s) => s.seq)).toEqual([1, 2]);
+    expect(steps[0].name).toBe('Engrave back mould');
+    expect(steps[0].trayMinutes).toBe(DEFAULT_MOULD_TEMPLATE.engrave.trayMinutes);
+  });
+
+  it('a reused mould skips engraving', () => {
+    const steps = mouldRouting({ reuse: true });
+    expect(kinds(steps)).toEqual(['mould_check']);
+    expect(steps[0].seq).toBe(1);
+    expect(steps[0].name).toBe('Check front mould');
+  });
+});
+
+describe('edited routings', () => {
+  it('renumbers after a reorder and finds what is wrong', () => {
+    const steps = route(spec('hard_enamel', 1));
+    const moved = renumber([steps[1], steps[0], ...steps.slice(2)]);
+    expect(moved.map((s) => s.seq)).toEqual(steps.map((s) => s.seq));
+    expect(moved[0].name).toBe('Trim');
+    expect(routingProblems(moved)).toEqual([]);
+
+    const broken = moved.map((s) => (s.stationKind === 'cure' ? { ...s, cureMinutes: null } : s));
+    expect(routingProblems(broken)).toHaveLength(1);
+    expect(routingProblems([{ ...moved[0], seq: 2 }])[0].message).toMatch(/numbered 2/);
+    expect(routingProblems([])).toHaveLength(1);
+    expect(routingProblems([{ ...moved[0], trayMinutes: -1 }])[0].message).toMatch(/negative/);
+  });
+
+  it('standard minutes of a routing add tray minutes and piece minutes × pieces', () => {
+    const steps: RoutingStep[] = [
+      { seq: 1, name: 'a', stationKind: 'strike', trayMinutes: 10, pieceMinutes: 0.5 },
+      { seq: 2, name: 'b', stationKind: 'cure', trayMinutes: 5, pieceMinutes: 0, cureMinutes: 120 },
+    ];
+    // 10 + 0.5 × 100 + 5 = 65; the oven's 120 min are not labour
+    expect(routingStandardMinutes(steps, 100)).toBe(65);
+  });
+});

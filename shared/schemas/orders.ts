@@ -1,0 +1,191 @@
+// Wire shapes of orders: the spec a planner enters, the release and payment bodies,
+// and the gentle checks that warn (never block) about unusual specs.
+import { z } from 'zod';
+import {
+  BACKING_TYPES,
+  MATERIALS,
+  PACKAGINGS,
+  PLATINGS,
+  PROCESSES,
+  type Process,
+} from '@shared/domain/vocabulary';
+
+/** What the badge is; decides which size bounds apply to the warning. */
+export const PRODUCT_TYPES = ['pin', 'coin', 'medal', 'key_ring'] as const;
+export type ProductType = (typeof PRODUCT_TYPES)[number];
+
+/** Processes whose colours are filled with enamel (one fill step per colour). */
+export const ENAMEL_PROCESSES: readonly Process[] = ['hard_enamel', 'soft_enamel', 'die_cast_3d'];
+
+export const OVERRUN_DEFAULT_PCT = 5;
+export const OVERRUN_MAX_PCT = 10;
+export const MAX_COLOURS = 24;
+
+const isoDay = z.iso.date({ error: 'Use a date written YYYY-MM-DD' });
+
+export const colourSchema = z.strictObject({
+  name: z.string().trim().min(1, 'Name the colour').max(60),
+  /** the customer's colour reference code */
+  ref: z.string().trim().max(40).optional(),
+  hex: z
+    .string()
+    .regex(/^#[0-9a-fA-F]{6}$/, 'Use a swatch written #RRGGBB')
+    .optional(),
+});
+export type Colour = z.infer<typeof colourSchema>;
+
+export const backingSchema = z.strictObject({
+  type: z.enum(BACKING_TYPES),
+  count: z.number().int().min(0).max(6),
+});
+
+const specFields = {
+  customer: z.string().trim().min(1).max(120).optional(),
+  customerId: z.string().trim().min(1).max(64).optional(),
+  title: z.string().trim().min(1, 'Give the order a title').max(160),
+  productType: z.enum(PRODUCT_TYPES).default('pin'),
+  process: z.enum(PROCESSES),
+  material: z.enum(MATERIALS),
+  /** longest side in millimetres */
+  sizeMm: z.number().positive('Size must be above 0 mm').max(500),
+  quantity: z.number().int('Whole pieces only').min(1).max(1_000_000),
+  overrunPct: z.number().min(0).max(OVERRUN_MAX_PCT).default(OVERRUN_DEFAULT_PCT),
+  colours: z.array(colourSchema).max(MAX_COLOURS).default([]),
+  plating: z.enum(PLATINGS),
+  backing: backingSchema,
+  backLogo: z.boolean().default(false),
+  printing: z.boolean().default(false),
+  epoxy: z.boolean().default(false),
+  packaging: z.enum(PACKAGINGS),
+  dueDate: isoDay,
+  notes: z.string().trim().max(4000).default(''),
+};
+
+type SpecShape = { customer?: string; customerId?: string; process: Process; colours: unknown[] };
+
+function checkSpec(spec: SpecShape, ctx: z.RefinementCtx) {
+  if (!spec.customer && !spec.customerId) {
+    ctx.addIssue({ code: 'custom', path: ['customer'], message: 'Pick or name a customer' });
+  }
+  if (spec.customer && spec.customerId) {
+    ctx.addIssue({ code: 'custom', path: ['customer'], message: 'Give either customer or customerId, not both' });
+  }
+  if (ENAMEL_PROCESSES.includes(spec.process) && spec.process !== 'die_cast_3d' && spec.colours.length === 0) {
+    ctx.addIssue({ code: 'custom', path: ['colours'], message: 'An enamel order needs at least one colour' });
+  }
+}
+
+/** The order spec as entered (POST /api/orders). Unknown fields are refused. */
+export const orderSpecSchema = z.strictObject(specFields).superRefine(checkSpec);
+export type OrderSpecInput = z.input<typeof orderSpecSchema>;
+export type OrderSpec = z.output<typeof orderSpecSchema>;
+
+/** A change to an order's spec before release: any field of the spec. */
+export const orderSpecPatchSchema = z
+  .strictObject({
+    ...specFields,
+    productType: z.enum(PRODUCT_TYPES),
+    overrunPct: z.number().min(0).max(OVERRUN_MAX_PCT),
+    colours: z.array(colourSchema).max(MAX_COLOURS),
+    backLogo: z.boolean(),
+    printing: z.boolean(),
+    epoxy: z.boolean(),
+    notes: z.string().trim().max(4000),
+  })
+  .partial();
+export type OrderSpecPatch = z.infer<typeof orderSpecPatchSchema>;
+
+/** POST /api/orders/:id/release */
+export const releaseBodySchema = z.strictObject({
+  traySize: z.number().int().min(1).max(10_000),
+  /** for an order already on the floor before the factory started using the product */
+  releasedAt: z.iso.datetime({ offset: true }).optional(),
+});
+export type ReleaseBody = z.infer<typeof releaseBodySchema>;
+
+export const RELEASED_AT_MAX_DAYS_BACK = 90;
+
+/** Checks a back-dated release time against the clock: not in the future, at most 90 days back. */
+export function checkReleasedAt(releasedAt: string, now: Date): string | null {
+  const t = Date.parse(releasedAt);
+  if (Number.isNaN(t)) return 'Not a date and time';
+  // one minute of grace for clocks that differ slightly
+  if (t > now.getTime() + 60_000) return 'The release time is in the future';
+  if (t < now.getTime() - RELEASED_AT_MAX_DAYS_BACK * 86_400_000) {
+    return `The release time is more than ${RELEASED_AT_MAX_DAYS_BACK} days back`;
+  }
+  return null;
+}
+
+/** POST /api/orders/:id/payment: a payment, or (managers only) a recorded exception. */
+export const paymentBodySchema = z.union([
+  z.strictObject({
+    amount: z.number().positive('Amount must be above 0').max(100_000_000),
+    reference: z.string().trim().min(1, 'Give the payment reference').max(120),
+    paidOn: isoDay.optional(),
+  }),
+  z.strictObject({
+    exception: z.literal(true),
+    reason: z.string().trim().min(5, 'Say why production may start unpaid').max(500),
+  }),
+]);
+export type PaymentBody = z.infer<typeof paymentBodySchema>;
+
+/** POST /api/orders/:id/proofs/:revision/approve */
+export const proofApprovalBodySchema = z.strictObject({
+  /** the day the customer approved; defaults to today */
+  approvedOn: isoDay.optional(),
+  note: z.string().trim().max(500).optional(),
+});
+export type ProofApprovalBody = z.infer<typeof proofApprovalBodySchema>;
+
+// ---------------------------------------------------------------------------------------
+// Warnings: unusual but allowed. The planner sees them and may go on.
+
+export interface SpecWarning {
+  field: 'sizeMm' | 'quantity' | 'material' | 'overrunPct';
+  code: 'size_unusual' | 'quantity_small' | 'material_unusual';
+  message: string;
+}
+
+/** Size bounds per product, longest side in mm (trade defaults: pins 10–100, coins 25–90). */
+export const SIZE_BOUNDS_MM: Partial<Record<ProductType, { min: number; max: number }>> = {
+  pin: { min: 10, max: 100 },
+  coin: { min: 25, max: 90 },
+};
+
+/** Minimum order is about 100 pieces (common practice). */
+export const USUAL_MINIMUM_QUANTITY = 100;
+
+export function specWarnings(spec: {
+  productType?: ProductType;
+  sizeMm?: number;
+  quantity?: number;
+  process?: Process;
+  material?: string;
+}): SpecWarning[] {
+  const warnings: SpecWarning[] = [];
+  const bounds = SIZE_BOUNDS_MM[spec.productType ?? 'pin'];
+  if (bounds && typeof spec.sizeMm === 'number' && (spec.sizeMm < bounds.min || spec.sizeMm > bounds.max)) {
+    warnings.push({
+      field: 'sizeMm',
+      code: 'size_unusual',
+      message: `${spec.sizeMm} mm is outside the usual ${bounds.min}–${bounds.max} mm for a ${(spec.productType ?? 'pin').replace('_', ' ')}; check the artwork`,
+    });
+  }
+  if (typeof spec.quantity === 'number' && spec.quantity < USUAL_MINIMUM_QUANTITY) {
+    warnings.push({
+      field: 'quantity',
+      code: 'quantity_small',
+      message: `${spec.quantity} pieces is below the usual minimum of ${USUAL_MINIMUM_QUANTITY}`,
+    });
+  }
+  if (spec.process === 'die_cast_3d' && spec.material && spec.material !== 'zinc_alloy') {
+    warnings.push({
+      field: 'material',
+      code: 'material_unusual',
+      message: '3D die-cast badges are usually zinc alloy',
+    });
+  }
+  return warnings;
+}

@@ -1,0 +1,88 @@
+import { z } from 'zod';
+import { REJECTION_CODES, SCAN_TYPES, TRAY_PHASES } from '../domain/vocabulary';
+
+/** Most events one POST /api/scans may carry. */
+export const MAX_SCAN_BATCH = 500;
+
+const count = z.int().min(0).max(1_000_000);
+
+/** One scan made on a tablet. The id is made on the device, so sending it twice changes nothing. */
+export const scanEventSchema = z.object({
+  id: z.uuid(),
+  /** the QR text or the human-readable tray number */
+  code: z.string().trim().min(1).max(256),
+  stationId: z.string().min(1).max(64),
+  type: z.enum(SCAN_TYPES),
+  /** device clock corrected by the device's measured offset; UTC ISO 8601 */
+  occurredAt: z.iso.datetime({ offset: true }),
+  goodQty: count.optional(),
+  scrapQty: count.optional(),
+  /** pieces reworked at this step that ended up good: part of goodQty, kept apart for first-pass yield */
+  reworkQty: count.optional(),
+  /** reason code (scrap reason on a finish, hold reason on a hold) */
+  scrapReason: z.string().trim().min(1).max(64).optional(),
+  overrideId: z.string().min(1).max(64).optional(),
+  note: z.string().max(1000).optional(),
+  /**
+   * Who scanned, for events queued offline on a shared tablet while operators switched.
+   * Only honoured for a paired device and a user who signed in on that device; otherwise the
+   * signed-in user is the operator.
+   */
+  operatorId: z.string().min(1).max(64).optional(),
+});
+export type ScanEvent = z.infer<typeof scanEventSchema>;
+
+/**
+ * The batch envelope. Events are checked one by one after this (a malformed event is answered
+ * `rejected` / `invalid_event` in its place, it never fails the others), so the envelope only
+ * asks for 1..500 objects.
+ */
+export const scanBatchEnvelopeSchema = z.object({
+  events: z.array(z.looseObject({})).min(1).max(MAX_SCAN_BATCH),
+});
+
+/** The strict batch body, as a tablet builds it. */
+export const scanBatchSchema = z.object({
+  events: z.array(scanEventSchema).min(1).max(MAX_SCAN_BATCH),
+});
+export type ScanBatch = z.infer<typeof scanBatchSchema>;
+
+export const SCAN_RESULT_STATUSES = ['accepted', 'duplicate', 'rejected'] as const;
+export type ScanResultStatus = (typeof SCAN_RESULT_STATUSES)[number];
+
+/** The traveller after the event (or as it stands, for a refusal). */
+export const scanTraySchema = z.object({
+  id: z.string(),
+  number: z.string(),
+  kind: z.enum(['tray', 'mould']),
+  phase: z.enum(TRAY_PHASES),
+  stepSeq: z.int().nullable(),
+  stepName: z.string().nullable(),
+  quantity: z.int(),
+  onHold: z.boolean(),
+  cureReadyAt: z.string().nullable(),
+});
+export type ScanTray = z.infer<typeof scanTraySchema>;
+
+export const refusalParamsSchema = z.record(z.string(), z.union([z.string(), z.number(), z.null()]));
+
+export const scanResultSchema = z.object({
+  id: z.string(),
+  status: z.enum(SCAN_RESULT_STATUSES),
+  code: z.enum(REJECTION_CODES).optional(),
+  /** plain English: what happened and what to do next */
+  message: z.string().optional(),
+  /** for `curing`: whole minutes until the cure has run its time */
+  minutesLeft: z.int().optional(),
+  /** the values the message was made from, so a tablet can say it in its own language */
+  params: refusalParamsSchema.optional(),
+  tray: scanTraySchema.optional(),
+});
+export type ScanResult = z.infer<typeof scanResultSchema>;
+
+export const scanBatchResponseSchema = z.object({
+  results: z.array(scanResultSchema),
+  /** the server clock when it answered, for the tablet's clock-offset estimate */
+  serverTime: z.string(),
+});
+export type ScanBatchResponse = z.infer<typeof scanBatchResponseSchema>;

@@ -1,0 +1,421 @@
+// The factory's working calendar: shifts per weekday, days off, and per-station exceptions
+// (an oven keeps curing through the night and on days off).
+//
+// Time zones: the factory has one time-zone setting, an IANA name such as "Asia/Shanghai".
+// Shifts ("06:00"-"14:00") and days off ("2025-10-01") are local wall-clock values in that
+// zone; every instant in and out of this module is UTC (epoch milliseconds). Conversion uses
+// the platform's Intl time-zone data, so it runs in the browser and on the server alike and
+// follows daylight-saving changes (a 00:00-08:00 shift on a spring-forward night is 7 h).
+// A shift whose end is not after its start runs past midnight and belongs to the day it
+// starts on; a day off removes the shifts that start on that date.
+
+export const WEEKDAYS = ['mon', 'tue', 'wed', 'thu', 'fri', 'sat', 'sun'] as const;
+export type Weekday = (typeof WEEKDAYS)[number];
+
+export interface Shift {
+  start: string; // "HH:MM" local
+  end: string; // "HH:MM" local; <= start means it ends on the next day
+}
+
+export type WeekSchedule = Record<Weekday, Shift[]>;
+
+export interface StationCalendar {
+  /** works around the clock, every day (for example a curing oven) */
+  continuous?: boolean;
+  /** replaces the factory week for this station */
+  week?: WeekSchedule;
+  /** extra days off for this station, added to the factory's */
+  daysOff?: string[];
+}
+
+export interface CalendarConfig {
+  timeZone: string;
+  week: WeekSchedule;
+  daysOff: string[]; // "YYYY-MM-DD" local dates
+  /** keyed by station id or station kind; an id wins over a kind */
+  stations?: Record<string, StationCalendar>;
+}
+
+export const MINUTE = 60_000;
+export const DAY = 86_400_000;
+
+export type Instant = number | string | Date;
+export function toMs(t: Instant): number {
+  if (typeof t === 'number') return t;
+  if (t instanceof Date) return t.getTime();
+  const ms = Date.parse(t);
+  if (Number.isNaN(ms)) throw new RangeError(`not a time: ${t}`);
+  return ms;
+}
+
+export function parseHm(hm: string): number {
+  const m = /^([01]\d|2[0-3]):([0-5]\d)$/.exec(hm);
+  if (!m) throw new RangeError(`not a time of day (HH:MM): ${hm}`);
+  return Number(m[1]) * 60 + Number(m[2]);
+}
+
+export function isValidTimeZone(tz: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: tz });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+// ---- time-zone arithmetic -------------------------------------------------------------
+
+const formatters = new Map<string, Intl.DateTimeFormat>();
+function formatter(tz: string): Intl.DateTimeFormat {
+  let f = formatters.get(tz);
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-US', {
+      timeZone: tz,
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: 'numeric',
+      day: 'numeric',
+      hour: 'numeric',
+      minute: 'numeric',
+      second: 'numeric',
+    });
+    formatters.set(tz, f);
+  }
+  return f;
+}
+
+function exactOffsetMs(tz: string, utcMs: number): number {
+  const parts = formatter(tz).formatToParts(new Date(utcMs));
+  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
+  const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'), get('second'));
+  return asUtc - Math.floor(utcMs / 1000) * 1000;
+}
+
+const HOUR = 3_600_000;
+const offsetCache = new Map<string, Map<number, number>>();
+
+/** Offset of local time from UTC in the zone at that instant (ms; east positive). */
+export function zoneOffsetMs(tz: string, utcMs: number): number {
+  if (tz === 'UTC' || tz === 'Etc/UTC') return 0;
+  let cache = offsetCache.get(tz);
+  if (!cache) offsetCache.set(tz, (cache = new Map()));
+  const bucket = Math.floor(utcMs / HOUR);
+  let o = cache.get(bucket);
+  if (o === undefined) {
+    const a = exactOffsetMs(tz, bucket * HOUR);
+    const b = exactOffsetMs(tz, bucket * HOUR + HOUR - 1000);
+    // NaN marks an hour with a change inside it: those are computed exactly each time
+    o = a === b ? a : Number.NaN;
+    if (cache.size > 200_000) cache.clear();
+    cache.set(bucket, o);
+  }
+  return Number.isNaN(o) ? exactOffsetMs(tz, utcMs) : o;
+}
+
+/** Days since 1970-01-01 of the local date at that instant. */
+export function localDayNumber(tz: string, utcMs: number): number {
+  return Math.floor((utcMs + zoneOffsetMs(tz, utcMs)) / DAY);
+}
+
+export function dayNumberOfDate(date: string): number {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
+  const ms = m ? Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])) : Number.NaN;
+  if (!m || new Date(ms).toISOString().slice(0, 10) !== date) throw new RangeError(`not a date (YYYY-MM-DD): ${date}`);
+  return Math.floor(ms / DAY);
+}
+
+export function dateOfDayNumber(day: number): string {
+  return new Date(day * DAY).toISOString().slice(0, 10);
+}
+
+/** The local date ("YYYY-MM-DD") in the zone at that instant. */
+export function localDate(tz: string, t: Instant): string {
+  return dateOfDayNumber(localDayNumber(tz, toMs(t)));
+}
+
+/** Monday = 0 ... Sunday = 6 (1970-01-01 was a Thursday). */
+export function weekdayOfDayNumber(day: number): number {
+  return (((day + 3) % 7) + 7) % 7;
+}
+
+/**
+ * The UTC instant of a local wall-clock time. A time that a spring-forward change skips is
+ * read with the offset from before the change (it lands just after the gap); a repeated
+ * autumn time takes its first occurrence.
+ */
+export function utcOfLocal(tz: string, day: number, minuteOfDay: number): number {
+  const wall = day * DAY + minuteOfDay * MINUTE;
+  // real zones change their offset at most once within a day around any wall time
+  const before = zoneOffsetMs(tz, wall - DAY / 2);
+  const after = zoneOffsetMs(tz, wall + DAY / 2);
+  const first = wall - before;
+  if (first + zoneOffsetMs(tz, first) === wall) return first;
+  const second = wall - after;
+  if (second + zoneOffsetMs(tz, second) === wall) return second;
+  return first; // inside a skipped hour
+}
+
+/** The UTC instant at which a local date starts. */
+export function startOfLocalDate(tz: string, date: string): number {
+  return utcOfLocal(tz, dayNumberOfDate(date), 0);
+}
+
+// ---- timelines ---------------------------------------------------------------------------
+
+/** Working time of one station (or of the factory): all arithmetic on working minutes. */
+export interface Timeline {
+  readonly continuous: boolean;
+  /** working intervals [start, end) in UTC ms of the shifts that start on that local day */
+  shiftsOfDay(day: number): readonly (readonly [number, number])[];
+  /** working minutes in [from, to); negative when to is before from */
+  workingMinutesBetween(from: Instant, to: Instant): number;
+  /** the instant at which `minutes` working minutes after `from` have passed */
+  addWorkingMinutes(from: Instant, minutes: number): number;
+  isWorking(t: Instant): boolean;
+}
+
+const MAX_SEARCH_DAYS = 3660;
+
+class ContinuousTimeline implements Timeline {
+  readonly continuous = true;
+  constructor(private readonly tz: string) {}
+  shiftsOfDay(day: number) {
+    return [[utcOfLocal(this.tz, day, 0), utcOfLocal(this.tz, day + 1, 0)] as const];
+  }
+  workingMinutesBetween(from: Instant, to: Instant) {
+    return (toMs(to) - toMs(from)) / MINUTE;
+  }
+  addWorkingMinutes(from: Instant, minutes: number) {
+    if (!(minutes >= 0)) throw new RangeError('minutes must be >= 0');
+    return toMs(from) + minutes * MINUTE;
+  }
+  isWorking() {
+    return true;
+  }
+}
+
+/**
+ * A shift timeline keeps a table of its merged working intervals with the working time before
+ * each one (a "working clock"), so both directions are two binary searches. The table covers
+ * a range of local days and grows when a question falls outside it.
+ */
+class ShiftTimeline implements Timeline {
+  readonly continuous = false;
+  private readonly cache = new Map<number, (readonly [number, number])[]>();
+  private readonly shiftMinutes: [number, number][][]; // per weekday Monday..Sunday
+  private readonly off: Set<number>;
+  private readonly hasWork: boolean;
+  private firstDay = 0;
+  private lastDay = -1; // table empty
+  private starts = new Float64Array(0);
+  private ends = new Float64Array(0);
+  /** working ms before interval i, and up to its end */
+  private cumStart = new Float64Array(0);
+  private cumEnd = new Float64Array(0);
+
+  constructor(
+    private readonly tz: string,
+    week: WeekSchedule,
+    daysOff: readonly string[],
+  ) {
+    this.shiftMinutes = WEEKDAYS.map((d) =>
+      (week[d] ?? [])
+        .map((s): [number, number] => {
+          const a = parseHm(s.start);
+          let b = parseHm(s.end);
+          if (b <= a) b += 24 * 60;
+          return [a, b];
+        })
+        .sort((x, y) => x[0] - y[0]),
+    );
+    this.off = new Set(daysOff.map(dayNumberOfDate));
+    this.hasWork = this.shiftMinutes.some((d) => d.length > 0);
+  }
+
+  shiftsOfDay(day: number) {
+    let r = this.cache.get(day);
+    if (!r) {
+      r = this.off.has(day)
+        ? []
+        : this.shiftMinutes[weekdayOfDayNumber(day)].map(([a, b]) => {
+            // minutes past 24:00 belong to the next local day
+            const s = utcOfLocal(this.tz, day + Math.floor(a / 1440), a % 1440);
+            const e = utcOfLocal(this.tz, day + Math.floor(b / 1440), b % 1440);
+            return [s, e] as const;
+          });
+      if (this.cache.size > 20_000) this.cache.clear();
+      this.cache.set(day, r);
+    }
+    return r;
+  }
+
+  /** Makes sure the table covers local days [from, to] (plus a margin). */
+  private cover(from: number, to: number): void {
+    if (from >= this.firstDay && to <= this.lastDay) return;
+    const empty = this.lastDay < this.firstDay;
+    const first = empty ? from - 60 : Math.min(this.firstDay, from - 60);
+    const last = empty ? to + 400 : Math.max(this.lastDay, to + 400);
+    const raw: (readonly [number, number])[] = [];
+    // the day before `first` may run a night shift into it
+    for (let d = first - 1; d <= last; d++) for (const iv of this.shiftsOfDay(d)) if (iv[1] > iv[0]) raw.push(iv);
+    raw.sort((x, y) => x[0] - y[0]);
+    const starts: number[] = [];
+    const ends: number[] = [];
+    for (const [s, e] of raw) {
+      const n = ends.length;
+      if (n && s <= ends[n - 1]) ends[n - 1] = Math.max(ends[n - 1], e);
+      else {
+        starts.push(s);
+        ends.push(e);
+      }
+    }
+    this.starts = Float64Array.from(starts);
+    this.ends = Float64Array.from(ends);
+    this.cumStart = new Float64Array(starts.length);
+    this.cumEnd = new Float64Array(starts.length);
+    let run = 0;
+    for (let i = 0; i < starts.length; i++) {
+      this.cumStart[i] = run;
+      run += ends[i] - starts[i];
+      this.cumEnd[i] = run;
+    }
+    this.firstDay = first;
+    this.lastDay = last;
+  }
+
+  /** working ms from the table's start up to t (t inside the table's range) */
+  private clock(t: number): number {
+    const st = this.starts;
+    let lo = 0;
+    let hi = st.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (st[mid] <= t) lo = mid + 1;
+      else hi = mid;
+    }
+    const i = lo - 1;
+    if (i < 0) return 0;
+    return t < this.ends[i] ? this.cumStart[i] + (t - st[i]) : this.cumEnd[i];
+  }
+
+  workingMinutesBetween(fromI: Instant, toI: Instant): number {
+    const from = toMs(fromI);
+    const to = toMs(toI);
+    this.cover(localDayNumber(this.tz, Math.min(from, to)) - 1, localDayNumber(this.tz, Math.max(from, to)) + 1);
+    return (this.clock(to) - this.clock(from)) / MINUTE;
+  }
+
+  addWorkingMinutes(fromI: Instant, minutes: number): number {
+    if (!(minutes >= 0)) throw new RangeError('minutes must be >= 0');
+    const from = toMs(fromI);
+    if (minutes === 0) return from;
+    if (!this.hasWork) throw new RangeError('the calendar has no working time');
+    const fromDay = localDayNumber(this.tz, from);
+    let horizon = fromDay + Math.ceil(minutes / 1440) + 14;
+    for (;;) {
+      this.cover(fromDay - 1, horizon);
+      const target = this.clock(from) + minutes * MINUTE;
+      const ce = this.cumEnd;
+      if (ce.length && ce[ce.length - 1] >= target) {
+        // first interval whose end reaches the target
+        let lo = 0;
+        let hi = ce.length;
+        while (lo < hi) {
+          const mid = (lo + hi) >>> 1;
+          if (ce[mid] < target) lo = mid + 1;
+          else hi = mid;
+        }
+        return this.starts[lo] + (target - this.cumStart[lo]);
+      }
+      if (horizon - fromDay > MAX_SEARCH_DAYS) throw new RangeError('no working time within ten years');
+      horizon = fromDay + (horizon - fromDay) * 2;
+    }
+  }
+
+  isWorking(tI: Instant): boolean {
+    const t = toMs(tI);
+    const day = localDayNumber(this.tz, t);
+    for (const d of [day - 1, day]) for (const [s, e] of this.shiftsOfDay(d)) if (t >= s && t < e) return true;
+    return false;
+  }
+}
+
+export interface WorkingCalendar {
+  readonly timeZone: string;
+  /** the factory's own timeline */
+  readonly factory: Timeline;
+  /** a station's timeline: the first key with an exception wins (pass id before kind) */
+  forStation(...keys: (string | null | undefined)[]): Timeline;
+}
+
+export function validateCalendar(config: CalendarConfig): string[] {
+  const problems: string[] = [];
+  if (!isValidTimeZone(config.timeZone)) problems.push(`unknown time zone: ${config.timeZone}`);
+  const checkWeek = (w: WeekSchedule | undefined, where: string) => {
+    if (!w) return;
+    for (const d of WEEKDAYS)
+      for (const s of w[d] ?? []) {
+        try {
+          if (parseHm(s.start) === parseHm(s.end)) problems.push(`${where} ${d}: a shift needs a length`);
+        } catch (e) {
+          problems.push(`${where} ${d}: ${(e as Error).message}`);
+        }
+      }
+  };
+  const checkDays = (ds: readonly string[] | undefined, where: string) => {
+    for (const d of ds ?? []) {
+      try {
+        dayNumberOfDate(d);
+      } catch (e) {
+        problems.push(`${where}: ${(e as Error).message}`);
+      }
+    }
+  };
+  checkWeek(config.week, 'factory');
+  checkDays(config.daysOff, 'factory days off');
+  for (const [k, st] of Object.entries(config.stations ?? {})) {
+    checkWeek(st.week, k);
+    checkDays(st.daysOff, `${k} days off`);
+  }
+  return problems;
+}
+
+export function compileCalendar(config: CalendarConfig): WorkingCalendar {
+  const problems = validateCalendar(config);
+  if (problems.length) throw new RangeError(problems.join('; '));
+  const tz = config.timeZone;
+  const factory = new ShiftTimeline(tz, config.week, config.daysOff);
+  const continuous = new ContinuousTimeline(tz);
+  const perKey = new Map<string, Timeline>();
+  for (const [key, st] of Object.entries(config.stations ?? {})) {
+    if (st.continuous) perKey.set(key, continuous);
+    else if (st.week || st.daysOff?.length)
+      perKey.set(key, new ShiftTimeline(tz, st.week ?? config.week, [...config.daysOff, ...(st.daysOff ?? [])]));
+  }
+  return {
+    timeZone: tz,
+    factory,
+    forStation(...keys) {
+      for (const k of keys) {
+        if (k == null) continue;
+        const t = perKey.get(k);
+        if (t) return t;
+      }
+      return factory;
+    },
+  };
+}
+
+/** Monday to Friday 08:00-12:00 and 13:00-17:00, ovens continuous: a simple starting point. */
+export function defaultCalendarConfig(timeZone = 'UTC'): CalendarConfig {
+  const day: Shift[] = [
+    { start: '08:00', end: '12:00' },
+    { start: '13:00', end: '17:00' },
+  ];
+  return {
+    timeZone,
+    week: { mon: day, tue: day, wed: day, thu: day, fri: day, sat: [], sun: [] },
+    daysOff: [],
+    stations: { cure: { continuous: true } },
+  };
+}

@@ -1,0 +1,215 @@
+// Flow figures: flow efficiency, the cumulative flow diagram, throughput, WIP over time and a
+// Little's Law check (L = lambda W). All instants are UTC epoch milliseconds.
+//
+// Flow efficiency counts only process time (start -> finish at a station) as value-adding.
+// Oven cure is needed but unattended, so it is not counted as value-adding; its share of the
+// flow time is reported beside it, so a reader can see both.
+
+import { MINUTE, dateOfDayNumber, localDayNumber, utcOfLocal } from './calendar';
+
+export interface FlowEfficiencyInput {
+  processMinutes: number;
+  cureMinutes?: number;
+  flowMinutes: number;
+}
+
+export interface FlowEfficiency {
+  processMinutes: number;
+  cureMinutes: number;
+  flowMinutes: number;
+  /** process / flow; null when flow time is 0 */
+  flowEfficiency: number | null;
+  /** cure / flow */
+  cureShare: number | null;
+  /** (process + cure) / flow, for a reader who counts cure as value-adding */
+  withCure: number | null;
+}
+
+export function flowEfficiency({ processMinutes, cureMinutes = 0, flowMinutes }: FlowEfficiencyInput): FlowEfficiency {
+  if (processMinutes < 0 || cureMinutes < 0 || flowMinutes < 0) throw new RangeError('times must be >= 0');
+  const f = flowMinutes > 0 ? flowMinutes : null;
+  return {
+    processMinutes,
+    cureMinutes,
+    flowMinutes,
+    flowEfficiency: f ? processMinutes / f : null,
+    cureShare: f ? cureMinutes / f : null,
+    withCure: f ? (processMinutes + cureMinutes) / f : null,
+  };
+}
+
+// ---- buckets --------------------------------------------------------------------------
+
+export type BucketSize = 'day' | 'week';
+
+export interface Bucket {
+  /** local date of the bucket's first day */
+  label: string;
+  start: number;
+  end: number;
+}
+
+/** Local days (or Monday-based weeks) in the factory's zone covering [from, to). */
+export function makeBuckets(timeZone: string, from: number, to: number, size: BucketSize): Bucket[] {
+  if (to <= from) return [];
+  let day = localDayNumber(timeZone, from);
+  if (size === 'week') day -= (((day + 3) % 7) + 7) % 7; // back to Monday
+  const step = size === 'week' ? 7 : 1;
+  const out: Bucket[] = [];
+  for (;;) {
+    const start = utcOfLocal(timeZone, day, 0);
+    if (start >= to) break;
+    const end = utcOfLocal(timeZone, day + step, 0);
+    out.push({ label: dateOfDayNumber(day), start, end });
+    day += step;
+    if (out.length > 20_000) throw new RangeError('too many buckets');
+  }
+  return out;
+}
+
+function upperBound(sorted: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (sorted[mid] <= x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+function lowerBound(sorted: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (sorted[mid] < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** How many of the instants fall in each bucket [start, end). */
+export function countPerBucket(times: readonly number[], buckets: readonly Bucket[]): number[] {
+  const sorted = Float64Array.from(times).sort();
+  return buckets.map((b) => lowerBound(sorted, b.end) - lowerBound(sorted, b.start));
+}
+
+// ---- cumulative flow diagram ----------------------------------------------------------
+
+export interface StageArrival {
+  itemId: string;
+  /** index into the ordered stage list (0 = first stage) */
+  stage: number;
+  at: number;
+}
+
+/**
+ * Cumulative flow: for every instant in `at` and every stage, how many items had reached that
+ * stage or a later one by then. Counting "that stage or later" keeps each line non-decreasing
+ * and the lines nested even when an item skips a stage, so the vertical gap between the lines
+ * of stages a < b is the number of items between a and b (WIP) at that instant.
+ */
+export function cumulativeFlow(arrivals: readonly StageArrival[], stageCount: number, at: readonly number[]): number[][] {
+  const first = new Map<string, number[]>();
+  for (const a of arrivals) {
+    if (a.stage < 0 || a.stage >= stageCount || !Number.isInteger(a.stage)) throw new RangeError(`bad stage ${a.stage}`);
+    let row = first.get(a.itemId);
+    if (!row) first.set(a.itemId, (row = new Array(stageCount).fill(Infinity)));
+    if (a.at < row[a.stage]) row[a.stage] = a.at;
+  }
+  const reached: number[][] = Array.from({ length: stageCount }, () => []);
+  for (const row of first.values()) {
+    let earliest = Infinity;
+    for (let s = stageCount - 1; s >= 0; s--) {
+      earliest = Math.min(earliest, row[s]);
+      if (earliest < Infinity) reached[s].push(earliest);
+    }
+  }
+  const sorted = reached.map((r) => Float64Array.from(r).sort());
+  return at.map((t) => sorted.map((s) => upperBound(s, t)));
+}
+
+/** Items between stage a (reached) and stage b (not yet reached) at each row of a CFD. */
+export function wipBetween(cfd: readonly number[][], a: number, b: number): number[] {
+  return cfd.map((row) => row[a] - row[b]);
+}
+
+// ---- WIP over time --------------------------------------------------------------------
+
+export interface Interval {
+  start: number;
+  /** null while the item is still in the system */
+  end: number | null;
+}
+
+export interface WipPoint {
+  /** time-weighted average WIP over the bucket (up to `now` for the current bucket) */
+  average: number;
+  /** WIP at the bucket's end (or at `now`) */
+  atEnd: number;
+}
+
+/** WIP per bucket from items' [start, end) stays; open stays run to `now`. */
+export function wipOverTime(items: readonly Interval[], buckets: readonly Bucket[], now: number): WipPoint[] {
+  const starts = Float64Array.from(items.map((i) => i.start)).sort();
+  const ends = Float64Array.from(items.map((i) => i.end ?? Infinity)).sort();
+  return buckets.map((b) => {
+    const to = Math.min(b.end, now);
+    if (to <= b.start) return { average: 0, atEnd: 0 };
+    const atEnd = upperBound(starts, to) - upperBound(ends, to);
+    return { average: averageWip(items, b.start, to, starts, ends), atEnd };
+  });
+}
+
+/** Time-average number of items in the system over [from, to). */
+export function averageWip(items: readonly Interval[], from: number, to: number, starts?: Float64Array, ends?: Float64Array): number {
+  // integral of WIP = integral of (how many started by t) - (how many ended by t)
+  const s = starts ?? Float64Array.from(items.map((i) => i.start)).sort();
+  const e = ends ?? Float64Array.from(items.map((i) => i.end ?? Infinity)).sort();
+  return (integralCount(s, from, to) - integralCount(e, from, to)) / (to - from);
+}
+
+/** integral over [from, to) of #{x in sorted : x <= t} dt */
+function integralCount(sorted: Float64Array, from: number, to: number): number {
+  const before = upperBound(sorted, from);
+  let total = before * (to - from);
+  for (let i = before; i < sorted.length && sorted[i] < to; i++) total += to - sorted[i];
+  return total;
+}
+
+// ---- Little's Law ---------------------------------------------------------------------
+
+export interface LittlesLawCheck {
+  windowMinutes: number;
+  /** L: time-average number in the system over the window */
+  averageWip: number;
+  /** lambda: departures per minute in the window */
+  throughputPerMinute: number;
+  /** W: mean flow time (minutes) of the items that departed in the window */
+  meanFlowMinutes: number | null;
+  /** L / lambda */
+  impliedFlowMinutes: number | null;
+  /** |W - L/lambda| / W */
+  relativeGap: number | null;
+  departures: number;
+}
+
+/** Compares measured mean flow time with average WIP / throughput over [from, to). */
+export function littlesLaw(items: readonly Interval[], from: number, to: number): LittlesLawCheck {
+  if (to <= from) throw new RangeError('empty window');
+  const L = averageWip(items, from, to);
+  const departed = items.filter((i) => i.end !== null && i.end >= from && i.end < to);
+  const lambda = departed.length / ((to - from) / MINUTE);
+  const W = departed.length ? departed.reduce((s, i) => s + ((i.end as number) - i.start), 0) / departed.length / MINUTE : null;
+  const implied = lambda > 0 ? L / lambda : null;
+  return {
+    windowMinutes: (to - from) / MINUTE,
+    averageWip: L,
+    throughputPerMinute: lambda,
+    meanFlowMinutes: W,
+    impliedFlowMinutes: implied,
+    relativeGap: W && implied !== null ? Math.abs(W - implied) / W : null,
+    departures: departed.length,
+  };
+}

@@ -1,0 +1,82 @@
+// Sample statistics used by every report. Percentiles are Hyndman & Fan (1996) type 7:
+// linear interpolation between order statistics, the default of R and NumPy.
+
+export const PERCENTILE_METHOD = 'Hyndman & Fan type 7' as const;
+
+export interface Summary {
+  n: number;
+  p50: number | null;
+  p85: number | null;
+  p95: number | null;
+  mean: number | null;
+}
+
+/** Type 7 quantile of values already sorted ascending. */
+export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
+  if (sorted.length === 0) throw new RangeError('quantile of an empty sample');
+  if (!(p >= 0 && p <= 1)) throw new RangeError('p must be within [0, 1]');
+  const h = (sorted.length - 1) * p;
+  const lo = Math.floor(h);
+  const hi = Math.min(lo + 1, sorted.length - 1);
+  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+/** Type 7 quantile of an unsorted sample (the input is not modified). */
+export function quantile(values: readonly number[], p: number): number {
+  return quantileSorted(sortNumbers(values), p);
+}
+
+export function sortNumbers(values: readonly number[]): number[] {
+  // typed-array sort is numeric (a plain Array sort would compare as strings)
+  return Array.from(Float64Array.from(values).sort());
+}
+
+export function mean(values: readonly number[]): number | null {
+  if (values.length === 0) return null;
+  let s = 0;
+  for (const v of values) s += v;
+  return s / values.length;
+}
+
+/** n, p50, p85, p95 and mean; percentiles and mean are null when n = 0. */
+export function summarize(values: readonly number[]): Summary {
+  const finite = values.filter((v) => Number.isFinite(v));
+  if (finite.length === 0) return { n: 0, p50: null, p85: null, p95: null, mean: null };
+  const sorted = sortNumbers(finite);
+  return {
+    n: sorted.length,
+    p50: quantileSorted(sorted, 0.5),
+    p85: quantileSorted(sorted, 0.85),
+    p95: quantileSorted(sorted, 0.95),
+    mean: mean(sorted),
+  };
+}
+
+/** Rounds every number of a summary for display or the wire (null stays null). */
+export function roundSummary(s: Summary, digits = 2): Summary {
+  const f = 10 ** digits;
+  const r = (v: number | null) => (v === null ? null : Math.round(v * f) / f);
+  return { n: s.n, p50: r(s.p50), p85: r(s.p85), p95: r(s.p95), mean: r(s.mean) };
+}
+
+/** A small seeded pseudo-random generator (mulberry32): same seed, same sequence, in [0, 1). */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** A 32-bit seed from a string (FNV-1a), so an order's projection is stable between requests. */
+export function seedOf(text: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) {
+    h ^= text.charCodeAt(i);
+    h = Math.imul(h, 0x01000193);
+  }
+  return h >>> 0;
+}

@@ -1,0 +1,101 @@
+import { describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
+import {
+  IMPORT_COLUMNS,
+  IMPORT_EXAMPLE,
+  formatColoursCell,
+  parseColoursCell,
+  previewOrderImport,
+} from './order-import';
+
+const header = IMPORT_COLUMNS.join(',');
+const good =
+  'Harbour Rowing Club,Club crest,pin,hard_enamel,iron,25,500,5,"Navy (C-281) #1b2a4a; White #ffffff",gold,butterfly_clutch,1,no,no,no,individual_bag,2026-05-29,';
+
+describe('CSV import preview', () => {
+  it('the example file imports', () => {
+    const p = previewOrderImport(IMPORT_EXAMPLE);
+    expect(p.fileErrors).toEqual([]);
+    expect(p.validCount).toBe(1);
+    expect(p.rows[0].spec).toMatchObject({
+      customer: 'Harbour Rowing Club',
+      process: 'hard_enamel',
+      sizeMm: 25,
+      quantity: 500,
+      overrunPct: 5,
+      colours: [
+        { name: 'Navy', ref: 'C-281', hex: '#1b2a4a' },
+        { name: 'White', hex: '#ffffff' },
+      ],
+      backing: { type: 'butterfly_clutch', count: 1 },
+      backLogo: false,
+    });
+  });
+
+  it('names the bad cell of each bad row and keeps the good rows', () => {
+    const csv = [
+      header,
+      good,
+      'Harbour Rowing Club,Oars,pin,hard_enamel,iron,25,lots,5,Navy,gold,butterfly_clutch,1,no,no,no,individual_bag,2026-05-29,',
+      'Harbour Rowing Club,Oars,pin,glass,iron,25,100,5,Navy,gold,butterfly_clutch,1,no,no,no,individual_bag,2026-02-30,',
+      'Harbour Rowing Club,Oars,pin,hard_enamel,iron,25,100,15,Navy #12345,gold,butterfly_clutch,1,maybe,no,no,individual_bag,2026-05-29,',
+    ].join('\n');
+    const p = previewOrderImport(csv);
+    expect(p.fileErrors).toEqual([]);
+    expect(p.validCount).toBe(1);
+    expect(p.rows.map((r) => r.line)).toEqual([2, 3, 4, 5]);
+    expect(p.rows[1].errors.map((e) => e.column)).toEqual(['quantity']);
+    expect(p.rows[2].errors.map((e) => e.column).sort()).toEqual(['dueDate', 'process']);
+    // overrun above 10 %, a boolean that is neither yes nor no
+    expect(p.rows[3].errors.map((e) => e.column).sort()).toEqual(['backLogo', 'overrunPct']);
+  });
+
+  it('accepts the words people type: labels, semicolons, yes/no, decimal comma', () => {
+    const csv = [
+      'Customer;Title;Process;Material;Size;Qty;Colours;Plating;Fitting;Fitting count;Back logo;Packaging;Due',
+      'Lantern Society;Anniversary;3D die-cast;Zinc;"38,5";200;Gold;Antique gold;Magnet;1;yes;Gift box;2026-06-01',
+    ].join('\n');
+    const p = previewOrderImport(csv);
+    expect(p.fileErrors).toEqual([]);
+    expect(p.rows[0].errors).toEqual([]);
+    expect(p.rows[0].spec).toMatchObject({
+      process: 'die_cast_3d',
+      material: 'zinc_alloy',
+      sizeMm: 38.5,
+      plating: 'antique_gold',
+      backing: { type: 'magnet', count: 1 },
+      backLogo: true,
+      packaging: 'gift_box',
+    });
+  });
+
+  it('an unusual size warns but imports', () => {
+    const p = previewOrderImport([header, good.replace(',25,500,', ',140,500,')].join('\n'));
+    expect(p.validCount).toBe(1);
+    expect(p.rows[0].warnings[0].code).toBe('size_unusual');
+  });
+
+  it('refuses files that are not order CSVs', () => {
+    expect(previewOrderImport('').fileErrors).toEqual(['The file is empty']);
+    expect(previewOrderImport('%PDF-1.7\n1 0 obj').fileErrors.length).toBeGreaterThan(0);
+    expect(previewOrderImport(header).fileErrors).toContain('The file has a header but no orders');
+    expect(previewOrderImport('title,quantity\nA,1').fileErrors[0]).toMatch(/Missing columns: customer/);
+    const allBad = previewOrderImport([header, good.replace('hard_enamel', 'glass')].join('\n'));
+    expect(allBad.validCount).toBe(0);
+    expect(allBad.fileErrors).toContain('No row can be imported');
+  });
+
+  it('reports unknown columns without failing', () => {
+    const p = previewOrderImport([`${header},salesRep`, `${good},Ana`].join('\n'));
+    expect(p.unknownColumns).toEqual(['salesRep']);
+    expect(p.validCount).toBe(1);
+  });
+
+  it('colours round-trip through the cell format', () => {
+    const colours = [{ name: 'Navy', ref: 'C-281', hex: '#1b2a4a' }, { name: 'Gold' }, { name: 'Sky blue', hex: '#7fb3e0' }];
+    expect(parseColoursCell(formatColoursCell(colours))).toEqual(colours);
+    // and survive CSV quoting done by an independent writer (papaparse unparse)
+    const line = Papa.unparse([[formatColoursCell(colours)]]);
+    expect(parseColoursCell(Papa.parse<string[]>(line, { delimiter: ',' }).data[0][0])).toEqual(colours);
+  });
+});

@@ -1,0 +1,20 @@
+import type { Db } from './db/client';
+import type { Env } from './env';
+import type { Logger } from 'pino';
+
+/** What every route handler and service can reach. Features add optional members here. */
+export interface AppDeps {
+  db: Db;
+  env: Env;
+  log: Logger;
+  keys: {
+    /** signs session tokens */
+    session: Uint8Array;
+    /** signs traveller QR codes */
+    traveller: Uint8Array;
+  };
+  /** the server clock in epoch ms; tests may pin it */
+  now: () => number;
+  /** per-address sign-in attempts allowed per 15 minutes */
+  loginAttemptsPerWindow: number;
+}

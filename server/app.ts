@@ -1,0 +1,70 @@
+import express from 'express';
+import helmet from 'helmet';
+import cookieParser from 'cookie-parser';
+import { pinoHttp } from 'pino-http';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { AppDeps } from './app-deps';
+import { Api } from './http/api';
+import { authenticate } from './middleware/authenticate';
+import { errorHandler, notFoundApi } from './middleware/error-handler';
+import { registerAuthRoutes } from './routes/auth.routes';
+import { registerUserRoutes } from './routes/users.routes';
+import { registerStationRoutes } from './routes/stations.routes';
+import { registerDeviceRoutes } from './routes/devices.routes';
+
+const clientDist = fileURLToPath(new URL('../dist', import.meta.url));
+
+export interface CreatedApp {
+  app: express.Express;
+  api: Api;
+}
+
+/** Builds the HTTP app without listening (the Supertest target). */
+export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}): CreatedApp {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'media-src': ["'self'", 'blob:'],
+          'worker-src': ["'self'", 'blob:'],
+          'connect-src': ["'self'"],
+          'upgrade-insecure-requests': deps.env.publicUrl.startsWith('https://') ? [] : null,
+        },
+      },
+      strictTransportSecurity: deps.env.publicUrl.startsWith('https://'),
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger: deps.log,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      serializers: { req: (req) => ({ method: req.method, url: req.url }), res: (res) => ({ statusCode: res.statusCode }) },
+    }),
+  );
+  app.use(cookieParser());
+
+  const api = new Api(deps);
+  registerAuthRoutes(api, deps);
+  registerUserRoutes(api);
+  registerStationRoutes(api);
+  registerDeviceRoutes(api, deps);
+
+  app.use('/api', express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
+
+  if (options.serveClient !== false && fs.existsSync(path.join(clientDist, 'index.html'))) {
+    app.use(express.static(clientDist, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get(/^\/(?!api\/).*/, (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(path.join(clientDist, 'index.html'));
+    });
+  }
+  app.use(errorHandler);
+  return { app, api };
+}

@@ -1,0 +1,124 @@
+import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { id, ms, flag, createdAt, updatedAt } from './columns';
+import { customers } from './customers';
+import { users } from './users';
+
+export interface ColourSpec {
+  name: string;
+  ref?: string;
+  hex?: string;
+}
+
+export const orders = sqliteTable(
+  'orders',
+  {
+    id: id(),
+    number: text('number').notNull().unique(),
+    customerId: text('customer_id')
+      .notNull()
+      .references(() => customers.id),
+    title: text('title').notNull(),
+    process: text('process').notNull(),
+    material: text('material').notNull(),
+    sizeMm: real('size_mm').notNull(),
+    quantity: integer('quantity').notNull(),
+    overrunPct: real('overrun_pct').notNull().default(5),
+    colours: text('colours', { mode: 'json' }).$type<ColourSpec[]>().notNull(),
+    plating: text('plating').notNull(),
+    backingType: text('backing_type').notNull(),
+    backingCount: integer('backing_count').notNull().default(1),
+    backLogo: flag('back_logo').notNull().default(false),
+    printing: flag('printing').notNull().default(false),
+    epoxy: flag('epoxy').notNull().default(false),
+    packaging: text('packaging').notNull(),
+    dueDate: text('due_date').notNull(),
+    notes: text('notes').notNull().default(''),
+    status: text('status').notNull().default('draft'),
+    /** the same artwork reordered shares this key, and so its stored moulds */
+    designKey: text('design_key').notNull(),
+    traySize: integer('tray_size'),
+    salesOwnerId: text('sales_owner_id').references(() => users.id),
+    createdBy: text('created_by').references(() => users.id),
+    releasedAt: ms('released_at'),
+    packedAt: ms('packed_at'),
+    shippedAt: ms('shipped_at'),
+    cancelledAt: ms('cancelled_at'),
+    holdReason: text('hold_reason'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index('orders_status_idx').on(t.status),
+    index('orders_customer_idx').on(t.customerId),
+    index('orders_due_idx').on(t.dueDate),
+    index('orders_released_idx').on(t.releasedAt),
+    index('orders_shipped_idx').on(t.shippedAt),
+    index('orders_design_idx').on(t.designKey),
+  ],
+);
+
+/** An order's routing. Steps for mould travellers are kept apart by traveller_kind. */
+export const orderSteps = sqliteTable(
+  'order_steps',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id, { onDelete: 'cascade' }),
+    travellerKind: text('traveller_kind', { enum: ['tray', 'mould'] })
+      .notNull()
+      .default('tray'),
+    seq: integer('seq').notNull(),
+    name: text('name').notNull(),
+    stationKind: text('station_kind').notNull(),
+    trayMinutes: real('tray_minutes').notNull(),
+    pieceMinutes: real('piece_minutes').notNull(),
+    cureMinutes: integer('cure_minutes'),
+    colour: integer('colour'),
+  },
+  (t) => [uniqueIndex('order_steps_seq_uq').on(t.orderId, t.travellerKind, t.seq)],
+);
+
+export const payments = sqliteTable(
+  'payments',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id),
+    amount: real('amount'),
+    reference: text('reference').notNull(),
+    /** a manager's recorded exception: released without payment */
+    isException: flag('is_exception').notNull().default(false),
+    note: text('note').notNull().default(''),
+    recordedBy: text('recorded_by')
+      .notNull()
+      .references(() => users.id),
+    recordedAt: ms('recorded_at').notNull(),
+  },
+  (t) => [index('payments_order_idx').on(t.orderId)],
+);
+
+export const proofs = sqliteTable(
+  'proofs',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id),
+    revision: integer('revision').notNull(),
+    /** sha-256 of the file; the file lives under the data folder by this hash */
+    fileHash: text('file_hash').notNull(),
+    mime: text('mime').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    originalName: text('original_name').notNull(),
+    uploadedBy: text('uploaded_by')
+      .notNull()
+      .references(() => users.id),
+    uploadedAt: ms('uploaded_at').notNull(),
+    approvedAt: ms('approved_at'),
+    approvedBy: text('approved_by').references(() => users.id),
+    approvalNote: text('approval_note'),
+  },
+  (t) => [uniqueIndex('proofs_revision_uq').on(t.orderId, t.revision)],
+);

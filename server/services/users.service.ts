@@ -1,0 +1,84 @@
+import crypto from 'node:crypto';
+import type { AppDeps } from '../app-deps';
+import { usersRepository, type UserRow } from '../repositories/users.repository';
+import { auditRepository } from '../repositories/audit.repository';
+import { hashSecret } from './auth.service';
+import { conflict, notFound } from '../errors';
+import type { CreateUserBody, UpdateUserBody, UserView } from '@shared/schemas/users';
+import type { Role } from '@shared/domain/vocabulary';
+
+export function toUserView(u: UserRow): UserView {
+  return {
+    id: u.id,
+    name: u.name,
+    email: u.email,
+    role: u.role as Role,
+    badge: u.badge,
+    hasPin: !!u.pinHash,
+    active: u.active,
+    lastLoginAt: u.lastLoginAt ? new Date(u.lastLoginAt).toISOString() : null,
+  };
+}
+
+export const usersService = {
+  list: (deps: AppDeps) => usersRepository.list(deps.db).map(toUserView),
+
+  create(deps: AppDeps, input: CreateUserBody, actorId: string | null) {
+    const { db } = deps;
+    if (usersRepository.byEmail(db, input.email)) throw conflict('email_taken', 'Someone already uses that e-mail address.');
+    if (input.badge && usersRepository.byBadge(db, input.badge)) throw conflict('badge_taken', 'That badge is already given to someone.');
+    const now = deps.now();
+    const id = crypto.randomUUID();
+    db.transaction((tx) => {
+      usersRepository.insert(tx, {
+        id,
+        name: input.name,
+        email: input.email.toLowerCase(),
+        role: input.role,
+        passwordHash: hashSecret(input.password),
+        badge: input.badge ?? null,
+        pinHash: input.pin ? hashSecret(input.pin) : null,
+        createdAt: now,
+        updatedAt: now,
+      });
+      auditRepository.record(tx, now, { userId: actorId, action: 'user.create', entity: 'user', entityId: id, detail: { role: input.role } });
+    });
+    const row = usersRepository.byId(db, id)!;
+    return { id, name: row.name, email: row.email, role: row.role };
+  },
+
+  update(deps: AppDeps, id: string, patch: UpdateUserBody, actorId: string) {
+    const { db } = deps;
+    const user = usersRepository.byId(db, id);
+    if (!user) throw notFound('That user');
+    if (patch.badge && patch.badge !== user.badge && usersRepository.byBadge(db, patch.badge)) {
+      throw conflict('badge_taken', 'That badge is already given to someone.');
+    }
+    if (id === actorId && (patch.active === false || (patch.role && patch.role !== 'admin'))) {
+      throw conflict('self_lockout', 'You cannot switch off or demote your own account. Ask another administrator.');
+    }
+    const now = deps.now();
+    db.transaction((tx) => {
+      usersRepository.update(tx, id, {
+        ...(patch.name !== undefined && { name: patch.name }),
+        ...(patch.role !== undefined && { role: patch.role }),
+        ...(patch.active !== undefined && { active: patch.active }),
+        ...(patch.badge !== undefined && { badge: patch.badge }),
+        ...(patch.pin !== undefined && { pinHash: hashSecret(patch.pin) }),
+        ...(patch.password !== undefined && { passwordHash: hashSecret(patch.password), failedLogins: 0, throttledUntil: null }),
+        updatedAt: now,
+      });
+      // A role change or a switch-off takes effect at once: end the person's sessions.
+      if (patch.active === false || (patch.role && patch.role !== user.role)) usersRepository.revokeUserSessions(tx, id, now);
+      const { password: _p, pin: _q, ...visible } = patch;
+      auditRepository.record(tx, now, {
+        userId: actorId,
+        action: 'user.update',
+        entity: 'user',
+        entityId: id,
+        detail: { ...visible, pinReset: patch.pin !== undefined, passwordReset: patch.password !== undefined },
+      });
+    });
+    return toUserView(usersRepository.byId(db, id)!);
+  },
+};

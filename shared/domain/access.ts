@@ -1,0 +1,13 @@
+import type { Role } from './vocabulary';
+
+// Who may use what: named groups so routes and navigation say the same thing.
+export const ALL_ROLES: readonly Role[] = ['operator', 'supervisor', 'planner', 'manager', 'sales', 'admin'];
+export const OFFICE: readonly Role[] = ['supervisor', 'planner', 'manager', 'sales', 'admin'];
+export const FLOOR_LEADS: readonly Role[] = ['supervisor', 'planner', 'manager', 'admin'];
+export const PLANNING: readonly Role[] = ['planner', 'manager', 'admin'];
+export const REPORT_READERS: readonly Role[] = ['manager', 'planner', 'admin'];
+export const ADMIN_ONLY: readonly Role[] = ['admin'];
+
+export function mayUse(role: Role | null | undefined, allowed: readonly Role[]): boolean {
+  return !!role && allowed.includes(role);
+}

@@ -1,0 +1,14 @@
+import { redirect, type LoaderFunctionArgs } from 'react-router';
+import { queryClient } from '@/lib/query-client';
+import { meQueryOptions } from '@/features/auth/api/get-me';
+import { paths } from '@/config/paths';
+
+/** Loader of the signed-in area: sends visitors without a session to the sign-in page. */
+export async function requireUser({ request }: LoaderFunctionArgs) {
+  const me = await queryClient.ensureQueryData(meQueryOptions());
+  if (!me) {
+    const url = new URL(request.url);
+    throw redirect(`${paths.signIn}?next=${encodeURIComponent(url.pathname + url.search)}`);
+  }
+  return me;
+}

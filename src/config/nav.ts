@@ -1,0 +1,26 @@
+import type { LucideIcon } from 'lucide-react';
+import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone } from 'lucide-react';
+import type { Role } from '@shared/domain/vocabulary';
+import { paths } from './paths';
+
+export interface NavItem {
+  to: string;
+  label: string;
+  icon: LucideIcon;
+  roles: readonly Role[];
+}
+
+/** The navigation shows only what the signed-in role may use (the server checks again). */
+export const NAV: NavItem[] = [
+  { to: paths.station, label: 'Station', icon: ScanLine, roles: ['operator', 'supervisor'] },
+  { to: paths.floor, label: 'Floor', icon: LayoutDashboard, roles: ['supervisor', 'planner', 'manager', 'admin'] },
+  { to: paths.orders, label: 'Orders', icon: ClipboardList, roles: ['planner', 'manager', 'supervisor', 'admin'] },
+  { to: paths.moulds, label: 'Moulds', icon: Boxes, roles: ['planner', 'manager', 'supervisor', 'admin'] },
+  { to: paths.loads, label: 'Oven & bath loads', icon: Flame, roles: ['supervisor', 'planner', 'manager'] },
+  { to: paths.reports, label: 'Reports', icon: LineChart, roles: ['manager', 'planner', 'admin', 'sales'] },
+  { to: paths.sales, label: 'Order status', icon: Search, roles: ['sales', 'manager', 'planner', 'admin'] },
+  { to: paths.wall, label: 'Wall', icon: MonitorPlay, roles: ['supervisor', 'manager', 'admin'] },
+  { to: paths.adminUsers, label: 'People', icon: Users, roles: ['admin'] },
+  { to: paths.adminStations, label: 'Stations', icon: Factory, roles: ['admin'] },
+  { to: paths.adminDevices, label: 'Tablets & walls', icon: TabletSmartphone, roles: ['admin'] },
+];

@@ -1,0 +1,35 @@
+import type { Role } from '@shared/domain/vocabulary';
+
+// Every client path in one place.
+export const paths = {
+  signIn: '/sign-in',
+  home: '/',
+  station: '/station',
+  pair: '/pair',
+  floor: '/floor',
+  wall: '/wall',
+  orders: '/orders',
+  newOrder: '/orders/new',
+  importOrders: '/orders/import',
+  order: (id: string) => `/orders/${id}`,
+  tray: (id: string) => `/trays/${id}`,
+  moulds: '/moulds',
+  loads: '/loads',
+  reports: '/reports',
+  sales: '/sales',
+  admin: '/admin',
+  adminUsers: '/admin/users',
+  adminStations: '/admin/stations',
+  adminDevices: '/admin/devices',
+  publicStatus: (token: string) => `/status/${token}`,
+} as const;
+
+/** Where each role lands after signing in: the first thing that person needs. */
+export const roleHome: Record<Role, string> = {
+  operator: paths.station,
+  supervisor: paths.floor,
+  planner: paths.orders,
+  manager: paths.reports,
+  sales: paths.sales,
+  admin: paths.adminUsers,
+};

@@ -1,0 +1,22 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { LoginBody, SessionUserWire } from '@shared/schemas/auth';
+import { authKeys } from './auth-keys';
+
+export const signIn = (body: LoginBody) => api.post<{ user: SessionUserWire }>('/auth/login', body);
+export const signOut = () => api.post<void>('/auth/logout');
+
+export function useSignIn() {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: signIn, onSuccess: () => qc.invalidateQueries({ queryKey: authKeys.all }) });
+}
+
+export function useSignOut() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: signOut,
+    onSuccess: () => {
+      qc.clear();
+    },
+  });
+}

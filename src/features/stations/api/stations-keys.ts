@@ -1,0 +1,4 @@
+export const stationsKeys = {
+  all: ['stations'] as const,
+  list: () => [...stationsKeys.all, 'list'] as const,
+};

@@ -95,6 +95,7 @@ CREATE TABLE `orders` (
 	`number` text NOT NULL,
 	`customer_id` text NOT NULL,
 	`title` text NOT NULL,
+	`product_type` text DEFAULT 'pin' NOT NULL,
 	`process` text NOT NULL,
 	`material` text NOT NULL,
 	`size_mm` real NOT NULL,

@@ -18,6 +18,8 @@ export const orders = sqliteTable(
       .notNull()
       .references(() => customers.id),
     title: text('title').notNull(),
+    /** pin, coin, medal or key ring: decides which size bounds the form warns about */
+    productType: text('product_type').notNull().default('pin'),
     process: text('process').notNull(),
     material: text('material').notNull(),
     sizeMm: real('size_mm').notNull(),

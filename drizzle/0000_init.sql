@@ -374,6 +374,8 @@ CREATE INDEX `cartons_order_idx` ON `cartons` (`order_id`);--> statement-breakpo
 CREATE TABLE `mail_queue` (
 	`id` text PRIMARY KEY NOT NULL,
 	`kind` text NOT NULL,
+	`dedupe_key` text,
+	`order_id` text,
 	`to` text NOT NULL,
 	`subject` text NOT NULL,
 	`text` text NOT NULL,
@@ -387,28 +389,37 @@ CREATE TABLE `mail_queue` (
 	`sent_at` integer
 );
 --> statement-breakpoint
+CREATE UNIQUE INDEX `mail_queue_dedupe_key_unique` ON `mail_queue` (`dedupe_key`);--> statement-breakpoint
 CREATE TABLE `share_links` (
 	`id` text PRIMARY KEY NOT NULL,
 	`order_id` text NOT NULL,
 	`token_hash` text NOT NULL,
+	`purpose` text DEFAULT 'manual' NOT NULL,
 	`created_by` text,
 	`created_at` integer NOT NULL,
 	`revoked_at` integer,
+	`revoked_by` text,
+	`last_opened_at` integer,
 	FOREIGN KEY (`order_id`) REFERENCES `orders`(`id`) ON UPDATE no action ON DELETE no action
 );
 --> statement-breakpoint
 CREATE UNIQUE INDEX `share_links_token_hash_unique` ON `share_links` (`token_hash`);--> statement-breakpoint
+CREATE INDEX `share_links_order_idx` ON `share_links` (`order_id`);--> statement-breakpoint
 CREATE TABLE `shipments` (
 	`id` text PRIMARY KEY NOT NULL,
 	`order_id` text NOT NULL,
+	`number` integer NOT NULL,
 	`carrier` text NOT NULL,
 	`tracking_number` text NOT NULL,
 	`pieces` integer NOT NULL,
 	`shipped_at` integer NOT NULL,
+	`short_accepted` integer DEFAULT false NOT NULL,
+	`note` text,
 	`created_by` text,
 	`created_at` integer NOT NULL,
 	FOREIGN KEY (`order_id`) REFERENCES `orders`(`id`) ON UPDATE no action ON DELETE no action
 );
 --> statement-breakpoint
 CREATE INDEX `shipments_order_idx` ON `shipments` (`order_id`);--> statement-breakpoint
-CREATE INDEX `shipments_tracking_idx` ON `shipments` (`tracking_number`);
+CREATE INDEX `shipments_tracking_idx` ON `shipments` (`tracking_number`);--> statement-breakpoint
+CREATE UNIQUE INDEX `shipments_order_number_uq` ON `shipments` (`order_id`,`number`);

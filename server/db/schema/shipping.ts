@@ -1,5 +1,5 @@
-import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core';
-import { id, ms } from './columns';
+import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { id, ms, flag } from './columns';
 import { orders } from './orders';
 
 export const shipments = sqliteTable(
@@ -9,14 +9,23 @@ export const shipments = sqliteTable(
     orderId: text('order_id')
       .notNull()
       .references(() => orders.id),
+    /** 1, 2, 3… per order (partial shipments) */
+    number: integer('number').notNull(),
     carrier: text('carrier').notNull(),
     trackingNumber: text('tracking_number').notNull(),
     pieces: integer('pieces').notNull(),
     shippedAt: ms('shipped_at').notNull(),
+    /** shipped fewer pieces than ordered on a recorded decision */
+    shortAccepted: flag('short_accepted').notNull().default(false),
+    note: text('note'),
     createdBy: text('created_by'),
     createdAt: ms('created_at').notNull(),
   },
-  (t) => [index('shipments_order_idx').on(t.orderId), index('shipments_tracking_idx').on(t.trackingNumber)],
+  (t) => [
+    index('shipments_order_idx').on(t.orderId),
+    index('shipments_tracking_idx').on(t.trackingNumber),
+    uniqueIndex('shipments_order_number_uq').on(t.orderId, t.number),
+  ],
 );
 
 export const cartons = sqliteTable(
@@ -37,21 +46,32 @@ export const cartons = sqliteTable(
 );
 
 /** Read-only customer status links; only the token's hash is stored. */
-export const shareLinks = sqliteTable('share_links', {
-  id: id(),
-  orderId: text('order_id')
-    .notNull()
-    .references(() => orders.id),
-  tokenHash: text('token_hash').notNull().unique(),
-  createdBy: text('created_by'),
-  createdAt: ms('created_at').notNull(),
-  revokedAt: ms('revoked_at'),
-});
+export const shareLinks = sqliteTable(
+  'share_links',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id),
+    tokenHash: text('token_hash').notNull().unique(),
+    /** why it was made: by a person, or for the shipped mail */
+    purpose: text('purpose', { enum: ['manual', 'shipped_mail'] }).notNull().default('manual'),
+    createdBy: text('created_by'),
+    createdAt: ms('created_at').notNull(),
+    revokedAt: ms('revoked_at'),
+    revokedBy: text('revoked_by'),
+    lastOpenedAt: ms('last_opened_at'),
+  },
+  (t) => [index('share_links_order_idx').on(t.orderId)],
+);
 
 /** Outgoing mail, queued so a send never blocks a scan or a release. */
 export const mailQueue = sqliteTable('mail_queue', {
   id: id(),
   kind: text('kind').notNull(),
+  /** a message that must go once only (the daily digest per day and person) */
+  dedupeKey: text('dedupe_key').unique(),
+  orderId: text('order_id'),
   to: text('to').notNull(),
   subject: text('subject').notNull(),
   text: text('text').notNull(),

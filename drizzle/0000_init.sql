@@ -422,4 +422,64 @@ CREATE TABLE `shipments` (
 --> statement-breakpoint
 CREATE INDEX `shipments_order_idx` ON `shipments` (`order_id`);--> statement-breakpoint
 CREATE INDEX `shipments_tracking_idx` ON `shipments` (`tracking_number`);--> statement-breakpoint
-CREATE UNIQUE INDEX `shipments_order_number_uq` ON `shipments` (`order_id`,`number`);
+CREATE UNIQUE INDEX `shipments_order_number_uq` ON `shipments` (`order_id`,`number`);--> statement-breakpoint
+CREATE TABLE `report_cursors` (
+	`name` text PRIMARY KEY NOT NULL,
+	`position` integer NOT NULL,
+	`updated_at` integer NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE `step_runs` (
+	`id` integer PRIMARY KEY AUTOINCREMENT NOT NULL,
+	`tray_id` text NOT NULL,
+	`order_id` text NOT NULL,
+	`traveller_kind` text NOT NULL,
+	`step_seq` integer NOT NULL,
+	`station_kind` text NOT NULL,
+	`station_id` text,
+	`ready_at` integer NOT NULL,
+	`started_at` integer,
+	`finished_at` integer NOT NULL,
+	`queue_minutes` real,
+	`process_minutes` real,
+	`cure_minutes` real,
+	`qty_in` integer NOT NULL,
+	`good_qty` integer NOT NULL,
+	`scrap_qty` integer NOT NULL,
+	`rework_qty` integer NOT NULL,
+	`scrap_reason` text,
+	`implicit` integer DEFAULT false NOT NULL
+);
+--> statement-breakpoint
+CREATE INDEX `step_runs_finished_idx` ON `step_runs` (`finished_at`);--> statement-breakpoint
+CREATE INDEX `step_runs_kind_finished_idx` ON `step_runs` (`station_kind`,`finished_at`);--> statement-breakpoint
+CREATE INDEX `step_runs_order_idx` ON `step_runs` (`order_id`,`step_seq`);--> statement-breakpoint
+CREATE INDEX `step_runs_tray_idx` ON `step_runs` (`tray_id`);--> statement-breakpoint
+CREATE TABLE `load_trays` (
+	`load_id` text NOT NULL,
+	`tray_id` text NOT NULL,
+	`order_id` text NOT NULL,
+	`quantity` integer NOT NULL,
+	PRIMARY KEY(`load_id`, `tray_id`),
+	FOREIGN KEY (`load_id`) REFERENCES `loads`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`tray_id`) REFERENCES `trays`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`order_id`) REFERENCES `orders`(`id`) ON UPDATE no action ON DELETE no action
+);
+--> statement-breakpoint
+CREATE INDEX `load_trays_tray_idx` ON `load_trays` (`tray_id`);--> statement-breakpoint
+CREATE TABLE `loads` (
+	`id` text PRIMARY KEY NOT NULL,
+	`number` text NOT NULL,
+	`kind` text NOT NULL,
+	`group_key` text NOT NULL,
+	`status` text NOT NULL,
+	`created_by` text,
+	`created_at` integer NOT NULL,
+	`split_at` integer,
+	`split_by` text,
+	FOREIGN KEY (`created_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`split_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
+);
+--> statement-breakpoint
+CREATE UNIQUE INDEX `loads_number_unique` ON `loads` (`number`);--> statement-breakpoint
+CREATE INDEX `loads_status_idx` ON `loads` (`status`);

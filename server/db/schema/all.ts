@@ -9,3 +9,5 @@ export * from './trays';
 export * from './scans';
 export * from './reference-data';
 export * from './shipping';
+export * from './reports';
+export * from './loads';

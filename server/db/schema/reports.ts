@@ -1,0 +1,48 @@
+import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core';
+import { ms, flag } from './columns';
+
+/**
+ * One row per step a traveller went through: derived from the append-only scan events (never
+ * edited by hand), so reports aggregate a few indexed rows per step instead of pairing a year of
+ * raw events on every request. Rebuilt per traveller when new events for it arrive.
+ */
+export const stepRuns = sqliteTable(
+  'step_runs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    trayId: text('tray_id').notNull(),
+    orderId: text('order_id').notNull(),
+    travellerKind: text('traveller_kind', { enum: ['tray', 'mould'] }).notNull(),
+    stepSeq: integer('step_seq').notNull(),
+    stationKind: text('station_kind').notNull(),
+    stationId: text('station_id'),
+    /** when the traveller became ready for this step (previous finish, cure ready, release) */
+    readyAt: ms('ready_at').notNull(),
+    startedAt: ms('started_at'),
+    finishedAt: ms('finished_at').notNull(),
+    queueMinutes: real('queue_minutes'),
+    processMinutes: real('process_minutes'),
+    /** minimum cure minutes of a cure step (the oven time the routing asked for) */
+    cureMinutes: real('cure_minutes'),
+    qtyIn: integer('qty_in').notNull(),
+    goodQty: integer('good_qty').notNull(),
+    scrapQty: integer('scrap_qty').notNull(),
+    reworkQty: integer('rework_qty').notNull(),
+    scrapReason: text('scrap_reason'),
+    /** a cure step closed on its own when the next step started */
+    implicit: flag('implicit').notNull().default(false),
+  },
+  (t) => [
+    index('step_runs_finished_idx').on(t.finishedAt),
+    index('step_runs_kind_finished_idx').on(t.stationKind, t.finishedAt),
+    index('step_runs_order_idx').on(t.orderId, t.stepSeq),
+    index('step_runs_tray_idx').on(t.trayId),
+  ],
+);
+
+/** How far the derived report tables have read the event log (by rowid). */
+export const reportCursors = sqliteTable('report_cursors', {
+  name: text('name').primaryKey(),
+  position: integer('position').notNull(),
+  updatedAt: ms('updated_at').notNull(),
+});

@@ -1,6 +1,7 @@
 import type { Db } from './db/client';
 import type { Env } from './env';
 import type { Logger } from 'pino';
+import type { SendMailOptions } from 'nodemailer';
 
 /** What every route handler and service can reach. Features add optional members here. */
 export interface AppDeps {
@@ -17,4 +18,6 @@ export interface AppDeps {
   now: () => number;
   /** per-address sign-in attempts allowed per 15 minutes */
   loginAttemptsPerWindow: number;
+  /** outgoing mail (set by startMail); without it, messages stay queued */
+  mail?: { send: (message: SendMailOptions) => Promise<unknown>; from: string };
 }

@@ -9,6 +9,7 @@ const envSchema = z.object({
   TRAYCE_ADMIN_EMAIL: z.email().default('admin@trayce.local'),
   TRAYCE_ADMIN_PASSWORD: z.string().min(8).max(72).default('trayce-admin'),
   SMTP_URL: z.string().url().optional(),
+  MAIL_FROM: z.string().min(3).optional(),
   TRAYCE_PUBLIC_URL: z.string().url().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
@@ -21,6 +22,8 @@ export interface Env {
   adminEmail: string;
   adminPassword: string;
   smtpUrl?: string;
+  /** sender of outgoing mail ("Name <address>"); default: the factory name at the public host */
+  mailFrom?: string;
   publicUrl: string;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
 }
@@ -41,6 +44,7 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     adminEmail: e.TRAYCE_ADMIN_EMAIL,
     adminPassword: e.TRAYCE_ADMIN_PASSWORD,
     smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
     publicUrl: e.TRAYCE_PUBLIC_URL ?? `http://localhost:${e.PORT}`,
     logLevel: e.LOG_LEVEL,
   };

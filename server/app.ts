@@ -13,6 +13,13 @@ import { registerAuthRoutes } from './routes/auth.routes';
 import { registerUserRoutes } from './routes/users.routes';
 import { registerStationRoutes } from './routes/stations.routes';
 import { registerDeviceRoutes } from './routes/devices.routes';
+import { registerScanRoutes } from './routes/scans.routes';
+import { registerShippingRoutes } from './routes/shipping.routes';
+import { registerSalesRoutes } from './routes/sales.routes';
+import { registerMailRoutes } from './routes/mail.routes';
+import { registerAdminRoutes } from './routes/admin.routes';
+import { registerOrderRoutes } from './routes/orders.routes';
+import { registerTrayRoutes } from './routes/trays.routes';
 
 const clientDist = fileURLToPath(new URL('../dist', import.meta.url));
 
@@ -54,11 +61,24 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   registerUserRoutes(api);
   registerStationRoutes(api);
   registerDeviceRoutes(api, deps);
+  registerScanRoutes(api);
+  registerShippingRoutes(api);
+  registerSalesRoutes(api);
+  registerMailRoutes(api);
+  registerAdminRoutes(api);
+  registerOrderRoutes(api);
+  registerTrayRoutes(api);
 
   app.use('/api', express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
 
   if (options.serveClient !== false && fs.existsSync(path.join(clientDist, 'index.html'))) {
     app.use(express.static(clientDist, { index: false, maxAge: '1h' }));
+    // A customer's status page is private: search engines must not index it.
+    app.use('/status', (_req, res, next) => {
+      res.set('X-Robots-Tag', 'noindex, nofollow, noarchive');
+      res.set('Referrer-Policy', 'no-referrer');
+      next();
+    });
     // Client-side routes: every other GET gets the app shell.
     app.get(/^\/(?!api\/).*/, (_req, res) => {
       res.set('Cache-Control', 'no-cache');

@@ -1,4 +1,6 @@
-import { createBrowserRouter } from 'react-router';
+import { createBrowserRouter, redirect } from 'react-router';
+import { AdminLayout } from '@/components/layout/admin-layout';
+import { ADMIN_ONLY } from '@shared/domain/access';
 import { AppShell } from '@/components/layout/app-shell';
 import { RouteError } from '@/components/layout/route-error';
 import { requireUser } from './auth-loader';
@@ -16,10 +18,19 @@ export const router = createBrowserRouter([
         ErrorBoundary: RouteError,
         children: [
           { index: true, lazy: () => import('./routes/home/role-home') },
-          { path: 'admin', lazy: () => import('./routes/home/role-home') },
-          { path: 'admin/users', lazy: () => import('./routes/admin/users') },
-          { path: 'admin/stations', lazy: () => import('./routes/admin/stations') },
-          { path: 'admin/devices', lazy: () => import('./routes/admin/devices') },
+          {
+            path: 'admin',
+            Component: AdminLayout,
+            handle: { roles: ADMIN_ONLY },
+            children: [
+              { index: true, loader: () => redirect('/admin/users') },
+              { path: 'users', lazy: () => import('./routes/admin/users') },
+              { path: 'stations', lazy: () => import('./routes/admin/stations') },
+              { path: 'devices', lazy: () => import('./routes/admin/devices') },
+              { path: 'reason-codes', lazy: () => import('./routes/admin/reason-codes') },
+              { path: 'backups', lazy: () => import('./routes/admin/backups') },
+            ],
+          },
           { path: '*', lazy: () => import('./routes/errors/not-found') },
         ],
       },

@@ -1,5 +1,5 @@
 import type { LucideIcon } from 'lucide-react';
-import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone } from 'lucide-react';
+import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { paths } from './paths';
 
@@ -20,7 +20,14 @@ export const NAV: NavItem[] = [
   { to: paths.reports, label: 'Reports', icon: LineChart, roles: ['manager', 'planner', 'admin', 'sales'] },
   { to: paths.sales, label: 'Order status', icon: Search, roles: ['sales', 'manager', 'planner', 'admin'] },
   { to: paths.wall, label: 'Wall', icon: MonitorPlay, roles: ['supervisor', 'manager', 'admin'] },
-  { to: paths.adminUsers, label: 'People', icon: Users, roles: ['admin'] },
-  { to: paths.adminStations, label: 'Stations', icon: Factory, roles: ['admin'] },
-  { to: paths.adminDevices, label: 'Tablets & walls', icon: TabletSmartphone, roles: ['admin'] },
+  { to: paths.admin, label: 'Admin', icon: Settings, roles: ['admin'] },
+];
+
+/** Sections of the admin area, shown as tabs there. */
+export const ADMIN_SECTIONS: Omit<NavItem, 'roles'>[] = [
+  { to: paths.adminUsers, label: 'People', icon: Users },
+  { to: paths.adminStations, label: 'Stations', icon: Factory },
+  { to: paths.adminDevices, label: 'Tablets & walls', icon: TabletSmartphone },
+  { to: paths.adminReasonCodes, label: 'Reasons', icon: Tags },
+  { to: paths.adminBackups, label: 'Backups', icon: DatabaseBackup },
 ];

@@ -21,6 +21,8 @@ export const paths = {
   adminUsers: '/admin/users',
   adminStations: '/admin/stations',
   adminDevices: '/admin/devices',
+  adminReasonCodes: '/admin/reason-codes',
+  adminBackups: '/admin/backups',
   publicStatus: (token: string) => `/status/${token}`,
 } as const;
 

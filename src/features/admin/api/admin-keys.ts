@@ -1,0 +1,5 @@
+export const adminKeys = {
+  all: ['admin'] as const,
+  reasonCodes: () => [...adminKeys.all, 'reason-codes'] as const,
+  backups: () => [...adminKeys.all, 'backups'] as const,
+};

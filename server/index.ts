@@ -1,9 +1,12 @@
 import { loadEnv } from './env';
 import { boot } from './boot';
 import { createApp } from './app';
+import { startMail } from './services/mail.service';
 
 const env = loadEnv();
 const deps = await boot(env);
+// Outgoing mail: SMTP_URL, or the local catcher on a loopback port; the queue worker runs here.
+const mail = await startMail(deps);
 const { app } = createApp(deps);
 const server = app.listen(env.port, () => {
   deps.log.info(`Trayce is serving on http://localhost:${env.port}`);
@@ -11,6 +14,7 @@ const server = app.listen(env.port, () => {
 
 function shutdown(signal: string) {
   deps.log.info(`${signal}: closing`);
+  void mail.stop();
   server.close(() => {
     deps.db.$client.close();
     process.exit(0);

@@ -9,7 +9,7 @@ import type { RoutingStep } from '@shared/domain/vocabulary';
 const require = createRequire(import.meta.url);
 
 /** Our house font, embedded from the installed package (WOFF; pdfkit reads it through fontkit). */
-function fontFile(weight: 400 | 700): string {
+export function fontFile(weight: 400 | 700): string {
   const dir = path.join(path.dirname(require.resolve('@fontsource/atkinson-hyperlegible/package.json')), 'files');
   return path.join(dir, `atkinson-hyperlegible-latin-${weight}-normal.woff`);
 }

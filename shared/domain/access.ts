@@ -11,3 +11,8 @@ export const ADMIN_ONLY: readonly Role[] = ['admin'];
 export function mayUse(role: Role | null | undefined, allowed: readonly Role[]): boolean {
   return !!role && allowed.includes(role);
 }
+
+// Packing, dispatch and the customer side.
+export const SHIPPING: readonly Role[] = ['planner', 'supervisor', 'sales', 'admin'];
+export const SALES_VIEW: readonly Role[] = ['sales', 'manager', 'planner', 'admin'];
+export const SHARE_LINKS: readonly Role[] = ['sales', 'planner', 'admin'];

@@ -10,7 +10,9 @@ import {
   overrunAllowance,
   packingProgress,
   planCartons,
+  projectedPastDue,
   trayIsPacked,
+  trayReachedPacking,
   type TrayPackState,
 } from './shipping';
 import type { StationKind } from './vocabulary';
@@ -154,6 +156,13 @@ describe('packing progress', () => {
     expect(trayIsPacked({ phase: 'waiting', stepSeq: 1, quantity: 5, routing: r })).toBe(false);
     expect(trayIsPacked({ phase: 'waiting', stepSeq: 2, quantity: 5, routing: r })).toBe(true);
   });
+  it('counts pieces as finished once the tray stands at packing', () => {
+    expect(trayReachedPacking(t(3, 100))).toBe(false);
+    expect(trayReachedPacking(t(4, 100))).toBe(true);
+    expect(trayReachedPacking(t(5, 100))).toBe(true);
+    expect(trayReachedPacking(t(null, 100))).toBe(true);
+    expect(trayReachedPacking(t(4, 100, 'scrapped'))).toBe(false);
+  });
   it('shows what is still on the floor of a partly packed order', () => {
     const p = packingProgress([t(5, 100), t(null, 120), t(2, 90), t(4, 80, 'in_process'), t(3, 40, 'scrapped')]);
     expect(p.packedPieces).toBe(220);
@@ -168,5 +177,18 @@ describe('tracking numbers as typed or scanned', () => {
     expect(normaliseTrackingNumber(']C1 1z 999 aa1 0123456784\r\n')).toBe('1Z999AA10123456784');
     expect(normaliseTrackingNumber('JD01 4600 0038\u001d')).toBe('JD0146000038');
     expect(normaliseTrackingNumber('  ab-123  ')).toBe('AB-123');
+  });
+});
+
+describe('projected ship time against the due date', () => {
+  // A due date is a whole local day. Asia/Shanghai is UTC+8 all year, no daylight saving (IANA tz database).
+  it('is on time up to the end of the due date in the factory time zone', () => {
+    const endOfDueDay = Date.parse('2025-06-10T16:00:00Z'); // 2025-06-11 00:00 in Shanghai
+    expect(projectedPastDue(endOfDueDay - 60_000, '2025-06-10', 'Asia/Shanghai')).toBe(false);
+    expect(projectedPastDue(endOfDueDay, '2025-06-10', 'Asia/Shanghai')).toBe(true);
+  });
+  it('crosses month ends', () => {
+    expect(projectedPastDue(Date.parse('2025-01-31T23:59:00Z'), '2025-01-31', 'UTC')).toBe(false);
+    expect(projectedPastDue(Date.parse('2025-02-01T00:00:00Z'), '2025-01-31', 'UTC')).toBe(true);
   });
 });

@@ -1,6 +1,7 @@
 // The arithmetic of the last two steps: how many finished pieces an order may ship, what a set
 // of cartons holds, and when an order counts as shipped.
 import type { RoutingStep, TrayPhase } from './vocabulary';
+import { dateOfDayNumber, dayNumberOfDate, startOfLocalDate } from './calendar';
 
 /** Overrun allowance in pieces: ordered × percent, rounded up to a whole piece. */
 export function overrunAllowance(ordered: number, overrunPct: number): number {
@@ -179,6 +180,17 @@ export function trayIsPacked(t: TrayPackState): boolean {
   return t.stepSeq >= packedFrom;
 }
 
+/**
+ * True when the tray's pieces are finished and counted for shipping: it stands at (or is past)
+ * its first pack step, or at dispatch when its routing has no pack step.
+ */
+export function trayReachedPacking(t: TrayPackState): boolean {
+  if (t.phase === 'done') return true;
+  if (t.phase === 'scrapped' || t.phase === 'merged' || t.stepSeq === null) return false;
+  const first = t.routing.filter((s) => s.stationKind === 'pack' || s.stationKind === 'dispatch').map((s) => s.seq);
+  return first.length > 0 && t.stepSeq >= Math.min(...first);
+}
+
 /** How much of an order is packed and what is still on the floor. */
 export function packingProgress<T extends TrayPackState>(trays: readonly T[]): {
   packed: T[];
@@ -202,7 +214,17 @@ export function packingProgress<T extends TrayPackState>(trays: readonly T[]): {
  * type spaces and lower case. What remains is compared for duplicates.
  */
 export function normaliseTrackingNumber(raw: string): string {
-  let s = raw.replace(/[\u0000-\u001f\u007f]/g, '').trim();
+  // Control characters (line ends, the GS1 group separator) are dropped one by one.
+  let s = [...raw].filter((c) => c.charCodeAt(0) > 0x1f && c.charCodeAt(0) !== 0x7f).join('').trim();
   if (/^\][A-Za-z][0-9A-Za-z]/.test(s)) s = s.slice(3);
   return s.replace(/\s+/g, '').toUpperCase();
+}
+
+/**
+ * A projected ship time is past due when it falls after the end of the due date in the
+ * factory's time zone (a due date is a whole local day).
+ */
+export function projectedPastDue(projectedAt: number, dueDate: string, timeZone: string): boolean {
+  const dayAfter = dateOfDayNumber(dayNumberOfDate(dueDate) + 1);
+  return projectedAt >= startOfLocalDate(timeZone, dayAfter);
 }

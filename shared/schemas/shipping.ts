@@ -31,11 +31,21 @@ export const trackingNumberSchema = z
 
 export const carrierSchema = z.string().trim().min(1, 'Name the carrier').max(60);
 
+/** A carton in a shipment: a new carton line, or one already packed (by its id). */
+export const shipmentCartonSchema = z.union([cartonLineSchema, z.object({ cartonId: z.string().min(1) })]);
+export type ShipmentCartonInput = z.infer<typeof shipmentCartonSchema>;
+
+/** `POST /api/orders/:id/cartons`: cartons packed and waiting for dispatch */
+export const packCartonsSchema = z.object({
+  cartons: z.array(cartonLineSchema).min(1, 'At least one carton').max(100),
+});
+export type PackCartonsInput = z.infer<typeof packCartonsSchema>;
+
 /** `POST /api/orders/:id/shipments` */
 export const createShipmentSchema = z.object({
   carrier: carrierSchema,
   trackingNumber: trackingNumberSchema,
-  cartons: z.array(cartonLineSchema).min(1, 'At least one carton').max(100),
+  cartons: z.array(shipmentCartonSchema).min(1, 'At least one carton').max(100),
   /** confirm a tracking number that another order already uses */
   confirmDuplicate: z.boolean().optional(),
   /** ship an under-quantity order anyway (a recorded decision) */
@@ -45,22 +55,83 @@ export const createShipmentSchema = z.object({
 export type CreateShipmentInput = z.input<typeof createShipmentSchema>;
 export type CreateShipment = z.output<typeof createShipmentSchema>;
 
-export const shipmentSchema = z.object({
-  id: z.string(),
-  orderId: z.string(),
-  number: z.number().int(),
-  carrier: z.string(),
-  trackingNumber: z.string(),
-  cartons: z.array(cartonLineSchema),
-  pieces: z.number().int(),
-  cartonCount: z.number().int(),
-  weightKg: z.number(),
-  createdAt: z.string(),
-  createdBy: z.string().nullable(),
-  /** other orders that carry the same tracking number */
-  duplicateOf: z.array(z.string()).optional(),
-});
-export type Shipment = z.infer<typeof shipmentSchema>;
+export interface CartonView {
+  id: string;
+  count: number;
+  piecesPerCarton: number;
+  weightKg: number | null;
+  shipmentId: string | null;
+  createdAt: string;
+}
+
+export interface ShipmentView {
+  id: string;
+  orderId: string;
+  number: number;
+  carrier: string;
+  trackingNumber: string;
+  pieces: number;
+  cartonCount: number;
+  weightKg: number;
+  cartons: CartonView[];
+  shippedAt: string;
+  shortAccepted: boolean;
+  note: string | null;
+  createdBy: string | null;
+  /** numbers of other orders that carry the same tracking number */
+  sharedWith: string[];
+}
+
+export interface TrayOnFloor {
+  id: string;
+  number: string;
+  quantity: number;
+  phase: string;
+  stationKind: string | null;
+  stepName: string | null;
+  onHold: boolean;
+}
+
+export interface QuantityCheckView {
+  verdict: 'under' | 'ok' | 'over_allowance';
+  ordered: number;
+  overrunPct: number;
+  maxExpected: number;
+  /** good pieces at packing or beyond */
+  finished: number;
+  /** pieces still on the floor (may still shrink) */
+  onFloor: number;
+  /** finished + on the floor: what the order can still reach */
+  reachable: number;
+  shipped: number;
+  /** finished, not yet in a shipment */
+  availableToShip: number;
+  /** in packed cartons that are not shipped yet */
+  inCartons: number;
+  shortBy: number;
+  overBy: number;
+  needsDecision: boolean;
+  /** a shipment already recorded the decision to ship short */
+  shortAccepted: boolean;
+}
+
+/** `GET /api/orders/:id/packing` */
+export interface PackingView {
+  order: { id: string; number: string; title: string; customer: string; status: string; quantity: number; dueDate: string };
+  quantities: QuantityCheckView;
+  packedTrays: TrayOnFloor[];
+  onFloor: TrayOnFloor[];
+  cartons: CartonView[];
+  shipments: ShipmentView[];
+  shipped: boolean;
+  shippedAt: string | null;
+}
+
+/** answer of `POST /api/orders/:id/shipments` */
+export interface CreatedShipment extends ShipmentView {
+  /** mail queued for the shipped message, and who was left out (no address) */
+  mail: { queued: number; missing: string[] };
+}
 
 /** `POST /api/orders/:id/share` answer */
 export const shareLinkSchema = z.object({
@@ -85,11 +156,95 @@ export const publicStatusSchema = z.strictObject({
 });
 export type PublicStatus = z.infer<typeof publicStatusSchema>;
 
+/** `PUT /api/orders/:id/contact`: who hears about the order */
+export const orderContactSchema = z.object({
+  contactName: z.string().trim().max(120).optional(),
+  contactEmail: emailAddressSchema,
+  salesOwnerId: z.string().min(1).nullable().optional(),
+});
+export type OrderContactInput = z.infer<typeof orderContactSchema>;
+
+/** `GET /api/sales/orders?q=` */
+export const salesSearchQuerySchema = z.object({
+  q: z.string().trim().max(100).optional(),
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+});
+
+export interface StageLine {
+  name: string;
+  done: boolean;
+}
+
+export interface SalesOrderRow {
+  id: string;
+  number: string;
+  customer: string;
+  title: string;
+  quantity: number;
+  status: string;
+  dueDate: string;
+  stage: string;
+  stageText: string;
+  projectedShipAt: string | null;
+  late: boolean;
+  shippedAt: string | null;
+  trackingNumbers: string[];
+}
+
+export interface HistoryEntry {
+  at: string;
+  what: string;
+  who: string | null;
+}
+
+export interface ShareLinkInfo {
+  id: string;
+  purpose: 'manual' | 'shipped_mail';
+  createdAt: string;
+  createdBy: string | null;
+  revokedAt: string | null;
+  lastOpenedAt: string | null;
+}
+
+/** `GET /api/sales/orders/:id` */
+export interface SalesOrderDetail extends SalesOrderRow {
+  stages: StageLine[];
+  projectionNote: string;
+  overrunPct: number;
+  contact: { customerId: string; contactName: string | null; contactEmail: string | null };
+  salesOwner: { id: string; name: string; email: string } | null;
+  quantities: QuantityCheckView | null;
+  shipments: ShipmentView[];
+  shareLinks: ShareLinkInfo[];
+  proofs: { revision: number; approvedAt: string | null; uploadedAt: string }[];
+  history: HistoryEntry[];
+}
+
 /** `GET /api/mail` item */
 export const caughtMailSchema = z.object({
   to: z.string(),
   subject: z.string(),
   text: z.string(),
   sentAt: z.string(),
+  id: z.string().optional(),
+  from: z.string().optional(),
+  html: z.string().optional(),
+  attachments: z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() })).optional(),
 });
 export type CaughtMail = z.infer<typeof caughtMailSchema>;
+
+export interface MailQueueItem {
+  id: string;
+  kind: string;
+  to: string;
+  subject: string;
+  status: 'queued' | 'sent' | 'failed';
+  attempts: number;
+  nextAttemptAt: string;
+  lastError: string | null;
+  createdAt: string;
+  sentAt: string | null;
+}
+
+/** `POST /api/orders/:id/proofs/:revision/send` */
+export const proofRevisionParamsSchema = z.object({ id: z.string().min(1), revision: z.coerce.number().int().min(1) });

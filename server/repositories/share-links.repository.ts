@@ -1,0 +1,32 @@
+import { and, desc, eq, isNull } from 'drizzle-orm';
+import type { DbLike as Db } from '../db/client';
+import { shareLinks } from '../db/schema/shipping';
+import { users } from '../db/schema/users';
+
+export type ShareLinkRow = typeof shareLinks.$inferSelect;
+
+export const shareLinksRepository = {
+  insert: (db: Db, row: typeof shareLinks.$inferInsert) => db.insert(shareLinks).values(row).run(),
+  /** the live link with this token hash */
+  activeByHash: (db: Db, tokenHash: string) =>
+    db
+      .select()
+      .from(shareLinks)
+      .where(and(eq(shareLinks.tokenHash, tokenHash), isNull(shareLinks.revokedAt)))
+      .get(),
+  forOrder: (db: Db, orderId: string) =>
+    db
+      .select({ link: shareLinks, by: users.name })
+      .from(shareLinks)
+      .leftJoin(users, eq(users.id, shareLinks.createdBy))
+      .where(eq(shareLinks.orderId, orderId))
+      .orderBy(desc(shareLinks.createdAt))
+      .all(),
+  revokeAll: (db: Db, orderId: string, at: number, by: string) =>
+    db
+      .update(shareLinks)
+      .set({ revokedAt: at, revokedBy: by })
+      .where(and(eq(shareLinks.orderId, orderId), isNull(shareLinks.revokedAt)))
+      .run().changes,
+  touchOpened: (db: Db, id: string, at: number) => db.update(shareLinks).set({ lastOpenedAt: at }).where(eq(shareLinks.id, id)).run(),
+};

@@ -1,0 +1,88 @@
+// Projected ship dates for the sales view, the status page and the late-risk digest.
+//
+// This is the simple projection: each open tray's remaining standard minutes plus a fixed
+// queue allowance per step, laid on the factory's default working calendar (ovens continuous),
+// through the shared projection model. It needs no history, so it works on day one.
+import type { AppDeps } from '../app-deps';
+import { compileCalendar, defaultCalendarConfig, type WorkingCalendar } from '@shared/domain/calendar';
+import { projectTrays, type TrayOutlook } from '@shared/domain/projection';
+import { standardMinutes, type TrayPhase } from '@shared/domain/vocabulary';
+import { shippingRepository } from '../repositories/shipping.repository';
+
+/** Queue allowance per remaining step when nothing better is known (minutes of working time). */
+export const SIMPLE_QUEUE_MINUTES = 60;
+
+export interface ShipDate {
+  /** expected finish of the order's last tray (epoch ms); null before release */
+  expectedAt: number | null;
+  /** one line for the screen: how the date was made */
+  basis: string;
+}
+
+export interface ProjectionTraveller {
+  id: string;
+  kind: 'tray' | 'mould';
+  phase: TrayPhase;
+  stepSeq: number | null;
+  quantity: number;
+  onHold: boolean;
+  startedAt: number | null;
+  waitingSince: number | null;
+  cureReadyAt: number | null;
+  lastEventAt: number | null;
+}
+
+export interface ProjectionStep {
+  travellerKind: 'tray' | 'mould';
+  seq: number;
+  stationKind: string;
+  trayMinutes: number;
+  pieceMinutes: number;
+  cureMinutes: number | null;
+}
+
+const calendars = new Map<string, WorkingCalendar>();
+function calendarFor(timeZone: string): WorkingCalendar {
+  let c = calendars.get(timeZone);
+  if (!c) calendars.set(timeZone, (c = compileCalendar(defaultCalendarConfig(timeZone))));
+  return c;
+}
+
+export const BASIS_TEXT =
+  'Projected from the standard time of every step still to do, an hour of waiting before each step, and the working week (ovens cure around the clock).';
+
+/** The projected finish of one order from its travellers and routing. */
+export function projectOrder(
+  input: { status: string; travellers: ProjectionTraveller[]; steps: ProjectionStep[] },
+  now: number,
+  timeZone: string,
+): ShipDate {
+  const open = ['released', 'in_production', 'packed', 'on_hold'];
+  if (!open.includes(input.status) || input.travellers.length === 0) return { expectedAt: null, basis: BASIS_TEXT };
+  const routing = { tray: input.steps.filter((s) => s.travellerKind === 'tray'), mould: input.steps.filter((s) => s.travellerKind === 'mould') };
+  const outlooks: TrayOutlook[] = input.travellers.map((t) => {
+    const remaining = t.stepSeq == null ? [] : routing[t.kind].filter((s) => s.seq >= (t.stepSeq as number));
+    return {
+      trayId: t.id,
+      phase: t.phase,
+      steps: remaining.map((s) => ({
+        seq: s.seq,
+        stationKind: s.stationKind,
+        standardMinutes: standardMinutes(s, t.quantity),
+        cureMinutes: s.cureMinutes,
+      })),
+      startedAt: t.startedAt,
+      waitingSince: t.waitingSince,
+      cureReadyAt: t.cureReadyAt,
+      finishedAt: t.lastEventAt,
+      onHold: t.onHold,
+    };
+  });
+  const p = projectTrays(outlooks, { now, calendar: calendarFor(timeZone), queueSamples: {}, runs: 0, defaultQueueMinutes: SIMPLE_QUEUE_MINUTES });
+  return { expectedAt: p.expectedAt, basis: BASIS_TEXT };
+}
+
+export const shipDateService = {
+  timeZone: (deps: AppDeps) => shippingRepository.factory(deps.db).timeZone,
+  projectOrder,
+};

@@ -1,6 +1,7 @@
 // Wire shapes of orders: the spec a planner enters, the release and payment bodies,
 // and the gentle checks that warn (never block) about unusual specs.
 import { z } from 'zod';
+import type { RoutingStep, TrayPhase, TravellerKind, OrderStatus } from '@shared/domain/vocabulary';
 import {
   BACKING_TYPES,
   MATERIALS,
@@ -59,6 +60,8 @@ const specFields = {
   packaging: z.enum(PACKAGINGS),
   dueDate: isoDay,
   notes: z.string().trim().max(4000).default(''),
+  /** id of an earlier order with the same artwork: the reorder reuses its stored moulds */
+  reorderOf: z.string().trim().min(1).max(64).optional(),
 };
 
 type SpecShape = { customer?: string; customerId?: string; process: Process; colours: unknown[] };
@@ -189,3 +192,131 @@ export function specWarnings(spec: {
   }
   return warnings;
 }
+
+// ---------------------------------------------------------------------------------------
+// Answers
+
+export const ORDER_GATES = ['payment_missing', 'proof_not_approved'] as const;
+export type OrderGate = (typeof ORDER_GATES)[number];
+
+export interface OrderListItem {
+  id: string;
+  number: string;
+  customer: string;
+  customerId: string;
+  title: string;
+  process: string;
+  quantity: number;
+  status: OrderStatus;
+  /** the gates still open before release (empty once released) */
+  openGates: OrderGate[];
+  dueDate: string;
+  projectedShipAt: string | null;
+  late: boolean;
+  releasedAt: string | null;
+  trays: number;
+  createdAt: string;
+}
+
+export interface OrderRoutingStep extends RoutingStep {
+  /** standard minutes for a tray of the order's tray size */
+  standardMinutes: number;
+}
+
+export interface PaymentView {
+  id: string;
+  amount: number | null;
+  reference: string;
+  isException: boolean;
+  note: string;
+  recordedBy: string;
+  recordedAt: string;
+}
+
+export interface ProofView {
+  revision: number;
+  mime: string;
+  sizeBytes: number;
+  originalName: string;
+  uploadedBy: string;
+  uploadedAt: string;
+  approvedAt: string | null;
+  approvedBy: string | null;
+  approvalNote: string | null;
+}
+
+export interface TravellerSummary {
+  id: string;
+  number: string;
+  /** the exact text in its QR code */
+  code: string;
+  kind: TravellerKind;
+  quantity: number;
+  revision: number;
+  phase: TrayPhase;
+  onHold: boolean;
+  stepSeq: number | null;
+  stepName: string | null;
+  stationKind: string | null;
+  parentTrayId: string | null;
+  mergedIntoId: string | null;
+}
+
+export interface OrderMouldView extends TravellerSummary {
+  mouldId: string;
+  mouldNumber: string;
+  side: 'front' | 'back';
+  reused: boolean;
+  storageLocation: string | null;
+}
+
+export interface HistoryEntry {
+  at: string;
+  action: string;
+  by: string | null;
+  text: string;
+}
+
+export interface OrderDetail {
+  id: string;
+  number: string;
+  customer: { id: string; name: string };
+  spec: Omit<OrderSpec, 'customer' | 'customerId' | 'reorderOf'>;
+  status: OrderStatus;
+  holdReason: string | null;
+  reorderOf: { id: string; number: string } | null;
+  releasedQuantity: number;
+  traySize: number | null;
+  releasedAt: string | null;
+  shippedAt: string | null;
+  createdAt: string;
+  late: boolean;
+  projectedShipAt: string | null;
+  warnings: SpecWarning[];
+  openGates: OrderGate[];
+  payments: PaymentView[];
+  proofs: ProofView[];
+  routing: OrderRoutingStep[];
+  mouldRouting: RoutingStep[];
+  /** a new design needs front (and back) moulds engraved; a reorder reuses stored ones */
+  mouldPlan: { side: 'front' | 'back'; reuse: boolean; mouldNumber: string | null }[];
+  trays: TravellerSummary[];
+  moulds: OrderMouldView[];
+  history: HistoryEntry[];
+}
+
+export interface ReleasedTraveller {
+  id: string;
+  number: string;
+  code: string;
+  quantity: number;
+}
+
+export interface ReleaseResult {
+  trays: ReleasedTraveller[];
+  moulds: ReleasedTraveller[];
+}
+
+export const importBodySchema = z.strictObject({
+  csv: z.string().max(1024 * 1024),
+});

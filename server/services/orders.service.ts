@@ -39,6 +39,8 @@ import {
 import { MAX_TRAYS_PER_RELEASE, mouldNumber, releasedQuantity, splitIntoTrays, trayNumber } from '@shared/domain/trays';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { previewOrderImport } from '@shared/domain/order-import';
+import { loadProgress } from './order-progress.service';
+import { shipDateService } from './ship-date.service';
 import {
   initialTrayState,
   type BackingType,
@@ -244,14 +246,39 @@ export function summariseTraveller(deps: AppDeps, tray: TrayRow, state: TrayStat
   };
 }
 
+/** Projected ship date, lateness and the shown status (shipped once the last dispatch finished), from the shared progress model. */
+function progressOf(deps: AppDeps, rows: { order: OrderRow; customer: string }[]) {
+  const list = rows.map(({ order, customer }) => ({
+    id: order.id,
+    number: order.number,
+    title: order.title,
+    quantity: order.quantity,
+    overrunPct: order.overrunPct,
+    status: order.status,
+    dueDate: order.dueDate,
+    releasedAt: order.releasedAt,
+    packedAt: order.packedAt,
+    shippedAt: order.shippedAt,
+    createdAt: order.createdAt,
+    salesOwnerId: order.salesOwnerId,
+    customerId: order.customerId,
+    customer,
+    contactName: null,
+    contactEmail: null,
+  }));
+  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), { project: true });
+}
+
 // ---------------------------------------------------------------------------------------
 
 export const ordersService = {
   customers: (deps: AppDeps) => ordersRepository.customers(deps.db),
 
   list(deps: AppDeps): OrderListItem[] {
-    const now = deps.now();
-    return ordersRepository.list(deps.db).map(({ order, customer, trays, paid, latestProofApproved }) => {
+    const rows = ordersRepository.list(deps.db);
+    const progress = progressOf(deps, rows);
+    return rows.map(({ order, customer, trays, paid, latestProofApproved }) => {
+      const p = progress.get(order.id);
       const gates: OrderGate[] = isReleased(order)
         ? []
         : [...(paid ? [] : ['payment_missing' as const]), ...(latestProofApproved ? [] : ['proof_not_approved' as const])];
@@ -263,12 +290,11 @@ export const ordersService = {
         title: order.title,
         process: order.process,
         quantity: order.quantity,
-        status: order.status as OrderStatus,
+        status: p?.status ?? (order.status as OrderStatus),
         openGates: gates,
         dueDate: order.dueDate,
-        // the projection of ship dates belongs to the reports; until it is wired in, none is claimed
-        projectedShipAt: null,
-        late: isLate(order, now),
+        projectedShipAt: iso(p?.projection.expectedAt),
+        late: p?.late ?? isLate(order, deps.now()),
         releasedAt: iso(order.releasedAt),
         trays,
         createdAt: iso(order.createdAt)!,
@@ -307,6 +333,7 @@ export const ordersService = {
       });
     const firstOfDesign = ordersRepository.firstWithDesign(db, order.designKey);
     const spec = specOf(order);
+    const progress = progressOf(deps, [{ order, customer: customer.name }]).get(id);
     const history = ordersRepository.history(
       db,
       id,
@@ -322,16 +349,16 @@ export const ordersService = {
       number: order.number,
       customer: { id: customer.id, name: customer.name },
       spec,
-      status: order.status as OrderStatus,
+      status: progress?.status ?? (order.status as OrderStatus),
       holdReason: order.holdReason,
       reorderOf: firstOfDesign && firstOfDesign.id !== order.id ? { id: firstOfDesign.id, number: firstOfDesign.number } : null,
       releasedQuantity: releasedQuantity(order.quantity, order.overrunPct),
       traySize: order.traySize,
       releasedAt: iso(order.releasedAt),
-      shippedAt: iso(order.shippedAt),
+      shippedAt: iso(progress?.shippedAt ?? order.shippedAt),
       createdAt: iso(order.createdAt)!,
-      late: isLate(order, deps.now()),
-      projectedShipAt: null,
+      late: progress?.late ?? isLate(order, deps.now()),
+      projectedShipAt: iso(progress?.projection.expectedAt),
       warnings: specWarnings(spec),
       openGates: isReleased(order) ? [] : openGates(db, id),
       payments: payments.map(({ payment: p, by }) => ({

@@ -295,6 +295,8 @@ describe('release: trays, moulds, codes (product.md rule 4)', () => {
     expect(d.trays.every((x: { phase: string; stepSeq: number }) => x.phase === 'waiting' && x.stepSeq === 1)).toBe(true);
     expect(d.moulds[0]).toMatchObject({ side: 'front', reused: false, stepSeq: 1, stationKind: 'engrave' });
     expect(d.history.at(-1).text).toMatch(/Released 1050 pieces in 11 trays/);
+    // a released order gets a projected ship date after now (the shared projection)
+    expect(Date.parse(d.projectedShipAt)).toBeGreaterThan(Date.now());
     const tray = await planner.get(`/api/trays/${trays[0].id}`);
     expect(tray.body).toMatchObject({ id: trays[0].id, number: trays[0].number, code: trays[0].code, kind: 'tray', orderId: order.id, quantity: 100, status: 'waiting', nextStep: { seq: 1, stationKind: 'strike' } });
     expect(tray.body.routing.length).toBe(d.routing.length);

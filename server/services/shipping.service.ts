@@ -158,6 +158,10 @@ export const shippingService = {
         lines.push({ count: row.count, piecesPerCarton: row.piecesPerCarton, weightKg: row.weightKg ?? 0 });
       } else lines.push(c);
     }
+    // A tracking number twice on one order is a double scan of the same parcel.
+    if (shippingRepository.sameOrderTracking(deps.db, body.trackingNumber, orderId)) {
+      throw conflict('tracking_already_recorded', `Tracking number ${body.trackingNumber} is already recorded on this order. Scan the next parcel's barcode.`);
+    }
     const totals = cartonTotals(lines);
     const allowed = checkShipmentQuantity({ made: q.finished, alreadyShipped: q.shipped, pieces: totals.pieces });
     if (!allowed.ok) {
@@ -173,9 +177,6 @@ export const shippingService = {
         `Order ${p.order.number} will be ${q.shortBy} pieces short of the ${q.ordered} ordered (${q.reachable} made or still on the floor). Decide to ship short, or make more before shipping.`,
         { shortBy: q.shortBy, ordered: q.ordered, reachable: q.reachable },
       );
-    }
-    if (shippingRepository.sameOrderTracking(deps.db, body.trackingNumber, orderId)) {
-      throw conflict('tracking_already_recorded', `Tracking number ${body.trackingNumber} is already recorded on this order. Scan the next parcel's barcode.`);
     }
     const others = shippingRepository.ordersWithTracking(deps.db, body.trackingNumber, orderId);
     if (others.length > 0 && !body.confirmDuplicate) {

@@ -64,7 +64,7 @@ export const overrides = sqliteTable('overrides', {
     .notNull()
     .references(() => trays.id),
   stationId: text('station_id'),
-  kind: text('kind', { enum: ['wrong_station', 'curing'] }).notNull(),
+  kind: text('kind', { enum: ['wrong_station', 'curing', 'release'] }).notNull(),
   supervisorId: text('supervisor_id')
     .notNull()
     .references(() => users.id),

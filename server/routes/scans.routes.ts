@@ -1,0 +1,133 @@
+import { z } from 'zod';
+import multer from 'multer';
+import type { Api } from '../http/api';
+import { FLOOR_LEADS } from '@shared/domain/access';
+import type { Role } from '@shared/domain/vocabulary';
+import { exceptionsQuery, MAX_SCAN_BATCH, overrideBody, resolveExceptionBody, scanBatchEnvelopeSchema } from '@shared/schemas/scans';
+import { scansService } from '../services/scans.service';
+import { badInput, tooLarge } from '../errors';
+
+/** People who scan at a station (a supervisor may work a tablet too); the tablet itself may send its outbox. */
+export const SCANNING: readonly Role[] = ['operator', 'supervisor', 'admin'];
+/** People who decide on refused scans. */
+export const DECIDING: readonly Role[] = ['supervisor', 'manager', 'admin'];
+
+const idParams = z.object({ id: z.string().min(1).max(100) });
+const PHOTO_MAX_BYTES = 3 * 1024 * 1024;
+const photoUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1 } });
+
+// Counts the events before the full schema check, so a too-big batch gets 413 rather than 400.
+const batchBody = z.object({ events: z.array(z.unknown()) }).transform((b, ctx) => {
+  if (b.events.length > MAX_SCAN_BATCH) return b as { events: unknown[] };
+  const r = scanBatchEnvelopeSchema.safeParse(b);
+  if (!r.success) {
+    for (const issue of r.error.issues) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
+    return z.NEVER;
+  }
+  return r.data as { events: unknown[] };
+});
+
+export function registerScanRoutes(api: Api) {
+  api.route({
+    method: 'post',
+    path: '/scans',
+    access: { roles: SCANNING, devices: ['tablet'] },
+    body: batchBody,
+    handler: ({ deps, body, user, device }) => {
+      if (body.events.length > MAX_SCAN_BATCH) throw tooLarge(`Send at most ${MAX_SCAN_BATCH} scans at a time.`);
+      return scansService.submit(deps, body.events, { user, device });
+    },
+  });
+
+  api.route({
+    method: 'get',
+    path: '/scans/clock',
+    access: { roles: SCANNING, devices: ['tablet', 'wall'] },
+    handler: ({ deps }) => ({ serverTime: new Date(deps.now()).toISOString() }),
+  });
+
+  api.route({
+    method: 'post',
+    path: '/scans/overrides',
+    access: { roles: SCANNING, devices: ['tablet'] },
+    body: overrideBody,
+    status: 201,
+    handler: ({ deps, body }) => scansService.createOverride(deps, body),
+  });
+
+  api.route({
+    method: 'get',
+    path: '/scans/exceptions',
+    access: { roles: FLOOR_LEADS, devices: ['tablet'] },
+    query: exceptionsQuery,
+    handler: ({ deps, query, user, device }) => {
+      // A tablet (or an operator on it) sees only the refusals of its own scans.
+      const lead = !!user && FLOOR_LEADS.includes(user.role);
+      return scansService.exceptions(deps, {
+        open: query.open === 'all' ? undefined : query.open === 'true',
+        deviceId: lead ? undefined : device!.id,
+        sinceHours: query.sinceHours ?? (lead ? undefined : 48),
+        limit: query.limit,
+      });
+    },
+  });
+
+  api.route({
+    method: 'post',
+    path: '/scans/exceptions/:id/resolve',
+    access: { roles: DECIDING },
+    params: idParams,
+    body: resolveExceptionBody,
+    handler: ({ deps, params, body, user }) => scansService.resolve(deps, params.id, body, user!.id),
+  });
+
+  api.route({
+    method: 'post',
+    path: '/scans/exceptions/:id/retry',
+    access: { roles: DECIDING },
+    params: idParams,
+    handler: ({ deps, params, user }) => scansService.retry(deps, params.id, user!.id),
+  });
+
+  api.route({
+    method: 'get',
+    path: '/stations/:id/queue',
+    access: { roles: [...SCANNING, ...FLOOR_LEADS], devices: ['tablet'] },
+    params: idParams,
+    handler: ({ deps, params }) => scansService.stationQueue(deps, params.id),
+  });
+
+  api.route({
+    method: 'get',
+    path: '/scans/lookup',
+    access: { roles: [...SCANNING, ...FLOOR_LEADS], devices: ['tablet'] },
+    query: z.object({ code: z.string().trim().min(1).max(256) }),
+    handler: ({ deps, query }) => scansService.lookup(deps, query.code),
+  });
+
+  api.route({
+    method: 'post',
+    path: '/scans/photos',
+    access: { roles: SCANNING, devices: ['tablet'] },
+    before: [photoUpload.single('file')],
+    status: 201,
+    handler: ({ deps, req, user }) => {
+      const file = req.file;
+      if (!file) throw badInput('Attach the photo as the field "file".');
+      const fields = z.object({ code: z.string().trim().min(1).max(256), eventId: z.string().max(100).optional(), operatorId: z.string().max(64).optional() }).safeParse(req.body);
+      if (!fields.success) throw badInput('Say which tray the photo belongs to (field "code").');
+      return scansService.addPhoto(deps, { code: fields.data.code, eventId: fields.data.eventId, file }, user?.id ?? fields.data.operatorId ?? null);
+    },
+  });
+
+  api.route({
+    method: 'get',
+    path: '/scans/artwork/:id',
+    access: { roles: [...SCANNING, ...FLOOR_LEADS], devices: ['tablet'] },
+    params: idParams,
+    handler: ({ deps, params, res }) => {
+      const { content, mime } = scansService.artwork(deps, params.id);
+      res.set('Cache-Control', 'private, max-age=3600').type(mime).send(content);
+    },
+  });
+}

@@ -1,0 +1,707 @@
+import crypto from 'node:crypto';
+import type { AppDeps } from '../app-deps';
+import type { DbLike } from '../db/client';
+import type { DeviceAuth, SessionUser } from '../http/api';
+import { scansRepository, type OrderStepRow, type OverrideRow, type RejectionInsert, type ScanEventInsert, type TrayRow, type TrayStateRow } from '../repositories/scans.repository';
+import { auditRepository } from '../repositories/audit.repository';
+import { authService } from './auth.service';
+import { notifyFloorChanged } from './live-bus';
+import { AppError, badInput, conflict, notFound } from '../errors';
+import { putFile, readFile } from '../lib/file-store';
+import { evaluateScan, lastEventTime, type GuardResult, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
+import { refusalText } from '@shared/domain/scan-messages';
+import { parseTravellerCode, verifyTravellerCode } from '@shared/domain/traveller-code';
+import {
+  initialTrayState,
+  type RejectionCode,
+  type Role,
+  type RoutingStep,
+  type StationKind,
+  type TrayState,
+} from '@shared/domain/vocabulary';
+import {
+  scanEventSchema,
+  type ScanEvent,
+  type ScanResult,
+  type ScanTray,
+  type ScanBatchResponse,
+  type StationQueue,
+  type TrayCard,
+} from '@shared/schemas/scans';
+
+/** Refusals that a scan arriving late from another tablet can make right; they are tried again. */
+export const RETRYABLE_CODES: readonly RejectionCode[] = ['wrong_station', 'not_started', 'already_started', 'on_hold'];
+
+/** A supervisor override is good for this long after it was given. */
+export const OVERRIDE_MINUTES = 15;
+
+export interface ScanCaller {
+  user: SessionUser | null;
+  device: DeviceAuth | null;
+}
+
+/** Accepted scans, for listeners (the live wall, order status) that run in or after the batch's transaction. */
+export interface AcceptedScan {
+  eventId: string;
+  trayId: string;
+  orderId: string;
+  type: ScanEvent['type'];
+  stationId: string;
+  stationKind: StationKind;
+  occurredAt: number;
+  state: TrayState;
+}
+
+/**
+ * Other features hook in here instead of editing this service: `inTransaction` runs inside the
+ * batch's transaction (keep it quick; throw only for a bug), `afterCommit` after it committed.
+ */
+export const scanHooks = {
+  inTransaction: [] as Array<(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps) => void>,
+  afterCommit: [] as Array<(accepted: AcceptedScan[], deps: AppDeps) => void>,
+};
+
+const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
+const ms = (text: string | null | undefined) => (text == null ? null : Date.parse(text));
+
+export function stateFromRow(r: TrayStateRow): TrayState {
+  return {
+    trayId: r.trayId,
+    kind: r.kind,
+    phase: r.phase,
+    stepSeq: r.stepSeq,
+    quantity: r.quantity,
+    stationId: r.stationId,
+    startedAt: iso(r.startedAt),
+    waitingSince: iso(r.waitingSince),
+    cureReadyAt: iso(r.cureReadyAt),
+    onHold: r.onHold,
+    holdReason: r.holdReason,
+    releasedAt: iso(r.releasedAt)!,
+    lastEventAt: iso(r.lastEventAt),
+  };
+}
+
+function rowFromState(s: TrayState, routing: readonly RoutingStep[], now: number): TrayStateRow {
+  const step = s.stepSeq == null ? undefined : routing.find((r) => r.seq === s.stepSeq);
+  return {
+    trayId: s.trayId,
+    kind: s.kind,
+    phase: s.phase,
+    stepSeq: s.stepSeq,
+    stationKind: step?.stationKind ?? null,
+    quantity: s.quantity,
+    stationId: s.stationId,
+    startedAt: ms(s.startedAt),
+    waitingSince: ms(s.waitingSince),
+    cureReadyAt: ms(s.cureReadyAt),
+    onHold: s.onHold,
+    holdReason: s.holdReason,
+    releasedAt: ms(s.releasedAt)!,
+    lastEventAt: ms(s.lastEventAt ?? null),
+    updatedAt: now,
+  };
+}
+
+export function toRoutingStep(r: OrderStepRow): RoutingStep {
+  return {
+    seq: r.seq,
+    name: r.name,
+    stationKind: r.stationKind as StationKind,
+    trayMinutes: r.trayMinutes,
+    pieceMinutes: r.pieceMinutes,
+    cureMinutes: r.cureMinutes,
+    colour: r.colour,
+  };
+}
+
+export function traySummary(tray: TrayRow, state: TrayState, routing: readonly RoutingStep[]): ScanTray {
+  const step = state.stepSeq == null ? undefined : routing.find((r) => r.seq === state.stepSeq);
+  return {
+    id: tray.id,
+    number: tray.number,
+    kind: tray.kind,
+    phase: state.phase,
+    stepSeq: state.stepSeq,
+    stepName: step?.name ?? null,
+    quantity: state.quantity,
+    onHold: state.onHold,
+    cureReadyAt: state.cureReadyAt,
+  };
+}
+
+/** What a batch needs from the database, loaded in a few queries and cached for the batch. */
+class BatchData {
+  readonly traysByNumber = new Map<string, TrayRow>();
+  readonly traysById = new Map<string, TrayRow>();
+  readonly states = new Map<string, TrayState>();
+  readonly routings = new Map<string, RoutingStep[]>();
+  readonly mouldReady = new Map<string, boolean>();
+  readonly stations: Map<string, { id: string; code: string; name: string; kind: StationKind; active: boolean }>;
+  readonly reasonCodes: string[];
+  readonly overrides = new Map<string, OverrideRow>();
+  readonly usedOverrides = new Set<string>();
+
+  constructor(
+    private readonly db: DbLike,
+    readonly travellerKey: Uint8Array,
+  ) {
+    this.stations = new Map(scansRepository.stations(db).map((s) => [s.id, { ...s, kind: s.kind as StationKind }]));
+    this.reasonCodes = scansRepository.reasonCodes(db);
+  }
+
+  loadTrays(numbers: string[], ids: string[] = []) {
+    const wantNumbers = numbers.filter((n) => !this.traysByNumber.has(n));
+    const rows = scansRepository.traysByNumbers(this.db, [...new Set(wantNumbers)]);
+    for (const id of ids) {
+      if (this.traysById.has(id)) continue;
+      const t = scansRepository.trayById(this.db, id);
+      if (t) rows.push(t);
+    }
+    for (const t of rows) {
+      this.traysByNumber.set(t.number, t);
+      this.traysById.set(t.id, t);
+    }
+    const newIds = rows.map((t) => t.id).filter((id) => !this.states.has(id));
+    for (const s of scansRepository.statesByTrayIds(this.db, newIds)) this.states.set(s.trayId, stateFromRow(s));
+    for (const t of rows) {
+      // A traveller released before states were kept starts at its first step.
+      if (!this.states.has(t.id)) {
+        this.states.set(t.id, initialTrayState({ trayId: t.id, kind: t.kind, quantity: t.quantity, releasedAt: new Date(t.releasedAt).toISOString() }));
+      }
+    }
+    const orderIds = [...new Set(rows.map((t) => t.orderId))].filter((o) => !this.routings.has(`${o}:tray`));
+    for (const o of orderIds) {
+      this.routings.set(`${o}:tray`, []);
+      this.routings.set(`${o}:mould`, []);
+      this.mouldReady.set(o, true);
+    }
+    for (const step of scansRepository.stepsByOrders(this.db, orderIds)) this.routings.get(`${step.orderId}:${step.travellerKind}`)!.push(toRoutingStep(step));
+    for (const m of scansRepository.mouldsNotReady(this.db, orderIds)) this.mouldReady.set(m.orderId, !(m.notReady > 0));
+  }
+
+  loadOverrides(ids: string[]) {
+    for (const o of scansRepository.overridesByIds(this.db, ids.filter((id) => !this.overrides.has(id)))) this.overrides.set(o.id, o);
+  }
+
+  routing(tray: TrayRow): RoutingStep[] {
+    return this.routings.get(`${tray.orderId}:${tray.kind}`) ?? [];
+  }
+}
+
+interface Operator {
+  id: string;
+  role: Role;
+}
+
+interface Evaluated {
+  result: GuardResult;
+  tray: TrayRow | null;
+  before: TrayState | null;
+  override: ValidOverride | null;
+  stationKind: StationKind | null;
+}
+
+interface PreparedEvent {
+  event: ScanEvent;
+  operator: Operator | null;
+  operatorProblem: string | null;
+}
+
+/** Decides one event against the batch's current view of its tray (no writes). */
+function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
+  const { event } = p;
+  const station = data.stations.get(event.stationId);
+  if (!station || !station.active) {
+    return { result: invalid('unknown_station'), tray: null, before: null, override: null, stationKind: null };
+  }
+  if (!p.operator) return { result: invalid(p.operatorProblem ?? 'operator_unknown'), tray: null, before: null, override: null, stationKind: station.kind };
+
+  const parsed = parseTravellerCode(event.code);
+  const tray = parsed ? (data.traysByNumber.get(parsed.number) ?? null) : null;
+  let verdict: TravellerVerdict = { status: 'valid' };
+  if (!parsed || !tray) verdict = { status: 'unknown' };
+  else {
+    const check = verifyTravellerCode(parsed, data.travellerKey, tray.revision);
+    if (check.status === 'bad_signature') verdict = { status: 'forged' };
+    else if (check.status === 'void_traveller') verdict = { status: 'void', currentRevision: check.currentRevision, currentNumber: tray.number };
+    else if (check.status === 'unreadable') verdict = { status: 'unknown' };
+  }
+  const before = tray ? data.states.get(tray.id)! : null;
+
+  let override: ValidOverride | null = null;
+  if (event.overrideId) {
+    const o = data.overrides.get(event.overrideId);
+    const usable = o && tray && o.trayId === tray.id && o.expiresAt >= now && (!o.usedEventId || o.usedEventId === event.id) && !data.usedOverrides.has(o.id);
+    if (!usable) return { result: { ok: false, code: 'bad_override', params: { reason: 'invalid' }, overridable: false }, tray, before, override: null, stationKind: station.kind };
+    override = { id: o.id, supervisorId: o.supervisorId, reason: o.reason };
+  }
+
+  const result = evaluateScan({
+    traveller: verdict,
+    state: before,
+    routing: tray ? data.routing(tray) : [],
+    station: { id: station.id, kind: station.kind, name: station.name },
+    event,
+    now,
+    mouldReady: tray ? (data.mouldReady.get(tray.orderId) ?? true) : true,
+    override,
+    actorRole: p.operator.role,
+    reasonCodes: data.reasonCodes,
+  });
+  return { result, tray, before, override, stationKind: station.kind };
+}
+
+function invalid(reason: string): GuardResult {
+  return { ok: false, code: 'invalid_event', params: { reason }, overridable: false };
+}
+
+/**
+ * The row an accepted event appends. A cure step that closes on its own when the next step starts
+ * gets no row of its own: the log keeps only what people scanned, and the report facts derive
+ * the close from the cure time (server/services/report-facts.service.ts, same rule as the guards).
+ */
+function eventRows(e: Evaluated & { result: Extract<GuardResult, { ok: true }> }, p: PreparedEvent, deviceId: string | null, now: number): ScanEventInsert[] {
+  const { event } = p;
+  const { facts } = e.result;
+  const rows: ScanEventInsert[] = [];
+  const own = facts.completed.find((c) => !c.implicit);
+  rows.push({
+    id: event.id,
+    trayId: e.tray!.id,
+    type: event.type,
+    stepSeq: facts.stepSeq,
+    stationId: event.stationId,
+    stationKind: e.stationKind,
+    deviceId,
+    userId: p.operator!.id,
+    occurredAt: Date.parse(event.occurredAt),
+    receivedAt: now,
+    qtyIn: event.type === 'start' || event.type === 'finish' ? (own?.quantityIn ?? e.before!.quantity) : null,
+    goodQty: own ? own.good : null,
+    scrapQty: own ? own.scrap : null,
+    reworkQty: own ? own.rework : null,
+    scrapReason: event.type === 'hold' ? (event.scrapReason ?? null) : (own?.scrapReason ?? null),
+    overrideId: e.override?.id ?? null,
+    note: event.note ?? null,
+  });
+  return rows;
+}
+
+function refusalResult(id: string, e: Evaluated, data: BatchData): ScanResult {
+  const r = e.result as Extract<GuardResult, { ok: false }>;
+  return {
+    id,
+    status: 'rejected',
+    code: r.code,
+    message: refusalText(r.code, r.params),
+    ...(r.minutesLeft != null ? { minutesLeft: r.minutesLeft } : {}),
+    params: r.params,
+    ...(e.tray && e.before ? { tray: traySummary(e.tray, e.before, data.routing(e.tray)) } : {}),
+  };
+}
+
+function rejectionRow(p: PreparedEvent | null, raw: unknown, e: Evaluated | null, code: RejectionCode, params: Record<string, unknown>, deviceId: string | null, userId: string | null, now: number): RejectionInsert {
+  const event = p?.event;
+  const rawId = typeof (raw as { id?: unknown })?.id === 'string' ? ((raw as { id: string }).id.slice(0, 100)) : '';
+  const occurred = event ? Date.parse(event.occurredAt) : NaN;
+  return {
+    id: crypto.randomUUID(),
+    eventId: event?.id ?? rawId,
+    trayId: e?.tray?.id ?? null,
+    stationId: event?.stationId ?? null,
+    deviceId,
+    userId,
+    code,
+    message: refusalText(code, params as Record<string, string | number | null>),
+    payload: { event: event ?? raw, params },
+    occurredAt: Number.isNaN(occurred) ? null : occurred,
+    receivedAt: now,
+  };
+}
+
+/** Who scanned: the operator the tablet names (proved by a sign-in on that tablet), else the caller. */
+function resolveOperators(db: DbLike, events: ScanEvent[], caller: ScanCaller): Map<ScanEvent, { operator: Operator | null; problem: string | null }> {
+  const out = new Map<ScanEvent, { operator: Operator | null; problem: string | null }>();
+  const claimed = [...new Set(events.map((e) => e.operatorId).filter((x): x is string => !!x && x !== caller.user?.id))];
+  const people = new Map(scansRepository.usersByIds(db, claimed).map((u) => [u.id, u]));
+  const sessions = caller.device ? scansRepository.deviceSessions(db, caller.device.id, claimed) : [];
+  const self: Operator | null = caller.user ? { id: caller.user.id, role: caller.user.role } : null;
+  for (const e of events) {
+    if (!e.operatorId || e.operatorId === caller.user?.id) {
+      out.set(e, self ? { operator: self, problem: null } : { operator: null, problem: 'operator_unknown' });
+      continue;
+    }
+    const person = people.get(e.operatorId);
+    const at = Date.parse(e.occurredAt);
+    const signedInHere = sessions.some((s) => s.userId === e.operatorId && s.createdAt - 2 * 60_000 <= at && at <= s.expiresAt);
+    if (person && person.active && signedInHere) out.set(e, { operator: { id: person.id, role: person.role as Role }, problem: null });
+    else if (self) out.set(e, { operator: self, problem: null });
+    else out.set(e, { operator: null, problem: 'operator_not_signed_in_here' });
+  }
+  return out;
+}
+
+export const scansService = {
+  /**
+   * POST /api/scans: one transaction per batch; each event answered in the order sent. An event
+   * already stored (accepted or refused) is a `duplicate` and changes nothing.
+   */
+  submit(deps: AppDeps, rawEvents: unknown[], caller: ScanCaller): ScanBatchResponse {
+    const now = deps.now();
+    const deviceId = caller.device?.id ?? null;
+    const parsed = rawEvents.map((raw) => {
+      const r = scanEventSchema.safeParse(raw);
+      return r.success ? { raw, event: r.data } : { raw, event: null, issues: r.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).slice(0, 5) };
+    });
+    const accepted: AcceptedScan[] = [];
+
+    const results = deps.db.transaction(
+      (tx) => {
+        const data = new BatchData(tx, deps.keys.traveller);
+        const valid = parsed.filter((p) => p.event).map((p) => p.event!);
+        const ids = valid.map((e) => e.id);
+        const already = new Set(scansRepository.acceptedIds(tx, ids));
+        const refusedBefore = new Map(scansRepository.rejectionsByEventIds(tx, ids).map((r) => [r.eventId, r]));
+        const numbers = valid.map((e) => parseTravellerCode(e.code)?.number).filter((n): n is string => !!n);
+        data.loadTrays(numbers);
+        data.loadOverrides(valid.map((e) => e.overrideId).filter((x): x is string => !!x));
+        const operators = resolveOperators(tx, valid, caller);
+
+        const seen = new Set<string>();
+        const results: ScanResult[] = [];
+        const newEvents: ScanEventInsert[] = [];
+        const newRejections: RejectionInsert[] = [];
+        const resultIndexByEvent = new Map<string, number>();
+        const touched = new Set<string>();
+
+        for (const p of parsed) {
+          if (!p.event) {
+            const rawId = typeof (p.raw as { id?: unknown })?.id === 'string' ? (p.raw as { id: string }).id : '';
+            const params = { reason: 'schema', issues: (p as { issues?: string[] }).issues?.join('; ') ?? null };
+            newRejections.push(rejectionRow(null, p.raw, null, 'invalid_event', params, deviceId, caller.user?.id ?? null, now));
+            results.push({ id: rawId, status: 'rejected', code: 'invalid_event', message: refusalText('invalid_event', params), params });
+            continue;
+          }
+          const event = p.event;
+          if (already.has(event.id)) {
+            results.push({ id: event.id, status: 'duplicate' });
+            continue;
+          }
+          if (seen.has(event.id)) {
+            const first = results[resultIndexByEvent.get(event.id)!];
+            results.push({ id: event.id, status: 'duplicate', ...(first?.status === 'rejected' ? { code: first.code, message: first.message } : {}) });
+            continue;
+          }
+          const before = refusedBefore.get(event.id);
+          if (before) {
+            // Refused earlier (and perhaps accepted later on a retry): the same answer again.
+            results.push(
+              before.resolution === 'accepted_late' || before.resolution === 'accepted_on_retry'
+                ? { id: event.id, status: 'duplicate' }
+                : { id: event.id, status: 'duplicate', code: before.code as RejectionCode, message: before.message },
+            );
+            continue;
+          }
+          seen.add(event.id);
+          const op = operators.get(event)!;
+          const prepared: PreparedEvent = { event, operator: op.operator, operatorProblem: op.problem };
+          const e = evaluate(data, prepared, now);
+          if (e.result.ok) {
+            const ok = e.result;
+            newEvents.push(...eventRows({ ...e, result: ok }, prepared, deviceId, now));
+            data.states.set(e.tray!.id, ok.next);
+            touched.add(e.tray!.id);
+            if (e.override && ok.facts.overridden.length) {
+              data.usedOverrides.add(e.override.id);
+              scansRepository.useOverride(tx, e.override.id, event.id);
+              auditRepository.record(tx, now, {
+                userId: e.override.supervisorId,
+                action: 'scan.override',
+                entity: 'tray',
+                entityId: e.tray!.id,
+                detail: { eventId: event.id, overridden: ok.facts.overridden, skippedSeqs: ok.facts.skippedSeqs, reason: e.override.reason, operatorId: prepared.operator!.id },
+              });
+            }
+            accepted.push(acceptedScan(e.tray!, event, e.stationKind!, ok.next));
+            results.push({ id: event.id, status: 'accepted', tray: traySummary(e.tray!, ok.next, data.routing(e.tray!)) });
+          } else {
+            const r = e.result;
+            newRejections.push(rejectionRow(prepared, p.raw, e, r.code, r.params, deviceId, prepared.operator?.id ?? caller.user?.id ?? null, now));
+            results.push(refusalResult(event.id, e, data));
+          }
+          resultIndexByEvent.set(event.id, results.length - 1);
+        }
+
+        scansRepository.insertEvents(tx, newEvents);
+        scansRepository.insertRejections(tx, newRejections);
+
+        // Scans that arrived late from another tablet may make earlier refusals right: try them again.
+        const late = retryOpenRefusals(tx, data, [...touched], now, accepted);
+        for (const [eventId, tray] of late) {
+          const i = resultIndexByEvent.get(eventId);
+          if (i != null && results[i].status === 'rejected') results[i] = { id: eventId, status: 'accepted', tray };
+          touched.add(tray.id);
+        }
+
+        for (const trayId of touched) {
+          const tray = data.traysById.get(trayId)!;
+          scansRepository.upsertState(tx, rowFromState(data.states.get(trayId)!, data.routing(tray), now));
+        }
+        const startedOrders = [...new Set(accepted.filter((a) => a.type === 'start').map((a) => a.orderId))];
+        scansRepository.markOrderInProduction(tx, startedOrders, now);
+        for (const hook of scanHooks.inTransaction) hook(tx, accepted, deps);
+        return results;
+      },
+      { behavior: 'immediate' },
+    );
+
+    if (accepted.length || parsed.length) notifyFloorChanged(deps);
+    for (const hook of scanHooks.afterCommit) {
+      try {
+        hook(accepted, deps);
+      } catch (error) {
+        deps.log.error({ err: error }, 'a scan listener failed');
+      }
+    }
+    return { results, serverTime: new Date(now).toISOString() };
+  },
+
+  /** What a station's tablet shows and caches: its travellers with order, routing and state. */
+  stationQueue(deps: AppDeps, stationId: string): StationQueue {
+    const station = scansRepository.stationById(deps.db, stationId);
+    if (!station) throw notFound('That station');
+    const rows = scansRepository.stationQueue(deps.db, station.id, station.kind);
+    return {
+      station: {
+        id: station.id,
+        code: station.code,
+        name: station.name,
+        kind: station.kind as StationKind,
+        continuous: station.continuous,
+        instructions: station.instructions,
+        safetyNotes: station.safetyNotes,
+      },
+      asOf: new Date(deps.now()).toISOString(),
+      trays: cards(deps.db, rows.map((r) => ({ tray: r.tray, state: stateFromRow(r.state) }))),
+    };
+  },
+
+  /** One traveller's card by its scanned code or typed number (for a tray not in the station's list). */
+  lookup(deps: AppDeps, code: string): TrayCard {
+    const parsed = parseTravellerCode(code);
+    const tray = parsed ? scansRepository.traysByNumbers(deps.db, [parsed.number])[0] : undefined;
+    if (!tray) throw new AppError(404, 'unknown_tray', refusalText('unknown_tray'));
+    const check = verifyTravellerCode(parsed!, deps.keys.traveller, tray.revision);
+    if (check.status === 'bad_signature') throw conflict('bad_signature', refusalText('bad_signature'));
+    if (check.status === 'void_traveller') {
+      throw conflict('void_traveller', refusalText('void_traveller', { currentRevision: check.currentRevision }), { currentRevision: check.currentRevision });
+    }
+    const stateRow = scansRepository.statesByTrayIds(deps.db, [tray.id])[0];
+    const state = stateRow
+      ? stateFromRow(stateRow)
+      : initialTrayState({ trayId: tray.id, kind: tray.kind, quantity: tray.quantity, releasedAt: new Date(tray.releasedAt).toISOString() });
+    return cards(deps.db, [{ tray, state }])[0];
+  },
+
+  /** A QC photo taken on the tablet (already resized there), kept with the tray. */
+  addPhoto(deps: AppDeps, input: { code: string; eventId?: string; file: { buffer: Buffer; mimetype: string; size: number } }, userId: string | null) {
+    if (!['image/jpeg', 'image/png', 'image/webp'].includes(input.file.mimetype)) throw badInput('A photo must be a JPEG, PNG or WebP picture.');
+    const parsed = parseTravellerCode(input.code);
+    const tray = parsed ? scansRepository.traysByNumbers(deps.db, [parsed.number])[0] : undefined;
+    if (!tray) throw new AppError(404, 'unknown_tray', refusalText('unknown_tray'));
+    const { hash, sizeBytes } = putFile(deps.env.dataDir, input.file.buffer);
+    const id = crypto.randomUUID();
+    scansRepository.insertAttachment(deps.db, { id, trayId: tray.id, eventId: input.eventId ?? null, fileHash: hash, mime: input.file.mimetype, sizeBytes, createdBy: userId, createdAt: deps.now() });
+    return { id, trayId: tray.id, hash };
+  },
+
+  /** The artwork picture of an order (its newest approved proof, when that is an image). */
+  artwork(deps: AppDeps, orderId: string) {
+    const proof = scansRepository.artworkProofs(deps.db, [orderId])[0];
+    const content = proof ? readFile(deps.env.dataDir, proof.fileHash) : null;
+    if (!proof || !content) throw notFound('That artwork');
+    return { content, mime: proof.mime };
+  },
+
+  /** A supervisor's badge and PIN on the tablet, and a reason: lets one scan of one tray through. */
+  createOverride(deps: AppDeps, input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: 'wrong_station' | 'curing' | 'release' }) {
+    const supervisor = authService.verifyBadge(deps, input.badge, input.pin);
+    if (supervisor.role !== 'supervisor' && supervisor.role !== 'admin') {
+      throw new AppError(403, 'not_supervisor', 'Only a supervisor can approve this. Ask a supervisor to use their badge and PIN.');
+    }
+    const parsed = parseTravellerCode(input.code);
+    const tray = parsed ? scansRepository.traysByNumbers(deps.db, [parsed.number])[0] : undefined;
+    if (!tray) throw notFound('That tray');
+    const now = deps.now();
+    const id = crypto.randomUUID();
+    deps.db.transaction((tx) => {
+      scansRepository.insertOverride(tx, {
+        id,
+        trayId: tray.id,
+        stationId: input.stationId,
+        kind: input.kind,
+        supervisorId: supervisor.id,
+        reason: input.reason,
+        createdAt: now,
+        expiresAt: now + OVERRIDE_MINUTES * 60_000,
+      });
+      auditRepository.record(tx, now, { userId: supervisor.id, action: 'override.create', entity: 'tray', entityId: tray.id, detail: { kind: input.kind, reason: input.reason, stationId: input.stationId } });
+    });
+    return { id, supervisor: { id: supervisor.id, name: supervisor.name }, expiresAt: new Date(now + OVERRIDE_MINUTES * 60_000).toISOString() };
+  },
+
+  /** Refused scans for supervisors (open first-class; `open=false` for the resolved history). */
+  exceptions(deps: AppDeps, filter: { open?: boolean; deviceId?: string; sinceHours?: number; limit?: number }) {
+    const since = filter.sinceHours ? deps.now() - filter.sinceHours * 3600_000 : undefined;
+    return scansRepository.rejections(deps.db, { open: filter.open, deviceId: filter.deviceId, since, limit: filter.limit ?? 200 }).map(({ r, trayNumber, stationName, stationKind, userName }) => {
+      const payload = (r.payload ?? {}) as { event?: Partial<ScanEvent>; params?: Record<string, string | number | null> };
+      return {
+        id: r.id,
+        eventId: r.eventId,
+        code: r.code as RejectionCode,
+        message: r.message,
+        params: payload.params ?? {},
+        type: payload.event?.type ?? null,
+        scannedCode: typeof payload.event?.code === 'string' ? payload.event.code : null,
+        trayId: r.trayId,
+        trayNumber,
+        stationId: r.stationId,
+        stationName,
+        stationKind,
+        operatorId: r.userId,
+        operatorName: userName,
+        deviceId: r.deviceId,
+        occurredAt: iso(r.occurredAt),
+        receivedAt: iso(r.receivedAt)!,
+        resolvedAt: iso(r.resolvedAt),
+        resolution: r.resolution,
+      };
+    });
+  },
+
+  /** A supervisor closes a refused scan with what was done about it. */
+  resolve(deps: AppDeps, id: string, input: { resolution: string }, actorId: string) {
+    const row = scansRepository.rejectionById(deps.db, id);
+    if (!row) throw notFound('That refused scan');
+    if (row.resolvedAt) throw conflict('already_resolved', 'This refused scan was already resolved.');
+    const now = deps.now();
+    deps.db.transaction((tx) => {
+      scansRepository.resolveRejection(tx, id, { resolvedAt: now, resolvedBy: actorId, resolution: input.resolution });
+      auditRepository.record(tx, now, { userId: actorId, action: 'scan.resolve', entity: 'scan_rejection', entityId: id, detail: input });
+    });
+    notifyFloorChanged(deps);
+    return { id, resolvedAt: new Date(now).toISOString() };
+  },
+
+  /** Tries a refused scan again now (after the missing scans arrived, a hold was lifted...). */
+  retry(deps: AppDeps, id: string, actorId: string): ScanResult {
+    const now = deps.now();
+    const result = deps.db.transaction(
+      (tx): ScanResult => {
+        const row = scansRepository.rejectionById(tx, id);
+        if (!row) throw notFound('That refused scan');
+        if (row.resolvedAt) throw conflict('already_resolved', 'This refused scan was already resolved.');
+        const parsed = scanEventSchema.safeParse((row.payload as { event?: unknown })?.event);
+        if (!parsed.success) throw conflict('not_retryable', 'This scan was unreadable; it cannot be tried again.');
+        const event = parsed.data;
+        const data = new BatchData(tx, deps.keys.traveller);
+        const number = parseTravellerCode(event.code)?.number;
+        data.loadTrays(number ? [number] : []);
+        if (event.overrideId) data.loadOverrides([event.overrideId]);
+        const operator = row.userId ? scansRepository.usersByIds(tx, [row.userId])[0] : undefined;
+        const prepared: PreparedEvent = { event, operator: operator ? { id: operator.id, role: operator.role as Role } : null, operatorProblem: 'operator_unknown' };
+        const e = evaluate(data, prepared, now);
+        if (!e.result.ok) {
+          const r = e.result;
+          scansRepository.updateRejection(tx, id, { code: r.code, message: refusalText(r.code, r.params), payload: { event, params: r.params } });
+          return refusalResult(event.id, e, data);
+        }
+        const ok = e.result;
+        scansRepository.insertEvents(tx, eventRows({ ...e, result: ok }, prepared, row.deviceId, now));
+        data.states.set(e.tray!.id, ok.next);
+        scansRepository.upsertState(tx, rowFromState(ok.next, data.routing(e.tray!), now));
+        scansRepository.resolveRejection(tx, id, { resolvedAt: now, resolvedBy: actorId, resolution: 'accepted_on_retry' });
+        auditRepository.record(tx, now, { userId: actorId, action: 'scan.retry', entity: 'scan_rejection', entityId: id, detail: { eventId: event.id } });
+        return { id: event.id, status: 'accepted' as const, tray: traySummary(e.tray!, ok.next, data.routing(e.tray!)) };
+      },
+      { behavior: 'immediate' },
+    );
+    notifyFloorChanged(deps);
+    return result;
+  },
+};
+
+function cards(db: DbLike, items: { tray: TrayRow; state: TrayState }[]): TrayCard[] {
+  const orderIds = [...new Set(items.map((i) => i.tray.orderId))];
+  const orderRows = new Map(scansRepository.ordersByIds(db, orderIds).map((o) => [o.id, o]));
+  const routings = new Map<string, RoutingStep[]>();
+  for (const step of scansRepository.stepsByOrders(db, orderIds)) {
+    const key = `${step.orderId}:${step.travellerKind}`;
+    if (!routings.has(key)) routings.set(key, []);
+    routings.get(key)!.push(toRoutingStep(step));
+  }
+  const notReady = new Map(scansRepository.mouldsNotReady(db, orderIds).map((m) => [m.orderId, m.notReady > 0]));
+  const artwork = new Set(scansRepository.artworkProofs(db, orderIds).map((p) => p.orderId));
+  return items.map(({ tray, state }) => {
+    const o = orderRows.get(tray.orderId);
+    return {
+      tray: { id: tray.id, number: tray.number, kind: tray.kind, revision: tray.revision, releasedQuantity: tray.quantity },
+      order: o
+        ? {
+            ...o,
+            colours: (o.colours ?? []).map((c) => ({ name: c.name, ...(c.ref ? { ref: c.ref } : {}), ...(c.hex ? { hex: c.hex } : {}) })),
+          }
+        : null,
+      state: { ...state, lastEventAt: state.lastEventAt ?? null },
+      routing: routings.get(`${tray.orderId}:${tray.kind}`) ?? [],
+      mouldReady: !notReady.get(tray.orderId),
+      artworkUrl: artwork.has(tray.orderId) ? `/api/scans/artwork/${tray.orderId}` : null,
+    };
+  });
+}
+
+function acceptedScan(tray: TrayRow, event: ScanEvent, stationKind: StationKind, state: TrayState): AcceptedScan {
+  return { eventId: event.id, trayId: tray.id, orderId: tray.orderId, type: event.type, stationId: event.stationId, stationKind, occurredAt: Date.parse(event.occurredAt), state };
+}
+
+/**
+ * Open refusals of the touched trays (wrong station, not started, already started, on hold) whose
+ * time is not before the tray's last event are evaluated again, oldest first, until none passes.
+ * A refusal that passes now is appended as accepted and marked `accepted_late`.
+ */
+function retryOpenRefusals(tx: DbLike, data: BatchData, trayIds: string[], now: number, accepted: AcceptedScan[]): Map<string, ScanTray> {
+  const done = new Map<string, ScanTray>();
+  if (!trayIds.length) return done;
+  let pending = scansRepository.openRetryable(tx, trayIds, RETRYABLE_CODES);
+  for (let pass = 0; pass < 5 && pending.length; pass++) {
+    let progressed = false;
+    const left: typeof pending = [];
+    for (const row of pending) {
+      const state = row.trayId ? data.states.get(row.trayId) : undefined;
+      if (!state || row.occurredAt == null || row.occurredAt < lastEventTime(state)) continue;
+      const parsed = scanEventSchema.safeParse((row.payload as { event?: unknown })?.event);
+      if (!parsed.success || parsed.data.overrideId) {
+        continue;
+      }
+      const event = parsed.data;
+      const operator = row.userId ? scansRepository.usersByIds(tx, [row.userId])[0] : undefined;
+      const prepared: PreparedEvent = { event, operator: operator ? { id: operator.id, role: operator.role as Role } : null, operatorProblem: 'operator_unknown' };
+      const e = evaluate(data, prepared, now);
+      if (!e.result.ok) {
+        left.push(row);
+        continue;
+      }
+      const ok = e.result;
+      scansRepository.insertEvents(tx, eventRows({ ...e, result: ok }, prepared, row.deviceId, now));
+      data.states.set(e.tray!.id, ok.next);
+      scansRepository.resolveRejection(tx, row.id, { resolvedAt: now, resolvedBy: null, resolution: 'accepted_late' });
+      accepted.push(acceptedScan(e.tray!, event, e.stationKind!, ok.next));
+      done.set(event.id, traySummary(e.tray!, ok.next, data.routing(e.tray!)));
+      progressed = true;
+    }
+    if (!progressed) break;
+    pending = left;
+  }
+  return done;
+}

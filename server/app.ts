@@ -20,6 +20,10 @@ import { registerMailRoutes } from './routes/mail.routes';
 import { registerAdminRoutes } from './routes/admin.routes';
 import { registerOrderRoutes } from './routes/orders.routes';
 import { registerTrayRoutes } from './routes/trays.routes';
+import { registerLiveRoutes } from './routes/live.routes';
+import { registerReportRoutes } from './routes/reports.routes';
+import { registerCalendarRoutes } from './routes/calendar.routes';
+import { registerLoadRoutes } from './routes/loads.routes';
 
 const clientDist = fileURLToPath(new URL('../dist', import.meta.url));
 
@@ -68,6 +72,10 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   registerAdminRoutes(api);
   registerOrderRoutes(api);
   registerTrayRoutes(api);
+  registerLiveRoutes(api);
+  registerReportRoutes(api);
+  registerCalendarRoutes(api);
+  registerLoadRoutes(api);
 
   app.use('/api', express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
 

@@ -1,0 +1,77 @@
+import type { DbLike as Db } from '../db/client';
+import { sqlClient } from './sql-client';
+
+const client = sqlClient;
+
+export interface OpenOrderRow {
+  id: string;
+  number: string;
+  title: string;
+  customer: string;
+  status: string;
+  dueDate: string;
+  releasedAt: number | null;
+}
+
+export interface TrayStateRow {
+  trayId: string;
+  orderId: string;
+  kind: 'tray' | 'mould';
+  phase: string;
+  stepSeq: number | null;
+  quantity: number;
+  startedAt: number | null;
+  waitingSince: number | null;
+  cureReadyAt: number | null;
+  onHold: number;
+  lastEventAt: number | null;
+  releasedAt: number;
+}
+
+export interface StepRow {
+  orderId: string;
+  kind: 'tray' | 'mould';
+  seq: number;
+  stationKind: string;
+  trayMinutes: number;
+  pieceMinutes: number;
+  cureMinutes: number | null;
+}
+
+export const projectionRepository = {
+  /** released, not shipped, not cancelled */
+  openOrders(db: Db): OpenOrderRow[] {
+    return client(db)
+      .prepare(
+        `select o.id, o.number, o.title, c.name as customer, o.status, o.due_date as dueDate, o.released_at as releasedAt
+         from orders o join customers c on c.id = o.customer_id
+         where o.released_at is not null and o.shipped_at is null and o.cancelled_at is null and o.status not in ('shipped', 'cancelled')`,
+      )
+      .all() as OpenOrderRow[];
+  },
+  traysOf(db: Db, orderId: string): TrayStateRow[] {
+    return client(db)
+      .prepare(
+        `select s.tray_id as trayId, t.order_id as orderId, t.kind, s.phase, s.step_seq as stepSeq, s.quantity, s.started_at as startedAt,
+           s.waiting_since as waitingSince, s.cure_ready_at as cureReadyAt, s.on_hold as onHold, s.last_event_at as lastEventAt, s.released_at as releasedAt
+         from trays t join tray_states s on s.tray_id = t.id where t.order_id = ?`,
+      )
+      .all(orderId) as TrayStateRow[];
+  },
+  stepsOf(db: Db, orderId: string): StepRow[] {
+    return client(db)
+      .prepare(
+        `select order_id as orderId, traveller_kind as kind, seq, station_kind as stationKind, tray_minutes as trayMinutes, piece_minutes as pieceMinutes, cure_minutes as cureMinutes
+         from order_steps where order_id = ? order by traveller_kind, seq`,
+      )
+      .all(orderId) as StepRow[];
+  },
+  /** a cheap fingerprint of everything a projection reads */
+  fingerprint(db: Db): string {
+    const c = client(db);
+    const e = (c.prepare('select max(rowid) as m from scan_events').get() as { m: number | null }).m ?? 0;
+    const o = c.prepare("select count(*) as n, max(updated_at) as u from orders where released_at is not null").get() as { n: number; u: number | null };
+    const s = (c.prepare('select count(*) as n from tray_states').get() as { n: number }).n;
+    return `${e}|${o.n}|${o.u ?? 0}|${s}`;
+  },
+};

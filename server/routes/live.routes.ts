@@ -1,0 +1,30 @@
+import type { Api } from '../http/api';
+import { ALL_ROLES, OFFICE } from '@shared/domain/access';
+import { wipService } from '../services/wip.service';
+import { wallService } from '../services/wall.service';
+import { streamService } from '../services/stream.service';
+import { reportFactsService } from '../services/report-facts.service';
+
+export function registerLiveRoutes(api: Api) {
+  api.route({
+    method: 'get',
+    path: '/wip',
+    access: { roles: ALL_ROLES, devices: ['wall', 'tablet'] },
+    handler: ({ deps }) => wipService.wip(deps),
+  });
+  api.route({
+    method: 'get',
+    path: '/wall',
+    access: { roles: OFFICE, devices: ['wall'] },
+    handler: ({ deps }) => wallService.view(deps),
+  });
+  api.route({
+    method: 'get',
+    path: '/stream',
+    access: { roles: ALL_ROLES, devices: ['wall', 'tablet'] },
+    handler: ({ deps, res }) => {
+      reportFactsService.follow(deps);
+      streamService.open(deps, res);
+    },
+  });
+}

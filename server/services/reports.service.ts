@@ -1,0 +1,343 @@
+import Papa from 'papaparse';
+import type { AppDeps } from '../app-deps';
+import { reportsRepository as repo, type ReportFilter } from '../repositories/reports.repository';
+import { reportFactsService } from './report-facts.service';
+import { calendarService } from './calendar.service';
+import { badInput } from '../errors';
+import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers } from '@shared/domain/stats';
+import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/calendar';
+import { countPerBucket, cumulativeFlow, makeBuckets, wipOverTime, type StageArrival } from '@shared/domain/flow';
+import { pareto, rolledThroughputYield, stepYield } from '@shared/domain/yield';
+import { STATION_KINDS } from '@shared/domain/vocabulary';
+import type {
+  CycleTimeReport,
+  FlowReport,
+  LeadTimeReport,
+  OnTimeReport,
+  ReportQuery,
+  ReportWindow,
+  YieldReport,
+} from '@shared/schemas/reports';
+
+const H = 3_600_000;
+const MIN = 60_000;
+const DEFAULT_DAYS = 90;
+const MAX_DAYS = 3 * 366;
+
+export const FLOW_STAGES = ['released', 'started', 'inspected', 'packed', 'shipped'] as const;
+
+const iso = (ms: number) => new Date(ms).toISOString();
+const r2 = (x: number) => Math.round(x * 100) / 100;
+const r4 = (x: number | null) => (x === null ? null : Math.round(x * 10000) / 10000);
+
+interface Window {
+  filter: ReportFilter;
+  info: ReportWindow;
+  tz: string;
+}
+
+function parseBound(tz: string, v: string, end: boolean): number {
+  if (/^\d{4}-\d{2}-\d{2}$/.test(v)) {
+    // a whole local day: "to" includes that day
+    return end ? startOfLocalDate(tz, dateOfDayNumber(dayNumberOfDate(v) + 1)) : startOfLocalDate(tz, v);
+  }
+  return Date.parse(v);
+}
+
+function windowOf(deps: AppDeps, q: ReportQuery): Window {
+  const tz = calendarService.timeZone(deps);
+  const now = deps.now();
+  const to = q.to ? parseBound(tz, q.to, true) : now;
+  const from = q.from ? parseBound(tz, q.from, false) : to - DEFAULT_DAYS * DAY;
+  if (!(from < to)) throw badInput('The start of the period must be before its end.', [{ path: ['from'], message: 'After the end' }]);
+  if (to - from > MAX_DAYS * DAY) throw badInput('Ask for at most three years at a time.', [{ path: ['from'], message: 'Too long a period' }]);
+  return {
+    tz,
+    filter: { from, to, process: q.process, customerId: q.customerId, stationId: q.stationId },
+    info: { from: iso(from), to: iso(to), timeZone: tz, percentileMethod: PERCENTILE_METHOD },
+  };
+}
+
+function fresh(deps: AppDeps) {
+  reportFactsService.catchUp(deps);
+}
+
+export const reportsService = {
+  leadTime(deps: AppDeps, q: ReportQuery): LeadTimeReport {
+    const w = windowOf(deps, q);
+    const cal = calendarService.calendar(deps);
+    const rows = repo.shippedOrders(deps.db, w.filter).filter((o) => o.releasedAt != null);
+    const orders = rows.map((o) => {
+      const released = o.releasedAt as number;
+      return {
+        orderId: o.id,
+        number: o.number,
+        customer: o.customer,
+        title: o.title,
+        process: o.process,
+        releasedAt: iso(released),
+        shippedAt: iso(o.shippedAt),
+        calendarHours: r2((o.shippedAt - released) / H),
+        workingHours: r2(cal.factory.workingMinutesBetween(released, o.shippedAt) / 60),
+        dueDate: o.dueDate,
+        onTime: localDate(w.tz, o.shippedAt) <= o.dueDate,
+      };
+    });
+    const weeks = makeBuckets(w.tz, w.filter.from, w.filter.to, 'week');
+    const trend = weeks.map((b) => {
+      const inWeek = rows.map((o, i) => ({ o, i })).filter(({ o }) => o.shippedAt >= b.start && o.shippedAt < b.end);
+      const hours = sortNumbers(inWeek.map(({ i }) => orders[i].calendarHours));
+      return {
+        week: b.label,
+        n: hours.length,
+        p50: hours.length ? r2(quantileSorted(hours, 0.5)) : null,
+        p85: hours.length ? r2(quantileSorted(hours, 0.85)) : null,
+        onTime: inWeek.filter(({ i }) => orders[i].onTime).length,
+      };
+    });
+    return {
+      window: w.info,
+      orders,
+      summary: roundSummary(summarize(orders.map((o) => o.calendarHours))),
+      summaryWorkingHours: roundSummary(summarize(orders.map((o) => o.workingHours))),
+      trend,
+    };
+  },
+
+  cycleTime(deps: AppDeps, q: ReportQuery): CycleTimeReport {
+    fresh(deps);
+    const w = windowOf(deps, q);
+    const byKind = new Map<string, { queue: number[]; process: number[] }>();
+    for (const [kind, queue, process, implicit] of repo.cycleRows(deps.db, w.filter)) {
+      let k = byKind.get(kind);
+      if (!k) byKind.set(kind, (k = { queue: [], process: [] }));
+      if (queue != null) k.queue.push(queue);
+      // a cure closed on its own has no operator process: its oven time is the process time
+      if (process != null && (implicit === 0 || kind === 'cure')) k.process.push(process);
+    }
+    const order = (k: string) => {
+      const i = STATION_KINDS.indexOf(k as (typeof STATION_KINDS)[number]);
+      return i < 0 ? 99 : i;
+    };
+    const stations = [...byKind.entries()]
+      .sort((a, b) => order(a[0]) - order(b[0]))
+      .map(([stationKind, v]) => ({ stationKind, process: roundSummary(summarize(v.process)), queue: roundSummary(summarize(v.queue)) }));
+
+    const cal = calendarService.calendar(deps);
+    const trays = w.filter.stationId ? [] : repo.finishedTrayFlow(deps.db, w.filter);
+    let process = 0;
+    let cure = 0;
+    let flow = 0;
+    let working = 0;
+    for (const t of trays) {
+      process += t.process;
+      cure += t.cure;
+      flow += (t.doneAt - t.releasedAt) / MIN;
+      working += cal.factory.workingMinutesBetween(t.releasedAt, t.doneAt);
+    }
+    return {
+      window: w.info,
+      stations,
+      flowEfficiency: {
+        trays: trays.length,
+        processMinutes: r2(process),
+        cureMinutes: r2(cure),
+        flowMinutes: r2(flow),
+        workingFlowMinutes: r2(working),
+        flowEfficiency: working > 0 ? r4(process / working) : null,
+        flowEfficiencyCalendar: flow > 0 ? r4(process / flow) : null,
+        cureShare: flow > 0 ? r4(cure / flow) : null,
+      },
+    };
+  },
+
+  flow(deps: AppDeps, q: ReportQuery): FlowReport {
+    fresh(deps);
+    const w = windowOf(deps, q);
+    const now = deps.now();
+    const end = Math.min(w.filter.to, now); // only history
+    const buckets = makeBuckets(w.tz, w.filter.from, end, q.bucket);
+    const trays = repo.flowTrays(deps.db, w.filter);
+    const ms = new Map(repo.milestones(deps.db, w.filter).map((m) => [m.trayId, m]));
+    const arrivals: StageArrival[] = [];
+    const exits = new Map<string, number>();
+    const trayById = new Map(trays.map((t) => [t.id, t]));
+    for (const t of trays) {
+      if (t.phase === 'scrapped') continue; // left the flow without shipping
+      let m = ms.get(t.id);
+      // a tray merged into another for packing goes on inside it
+      if (t.phase === 'merged' && t.mergedIntoId) {
+        const target = ms.get(t.mergedIntoId);
+        if (target) m = { ...target, started: m?.started ?? target.started, inspected: m?.inspected ?? target.inspected, shippedQty: 0 };
+        else if (!trayById.has(t.mergedIntoId)) continue;
+      }
+      arrivals.push({ itemId: t.id, stage: 0, at: t.releasedAt });
+      const times = [m?.started, m?.inspected, m?.packed, m?.shipped];
+      times.forEach((at, i) => {
+        if (at != null) arrivals.push({ itemId: t.id, stage: i + 1, at });
+      });
+      if (m?.shipped != null) exits.set(t.id, m.shipped);
+    }
+    const cfd = cumulativeFlow(arrivals, FLOW_STAGES.length, buckets.map((b) => Math.min(b.end, end)));
+    // trays already shipped before the window are not in `trays`: every line starts from that base
+    const shippedTimes = [...exits.values()];
+    const trayCounts = countPerBucket(shippedTimes, buckets);
+    const pieces = buckets.map(() => 0);
+    for (const [id, at] of exits) {
+      const qty = ms.get(id)?.shippedQty ?? 0;
+      const i = buckets.findIndex((b) => at >= b.start && at < b.end);
+      if (i >= 0) pieces[i] += qty;
+    }
+    const orders = countPerBucket(
+      repo.shippedOrders(deps.db, w.filter).map((o) => o.shippedAt),
+      buckets,
+    );
+    const wip = wipOverTime(
+      trays.map((t) => ({
+        start: t.releasedAt,
+        end: exits.get(t.id) ?? (t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null),
+      })),
+      buckets,
+      end,
+    );
+    return {
+      window: w.info,
+      bucket: q.bucket,
+      stages: [...FLOW_STAGES],
+      buckets: buckets.map((b, i) => ({
+        label: b.label,
+        start: iso(b.start),
+        end: iso(Math.min(b.end, end)),
+        cumulative: cfd[i],
+        trays: trayCounts[i],
+        pieces: pieces[i],
+        orders: orders[i],
+        wipAverage: r2(wip[i].average),
+        wipAtEnd: wip[i].atEnd,
+      })),
+    };
+  },
+
+  onTime(deps: AppDeps, q: ReportQuery): OnTimeReport {
+    const w = windowOf(deps, q);
+    const rows = repo.shippedOrders(deps.db, w.filter);
+    const buckets = makeBuckets(w.tz, w.filter.from, w.filter.to, q.bucket);
+    const out = buckets.map((b) => {
+      const inB = rows.filter((o) => o.shippedAt >= b.start && o.shippedAt < b.end);
+      const onTime = inB.filter((o) => localDate(w.tz, o.shippedAt) <= o.dueDate).length;
+      return { label: b.label, shipped: inB.length, onTime, share: inB.length ? r4(onTime / inB.length) : null };
+    });
+    const onTime = rows.filter((o) => localDate(w.tz, o.shippedAt) <= o.dueDate).length;
+    return { window: w.info, bucket: q.bucket, buckets: out, total: { shipped: rows.length, onTime, share: rows.length ? r4(onTime / rows.length) : null } };
+  },
+
+  yield(deps: AppDeps, q: ReportQuery): YieldReport {
+    fresh(deps);
+    const w = windowOf(deps, q);
+    const kindOrder = (k: string) => {
+      const i = STATION_KINDS.indexOf(k as (typeof STATION_KINDS)[number]);
+      return i < 0 ? 99 : i;
+    };
+    const steps = repo
+      .stepYields(deps.db, w.filter)
+      .sort((a, b) => kindOrder(a.stationKind) - kindOrder(b.stationKind))
+      .map((s, i) => {
+        const y = stepYield({ seq: i + 1, ...s });
+        return {
+          stationKind: s.stationKind,
+          inQty: y.inQty,
+          firstPassQty: y.firstPassQty,
+          goodQty: y.goodQty,
+          scrapQty: y.scrapQty,
+          reworkQty: y.reworkQty,
+          firstPassYield: r4(y.firstPassYield),
+          finalYield: r4(y.finalYield),
+        };
+      });
+    const shipped = repo.shippedOrders(deps.db, w.filter);
+    const counts = repo.orderStepCounts(
+      deps.db,
+      shipped.map((o) => o.id),
+    );
+    const byOrder = new Map<string, typeof counts>();
+    for (const c of counts) byOrder.set(c.orderId, [...(byOrder.get(c.orderId) ?? []), c]);
+    const orders = shipped.map((o) => {
+      const rows = byOrder.get(o.id) ?? [];
+      const r = rolledThroughputYield(rows);
+      const first = rows.length ? rows.reduce((a, b) => (a.seq < b.seq ? a : b)) : null;
+      const last = rows.length ? rows.reduce((a, b) => (a.seq > b.seq ? a : b)) : null;
+      return {
+        orderId: o.id,
+        number: o.number,
+        customer: o.customer,
+        shippedAt: iso(o.shippedAt),
+        steps: rows.length,
+        inQty: first?.inQty ?? 0,
+        goodQty: last?.goodQty ?? 0,
+        reworkQty: rows.reduce((s, x) => s + x.reworkQty, 0),
+        rolledThroughputYield: r4(r.rty),
+        finalYield: r4(r.finalYield),
+      };
+    });
+    const scrapRows = repo.scrapByReason(deps.db, w.filter);
+    const names = new Map(scrapRows.map((s) => [s.reason, s.name ?? s.reason]));
+    const scrap = pareto(scrapRows.map((s) => ({ reason: s.reason, qty: s.qty }))).map((p) => ({
+      reason: p.reason,
+      name: names.get(p.reason) ?? p.reason,
+      qty: p.qty,
+      share: r4(p.share) as number,
+      cumulativeShare: r4(p.cumulativeShare) as number,
+    }));
+    return { window: w.info, steps, orders, scrap, rework: { qty: steps.reduce((s, x) => s + x.reworkQty, 0) } };
+  },
+
+  filters(deps: AppDeps) {
+    return { customers: repo.customers(deps.db) };
+  },
+};
+
+// ---- CSV ------------------------------------------------------------------------------
+
+type Cell = string | number | boolean | null;
+function csv(fields: string[], rows: Cell[][]): string {
+  return Papa.unparse({ fields, data: rows.map((r) => r.map((c) => (c === null ? '' : c))) }, { newline: '\r\n' });
+}
+const s = (x: { n: number; p50: number | null; p85: number | null; p95: number | null; mean: number | null }) => [x.n, x.p50, x.p85, x.p95, x.mean];
+
+export const reportsCsv = {
+  leadTime(r: LeadTimeReport): string {
+    return csv(
+      ['order', 'customer', 'title', 'process', 'released_at', 'shipped_at', 'calendar_hours', 'working_hours', 'due_date', 'on_time'],
+      r.orders.map((o) => [o.number, o.customer, o.title, o.process, o.releasedAt, o.shippedAt, o.calendarHours, o.workingHours, o.dueDate, o.onTime ? 'yes' : 'no']),
+    );
+  },
+  cycleTime(r: CycleTimeReport): string {
+    return csv(
+      ['station_kind', 'process_n', 'process_p50_min', 'process_p85_min', 'process_p95_min', 'process_mean_min', 'queue_n', 'queue_p50_min', 'queue_p85_min', 'queue_p95_min', 'queue_mean_min'],
+      r.stations.map((k) => [k.stationKind, ...s(k.process), ...s(k.queue)]),
+    );
+  },
+  flow(r: FlowReport): string {
+    return csv(
+      ['bucket_start', ...r.stages.map((x) => `cumulative_${x}`), 'trays_shipped', 'pieces_shipped', 'orders_shipped', 'wip_average_trays', 'wip_at_end_trays'],
+      r.buckets.map((b) => [b.label, ...b.cumulative, b.trays, b.pieces, b.orders, b.wipAverage, b.wipAtEnd]),
+    );
+  },
+  onTime(r: OnTimeReport): string {
+    return csv(
+      ['bucket_start', 'shipped', 'on_time', 'on_time_share'],
+      r.buckets.map((b) => [b.label, b.shipped, b.onTime, b.share]),
+    );
+  },
+  yield(r: YieldReport): string {
+    const rows: Cell[][] = [
+      ...r.steps.map((x) => ['step', x.stationKind, x.inQty, x.firstPassQty, x.goodQty, x.scrapQty, x.reworkQty, x.firstPassYield, x.finalYield, null, null, null]),
+      ...r.orders.map((o) => ['order', o.number, o.inQty, null, o.goodQty, null, o.reworkQty, null, o.finalYield, o.rolledThroughputYield, null, null]),
+      ...r.scrap.map((x) => ['scrap', x.reason, null, null, null, x.qty, null, null, null, null, x.share, x.cumulativeShare]),
+    ];
+    return csv(
+      ['section', 'name', 'in_qty', 'first_pass_qty', 'good_qty', 'scrap_qty', 'rework_qty', 'first_pass_yield', 'final_yield', 'rolled_throughput_yield', 'scrap_share', 'cumulative_share'],
+      rows,
+    );
+  },
+};

@@ -1,35 +1,444 @@
-import crypto from 'node:crypto';
+import { eq } from 'drizzle-orm';
 import type { AppDeps } from '../app-deps';
+import type { Tx } from '../db/client';
 import { users } from '../db/schema/users';
-import { settings } from '../db/schema/reference-data';
+import { calendarShifts, reasonCodes, settings } from '../db/schema/reference-data';
+import { stations } from '../db/schema/stations';
+import { devices } from '../db/schema/devices';
+import { customers } from '../db/schema/customers';
+import { orders } from '../db/schema/orders';
+import { moulds } from '../db/schema/moulds';
+import { trays, trayStates } from '../db/schema/trays';
+import { overrides, scanEvents, scanRejections } from '../db/schema/scans';
+import { cartons, shipments } from '../db/schema/shipping';
 import { hashSecret } from '../services/auth.service';
+import { ordersService, routingOf as routingOfOrder } from '../services/orders.service';
+import { ordersRepository } from '../repositories/orders.repository';
+import { randomToken, sha256Hex } from '../lib/keys';
+import { orderSpecSchema } from '@shared/schemas/orders';
+import type { Process, Role, RoutingStep, StationKind, TrayState } from '@shared/domain/vocabulary';
 import { DEMO_FACTORY, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
+import { DEMO_CREW, STATION_CREW } from './demo-crew';
+import { planOrders, DEMO_CUSTOMERS, type OrderPlan } from './demo-catalogue';
+import { demoProofPdf } from './demo-proof';
+import { makeRng } from './prng';
+import {
+  DAY,
+  DEMO_SHIFTS,
+  DEMO_WORKDAYS,
+  FACTORY_UTC_OFFSET_MS,
+  HOUR,
+  MINUTE,
+  nextWorking,
+  simulateFloor,
+  type SimOrder,
+  type SimTraveller,
+} from './simulate-floor';
 
-/** The invented demo factory: its people first; orders and weeks of floor history follow. */
-export async function seedDemo(deps: AppDeps): Promise<void> {
+/** Weeks of floor history behind "now". */
+export const DEMO_HISTORY_DAYS = 70;
+export const DEMO_SEED = 'tallowmere-2026';
+
+const HOLD_NOTE = 'Customer asked us to wait: artwork change under discussion';
+
+const CARRIERS = [
+  { name: 'Swiftlane Couriers', prefix: 'SL' },
+  { name: 'Harbourline Express', prefix: 'HX' },
+  { name: 'Kitefield Freight', prefix: 'KF' },
+];
+
+const UNIT_PRICE: Record<Process, number> = { hard_enamel: 1.35, soft_enamel: 0.95, die_struck: 1.1, printed: 0.85, die_cast_3d: 1.9 };
+
+const isoDate = (t: number) => new Date(t + FACTORY_UTC_OFFSET_MS).toISOString().slice(0, 10);
+
+function insertMany<T>(tx: Tx, table: Parameters<Tx['insert']>[0], rows: T[], chunk = 200) {
+  for (let i = 0; i < rows.length; i += chunk) {
+    tx.insert(table).values(rows.slice(i, i + chunk) as any).run();
+  }
+}
+
+export interface DemoSeedOptions {
+  seed?: string;
+}
+
+/**
+ * The invented demo factory: its people, customers and orders, and ten weeks of floor history
+ * made by simulating the floor through the product's own scan guards. The same seed and the
+ * same "now" give the same factory.
+ *
+ * Orders, payments, proofs, releases and scans are written here directly through Drizzle, with
+ * the same domain functions the services use (routing expansion, tray split, traveller numbers,
+ * scan guards), in one transaction.
+ */
+export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Promise<void> {
   const { db } = deps;
   const now = deps.now();
+  const t0 = Date.now();
+  const lap = (what: string) => deps.log.debug({ ms: Date.now() - t0 }, `demo seed: ${what}`);
+  const rng = makeRng(options.seed ?? DEMO_SEED);
+  const ids = rng.fork('ids');
   const passwordHash = hashSecret(DEMO_PASSWORD);
+
   db.transaction((tx) => {
     tx.insert(settings)
       .values({ key: 'factory', value: { name: DEMO_FACTORY.name, timeZone: DEMO_FACTORY.timeZone } })
       .onConflictDoUpdate({ target: settings.key, set: { value: { name: DEMO_FACTORY.name, timeZone: DEMO_FACTORY.timeZone } } })
       .run();
-    for (const p of DEMO_PEOPLE) {
+    for (const p of [...DEMO_PEOPLE, ...DEMO_CREW]) {
       tx.insert(users)
         .values({
-          id: crypto.randomUUID(),
+          id: ids.uuid(),
           name: p.name,
           email: p.email,
           role: p.role,
           passwordHash,
           badge: p.badge ?? null,
           pinHash: p.pin ? hashSecret(p.pin) : null,
-          createdAt: now,
-          updatedAt: now,
+          createdAt: now - (DEMO_HISTORY_DAYS + 14) * DAY,
+          updatedAt: now - (DEMO_HISTORY_DAYS + 14) * DAY,
         })
         .onConflictDoNothing()
         .run();
     }
   });
+
+  lap('people');
+  const people = db.select({ id: users.id, email: users.email, role: users.role }).from(users).all();
+  const userId = new Map(people.map((p) => [p.email, p.id]));
+  const roleOf = new Map<string, Role>(people.map((p) => [p.id, p.role]));
+  const who = (email: string) => {
+    const id = userId.get(email);
+    if (!id) throw new Error(`demo person missing: ${email}`);
+    return id;
+  };
+  const planner = who('planner@tallowmere.test');
+  const manager = who('manager@tallowmere.test');
+  const sales = who('sales@tallowmere.test');
+  const supervisors = DEMO_PEOPLE.filter((p) => p.role === 'supervisor').map((p) => who(p.email));
+
+  const stationRows = db.select().from(stations).all();
+  const reasonRows = db.select().from(reasonCodes).all();
+
+  // One tablet per station (tokens are random and never shown: pair a real tablet from the admin screens).
+  const deviceRows = stationRows.map((s) => ({
+    id: ids.uuid(),
+    name: `${s.name} tablet`,
+    kind: 'tablet' as const,
+    stationId: s.id,
+    tokenHash: sha256Hex(randomToken()),
+    locale: ['fill', 'cure', 'plate', 'stone', 'polish', 'strike', 'cast'].includes(s.kind) ? 'zh' : 'en',
+    createdAt: now - (DEMO_HISTORY_DAYS + 7) * DAY,
+    updatedAt: now,
+    lastSeenAt: now - ids.int(1, 90) * MINUTE,
+  }));
+  const deviceOf = new Map(deviceRows.map((d) => [d.stationId, d.id]));
+
+  // ---- the order book, entered through the orders service ---------------------------------
+  const plans = planOrders(rng.fork('orders'), now, DEMO_HISTORY_DAYS);
+  const customerIds = new Map(DEMO_CUSTOMERS.map((c) => [c.name, ids.uuid()]));
+  // customers first, with their contacts; the service finds them by name
+  db.transaction((tx) =>
+    insertMany(
+      tx,
+      customers,
+      DEMO_CUSTOMERS.map((c) => ({ id: customerIds.get(c.name)!, name: c.name, contactName: c.contactName, contactEmail: c.contactEmail, createdAt: now - (DEMO_HISTORY_DAYS + 30) * DAY, updatedAt: now - (DEMO_HISTORY_DAYS + 30) * DAY })),
+    ),
+  );
+  const at = (t: number): AppDeps => ({ ...deps, now: () => Math.round(t) });
+  const orderIds = new Map<OrderPlan, string>();
+  const simOrders: SimOrder[] = [];
+  const simTravellers: SimTraveller[] = [];
+  const routingOf = new Map<string, RoutingStep[]>();
+
+  const stageAt = (plan: OrderPlan) => {
+    // office steps between entry and release, in office hours
+    const end = plan.releasedAt ?? now;
+    const span = Math.max(HOUR, end - plan.createdAt);
+    const stamp = (f: number) => Math.min(end - 10 * MINUTE, Math.max(plan.createdAt + MINUTE, nextWorking(plan.createdAt + span * f)));
+    return { proof1: stamp(0.15), paid: stamp(0.3), proof2: stamp(0.5), approved: stamp(0.8) };
+  };
+
+  for (const plan of plans) {
+    if (plan.releasedAt != null) {
+      const r = nextWorking(plan.releasedAt);
+      if (r <= now - 10 * MINUTE) plan.releasedAt = r;
+    }
+    const released = plan.releasedAt != null;
+    const provisionalDue = isoDate((plan.releasedAt ?? plan.createdAt) + 14 * DAY);
+    const spec = orderSpecSchema.parse({
+      customer: plan.customer.name,
+      title: plan.title,
+      productType: plan.productType,
+      process: plan.process,
+      material: plan.material,
+      sizeMm: plan.sizeMm,
+      quantity: plan.quantity,
+      overrunPct: plan.overrunPct,
+      colours: plan.colours,
+      plating: plan.plating,
+      backing: plan.backing,
+      backLogo: plan.backLogo,
+      printing: plan.printing,
+      epoxy: plan.epoxy,
+      packaging: plan.packaging,
+      dueDate: provisionalDue,
+      notes: plan.target === 'packed' ? 'Customer collects at the gate with their next order.' : plan.notes,
+      ...(plan.reorderOf ? { reorderOf: orderIds.get(plan.reorderOf) } : {}),
+    });
+    const orderId = ordersService.createInTx(at(plan.createdAt), db, spec, planner);
+    orderIds.set(plan, orderId);
+    const st = stageAt(plan);
+
+    // gates: payment (or a manager's exception) and an approved proof revision
+    const paid = released || plan.target === 'awaiting_proof' || plan.target === 'draft';
+    const proofApproved = released || plan.target === 'draft';
+    const proofUploaded = proofApproved || plan.target === 'awaiting_proof' || (plan.target === 'awaiting_payment' && ids.chance(0.6));
+    if (proofUploaded) {
+      const revisions = ids.chance(0.2) ? 2 : 1;
+      for (let rev = 1; rev <= revisions; rev++) {
+        const uploadedAt = rev === 1 ? st.proof1 : st.proof2;
+        const pdf = await demoProofPdf({
+          number: ordersRepository.byId(db, orderId)!.number,
+          customer: plan.customer.name,
+          title: plan.title,
+          process: plan.process,
+          sizeMm: plan.sizeMm,
+          plating: plan.plating,
+          colours: plan.colours,
+          backLogo: plan.backLogo,
+          revision: rev,
+          createdAt: uploadedAt,
+        });
+        const file = { fieldname: 'file', originalname: `proof-${plan.designKey}-r${rev}.pdf`, mimetype: 'application/pdf', size: pdf.length, buffer: pdf } as unknown as Express.Multer.File;
+        ordersService.uploadProof(at(uploadedAt), orderId, file, planner);
+      }
+      if (proofApproved) {
+        ordersService.approveProof(at(st.approved), orderId, revisions, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);
+      }
+    }
+    if (paid) {
+      const exception = released && plan.target === 'in_production' && plan.number.endsWith('7');
+      if (exception) {
+        ordersService.recordPayment(at(st.paid), orderId, { exception: true, reason: 'Long-standing customer on 30-day terms' }, { id: manager, role: 'manager' });
+      } else {
+        const amount = Math.round(plan.quantity * UNIT_PRICE[plan.process] * (1 + plan.colours.length * 0.08) * 100) / 100;
+        ordersService.recordPayment(at(st.paid), orderId, { amount, reference: `BANK-${ids.int(100000, 999999)}` }, { id: planner, role: 'planner' });
+      }
+    }
+    if (released) {
+      ordersService.release(at(plan.releasedAt!), orderId, { traySize: plan.traySize }, planner);
+      const holdAt = plan.target === 'on_hold' ? Math.min(now - HOUR, nextWorking(now - ids.int(18, 36) * HOUR)) : null;
+      simOrders.push({
+        id: orderId,
+        releasedAt: plan.releasedAt!,
+        startsOnFloor: plan.target !== 'released',
+        holdAt,
+        holdNote: holdAt ? HOLD_NOTE : null,
+        keepFromCourier: plan.target === 'packed',
+      });
+      const trayRoutes = { tray: routingOfOrder(db, orderId, 'tray'), mould: routingOfOrder(db, orderId, 'mould') };
+      const travellers = db.select().from(trays).where(eq(trays.orderId, orderId)).all();
+      travellers.sort((x, y) => (x.kind === y.kind ? x.number.localeCompare(y.number) : x.kind === 'mould' ? -1 : 1));
+      for (const t of travellers) {
+        const row = db.select().from(trayStates).where(eq(trayStates.trayId, t.id)).get()!;
+        const routing = trayRoutes[t.kind];
+        routingOf.set(t.id, routing);
+        simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateOfRow(row) });
+      }
+    }
+  }
+  lap('order book');
+  // ---- the floor ------------------------------------------------------------------------
+  const simStations = stationRows
+    .filter((s) => s.active)
+    .map((s) => ({ id: s.id, code: s.code, name: s.name, kind: s.kind as StationKind, capacity: s.capacityTrays, deviceId: deviceOf.get(s.id)! }));
+  const operatorsByKind: Partial<Record<StationKind, string[]>> = {};
+  for (const [kind, emails] of Object.entries(STATION_CREW)) operatorsByKind[kind as StationKind] = emails.map(who);
+  const sim = simulateFloor({
+    rng: rng.fork('floor'),
+    now,
+    stations: simStations,
+    people: { operatorsByKind, supervisors, roleOf },
+    orders: simOrders,
+    travellers: simTravellers,
+    reasonCodes: reasonRows.map((r) => ({ code: r.code, kind: r.kind, stationKind: (r.stationKind as StationKind | null) ?? null })),
+  });
+
+  lap('floor simulated');
+  // ---- order states from what happened on the floor (written directly: no service moves
+  // an order through production in bulk; the same rules as the shipping service's status sync)
+  const orderRows = db.select().from(orders).all();
+  const planOf = new Map([...orderIds].map(([p, id]) => [id, p]));
+  const travellersOf = new Map<string, SimTraveller[]>();
+  for (const t of simTravellers) travellersOf.set(t.orderId, [...(travellersOf.get(t.orderId) ?? []), t]);
+  const lastEventOf = new Map<string, number>();
+  for (const e of sim.events) lastEventOf.set(e.trayId, Math.max(lastEventOf.get(e.trayId) ?? 0, e.occurredAt));
+  const shippedLeads: number[] = [];
+  const shipmentRows: (typeof shipments.$inferInsert)[] = [];
+  const cartonRows: (typeof cartons.$inferInsert)[] = [];
+  const orderPatches = new Map<string, Partial<typeof orders.$inferInsert>>();
+  const packer = who('zhou.lanfen@tallowmere.test');
+
+  for (const o of orderRows) {
+    const plan = planOf.get(o.id)!;
+    const patch: Partial<typeof orders.$inferInsert> = { salesOwnerId: sales };
+    orderPatches.set(o.id, patch);
+    const list = travellersOf.get(o.id) ?? [];
+    let last = o.updatedAt;
+    for (const t of list) last = Math.max(last, lastEventOf.get(t.id) ?? 0);
+    patch.updatedAt = last;
+    if (o.releasedAt == null) {
+      if (plan.target === 'cancelled') {
+        patch.status = 'cancelled';
+        patch.cancelledAt = Math.min(now - DAY, o.createdAt + ids.int(2, 9) * DAY);
+        patch.notes = 'Cancelled: the customer’s event was postponed.';
+        patch.updatedAt = patch.cancelledAt;
+      }
+      continue;
+    }
+    const trayList = list.filter((t) => t.kind === 'tray');
+    const living = trayList.filter((t) => sim.states.get(t.id)!.phase !== 'scrapped');
+    const goodPieces = living.reduce((sum, t) => sum + sim.states.get(t.id)!.quantity, 0);
+    const allDone = living.length > 0 && living.every((t) => sim.states.get(t.id)!.phase === 'done');
+    const allPacked = living.length > 0 && living.every((t) => sim.packedAt.has(t.id));
+    const anyScan = list.some((t) => lastEventOf.has(t.id));
+    if (allPacked) patch.packedAt = Math.max(...living.map((t) => sim.packedAt.get(t.id)!));
+    if (plan.target === 'on_hold') {
+      patch.status = 'on_hold';
+      patch.holdReason = HOLD_NOTE;
+    } else if (allDone) {
+      patch.status = 'shipped';
+      patch.shippedAt = Math.max(...living.map((t) => sim.finishedAt.get(t.id)!));
+      shippedLeads.push(patch.shippedAt - o.releasedAt);
+    } else if (allPacked) patch.status = 'packed';
+    else if (anyScan) patch.status = 'in_production';
+
+    if (patch.status === 'shipped' || patch.status === 'packed') {
+      const perCarton = plan.packaging === 'gift_box' ? 100 : plan.packaging === 'backing_card' ? 250 : 500;
+      const carrier = ids.pick(CARRIERS);
+      const shipmentId = patch.status === 'shipped' ? ids.uuid() : null;
+      if (shipmentId) {
+        shipmentRows.push({
+          id: shipmentId,
+          orderId: o.id,
+          number: 1,
+          carrier: carrier.name,
+          trackingNumber: `${carrier.prefix}${ids.int(1000, 9999)}${ids.int(100000, 999999)}`,
+          pieces: goodPieces,
+          shippedAt: patch.shippedAt!,
+          createdBy: packer,
+          createdAt: patch.shippedAt!,
+        });
+      }
+      cartonRows.push({
+        id: ids.uuid(),
+        orderId: o.id,
+        shipmentId,
+        count: Math.max(1, Math.ceil(goodPieces / perCarton)),
+        piecesPerCarton: perCarton,
+        weightKg: Math.round(goodPieces * (plan.sizeMm / 25) * 0.008 * 10) / 10,
+        createdBy: packer,
+        createdAt: patch.packedAt ?? last,
+      });
+    }
+  }
+
+  // Due dates as promised at order entry: the usual lead time plus some slack; a few promised
+  // too tightly, so some orders shipped late and some on the floor are at risk.
+  const sortedLeads = [...shippedLeads].sort((x, y) => x - y);
+  const typicalLead = sortedLeads.length ? sortedLeads[Math.floor(sortedLeads.length / 2)] : 12 * DAY;
+  const dues = rng.fork('due');
+  for (const o of orderRows) {
+    const patch = orderPatches.get(o.id)!;
+    const base = o.releasedAt ?? Math.max(now, o.createdAt + 7 * DAY);
+    let due: number;
+    if (patch.shippedAt != null) {
+      due = dues.chance(0.18) ? patch.shippedAt - dues.int(1, 4) * DAY : patch.shippedAt + dues.int(1, 6) * DAY;
+    } else {
+      due = base + typicalLead + (dues.chance(0.25) ? -dues.int(2, 6) : dues.int(1, 7)) * DAY;
+    }
+    patch.dueDate = isoDate(Math.max(due, o.createdAt + 5 * DAY));
+  }
+
+  // The mould library: each mould's state from its latest traveller.
+  const mouldRows = db.select().from(moulds).all();
+  const mouldPatches = new Map<string, Partial<typeof moulds.$inferInsert>>();
+  for (const m of mouldRows) {
+    const travellers = simTravellers.filter((t) => t.kind === 'mould' && t.mouldId === m.id);
+    const latest = travellers[travellers.length - 1];
+    const state = latest ? sim.states.get(latest.id) : undefined;
+    const readyTimes = travellers.map((t) => sim.finishedAt.get(t.id)).filter((x): x is number => x != null);
+    const step = state && latest ? latest.routing.find((r) => r.seq === state.stepSeq) : undefined;
+    mouldPatches.set(m.id, {
+      status: state?.phase === 'done' ? 'ready' : step?.stationKind === 'engrave' ? 'engraving' : 'checking',
+      readyAt: readyTimes.length ? Math.min(...readyTimes) : null,
+      storageLocation: readyTimes.length ? `Rack ${String.fromCharCode(65 + ids.int(0, 3))}-${String(ids.int(1, 24)).padStart(2, '0')}` : null,
+      updatedAt: readyTimes.length ? Math.max(...readyTimes) : m.updatedAt,
+    });
+  }
+
+  db.transaction((tx) => {
+    insertMany(tx, devices, deviceRows);
+    const shiftRows: (typeof calendarShifts.$inferInsert)[] = [];
+    for (const weekday of DEMO_WORKDAYS) for (const sh of DEMO_SHIFTS) shiftRows.push({ id: ids.uuid(), stationId: null, weekday, startMinute: sh.start, endMinute: sh.end });
+    insertMany(tx, calendarShifts, shiftRows);
+    for (const [id, patch] of orderPatches) tx.update(orders).set(patch).where(eq(orders.id, id)).run();
+    for (const [id, patch] of mouldPatches) tx.update(moulds).set(patch).where(eq(moulds.id, id)).run();
+    for (const t of simTravellers) {
+      const { trayId, ...row } = stateRow(sim.states.get(t.id)!, t.routing);
+      tx.update(trayStates).set(row).where(eq(trayStates.trayId, trayId)).run();
+    }
+    insertMany(tx, overrides, sim.overrides);
+    insertMany(tx, scanEvents, sim.events, 500);
+    insertMany(tx, scanRejections, sim.rejections.map((r) => ({ ...r, resolvedAt: null, resolvedBy: null, resolution: null })));
+    insertMany(tx, shipments, shipmentRows);
+    insertMany(tx, cartons, cartonRows);
+  });
+  lap('written');
+}
+
+const ms = (iso: string | null | undefined) => (iso ? Date.parse(iso) : null);
+const isoOf = (t: number | null) => (t == null ? null : new Date(t).toISOString());
+
+/** A stored traveller state as the guard reads it. */
+export function stateOfRow(r: typeof trayStates.$inferSelect): TrayState {
+  return {
+    trayId: r.trayId,
+    kind: r.kind,
+    phase: r.phase,
+    stepSeq: r.stepSeq,
+    quantity: r.quantity,
+    stationId: r.stationId,
+    startedAt: isoOf(r.startedAt),
+    waitingSince: isoOf(r.waitingSince),
+    cureReadyAt: isoOf(r.cureReadyAt),
+    onHold: r.onHold,
+    holdReason: r.holdReason,
+    releasedAt: isoOf(r.releasedAt)!,
+    lastEventAt: isoOf(r.lastEventAt),
+  };
+}
+
+/** The stored row of a traveller's state (the guard's state, instants as epoch ms). */
+export function stateRow(s: TrayState, routing: readonly RoutingStep[]): typeof trayStates.$inferInsert {
+  const step = s.stepSeq != null ? routing.find((r) => r.seq === s.stepSeq) : undefined;
+  const releasedAt = Date.parse(s.releasedAt);
+  const lastEventAt = ms(s.lastEventAt);
+  return {
+    trayId: s.trayId,
+    kind: s.kind,
+    phase: s.phase,
+    stepSeq: s.stepSeq,
+    stationKind: step?.stationKind ?? null,
+    quantity: s.quantity,
+    stationId: s.stationId,
+    startedAt: ms(s.startedAt),
+    waitingSince: ms(s.waitingSince),
+    cureReadyAt: ms(s.cureReadyAt),
+    onHold: s.onHold,
+    holdReason: s.holdReason,
+    releasedAt,
+    lastEventAt,
+    updatedAt: lastEventAt ?? releasedAt,
+  };
 }

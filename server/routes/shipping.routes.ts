@@ -1,12 +1,19 @@
 import { z } from 'zod';
 import type { Api } from '../http/api';
 import { SHIPPING } from '@shared/domain/access';
-import { createShipmentSchema, packCartonsSchema } from '@shared/schemas/shipping';
+import { createShipmentSchema, packCartonsSchema, salesSearchQuerySchema } from '@shared/schemas/shipping';
 import { shippingService } from '../services/shipping.service';
 
 const orderParams = z.object({ id: z.string().min(1) });
 
 export function registerShippingRoutes(api: Api) {
+  api.route({
+    method: 'get',
+    path: '/dispatch/orders',
+    access: { roles: SHIPPING },
+    query: salesSearchQuerySchema,
+    handler: ({ deps, query }) => shippingService.dispatchList(deps, query.q),
+  });
   api.route({
     method: 'get',
     path: '/orders/:id/packing',

@@ -7,7 +7,7 @@ import { shippingRepository, type CartonRow, type ShipmentRow } from '../reposit
 import { auditRepository } from '../repositories/audit.repository';
 import { conflict, notFound } from '../errors';
 import { cartonTotals, checkShipmentQuantity, trayIsPacked, type CartonLine } from '@shared/domain/shipping';
-import type { CartonView, CreateShipment, CreatedShipment, PackCartonsInput, PackingView, ShipmentView } from '@shared/schemas/shipping';
+import type { CartonView, CreateShipment, CreatedShipment, DispatchRow, PackCartonsInput, PackingView, ShipmentView } from '@shared/schemas/shipping';
 import { loadProgress, packedAndOnFloor, quantities, trayView, unshippedCartonPieces, type OrderProgress } from './order-progress.service';
 import { createLinkIn } from './share-links.service';
 import { enqueueMail, kickMail } from './mail.service';
@@ -83,6 +83,36 @@ export function syncOrderStatus(tx: DbLike, orderId: string, now: number): 'ship
 }
 
 export const shippingService = {
+  /** Orders with pieces ready for packing or dispatch (or every match of `q`). */
+  dispatchList(deps: AppDeps, q: string | undefined): DispatchRow[] {
+    const list = q?.trim() ? shippingRepository.search(deps.db, q, 50) : shippingRepository.openOrders(deps.db);
+    const progress = loadProgress(deps.db, list, deps.now(), 'UTC', { project: false });
+    const rows: DispatchRow[] = [];
+    for (const o of list) {
+      const p = progress.get(o.id)!;
+      const cartons = shippingRepository.cartons(deps.db, o.id);
+      const qv = quantities(p, unshippedCartonPieces(cartons));
+      const nearPacking = p.trays.some((t) => t.stationKind === 'bag' || t.stationKind === 'clutch' || t.stationKind === 'pack' || t.stationKind === 'dispatch');
+      if (!q?.trim() && qv.availableToShip === 0 && !nearPacking) continue;
+      rows.push({
+        id: o.id,
+        number: o.number,
+        customer: o.customer,
+        title: o.title,
+        dueDate: o.dueDate,
+        status: p.status,
+        ordered: qv.ordered,
+        finished: qv.finished,
+        onFloor: qv.onFloor,
+        shipped: qv.shipped,
+        inCartons: qv.inCartons,
+        availableToShip: qv.availableToShip,
+        needsDecision: qv.needsDecision,
+      });
+    }
+    return rows;
+  },
+
   packing(deps: AppDeps, orderId: string): PackingView {
     const p = progressOf(deps, orderId);
     const cartons = shippingRepository.cartons(deps.db, orderId);

@@ -127,6 +127,23 @@ export interface PackingView {
   shippedAt: string | null;
 }
 
+/** `GET /api/dispatch/orders?q=`: orders with pieces for packing or dispatch */
+export interface DispatchRow {
+  id: string;
+  number: string;
+  customer: string;
+  title: string;
+  dueDate: string;
+  status: string;
+  ordered: number;
+  finished: number;
+  onFloor: number;
+  shipped: number;
+  inCartons: number;
+  availableToShip: number;
+  needsDecision: boolean;
+}
+
 /** answer of `POST /api/orders/:id/shipments` */
 export interface CreatedShipment extends ShipmentView {
   /** mail queued for the shipped message, and who was left out (no address) */

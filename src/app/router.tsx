@@ -8,6 +8,8 @@ import { requireUser } from './auth-loader';
 // Routes declared in code; each page is a lazy route module exporting Component (and loader, handle).
 export const router = createBrowserRouter([
   { path: '/sign-in', lazy: () => import('./routes/auth/sign-in'), ErrorBoundary: RouteError },
+  // The customer's read-only order status: public, outside the signed-in shell.
+  { path: '/status/:token', lazy: () => import('./routes/public/order-status'), ErrorBoundary: RouteError },
   {
     id: 'signed-in',
     loader: requireUser,
@@ -29,8 +31,13 @@ export const router = createBrowserRouter([
               { path: 'devices', lazy: () => import('./routes/admin/devices') },
               { path: 'reason-codes', lazy: () => import('./routes/admin/reason-codes') },
               { path: 'backups', lazy: () => import('./routes/admin/backups') },
+              { path: 'outbox', lazy: () => import('./routes/admin/outbox') },
             ],
           },
+          { path: 'sales', lazy: () => import('./routes/sales/order-search') },
+          { path: 'sales/orders/:id', lazy: () => import('./routes/sales/order-status') },
+          { path: 'dispatch', lazy: () => import('./routes/dispatch/dispatch-list') },
+          { path: 'dispatch/:id', lazy: () => import('./routes/dispatch/pack-and-ship') },
           { path: '*', lazy: () => import('./routes/errors/not-found') },
         ],
       },

@@ -1,5 +1,5 @@
 import type { LucideIcon } from 'lucide-react';
-import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings } from 'lucide-react';
+import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Truck, Mail } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { paths } from './paths';
 
@@ -19,6 +19,7 @@ export const NAV: NavItem[] = [
   { to: paths.loads, label: 'Oven & bath loads', icon: Flame, roles: ['supervisor', 'planner', 'manager'] },
   { to: paths.reports, label: 'Reports', icon: LineChart, roles: ['manager', 'planner', 'admin', 'sales'] },
   { to: paths.sales, label: 'Order status', icon: Search, roles: ['sales', 'manager', 'planner', 'admin'] },
+  { to: paths.dispatch, label: 'Packing & dispatch', icon: Truck, roles: ['planner', 'supervisor', 'sales', 'admin'] },
   { to: paths.wall, label: 'Wall', icon: MonitorPlay, roles: ['supervisor', 'manager', 'admin'] },
   { to: paths.admin, label: 'Admin', icon: Settings, roles: ['admin'] },
 ];
@@ -30,4 +31,5 @@ export const ADMIN_SECTIONS: Omit<NavItem, 'roles'>[] = [
   { to: paths.adminDevices, label: 'Tablets & walls', icon: TabletSmartphone },
   { to: paths.adminReasonCodes, label: 'Reasons', icon: Tags },
   { to: paths.adminBackups, label: 'Backups', icon: DatabaseBackup },
+  { to: paths.adminOutbox, label: 'Outbox', icon: Mail },
 ];

@@ -17,12 +17,16 @@ export const paths = {
   loads: '/loads',
   reports: '/reports',
   sales: '/sales',
+  salesOrder: (id: string) => `/sales/orders/${id}`,
+  dispatch: '/dispatch',
+  dispatchOrder: (id: string) => `/dispatch/${id}`,
   admin: '/admin',
   adminUsers: '/admin/users',
   adminStations: '/admin/stations',
   adminDevices: '/admin/devices',
   adminReasonCodes: '/admin/reason-codes',
   adminBackups: '/admin/backups',
+  adminOutbox: '/admin/outbox',
   publicStatus: (token: string) => `/status/${token}`,
 } as const;
 

@@ -1,0 +1,103 @@
+import { useState } from 'react';
+import { Mail, RotateCw } from 'lucide-react';
+import { ADMIN_ONLY } from '@shared/domain/access';
+import type { CaughtMail } from '@shared/schemas/shipping';
+import { queryClient } from '@/lib/query-client';
+import { caughtMailQueryOptions, useCaughtMail, useMailQueue, useQueueLateDigest, useRetryMail } from '@/features/mail/api/get-mail';
+import { Button } from '@/components/ui/button';
+import { Card, EmptyState, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
+
+export const handle = { roles: ADMIN_ONLY };
+export const loader = () => queryClient.ensureQueryData(caughtMailQueryOptions());
+
+const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+
+function Message({ m }: { m: CaughtMail }) {
+  const [open, setOpen] = useState(false);
+  return (
+    <li className="border-t border-harbour-100 py-2 first:border-t-0">
+      <button type="button" className="flex min-h-11 w-full flex-wrap items-baseline gap-x-3 text-left" aria-expanded={open} onClick={() => setOpen((x) => !x)}>
+        <span className="font-bold">{m.subject}</span>
+        <span className="text-sm text-harbour-700">to {m.to}</span>
+        <span className="ml-auto text-sm text-harbour-700">{when(m.sentAt)}</span>
+      </button>
+      {open && (
+        <div className="mt-2 rounded-lg bg-harbour-50 p-3">
+          <pre className="whitespace-pre-wrap break-words font-sans text-sm">{m.text}</pre>
+          {m.attachments && m.attachments.length > 0 && (
+            <p className="mt-2 text-sm">
+              Attached: {m.attachments.map((a) => `${a.filename} (${Math.round(a.size / 1024)} KB)`).join(', ')}
+            </p>
+          )}
+        </div>
+      )}
+    </li>
+  );
+}
+
+export function Component() {
+  const caught = useCaughtMail();
+  const queue = useMailQueue();
+  const retry = useRetryMail();
+  const digest = useQueueLateDigest();
+  const waiting = queue.data?.filter((q) => q.status !== 'sent') ?? [];
+  return (
+    <>
+      <PageHeader
+        title="Outbox"
+        subtitle="Mail Trayce sent. Without an SMTP_URL setting it goes to the built-in mail catcher and stays here; nothing leaves the building."
+        actions={
+          <Button variant="secondary" onClick={() => digest.mutate()} disabled={digest.isPending}>
+            Send today’s late-risk digest
+          </Button>
+        }
+      />
+      {digest.data && (
+        <p role="status" className="mb-4 font-bold text-ok-700">
+          {digest.data.orders === 0 ? 'No order is projected after its due date: no digest.' : `${digest.data.queued} digests queued for ${digest.data.date} (${digest.data.orders} orders at risk).`}
+        </p>
+      )}
+      {waiting.length > 0 && (
+        <Card className="mb-6">
+          <h2 className="mb-2 text-xl font-bold">Waiting or failed</h2>
+          <ul>
+            {waiting.map((q) => (
+              <li key={q.id} className="flex flex-wrap items-center gap-3 border-t border-harbour-100 py-2 first:border-t-0">
+                {q.status === 'failed' ? <Pill tone="stop">Failed</Pill> : <Pill tone="warn">Queued</Pill>}
+                <span className="font-bold">{q.subject}</span>
+                <span className="text-sm text-harbour-700">to {q.to}</span>
+                <span className="text-sm text-harbour-700">
+                  {q.attempts} {q.attempts === 1 ? 'attempt' : 'attempts'}
+                  {q.lastError ? `: ${q.lastError}` : ''}
+                </span>
+                {q.status === 'failed' && (
+                  <Button variant="ghost" onClick={() => retry.mutate(q.id)}>
+                    <RotateCw className="h-5 w-5" aria-hidden /> Send again
+                  </Button>
+                )}
+              </li>
+            ))}
+          </ul>
+        </Card>
+      )}
+      <Card>
+        <h2 className="mb-2 flex items-center gap-2 text-xl font-bold">
+          <Mail className="h-6 w-6" aria-hidden /> Caught mail
+        </h2>
+        {caught.isPending ? (
+          <Loading />
+        ) : caught.error ? (
+          <ErrorPanel message={caught.error.message} />
+        ) : caught.data.length === 0 ? (
+          <EmptyState title="No mail yet">Shipped orders, proofs for approval and the daily late-risk digest appear here.</EmptyState>
+        ) : (
+          <ul aria-label="Caught mail">
+            {caught.data.map((m) => (
+              <Message key={m.id ?? `${m.sentAt}-${m.to}`} m={m} />
+            ))}
+          </ul>
+        )}
+      </Card>
+    </>
+  );
+}

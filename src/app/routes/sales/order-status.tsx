@@ -1,0 +1,131 @@
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
+import { SALES_VIEW, SHARE_LINKS, SHIPPING } from '@shared/domain/access';
+import { queryClient } from '@/lib/query-client';
+import { salesOrderQueryOptions, useSalesOrder } from '@/features/sales/api/get-sales-order';
+import { useMe } from '@/features/auth/api/get-me';
+import { ShareLinkPanel } from '@/features/sales/components/share-link-panel';
+import { ContactForm } from '@/features/sales/components/contact-form';
+import { SendProof } from '@/features/sales/components/send-proof';
+import { ShipmentsTable } from '@/features/shipping/components/shipments-table';
+import { StageLine } from '@/components/ui/stage-line';
+import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
+import { paths } from '@/config/paths';
+
+export const handle = { roles: SALES_VIEW };
+export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(salesOrderQueryOptions(params.id!));
+
+const longDate = (iso: string) => new Date(iso).toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' });
+const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+
+export function Component() {
+  const { id = '' } = useParams();
+  const order = useSalesOrder(id);
+  const me = useMe();
+  const role = me.data?.user.role;
+  if (order.isPending) return <Loading />;
+  if (order.error) return <ErrorPanel message={order.error.message} />;
+  const o = order.data;
+  const canShare = !!role && SHARE_LINKS.includes(role);
+  const canShip = !!role && SHIPPING.includes(role);
+  const q = o.quantities;
+  return (
+    <>
+      <PageHeader
+        title={`${o.number}: ${o.title}`}
+        subtitle={o.customer}
+        actions={
+          <>
+            {o.late && <Pill tone="stop">Late</Pill>}
+            {canShip && (
+              <Link className="inline-flex min-h-11 items-center rounded-lg border-2 border-harbour-800 bg-white px-4 font-bold text-harbour-800" to={paths.dispatchOrder(o.id)}>
+                Pack and ship
+              </Link>
+            )}
+          </>
+        }
+      />
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="flex flex-col gap-6">
+          <Card>
+            <h2 className="text-xl font-bold">Where it stands</h2>
+            <p className="mt-2 text-lg" data-testid="stage-text">
+              {o.stageText}
+            </p>
+            <div className="mt-4 grid gap-6 md:grid-cols-2">
+              <StageLine stages={o.stages} current={o.stage} />
+              <div>
+                <h3 className="font-bold text-harbour-700">{o.shippedAt ? 'Shipped' : 'Projected ship date'}</h3>
+                <p className="text-2xl font-bold" data-testid="projected-ship-date">
+                  {o.shippedAt ? longDate(o.shippedAt) : o.projectedShipAt ? longDate(o.projectedShipAt) : 'Not yet'}
+                </p>
+                <p className="mt-1 text-sm text-harbour-700">{o.projectionNote}</p>
+                <p className="mt-3">
+                  Due <span className="font-bold">{o.dueDate}</span>
+                  {o.late && !o.shippedAt && <span className="font-bold text-stop-700"> · projected after the due date</span>}
+                </p>
+              </div>
+            </div>
+          </Card>
+          {q && (
+            <Card>
+              <h2 className="mb-2 text-xl font-bold">Quantities</h2>
+              <dl className="grid grid-cols-2 gap-x-6 gap-y-1 md:grid-cols-3">
+                <dt className="text-harbour-700">Ordered</dt>
+                <dd className="font-bold md:col-span-2">
+                  {q.ordered} (up to {q.maxExpected} with the {q.overrunPct} % allowance)
+                </dd>
+                <dt className="text-harbour-700">Finished</dt>
+                <dd className="font-bold md:col-span-2">{q.finished}</dd>
+                <dt className="text-harbour-700">Still on the floor</dt>
+                <dd className="font-bold md:col-span-2">{q.onFloor}</dd>
+                <dt className="text-harbour-700">Shipped</dt>
+                <dd className="font-bold md:col-span-2">{q.shipped}</dd>
+              </dl>
+              {q.needsDecision && (
+                <p className="mt-3 rounded-lg border-2 border-warn-700 bg-warn-50 p-3 font-bold text-warn-700">
+                  Under quantity: {q.shortBy} pieces short. Ask the customer whether to ship short or wait for more.
+                </p>
+              )}
+            </Card>
+          )}
+          <Card>
+            <h2 className="mb-2 text-xl font-bold">Shipments</h2>
+            <ShipmentsTable orderId={o.id} shipments={o.shipments} />
+          </Card>
+          <Card>
+            <h2 className="mb-2 text-xl font-bold">History</h2>
+            <ol className="flex flex-col gap-1">
+              {o.history.map((h, i) => (
+                <li key={i} className="grid grid-cols-[11rem_1fr] gap-3 border-t border-harbour-100 py-1 first:border-t-0">
+                  <span className="text-sm text-harbour-700">{when(h.at)}</span>
+                  <span>
+                    {h.what}
+                    {h.who && <span className="text-harbour-700"> · {h.who}</span>}
+                  </span>
+                </li>
+              ))}
+            </ol>
+          </Card>
+        </div>
+        <div className="flex flex-col gap-6">
+          <Card>
+            <h2 className="mb-2 text-xl font-bold">Customer status link</h2>
+            {canShare ? <ShareLinkPanel orderId={o.id} links={o.shareLinks} disabled={o.status === 'cancelled'} /> : <p className="text-harbour-700">Sales and planners make status links.</p>}
+          </Card>
+          {canShare && (
+            <>
+              <Card>
+                <h2 className="mb-2 text-xl font-bold">Who hears about it</h2>
+                <ContactForm order={o} />
+              </Card>
+              <Card>
+                <h2 className="mb-2 text-xl font-bold">Proof for approval</h2>
+                <SendProof order={o} />
+              </Card>
+            </>
+          )}
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,62 @@
+import { FileText } from 'lucide-react';
+import type { ShipmentView } from '@shared/schemas/shipping';
+import { Pill } from '@/components/ui/panels';
+import { packingListUrl } from '../api/create-shipment';
+
+const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+
+export function ShipmentsTable({ orderId, shipments }: { orderId: string; shipments: ShipmentView[] }) {
+  if (shipments.length === 0) return <p className="text-harbour-700">Nothing has shipped yet.</p>;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-left text-sm">
+        <caption className="sr-only">Shipments</caption>
+        <thead>
+          <tr className="text-harbour-700">
+            <th scope="col" className="py-2 pr-3">#</th>
+            <th scope="col" className="py-2 pr-3">Carrier and tracking</th>
+            <th scope="col" className="py-2 pr-3 text-right">Cartons</th>
+            <th scope="col" className="py-2 pr-3 text-right">Pieces</th>
+            <th scope="col" className="py-2 pr-3 text-right">Weight</th>
+            <th scope="col" className="py-2 pr-3">Recorded</th>
+            <th scope="col" className="py-2">Packing list</th>
+          </tr>
+        </thead>
+        <tbody>
+          {shipments.map((s) => (
+            <tr key={s.id} className="border-t border-harbour-100 align-top">
+              <td className="py-2 pr-3 font-bold">{s.number}</td>
+              <td className="py-2 pr-3">
+                {s.carrier}
+                <br />
+                <span className="font-mono text-base font-bold">{s.trackingNumber}</span>
+                {s.sharedWith.length > 0 && (
+                  <span className="mt-1 block">
+                    <Pill tone="warn">Also on order {s.sharedWith.join(', ')}</Pill>
+                  </span>
+                )}
+                {s.shortAccepted && (
+                  <span className="mt-1 block">
+                    <Pill tone="warn">Shipped short by decision</Pill>
+                  </span>
+                )}
+              </td>
+              <td className="py-2 pr-3 text-right">{s.cartonCount}</td>
+              <td className="py-2 pr-3 text-right">{s.pieces}</td>
+              <td className="py-2 pr-3 text-right">{s.weightKg.toLocaleString(undefined, { maximumFractionDigits: 3 })} kg</td>
+              <td className="py-2 pr-3">
+                {when(s.shippedAt)}
+                {s.createdBy ? ` · ${s.createdBy}` : ''}
+              </td>
+              <td className="py-2">
+                <a className="inline-flex min-h-11 items-center gap-1 font-bold text-harbour-700 underline" href={packingListUrl(orderId, s.id)} target="_blank" rel="noreferrer">
+                  <FileText className="h-5 w-5" aria-hidden /> PDF
+                </a>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -13,6 +13,7 @@ import { createLinkIn } from './share-links.service';
 import { enqueueMail, kickMail } from './mail.service';
 import { shippedMail } from '../lib/mail-templates';
 import { renderPackingList } from '../lib/packing-list-pdf';
+import { scanHooks, type AcceptedScan } from './scans.service';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
@@ -81,6 +82,16 @@ export function syncOrderStatus(tx: DbLike, orderId: string, now: number): 'ship
   }
   return null;
 }
+
+/**
+ * After accepted scans, in their transaction: an order becomes packed or shipped as its trays
+ * finish packing and dispatch (a finish with every piece scrapped can complete an order too).
+ */
+function statusAfterScans(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps): void {
+  const orderIds = new Set(accepted.filter((a) => a.type === 'finish').map((a) => a.orderId));
+  for (const orderId of orderIds) syncOrderStatus(tx, orderId, deps.now());
+}
+if (!scanHooks.inTransaction.includes(statusAfterScans)) scanHooks.inTransaction.push(statusAfterScans);
 
 export const shippingService = {
   /** Orders with pieces ready for packing or dispatch (or every match of `q`). */

@@ -7,6 +7,7 @@ import { makeTestApp, type TestApp } from '../support/test-app';
 import { finishDispatch, insertShippingOrder, moveTray, SEQ } from '../support/shipping-fixtures';
 import { orders } from '../../server/db/schema/orders';
 import { syncOrderStatus } from '../../server/services/shipping.service';
+import { insertBadgeUser, pairTablet, scan, tabletAgent } from '../support/scan-fixtures';
 
 type Agent = Awaited<ReturnType<TestApp['agentAs']>>;
 let t: TestApp;
@@ -189,5 +190,31 @@ describe('when an order counts as shipped', () => {
     expect(syncOrderStatus(t.deps.db, o.orderId, Date.now())).toBeNull();
     moveTray(t.deps, o.trays[1].id, SEQ.dispatch);
     expect(syncOrderStatus(t.deps.db, o.orderId, Date.now())).toBe('packed');
+  });
+});
+
+describe('through the station tablets', () => {
+  it('the dispatch finish scan of the last tray ships the order, at that scan’s time', async () => {
+    const o = insertShippingOrder(t.deps, { trays: [{ quantity: 30, at: SEQ.dispatch }, { quantity: 30, at: SEQ.dispatch }] });
+    const tablet = pairTablet(t, 'DSP-1');
+    const person = insertBadgeUser(t, 'operator', `B-9${Math.floor(Math.random() * 900 + 100)}`, '4711');
+    const agent = await tabletAgent(t, tablet.token, person);
+    const base = Date.now() - 10 * 60_000;
+    const events = [
+      scan(o.trays[0].number, tablet.stationId, 'start', base),
+      scan(o.trays[0].number, tablet.stationId, 'finish', base + 60_000, { goodQty: 30, scrapQty: 0 }),
+      scan(o.trays[1].number, tablet.stationId, 'start', base + 120_000),
+    ];
+    const first = await agent.post('/api/scans').send({ events });
+    expect(first.status).toBe(200);
+    expect(first.body.results.map((r: { status: string }) => r.status)).toEqual(['accepted', 'accepted', 'accepted']);
+    let row = t.deps.db.select().from(orders).where(eq(orders.id, o.orderId)).get()!;
+    expect(row.status).not.toBe('shipped');
+    const lastAt = base + 180_000;
+    const last = await agent.post('/api/scans').send({ events: [scan(o.trays[1].number, tablet.stationId, 'finish', lastAt, { goodQty: 30, scrapQty: 0 })] });
+    expect(last.body.results[0].status).toBe('accepted');
+    row = t.deps.db.select().from(orders).where(eq(orders.id, o.orderId)).get()!;
+    expect(row.status).toBe('shipped');
+    expect(row.shippedAt).toBe(lastAt);
   });
 });

@@ -14,6 +14,7 @@ import { readFile } from '../lib/file-store';
 import { lateDigestMail, proofReadyMail, type DigestOrder } from '../lib/mail-templates';
 import { AppError, notFound } from '../errors';
 import { loadProgress } from './order-progress.service';
+import { measuredShipDates } from './ship-date.service';
 import { localDate, startOfLocalDate } from '@shared/domain/calendar';
 import type { CaughtMail, MailQueueItem } from '@shared/schemas/shipping';
 
@@ -121,7 +122,7 @@ export async function processMailQueue(deps: AppDeps, limit = 20): Promise<{ sen
 export function lateRiskOrders(deps: AppDeps): DigestOrder[] {
   const { timeZone } = shippingRepository.factory(deps.db);
   const open = shippingRepository.openOrders(deps.db);
-  const progress = loadProgress(deps.db, open, deps.now(), timeZone);
+  const progress = loadProgress(deps.db, open, deps.now(), timeZone, { shipDates: measuredShipDates(deps, open.map((o) => o.id)) });
   const out: DigestOrder[] = [];
   for (const o of open) {
     const p = progress.get(o.id)!;

@@ -43,7 +43,14 @@ export interface OrderProgress {
 
 const WRITTEN_OFF: TrayPhase[] = ['scrapped', 'merged'];
 
-export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, timeZone: string, options: { project?: boolean } = {}): Map<string, OrderProgress> {
+export interface ProgressOptions {
+  /** false: skip ship dates (status checks inside a scan) */
+  project?: boolean;
+  /** measured ship dates by order (the projection service); others get the simple projection */
+  shipDates?: Map<string, ShipDate>;
+}
+
+export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, timeZone: string, options: ProgressOptions = {}): Map<string, OrderProgress> {
   const ids = list.map((o) => o.id);
   const rows = shippingRepository.travellers(db, ids);
   const steps = shippingRepository.steps(db, ids);
@@ -91,7 +98,10 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
     const stage = orderStage({ status, travellers: progressInput });
     const stageText = describeStage({ status, travellers: progressInput });
     const shippedAt = status === 'shipped' ? (order.shippedAt ?? (verdict.shippedAt ? Date.parse(verdict.shippedAt) : null)) : null;
-    const projection = options.project === false ? { expectedAt: null, basis: '' } : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone);
+    const measured = options.shipDates?.get(order.id);
+    const open = status !== 'shipped' && status !== 'cancelled';
+    const projection: ShipDate =
+      options.project === false ? { expectedAt: null, basis: '' } : open && measured ? measured : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone);
     const late =
       status === 'shipped'
         ? shippedAt != null && projectedPastDue(shippedAt, order.dueDate, timeZone)

@@ -9,7 +9,7 @@ import type { HistoryEntry, OrderContactInput, SalesOrderDetail, SalesOrderRow }
 import { loadProgress, quantities, unshippedCartonPieces, type OrderProgress } from './order-progress.service';
 import { shareLinksService } from './share-links.service';
 import { shippingService } from './shipping.service';
-import { BASIS_TEXT } from './ship-date.service';
+import { measuredShipDates } from './ship-date.service';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
@@ -78,21 +78,21 @@ function history(deps: AppDeps, p: OrderProgress): HistoryEntry[] {
 export const salesService = {
   search(deps: AppDeps, q: string | undefined, limit: number): SalesOrderRow[] {
     const list = shippingRepository.search(deps.db, q, limit);
-    const progress = loadProgress(deps.db, list, deps.now(), shippingRepository.factory(deps.db).timeZone);
+    const progress = loadProgress(deps.db, list, deps.now(), shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, list.map((o) => o.id)) });
     return list.map((o) => row(progress.get(o.id)!));
   },
 
   detail(deps: AppDeps, orderId: string): SalesOrderDetail {
     const order = shippingRepository.order(deps.db, orderId);
     if (!order) throw notFound('That order');
-    const p = loadProgress(deps.db, [order], deps.now(), shippingRepository.factory(deps.db).timeZone).get(orderId)!;
+    const p = loadProgress(deps.db, [order], deps.now(), shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, [orderId]) }).get(orderId)!;
     const cartons = shippingRepository.cartons(deps.db, orderId);
     const released = ['released', 'in_production', 'packed', 'shipped', 'on_hold'].includes(p.status);
     const owner = order.salesOwnerId ? shippingRepository.user(deps.db, order.salesOwnerId) : undefined;
     return {
       ...row(p),
       stages: p.stage.stages.map((s) => ({ name: s.name, done: s.done })),
-      projectionNote: p.projection.expectedAt != null ? BASIS_TEXT : released ? 'Every tray is finished.' : 'A ship date is projected once the order is released to the floor.',
+      projectionNote: p.projection.expectedAt != null ? p.projection.basis : released ? 'Every tray is finished.' : 'A ship date is projected once the order is released to the floor.',
       overrunPct: order.overrunPct,
       contact: { customerId: order.customerId, contactName: order.contactName, contactEmail: order.contactEmail },
       salesOwner: owner ? { id: owner.id, name: owner.name, email: owner.email } : null,

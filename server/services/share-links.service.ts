@@ -9,6 +9,7 @@ import { shippingRepository } from '../repositories/shipping.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { AppError, notFound } from '../errors';
 import { loadProgress } from './order-progress.service';
+import { measuredShipDates } from './ship-date.service';
 import { CUSTOMER_STAGE_NAMES } from '@shared/domain/stages';
 import { publicStatusSchema, statusTokenSchema, type PublicStatus, type ShareLink, type ShareLinkInfo } from '@shared/schemas/shipping';
 
@@ -79,7 +80,7 @@ export const shareLinksService = {
     const order = shippingRepository.order(deps.db, link.orderId);
     if (!order) throw notFoundLink();
     const now = deps.now();
-    const p = loadProgress(deps.db, [order], now, shippingRepository.factory(deps.db).timeZone).get(order.id)!;
+    const p = loadProgress(deps.db, [order], now, shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, [order.id]) }).get(order.id)!;
     const last = p.shipments.at(-1);
     const body: PublicStatus = {
       title: order.title,

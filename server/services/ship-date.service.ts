@@ -1,13 +1,15 @@
 // Projected ship dates for the sales view, the status page and the late-risk digest.
 //
-// This is the simple projection: each open tray's remaining standard minutes plus a fixed
-// queue allowance per step, laid on the factory's default working calendar (ovens continuous),
-// through the shared projection model. It needs no history, so it works on day one.
+// The dates come from the projection service (measured queue times, the working calendar,
+// sampled runs). For an order that service does not cover, the simple projection here is
+// used: each open tray's remaining standard minutes plus a fixed queue allowance per step, on
+// the default working calendar (ovens continuous). It needs no history.
 import type { AppDeps } from '../app-deps';
 import { compileCalendar, defaultCalendarConfig, type WorkingCalendar } from '@shared/domain/calendar';
 import { projectTrays, type TrayOutlook } from '@shared/domain/projection';
 import { standardMinutes, type TrayPhase } from '@shared/domain/vocabulary';
 import { shippingRepository } from '../repositories/shipping.repository';
+import { projectionService } from './projection.service';
 
 /** Queue allowance per remaining step when nothing better is known (minutes of working time). */
 export const SIMPLE_QUEUE_MINUTES = 60;
@@ -82,7 +84,23 @@ export function projectOrder(
   return { expectedAt: p.expectedAt, basis: BASIS_TEXT };
 }
 
+/** Ship dates of these orders from the projection service (orders it does not cover are left out). */
+export function measuredShipDates(deps: AppDeps, orderIds: string[]): Map<string, ShipDate> {
+  const out = new Map<string, ShipDate>();
+  if (orderIds.length === 0) return out;
+  try {
+    for (const [id, p] of projectionService.forOrders(deps, orderIds)) {
+      if (p.expectedAt != null) out.set(id, { expectedAt: Date.parse(p.expectedAt), basis: p.explanation });
+    }
+  } catch (err) {
+    // The simple projection stands in; a sales screen must not fail because of a projection.
+    deps.log.warn({ err: (err as Error).message }, 'projection service failed; using the simple projection');
+  }
+  return out;
+}
+
 export const shipDateService = {
   timeZone: (deps: AppDeps) => shippingRepository.factory(deps.db).timeZone,
   projectOrder,
+  measuredShipDates,
 };

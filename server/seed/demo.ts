@@ -158,47 +158,27 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     return { proof1: stamp(0.15), paid: stamp(0.3), proof2: stamp(0.5), approved: stamp(0.8) };
   };
 
+  // releases happen in office hours
   for (const plan of plans) {
-    if (plan.releasedAt != null) {
-      const r = nextWorking(plan.releasedAt);
-      if (r <= now - 10 * MINUTE) plan.releasedAt = r;
-    }
-    const released = plan.releasedAt != null;
-    const provisionalDue = isoDate((plan.releasedAt ?? plan.createdAt) + 14 * DAY);
-    const spec = orderSpecSchema.parse({
-      customer: plan.customer.name,
-      title: plan.title,
-      productType: plan.productType,
-      process: plan.process,
-      material: plan.material,
-      sizeMm: plan.sizeMm,
-      quantity: plan.quantity,
-      overrunPct: plan.overrunPct,
-      colours: plan.colours,
-      plating: plan.plating,
-      backing: plan.backing,
-      backLogo: plan.backLogo,
-      printing: plan.printing,
-      epoxy: plan.epoxy,
-      packaging: plan.packaging,
-      dueDate: provisionalDue,
-      notes: plan.target === 'packed' ? 'Customer collects at the gate with their next order.' : plan.notes,
-      ...(plan.reorderOf ? { reorderOf: orderIds.get(plan.reorderOf) } : {}),
-    });
-    const orderId = ordersService.createInTx(at(plan.createdAt), db, spec, planner);
-    orderIds.set(plan, orderId);
-    const st = stageAt(plan);
+    if (plan.releasedAt == null) continue;
+    const r = nextWorking(plan.releasedAt);
+    if (r <= now - 10 * MINUTE) plan.releasedAt = r;
+  }
 
-    // gates: payment (or a manager's exception) and an approved proof revision
-    const paid = released || plan.target === 'awaiting_proof' || plan.target === 'draft';
-    const proofApproved = released || plan.target === 'draft';
-    const proofUploaded = proofApproved || plan.target === 'awaiting_proof' || (plan.target === 'awaiting_payment' && ids.chance(0.6));
-    if (proofUploaded) {
-      const revisions = ids.chance(0.2) ? 2 : 1;
-      for (let rev = 1; rev <= revisions; rev++) {
-        const uploadedAt = rev === 1 ? st.proof1 : st.proof2;
-        const pdf = await demoProofPdf({
-          number: ordersRepository.byId(db, orderId)!.number,
+  // Proof files first (drawing a PDF is asynchronous); then the office work in one transaction.
+  const proofPdfs = new Map<OrderPlan, Buffer[]>();
+  for (const plan of plans) {
+    const released = plan.releasedAt != null;
+    const approved = released || plan.target === 'draft';
+    const uploaded = approved || plan.target === 'awaiting_proof' || (plan.target === 'awaiting_payment' && ids.chance(0.6));
+    if (!uploaded) continue;
+    const revisions = ids.chance(0.2) ? 2 : 1;
+    const st = stageAt(plan);
+    const files: Buffer[] = [];
+    for (let rev = 1; rev <= revisions; rev++) {
+      files.push(
+        await demoProofPdf({
+          number: plan.number,
           customer: plan.customer.name,
           title: plan.title,
           process: plan.process,
@@ -207,46 +187,88 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           colours: plan.colours,
           backLogo: plan.backLogo,
           revision: rev,
-          createdAt: uploadedAt,
-        });
-        const file = { fieldname: 'file', originalname: `proof-${plan.designKey}-r${rev}.pdf`, mimetype: 'application/pdf', size: pdf.length, buffer: pdf } as unknown as Express.Multer.File;
-        ordersService.uploadProof(at(uploadedAt), orderId, file, planner);
-      }
-      if (proofApproved) {
-        ordersService.approveProof(at(st.approved), orderId, revisions, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);
-      }
+          createdAt: rev === 1 ? st.proof1 : st.proof2,
+        }),
+      );
     }
-    if (paid) {
-      const exception = released && plan.target === 'in_production' && plan.number.endsWith('7');
-      if (exception) {
-        ordersService.recordPayment(at(st.paid), orderId, { exception: true, reason: 'Long-standing customer on 30-day terms' }, { id: manager, role: 'manager' });
-      } else {
-        const amount = Math.round(plan.quantity * UNIT_PRICE[plan.process] * (1 + plan.colours.length * 0.08) * 100) / 100;
-        ordersService.recordPayment(at(st.paid), orderId, { amount, reference: `BANK-${ids.int(100000, 999999)}` }, { id: planner, role: 'planner' });
-      }
-    }
-    if (released) {
-      ordersService.release(at(plan.releasedAt!), orderId, { traySize: plan.traySize }, planner);
-      const holdAt = plan.target === 'on_hold' ? Math.min(now - HOUR, nextWorking(now - ids.int(18, 36) * HOUR)) : null;
-      simOrders.push({
-        id: orderId,
-        releasedAt: plan.releasedAt!,
-        startsOnFloor: plan.target !== 'released',
-        holdAt,
-        holdNote: holdAt ? HOLD_NOTE : null,
-        keepFromCourier: plan.target === 'packed',
-      });
-      const trayRoutes = { tray: routingOfOrder(db, orderId, 'tray'), mould: routingOfOrder(db, orderId, 'mould') };
-      const travellers = db.select().from(trays).where(eq(trays.orderId, orderId)).all();
-      travellers.sort((x, y) => (x.kind === y.kind ? x.number.localeCompare(y.number) : x.kind === 'mould' ? -1 : 1));
-      for (const t of travellers) {
-        const row = db.select().from(trayStates).where(eq(trayStates.trayId, t.id)).get()!;
-        const routing = trayRoutes[t.kind];
-        routingOf.set(t.id, routing);
-        simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateOfRow(row) });
-      }
-    }
+    proofPdfs.set(plan, files);
   }
+
+  db.transaction(() => {
+    for (const plan of plans) {
+      const released = plan.releasedAt != null;
+      const provisionalDue = isoDate((plan.releasedAt ?? plan.createdAt) + 14 * DAY);
+      const spec = orderSpecSchema.parse({
+        customer: plan.customer.name,
+        title: plan.title,
+        productType: plan.productType,
+        process: plan.process,
+        material: plan.material,
+        sizeMm: plan.sizeMm,
+        quantity: plan.quantity,
+        overrunPct: plan.overrunPct,
+        colours: plan.colours,
+        plating: plan.plating,
+        backing: plan.backing,
+        backLogo: plan.backLogo,
+        printing: plan.printing,
+        epoxy: plan.epoxy,
+        packaging: plan.packaging,
+        dueDate: provisionalDue,
+        notes: plan.target === 'packed' ? 'Customer collects at the gate with their next order.' : plan.notes,
+        ...(plan.reorderOf ? { reorderOf: orderIds.get(plan.reorderOf) } : {}),
+      });
+      const orderId = ordersService.createInTx(at(plan.createdAt), db, spec, planner);
+      orderIds.set(plan, orderId);
+      const entered = ordersRepository.byId(db, orderId)!;
+      if (entered.number !== plan.number) throw new Error(`demo order ${plan.number} was numbered ${entered.number}`);
+      const st = stageAt(plan);
+
+      // gates: payment (or a manager's exception) and an approved proof revision
+      const paid = released || plan.target === 'awaiting_proof' || plan.target === 'draft';
+      const proofApproved = released || plan.target === 'draft';
+      const pdfs = proofPdfs.get(plan) ?? [];
+      if (pdfs.length) {
+        pdfs.forEach((pdf, i) => {
+          const file = { fieldname: 'file', originalname: `proof-${plan.number}-r${i + 1}.pdf`, mimetype: 'application/pdf', size: pdf.length, buffer: pdf } as unknown as Express.Multer.File;
+          ordersService.uploadProof(at(i === 0 ? st.proof1 : st.proof2), orderId, file, planner);
+        });
+        if (proofApproved) {
+          ordersService.approveProof(at(st.approved), orderId, pdfs.length, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);
+        }
+      }
+      if (paid) {
+        const exception = released && plan.target === 'in_production' && plan.number.endsWith('7');
+        if (exception) {
+          ordersService.recordPayment(at(st.paid), orderId, { exception: true, reason: 'Long-standing customer on 30-day terms' }, { id: manager, role: 'manager' });
+        } else {
+          const amount = Math.round(plan.quantity * UNIT_PRICE[plan.process] * (1 + plan.colours.length * 0.08) * 100) / 100;
+          ordersService.recordPayment(at(st.paid), orderId, { amount, reference: `BANK-${ids.int(100000, 999999)}` }, { id: planner, role: 'planner' });
+        }
+      }
+      if (released) {
+        ordersService.release(at(plan.releasedAt!), orderId, { traySize: plan.traySize }, planner);
+        const holdAt = plan.target === 'on_hold' ? Math.min(now - HOUR, nextWorking(now - ids.int(18, 36) * HOUR)) : null;
+        simOrders.push({
+          id: orderId,
+          releasedAt: plan.releasedAt!,
+          startsOnFloor: plan.target !== 'released',
+          holdAt,
+          holdNote: holdAt ? HOLD_NOTE : null,
+          keepFromCourier: plan.target === 'packed',
+        });
+        const trayRoutes = { tray: routingOfOrder(db, orderId, 'tray'), mould: routingOfOrder(db, orderId, 'mould') };
+        const travellers = db.select().from(trays).where(eq(trays.orderId, orderId)).all();
+        travellers.sort((x, y) => (x.kind === y.kind ? x.number.localeCompare(y.number) : x.kind === 'mould' ? -1 : 1));
+        for (const t of travellers) {
+          const row = db.select().from(trayStates).where(eq(trayStates.trayId, t.id)).get()!;
+          const routing = trayRoutes[t.kind];
+          routingOf.set(t.id, routing);
+          simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateOfRow(row) });
+        }
+      }
+    }
+  });
   lap('order book');
   // ---- the floor ------------------------------------------------------------------------
   const simStations = stationRows

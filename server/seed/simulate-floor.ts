@@ -144,7 +144,7 @@ export interface SimEvent {
   userId: string;
   occurredAt: number;
   receivedAt: number;
-  qtyIn: number;
+  qtyIn: number | null;
   goodQty: number | null;
   scrapQty: number | null;
   reworkQty: number | null;
@@ -383,7 +383,7 @@ export function simulateFloor(input: SimInput): SimResult {
       userId,
       occurredAt: at,
       receivedAt: at + rng.int(1, 25) * 1000,
-      qtyIn,
+      qtyIn: type === 'start' || type === 'finish' ? qtyIn : null,
       goodQty: type === 'finish' ? (opts.good ?? null) : null,
       scrapQty: type === 'finish' ? (opts.scrap ?? 0) : null,
       reworkQty: type === 'finish' ? (opts.rework ?? 0) : null,
@@ -410,7 +410,7 @@ export function simulateFloor(input: SimInput): SimResult {
       userId,
       code: res.code,
       message: refusalText(res.code, res.params),
-      payload: { id: eventId, code: t.number, stationId: station.id, type, occurredAt: iso(at), ...extra },
+      payload: { event: { id: eventId, code: t.number, stationId: station.id, type, occurredAt: iso(at), ...extra }, params: res.params },
       occurredAt: at,
       receivedAt: at + rng.int(1, 20) * 1000,
     });

@@ -451,10 +451,26 @@ CREATE TABLE `step_runs` (
 	`implicit` integer DEFAULT false NOT NULL
 );
 --> statement-breakpoint
-CREATE INDEX `step_runs_finished_idx` ON `step_runs` (`finished_at`);--> statement-breakpoint
+CREATE INDEX `step_runs_window_idx` ON `step_runs` (`finished_at`,`station_kind`,`traveller_kind`,`queue_minutes`,`process_minutes`,`implicit`,`qty_in`,`good_qty`,`scrap_qty`,`rework_qty`,`scrap_reason`,`station_id`,`order_id`);--> statement-breakpoint
 CREATE INDEX `step_runs_kind_finished_idx` ON `step_runs` (`station_kind`,`finished_at`);--> statement-breakpoint
-CREATE INDEX `step_runs_order_idx` ON `step_runs` (`order_id`,`step_seq`);--> statement-breakpoint
+CREATE INDEX `step_runs_order_idx` ON `step_runs` (`order_id`,`step_seq`,`traveller_kind`,`qty_in`,`good_qty`,`scrap_qty`,`rework_qty`);--> statement-breakpoint
 CREATE INDEX `step_runs_tray_idx` ON `step_runs` (`tray_id`);--> statement-breakpoint
+CREATE TABLE `tray_flows` (
+	`tray_id` text PRIMARY KEY NOT NULL,
+	`order_id` text NOT NULL,
+	`released_at` integer NOT NULL,
+	`started_at` integer,
+	`inspected_at` integer,
+	`packed_at` integer,
+	`shipped_at` integer,
+	`shipped_qty` integer,
+	`last_finish_at` integer,
+	`process_minutes` real NOT NULL,
+	`cure_minutes` real NOT NULL
+);
+--> statement-breakpoint
+CREATE INDEX `tray_flows_order_idx` ON `tray_flows` (`order_id`);--> statement-breakpoint
+CREATE INDEX `tray_flows_released_idx` ON `tray_flows` (`released_at`);--> statement-breakpoint
 CREATE TABLE `load_trays` (
 	`load_id` text NOT NULL,
 	`tray_id` text NOT NULL,

@@ -48,6 +48,20 @@ export interface StepRunInsert {
   implicit: boolean;
 }
 
+export interface TrayFlowInsert {
+  trayId: string;
+  orderId: string;
+  releasedAt: number;
+  startedAt: number | null;
+  inspectedAt: number | null;
+  packedAt: number | null;
+  shippedAt: number | null;
+  shippedQty: number | null;
+  lastFinishAt: number | null;
+  processMinutes: number;
+  cureMinutes: number;
+}
+
 const EVENT_COLUMNS = `rowid, tray_id as trayId, type, step_seq as stepSeq, station_kind as stationKind, station_id as stationId,
   occurred_at as occurredAt, qty_in as qtyIn, good_qty as goodQty, scrap_qty as scrapQty, rework_qty as reworkQty, scrap_reason as scrapReason`;
 
@@ -107,9 +121,17 @@ export const reportFactsRepository = {
   },
   deleteRunsOfTray(db: Db, trayId: string) {
     client(db).prepare('delete from step_runs where tray_id = ?').run(trayId);
+    client(db).prepare('delete from tray_flows where tray_id = ?').run(trayId);
   },
   deleteAllRuns(db: Db) {
     client(db).prepare('delete from step_runs').run();
+    client(db).prepare('delete from tray_flows').run();
+  },
+  flowInserter(db: Db): (f: TrayFlowInsert) => void {
+    const stmt = client(db).prepare(`insert or replace into tray_flows (tray_id, order_id, released_at, started_at, inspected_at, packed_at, shipped_at, shipped_qty,
+      last_finish_at, process_minutes, cure_minutes) values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
+    return (f) =>
+      stmt.run(f.trayId, f.orderId, f.releasedAt, f.startedAt, f.inspectedAt, f.packedAt, f.shippedAt, f.shippedQty, f.lastFinishAt, f.processMinutes, f.cureMinutes);
   },
   inserter(db: Db): (r: StepRunInsert) => void {
     const stmt = client(db).prepare(`insert into step_runs (tray_id, order_id, traveller_kind, step_seq, station_kind, station_id, ready_at, started_at,

@@ -1,5 +1,5 @@
 import type { AppDeps } from '../app-deps';
-import { reportFactsRepository as repo, type EventRow, type StepRunInsert, type TrayInfo } from '../repositories/report-facts.repository';
+import { reportFactsRepository as repo, type EventRow, type StepRunInsert, type TrayFlowInsert, type TrayInfo } from '../repositories/report-facts.repository';
 import { onFloorChanged } from './live-bus';
 
 // Keeps step_runs in step with the append-only scan log. Each tray's runs are rebuilt from all of
@@ -71,11 +71,43 @@ export function runsOfTray(tray: TrayInfo, events: readonly EventRow[], cure: Ma
   return runs;
 }
 
+/** A tray's milestones and its process and cure minutes, from its runs. */
+export function flowOfTray(tray: TrayInfo, runs: readonly StepRunInsert[]): TrayFlowInsert {
+  const f: TrayFlowInsert = {
+    trayId: tray.id,
+    orderId: tray.orderId,
+    releasedAt: tray.releasedAt,
+    startedAt: null,
+    inspectedAt: null,
+    packedAt: null,
+    shippedAt: null,
+    shippedQty: null,
+    lastFinishAt: null,
+    processMinutes: 0,
+    cureMinutes: 0,
+  };
+  const later = (a: number | null, b: number) => (a === null || b > a ? b : a);
+  for (const r of runs) {
+    if (r.startedAt != null && (f.startedAt === null || r.startedAt < f.startedAt)) f.startedAt = r.startedAt;
+    f.lastFinishAt = later(f.lastFinishAt, r.finishedAt);
+    if (r.stationKind === 'inspect') f.inspectedAt = later(f.inspectedAt, r.finishedAt);
+    if (r.stationKind === 'pack') f.packedAt = later(f.packedAt, r.finishedAt);
+    if (r.stationKind === 'dispatch') {
+      f.shippedAt = later(f.shippedAt, r.finishedAt);
+      f.shippedQty = (f.shippedQty ?? 0) + r.goodQty;
+    }
+    if (r.cureMinutes != null) f.cureMinutes += r.processMinutes ?? 0;
+    else f.processMinutes += r.processMinutes ?? 0;
+  }
+  return f;
+}
+
 function rebuildAll(deps: AppDeps, upTo: number) {
   const db = deps.db;
   const trays = new Map(repo.trays(db).map((t) => [t.id, t]));
   const cure = repo.cureSteps(db);
   const insert = repo.inserter(db);
+  const insertFlow = repo.flowInserter(db);
   repo.deleteAllRuns(db);
   const ids = repo.trayIdsWithEvents(db);
   // a few hundred trays at a time keeps memory flat on a year of events
@@ -86,7 +118,11 @@ function rebuildAll(deps: AppDeps, upTo: number) {
     for (let j = 1; j <= events.length; j++) {
       if (j === events.length || events[j].trayId !== events[start].trayId) {
         const tray = trays.get(events[start].trayId);
-        if (tray) for (const r of runsOfTray(tray, events.slice(start, j), cure)) insert(r);
+        if (tray && tray.kind === 'tray') {
+          const runs = runsOfTray(tray, events.slice(start, j), cure);
+          for (const r of runs) insert(r);
+          insertFlow(flowOfTray(tray, runs));
+        } else if (tray) for (const r of runsOfTray(tray, events.slice(start, j), cure)) insert(r);
         start = j;
       }
     }
@@ -98,9 +134,12 @@ function rebuildTrays(deps: AppDeps, trayIds: string[]) {
   const trays = repo.trays(db, trayIds);
   const cure = repo.cureSteps(db, [...new Set(trays.map((t) => t.orderId))]);
   const insert = repo.inserter(db);
+  const insertFlow = repo.flowInserter(db);
   for (const t of trays) {
     repo.deleteRunsOfTray(db, t.id);
-    for (const r of runsOfTray(t, repo.eventsOfTray(db, t.id), cure)) insert(r);
+    const runs = runsOfTray(t, repo.eventsOfTray(db, t.id), cure);
+    for (const r of runs) insert(r);
+    if (t.kind === 'tray') insertFlow(flowOfTray(t, runs));
   }
 }
 

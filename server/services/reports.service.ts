@@ -1,10 +1,10 @@
 import Papa from 'papaparse';
 import type { AppDeps } from '../app-deps';
-import { reportsRepository as repo, type ReportFilter } from '../repositories/reports.repository';
+import { reportsRepository as repo, type FlowTrayRow, type ReportFilter } from '../repositories/reports.repository';
 import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
 import { badInput } from '../errors';
-import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers } from '@shared/domain/stats';
+import { PERCENTILE_METHOD, quantileFromOrderStatistics, quantileSorted, summarize, roundSummary, sortNumbers } from '@shared/domain/stats';
 import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/calendar';
 import { countPerBucket, cumulativeFlow, makeBuckets, wipOverTime, type StageArrival } from '@shared/domain/flow';
 import { pareto, rolledThroughputYield, stepYield } from '@shared/domain/yield';
@@ -107,30 +107,34 @@ export const reportsService = {
   cycleTime(deps: AppDeps, q: ReportQuery): CycleTimeReport {
     fresh(deps);
     const w = windowOf(deps, q);
-    const byKind = new Map<string, { queue: number[]; process: number[] }>();
-    for (const [kind, queue, process, implicit] of repo.cycleRows(deps.db, w.filter)) {
-      let k = byKind.get(kind);
-      if (!k) byKind.set(kind, (k = { queue: [], process: [] }));
-      if (queue != null) k.queue.push(queue);
-      // a cure closed on its own has no operator process: its oven time is the process time
-      if (process != null && (implicit === 0 || kind === 'cure')) k.process.push(process);
-    }
+    const P = [0.5, 0.85, 0.95] as const;
+    const summaries = (measure: 'queue' | 'process') =>
+      new Map(
+        repo.cycleStatistics(deps.db, w.filter, measure, P).map((row) => {
+          const at = (i: number) => row.orderStatistics.get(i) as number;
+          const [p50, p85, p95] = P.map((p) => quantileFromOrderStatistics(row.n, p, at));
+          return [row.stationKind, roundSummary({ n: row.n, p50, p85, p95, mean: row.mean })] as const;
+        }),
+      );
+    const queue = summaries('queue');
+    const process = summaries('process');
+    const empty = { n: 0, p50: null, p85: null, p95: null, mean: null };
     const order = (k: string) => {
       const i = STATION_KINDS.indexOf(k as (typeof STATION_KINDS)[number]);
       return i < 0 ? 99 : i;
     };
-    const stations = [...byKind.entries()]
-      .sort((a, b) => order(a[0]) - order(b[0]))
-      .map(([stationKind, v]) => ({ stationKind, process: roundSummary(summarize(v.process)), queue: roundSummary(summarize(v.queue)) }));
+    const stations = [...new Set([...queue.keys(), ...process.keys()])]
+      .sort((a, b) => order(a) - order(b))
+      .map((stationKind) => ({ stationKind, process: process.get(stationKind) ?? empty, queue: queue.get(stationKind) ?? empty }));
 
     const cal = calendarService.calendar(deps);
     const trays = w.filter.stationId ? [] : repo.finishedTrayFlow(deps.db, w.filter);
-    let process = 0;
+    let processSum = 0;
     let cure = 0;
     let flow = 0;
     let working = 0;
     for (const t of trays) {
-      process += t.process;
+      processSum += t.process;
       cure += t.cure;
       flow += (t.doneAt - t.releasedAt) / MIN;
       working += cal.factory.workingMinutesBetween(t.releasedAt, t.doneAt);
@@ -140,12 +144,12 @@ export const reportsService = {
       stations,
       flowEfficiency: {
         trays: trays.length,
-        processMinutes: r2(process),
+        processMinutes: r2(processSum),
         cureMinutes: r2(cure),
         flowMinutes: r2(flow),
         workingFlowMinutes: r2(working),
-        flowEfficiency: working > 0 ? r4(process / working) : null,
-        flowEfficiencyCalendar: flow > 0 ? r4(process / flow) : null,
+        flowEfficiency: working > 0 ? r4(processSum / working) : null,
+        flowEfficiencyCalendar: flow > 0 ? r4(processSum / flow) : null,
         cureShare: flow > 0 ? r4(cure / flow) : null,
       },
     };
@@ -158,35 +162,36 @@ export const reportsService = {
     const end = Math.min(w.filter.to, now); // only history
     const buckets = makeBuckets(w.tz, w.filter.from, end, q.bucket);
     const trays = repo.flowTrays(deps.db, w.filter);
-    const ms = new Map(repo.milestones(deps.db, w.filter).map((m) => [m.trayId, m]));
+    const byId = new Map(trays.map((t) => [t.id, t]));
+    const missing = [...new Set(trays.filter((t) => t.phase === 'merged' && t.mergedIntoId && !byId.has(t.mergedIntoId)).map((t) => t.mergedIntoId as string))];
+    for (const m of repo.flowsOf(deps.db, missing)) byId.set(m.id, m);
     const arrivals: StageArrival[] = [];
-    const exits = new Map<string, number>();
-    const trayById = new Map(trays.map((t) => [t.id, t]));
+    const exits = new Map<string, { at: number; qty: number }>();
     for (const t of trays) {
       if (t.phase === 'scrapped') continue; // left the flow without shipping
-      let m = ms.get(t.id);
+      let m: FlowTrayRow = t;
       // a tray merged into another for packing goes on inside it
       if (t.phase === 'merged' && t.mergedIntoId) {
-        const target = ms.get(t.mergedIntoId);
-        if (target) m = { ...target, started: m?.started ?? target.started, inspected: m?.inspected ?? target.inspected, shippedQty: 0 };
-        else if (!trayById.has(t.mergedIntoId)) continue;
+        const target = byId.get(t.mergedIntoId);
+        if (!target) continue;
+        m = { ...t, started: t.started ?? target.started, inspected: t.inspected ?? target.inspected, packed: t.packed ?? target.packed, shipped: target.shipped, shippedQty: 0 };
       }
       arrivals.push({ itemId: t.id, stage: 0, at: t.releasedAt });
-      const times = [m?.started, m?.inspected, m?.packed, m?.shipped];
-      times.forEach((at, i) => {
+      [m.started, m.inspected, m.packed, m.shipped].forEach((at, i) => {
         if (at != null) arrivals.push({ itemId: t.id, stage: i + 1, at });
       });
-      if (m?.shipped != null) exits.set(t.id, m.shipped);
+      if (m.shipped != null) exits.set(t.id, { at: m.shipped, qty: m.shippedQty ?? 0 });
     }
     const cfd = cumulativeFlow(arrivals, FLOW_STAGES.length, buckets.map((b) => Math.min(b.end, end)));
     // trays already shipped before the window are not in `trays`: every line starts from that base
-    const shippedTimes = [...exits.values()];
-    const trayCounts = countPerBucket(shippedTimes, buckets);
+    const trayCounts = countPerBucket(
+      [...exits.values()].map((e) => e.at),
+      buckets,
+    );
     const pieces = buckets.map(() => 0);
-    for (const [id, at] of exits) {
-      const qty = ms.get(id)?.shippedQty ?? 0;
-      const i = buckets.findIndex((b) => at >= b.start && at < b.end);
-      if (i >= 0) pieces[i] += qty;
+    for (const e of exits.values()) {
+      const i = buckets.findIndex((b) => e.at >= b.start && e.at < b.end);
+      if (i >= 0) pieces[i] += e.qty;
     }
     const orders = countPerBucket(
       repo.shippedOrders(deps.db, w.filter).map((o) => o.shippedAt),
@@ -195,7 +200,7 @@ export const reportsService = {
     const wip = wipOverTime(
       trays.map((t) => ({
         start: t.releasedAt,
-        end: exits.get(t.id) ?? (t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null),
+        end: exits.get(t.id)?.at ?? (t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null),
       })),
       buckets,
       end,
@@ -255,10 +260,7 @@ export const reportsService = {
         };
       });
     const shipped = repo.shippedOrders(deps.db, w.filter);
-    const counts = repo.orderStepCounts(
-      deps.db,
-      shipped.map((o) => o.id),
-    );
+    const counts = repo.shippedOrderStepCounts(deps.db, w.filter);
     const byOrder = new Map<string, typeof counts>();
     for (const c of counts) byOrder.set(c.orderId, [...(byOrder.get(c.orderId) ?? []), c]);
     const orders = shipped.map((o) => {

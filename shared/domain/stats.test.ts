@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { quantileSorted as ssQuantileSorted, quantile as ssQuantile, mean as ssMean } from 'simple-statistics';
-import { quantile, quantileSorted, summarize, roundSummary } from './stats';
+import { orderStatisticsFor, quantile, quantileFromOrderStatistics, quantileSorted, summarize, roundSummary } from './stats';
 
 // Worked example: Hyndman, R. J. & Fan, Y. (1996), "Sample Quantiles in Statistical Packages",
 // The American Statistician 50(4): 361-365, type 7.
@@ -60,6 +60,23 @@ describe('type 7 quantile (Hyndman & Fan 1996)', () => {
   it('agrees with simple-statistics on the worked example too', () => {
     expect(ssQuantile(X, 0.95)).toBeCloseTo(23.25, 12);
     expect(ssQuantile(X, 0.9)).toBeCloseTo(16.5, 12);
+  });
+});
+
+describe('type 7 from two order statistics', () => {
+  it('names the order statistics of the worked example: p95 uses the 9th and 10th smallest', () => {
+    // h = (10 - 1) x 0.95 = 8.55 -> 0-based 8 and 9 (Hyndman & Fan 1996, type 7)
+    expect(orderStatisticsFor(10, 0.95)).toEqual([8, 9]);
+    expect(orderStatisticsFor(10, 1)).toEqual([9, 9]);
+    expect(orderStatisticsFor(1, 0.5)).toEqual([0, 0]);
+  });
+
+  it('gives the same value as the whole sorted sample, reading only two values', () => {
+    const sorted = [...X].sort((a, b) => a - b);
+    const read: number[] = [];
+    const v = quantileFromOrderStatistics(sorted.length, 0.95, (i) => (read.push(i), sorted[i]));
+    expect(v).toBeCloseTo(23.25, 12);
+    expect(read).toEqual([8, 9]);
   });
 });
 

@@ -11,14 +11,28 @@ export interface Summary {
   mean: number | null;
 }
 
+/** The 0-based order statistics type 7 needs for p in a sample of n: floor(h) and the next one. */
+export function orderStatisticsFor(n: number, p: number): [number, number] {
+  if (n <= 0) throw new RangeError('quantile of an empty sample');
+  if (!(p >= 0 && p <= 1)) throw new RangeError('p must be within [0, 1]');
+  const lo = Math.floor((n - 1) * p);
+  return [lo, Math.min(lo + 1, n - 1)];
+}
+
+/**
+ * Type 7 quantile from the order statistics of a sample of n values: `at(i)` gives the i-th
+ * smallest (0-based). Lets a database sort and hand over only the two values needed.
+ */
+export function quantileFromOrderStatistics(n: number, p: number, at: (i: number) => number): number {
+  const [lo, hi] = orderStatisticsFor(n, p);
+  const h = (n - 1) * p;
+  const a = at(lo);
+  return a + (h - lo) * (at(hi) - a);
+}
+
 /** Type 7 quantile of values already sorted ascending. */
 export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
-  if (sorted.length === 0) throw new RangeError('quantile of an empty sample');
-  if (!(p >= 0 && p <= 1)) throw new RangeError('p must be within [0, 1]');
-  const h = (sorted.length - 1) * p;
-  const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, sorted.length - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+  return quantileFromOrderStatistics(sorted.length, p, (i) => sorted[i]);
 }
 
 /** Type 7 quantile of an unsorted sample (the input is not modified). */

@@ -33,11 +33,51 @@ export const stepRuns = sqliteTable(
     implicit: flag('implicit').notNull().default(false),
   },
   (t) => [
-    index('step_runs_finished_idx').on(t.finishedAt),
+    // covers the window queries (cycle time, yields, scrap): a year is read from the index alone,
+    // in time order, without a table lookup per row
+    index('step_runs_window_idx').on(
+      t.finishedAt,
+      t.stationKind,
+      t.travellerKind,
+      t.queueMinutes,
+      t.processMinutes,
+      t.implicit,
+      t.qtyIn,
+      t.goodQty,
+      t.scrapQty,
+      t.reworkQty,
+      t.scrapReason,
+      t.stationId,
+      t.orderId,
+    ),
     index('step_runs_kind_finished_idx').on(t.stationKind, t.finishedAt),
-    index('step_runs_order_idx').on(t.orderId, t.stepSeq),
+    // covers the per-order step counts of the yield report
+    index('step_runs_order_idx').on(t.orderId, t.stepSeq, t.travellerKind, t.qtyIn, t.goodQty, t.scrapQty, t.reworkQty),
     index('step_runs_tray_idx').on(t.trayId),
   ],
+);
+
+/**
+ * One row per tray with the milestones the flow report draws (derived with step_runs): released,
+ * first start, inspection, packing and dispatch finishes, and its process and cure minutes.
+ */
+export const trayFlows = sqliteTable(
+  'tray_flows',
+  {
+    trayId: text('tray_id').primaryKey(),
+    orderId: text('order_id').notNull(),
+    releasedAt: ms('released_at').notNull(),
+    startedAt: ms('started_at'),
+    inspectedAt: ms('inspected_at'),
+    packedAt: ms('packed_at'),
+    shippedAt: ms('shipped_at'),
+    shippedQty: integer('shipped_qty'),
+    /** finish of its last recorded step */
+    lastFinishAt: ms('last_finish_at'),
+    processMinutes: real('process_minutes').notNull(),
+    cureMinutes: real('cure_minutes').notNull(),
+  },
+  (t) => [index('tray_flows_order_idx').on(t.orderId), index('tray_flows_released_idx').on(t.releasedAt)],
 );
 
 /** How far the derived report tables have read the event log (by rowid). */

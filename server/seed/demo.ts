@@ -16,6 +16,7 @@ import { ordersService, routingOf as routingOfOrder } from '../services/orders.s
 import { ordersRepository } from '../repositories/orders.repository';
 import { randomToken, sha256Hex } from '../lib/keys';
 import { orderSpecSchema } from '@shared/schemas/orders';
+import { planCartons } from '@shared/domain/shipping';
 import type { Process, Role, RoutingStep, StationKind, TrayState } from '@shared/domain/vocabulary';
 import { DEMO_FACTORY, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 import { DEMO_CREW, STATION_CREW } from './demo-crew';
@@ -352,16 +353,24 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           createdAt: patch.shippedAt!,
         });
       }
-      cartonRows.push({
-        id: ids.uuid(),
-        orderId: o.id,
-        shipmentId,
-        count: Math.max(1, Math.ceil(goodPieces / perCarton)),
-        piecesPerCarton: perCarton,
-        weightKg: Math.round(goodPieces * (plan.sizeMm / 25) * 0.008 * 10) / 10,
-        createdBy: packer,
-        createdAt: patch.packedAt ?? last,
-      });
+      // Full cartons and one part carton; the weight is per carton (about 8 g a 25 mm pin, plus the box).
+      const fill = planCartons(goodPieces, perCarton);
+      for (const [count, pieces] of [
+        [fill.full, perCarton],
+        [fill.partPieces > 0 ? 1 : 0, fill.partPieces],
+      ]) {
+        if (count === 0) continue;
+        cartonRows.push({
+          id: ids.uuid(),
+          orderId: o.id,
+          shipmentId,
+          count,
+          piecesPerCarton: pieces,
+          weightKg: Math.round((pieces * (plan.sizeMm / 25) * 0.008 + 0.3) * 10) / 10,
+          createdBy: packer,
+          createdAt: patch.packedAt ?? last,
+        });
+      }
     }
   }
 

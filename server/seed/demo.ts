@@ -14,6 +14,7 @@ import { cartons, shipments } from '../db/schema/shipping';
 import { hashSecret } from '../services/auth.service';
 import { ordersService, routingOf as routingOfOrder } from '../services/orders.service';
 import { ordersRepository } from '../repositories/orders.repository';
+import { auditRepository } from '../repositories/audit.repository';
 import { randomToken, sha256Hex } from '../lib/keys';
 import { orderSpecSchema } from '@shared/schemas/orders';
 import { planCartons } from '@shared/domain/shipping';
@@ -420,6 +421,16 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       tx.update(trayStates).set(row).where(eq(trayStates.trayId, trayId)).run();
     }
     insertMany(tx, overrides, sim.overrides);
+    for (const o of sim.overrides) {
+      const used = sim.events.find((e) => e.id === o.usedEventId)!;
+      auditRepository.record(tx, used.receivedAt, {
+        userId: o.supervisorId,
+        action: 'scan.override',
+        entity: 'tray',
+        entityId: o.trayId,
+        detail: { eventId: o.usedEventId, overridden: [o.kind], reason: o.reason, operatorId: used.userId },
+      });
+    }
     insertMany(tx, scanEvents, sim.events, 500);
     insertMany(tx, scanRejections, sim.rejections.map((r) => ({ ...r, resolvedAt: null, resolvedBy: null, resolution: null })));
     insertMany(tx, shipments, shipmentRows);

@@ -386,6 +386,9 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     let due: number;
     if (patch.shippedAt != null) {
       due = dues.chance(0.18) ? patch.shippedAt - dues.int(1, 4) * DAY : patch.shippedAt + dues.int(1, 6) * DAY;
+    } else if (planOf.get(o.id)!.target === 'packed') {
+      // packed and waiting to be collected: the customer's date is still ahead
+      due = now + dues.int(2, 6) * DAY;
     } else {
       due = base + typicalLead + (dues.chance(0.25) ? -dues.int(2, 6) : dues.int(1, 7)) * DAY;
     }

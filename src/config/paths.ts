@@ -24,6 +24,7 @@ export const paths = {
   adminUsers: '/admin/users',
   adminStations: '/admin/stations',
   adminDevices: '/admin/devices',
+  adminRoutingTemplates: '/admin/routing-templates',
   adminReasonCodes: '/admin/reason-codes',
   adminBackups: '/admin/backups',
   adminOutbox: '/admin/outbox',

@@ -31,7 +31,8 @@ export function Component() {
   const onSubmit = form.handleSubmit((values) =>
     signIn.mutate(values, {
       onSuccess: async ({ user }) => {
-        await queryClient.invalidateQueries({ queryKey: authKeys.all });
+        // refetch the (inactive) session query too, or the signed-in area's loader would read the stale "nobody"
+        await queryClient.invalidateQueries({ queryKey: authKeys.all, refetchType: 'all' });
         navigate(safeNext(params.get('next')) ?? roleHome[user.role], { replace: true });
       },
     }),

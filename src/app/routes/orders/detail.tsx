@@ -1,0 +1,117 @@
+import { useState } from 'react';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
+import { useQueryClient } from '@tanstack/react-query';
+import { Copy, Pencil, Printer, RefreshCw } from 'lucide-react';
+import { FLOOR_LEADS, PLANNING } from '@shared/domain/access';
+import type { TravellerSummary } from '@shared/schemas/orders';
+import { queryClient } from '@/lib/query-client';
+import { orderQueryOptions, useOrder } from '@/features/orders/api/get-order';
+import { ordersKeys } from '@/features/orders/api/orders-keys';
+import { useUpdateOrder } from '@/features/orders/api/save-order';
+import { OrderForm } from '@/features/orders/components/order-form';
+import { GatesPanel } from '@/features/orders/components/gates-panel';
+import { RoutingEditor } from '@/features/orders/components/routing-editor';
+import { ReleasePanel } from '@/features/orders/components/release-panel';
+import { TravellersPanel } from '@/features/orders/components/travellers-panel';
+import { HistoryList, SpecCard } from '@/features/orders/components/spec-card';
+import { useReprint } from '@/features/trays/api/tray-actions';
+import { trayPdfUrl } from '@/features/trays/api/get-tray';
+import { useMe } from '@/features/auth/api/get-me';
+import { Button } from '@/components/ui/button';
+import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
+import { paths } from '@/config/paths';
+import { ORDER_STATUS_LABELS, humanise } from '@/lib/labels';
+
+export const handle = { roles: FLOOR_LEADS };
+export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(orderQueryOptions(params.id!));
+
+function TravellerActions({ t, onChanged }: { t: TravellerSummary; onChanged: () => void }) {
+  const reprint = useReprint(onChanged);
+  if (t.phase === 'merged') return <span className="text-sm text-harbour-700">merged</span>;
+  return (
+    <span className="flex flex-wrap gap-1">
+      <a className="inline-flex min-h-11 items-center gap-1 rounded-lg px-2 font-bold text-harbour-800 hover:bg-harbour-50" href={trayPdfUrl(t.id)} download aria-label={`Print ${t.number}`}>
+        <Printer className="h-5 w-5" aria-hidden /> Print
+      </a>
+      <Button
+        variant="ghost"
+        aria-label={`Reprint ${t.number} as a new revision`}
+        disabled={reprint.isPending}
+        onClick={() => {
+          if (window.confirm(`Reprint ${t.number}? The printed revision ${t.revision} becomes void and will be refused at the stations.`)) reprint.mutate(t.id);
+        }}
+      >
+        <RefreshCw className="h-5 w-5" aria-hidden /> Reprint
+      </Button>
+    </span>
+  );
+}
+
+export function Component() {
+  const { id } = useParams();
+  const order = useOrder(id!);
+  const me = useMe();
+  const qc = useQueryClient();
+  const [editing, setEditing] = useState(false);
+  const update = useUpdateOrder(id!);
+  if (order.isPending || !me.data) return <Loading />;
+  if (order.error) return <ErrorPanel message={order.error.message} />;
+  const o = order.data;
+  const role = me.data.user.role;
+  const mayPlan = PLANNING.includes(role);
+  const released = o.releasedAt != null;
+  const refresh = () => qc.invalidateQueries({ queryKey: ordersKeys.all });
+
+  return (
+    <div className="flex flex-col gap-6">
+      <PageHeader
+        title={`Order ${o.number}`}
+        subtitle={
+          <span className="flex flex-wrap items-center gap-2">
+            {o.customer.name} · {o.spec.title} · {humanise(o.spec.process)}
+            <Pill tone={o.openGates.length ? 'warn' : 'info'}>{ORDER_STATUS_LABELS[o.status]}</Pill>
+            {o.late && <Pill tone="stop">Late</Pill>}
+          </span>
+        }
+        actions={
+          mayPlan && (
+            <>
+              {!released && !editing && (
+                <Button variant="secondary" onClick={() => setEditing(true)}>
+                  <Pencil className="h-5 w-5" aria-hidden /> Change spec
+                </Button>
+              )}
+              <Link className="inline-flex min-h-11 items-center gap-2 rounded-lg px-4 font-bold text-harbour-800 hover:bg-harbour-50" to={`${paths.newOrder}?repeat=${o.id}`}>
+                <Copy className="h-5 w-5" aria-hidden /> Repeat order
+              </Link>
+            </>
+          )
+        }
+      />
+      {editing ? (
+        <Card>
+          <h2 className="mb-4 text-xl font-bold text-harbour-900">Change the spec</h2>
+          <OrderForm
+            initial={{ ...o.spec, customer: o.customer.name }}
+            submitLabel="Save changes"
+            pending={update.isPending}
+            error={update.error?.message}
+            onSubmit={(spec) => {
+              const { reorderOf: _r, ...patch } = spec;
+              void _r;
+              update.mutate(patch, { onSuccess: () => setEditing(false) });
+            }}
+            onCancel={() => setEditing(false)}
+          />
+        </Card>
+      ) : (
+        <SpecCard order={o} />
+      )}
+      {(!released || o.payments.length > 0 || o.proofs.length > 0) && mayPlan && <GatesPanel order={o} role={role} />}
+      <RoutingEditor order={o} canEdit={mayPlan} />
+      {!released && mayPlan && <ReleasePanel order={o} />}
+      {released && <TravellersPanel order={o} actions={(t) => <TravellerActions t={t} onChanged={refresh} />} />}
+      <HistoryList entries={o.history} />
+    </div>
+  );
+}

@@ -1,0 +1,43 @@
+import { useNavigate, useSearchParams } from 'react-router';
+import { PLANNING } from '@shared/domain/access';
+import type { OrderSpecInput } from '@shared/schemas/orders';
+import { useCreateOrder } from '@/features/orders/api/save-order';
+import { useQuery } from '@tanstack/react-query';
+import { orderQueryOptions } from '@/features/orders/api/get-order';
+import { OrderForm } from '@/features/orders/components/order-form';
+import { Card, Loading, PageHeader } from '@/components/ui/panels';
+import { paths } from '@/config/paths';
+
+export const handle = { roles: PLANNING };
+
+/** A new order; with ?repeat=<order id> the form starts from that order's spec and reuses its moulds. */
+export function Component() {
+  const navigate = useNavigate();
+  const [search] = useSearchParams();
+  const repeatOf = search.get('repeat');
+  const earlier = useQuery({ ...orderQueryOptions(repeatOf ?? ''), enabled: !!repeatOf });
+  const create = useCreateOrder();
+  if (repeatOf && earlier.isPending) return <Loading />;
+  const initial: Partial<OrderSpecInput> | undefined =
+    repeatOf && earlier.data
+      ? { ...earlier.data.spec, customer: earlier.data.customer.name, reorderOf: earlier.data.id, dueDate: new Date(Date.now() + 28 * 86_400_000).toISOString().slice(0, 10) }
+      : undefined;
+  return (
+    <>
+      <PageHeader
+        title={initial ? `Repeat order ${earlier.data!.number}` : 'New order'}
+        subtitle={initial ? 'Same artwork: the stored moulds are reused and engraving is skipped.' : 'The spec the floor will work from. Unusual sizes warn but do not block.'}
+      />
+      <Card>
+        <OrderForm
+          initial={initial}
+          submitLabel="Save order"
+          pending={create.isPending}
+          error={create.error?.message}
+          onSubmit={(spec) => create.mutate(spec, { onSuccess: (order) => navigate(paths.order(order.id)) })}
+          onCancel={() => navigate(paths.orders)}
+        />
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,4 @@
+export const mouldsKeys = {
+  all: ['moulds'] as const,
+  list: () => [...mouldsKeys.all, 'list'] as const,
+};

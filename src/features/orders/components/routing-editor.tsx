@@ -1,0 +1,211 @@
+import { useState } from 'react';
+import { ArrowDown, ArrowUp, Plus, RotateCcw, Trash2 } from 'lucide-react';
+import type { OrderDetail } from '@shared/schemas/orders';
+import type { RoutingStepInput } from '@shared/schemas/routing';
+import { routingProblems } from '@shared/domain/routing';
+import { STATION_KINDS, type StationKind } from '@shared/domain/vocabulary';
+import { Card, ErrorPanel } from '@/components/ui/panels';
+import { Button } from '@/components/ui/button';
+import { humanise } from '@/lib/labels';
+import { useEditRouting, useResetRouting } from '../api/routing';
+
+const cell = 'min-h-11 w-full rounded-lg border-2 border-harbour-100 bg-white px-2';
+
+function toInput(order: OrderDetail): RoutingStepInput[] {
+  return order.routing.map((s) => ({
+    name: s.name,
+    stationKind: s.stationKind,
+    trayMinutes: s.trayMinutes,
+    pieceMinutes: s.pieceMinutes,
+    cureMinutes: s.cureMinutes ?? null,
+    colour: s.colour ?? null,
+  }));
+}
+
+/** The order's routing: a checklist after release; before release the planner may reorder, add, remove and retime steps. */
+export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit: boolean }) {
+  const released = order.releasedAt != null;
+  const [draft, setDraft] = useState<RoutingStepInput[] | null>(null);
+  const edit = useEditRouting(order.id);
+  const reset = useResetRouting(order.id);
+  const steps = draft ?? toInput(order);
+  const editing = draft !== null;
+  const problems = routingProblems(steps.map((s, i) => ({ ...s, seq: i + 1 })));
+  const traySize = order.traySize ?? Math.min(100, order.releasedQuantity);
+
+  const change = (i: number, patch: Partial<RoutingStepInput>) => setDraft(steps.map((s, j) => (j === i ? { ...s, ...patch } : s)));
+  const move = (i: number, by: -1 | 1) => {
+    const next = [...steps];
+    const [s] = next.splice(i, 1);
+    next.splice(i + by, 0, s);
+    setDraft(next);
+  };
+
+  return (
+    <Card>
+      <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
+        <div>
+          <h2 className="text-xl font-bold text-harbour-900">Routing ({steps.length} steps)</h2>
+          <p className="text-sm text-harbour-700">
+            Made from the {humanise(order.spec.process).toLowerCase()} template. Standard minutes shown for a tray of {traySize}.
+            {released ? ' The order is released: its routing is fixed.' : ''}
+          </p>
+        </div>
+        {canEdit && !released && (
+          <div className="flex flex-wrap gap-2">
+            {editing ? (
+              <>
+                <Button disabled={edit.isPending || problems.length > 0} onClick={() => edit.mutate({ steps }, { onSuccess: () => setDraft(null) })}>
+                  Save routing
+                </Button>
+                <Button variant="secondary" onClick={() => setDraft(null)}>
+                  Discard changes
+                </Button>
+              </>
+            ) : (
+              <>
+                <Button variant="secondary" onClick={() => setDraft(toInput(order))}>
+                  Edit routing
+                </Button>
+                <Button variant="ghost" disabled={reset.isPending} onClick={() => reset.mutate()}>
+                  <RotateCcw className="h-5 w-5" aria-hidden /> Make again from template
+                </Button>
+              </>
+            )}
+          </div>
+        )}
+      </div>
+      <div className="overflow-x-auto">
+        <table className="w-full text-left text-sm">
+          <caption className="sr-only">Routing steps</caption>
+          <thead className="bg-harbour-50">
+            <tr>
+              <th scope="col" className="px-2 py-2">
+                #
+              </th>
+              <th scope="col" className="px-2 py-2">
+                Step
+              </th>
+              <th scope="col" className="px-2 py-2">
+                Station kind
+              </th>
+              <th scope="col" className="px-2 py-2">
+                Min / tray
+              </th>
+              <th scope="col" className="px-2 py-2">
+                Min / piece
+              </th>
+              <th scope="col" className="px-2 py-2">
+                Cure at least (min)
+              </th>
+              {!editing && (
+                <th scope="col" className="px-2 py-2">
+                  Std min / tray of {traySize}
+                </th>
+              )}
+              {editing && (
+                <th scope="col" className="px-2 py-2">
+                  <span className="sr-only">Move or remove</span>
+                </th>
+              )}
+            </tr>
+          </thead>
+          <tbody>
+            {steps.map((s, i) => (
+              <tr key={i} className="border-t border-harbour-100">
+                <td className="px-2 py-1 font-bold">{i + 1}</td>
+                <td className="px-2 py-1">
+                  {editing ? <input aria-label={`Step ${i + 1} name`} className={cell} value={s.name} onChange={(e) => change(i, { name: e.target.value })} /> : s.name}
+                </td>
+                <td className="px-2 py-1">
+                  {editing ? (
+                    <select
+                      aria-label={`Step ${i + 1} station kind`}
+                      className={cell}
+                      value={s.stationKind}
+                      onChange={(e) => {
+                        const kind = e.target.value as StationKind;
+                        change(i, { stationKind: kind, cureMinutes: kind === 'cure' ? (s.cureMinutes ?? 120) : null });
+                      }}
+                    >
+                      {STATION_KINDS.map((k) => (
+                        <option key={k} value={k}>
+                          {humanise(k)}
+                        </option>
+                      ))}
+                    </select>
+                  ) : (
+                    humanise(s.stationKind)
+                  )}
+                </td>
+                <td className="px-2 py-1">
+                  {editing ? (
+                    <input aria-label={`Step ${i + 1} minutes per tray`} type="number" min={0} step="0.5" className={cell} value={s.trayMinutes} onChange={(e) => change(i, { trayMinutes: Number(e.target.value) })} />
+                  ) : (
+                    s.trayMinutes
+                  )}
+                </td>
+                <td className="px-2 py-1">
+                  {editing ? (
+                    <input aria-label={`Step ${i + 1} minutes per piece`} type="number" min={0} step="0.01" className={cell} value={s.pieceMinutes} onChange={(e) => change(i, { pieceMinutes: Number(e.target.value) })} />
+                  ) : (
+                    s.pieceMinutes
+                  )}
+                </td>
+                <td className="px-2 py-1">
+                  {s.stationKind === 'cure' ? (
+                    editing ? (
+                      <input
+                        aria-label={`Step ${i + 1} minimum cure minutes`}
+                        type="number"
+                        min={1}
+                        className={cell}
+                        value={s.cureMinutes ?? ''}
+                        onChange={(e) => change(i, { cureMinutes: e.target.value === '' ? null : Math.round(Number(e.target.value)) })}
+                      />
+                    ) : (
+                      s.cureMinutes
+                    )
+                  ) : (
+                    '—'
+                  )}
+                </td>
+                {!editing && <td className="px-2 py-1">{order.routing[i]?.standardMinutes}</td>}
+                {editing && (
+                  <td className="whitespace-nowrap px-2 py-1">
+                    <Button variant="ghost" aria-label={`Move step ${i + 1} up`} disabled={i === 0} onClick={() => move(i, -1)}>
+                      <ArrowUp className="h-5 w-5" aria-hidden />
+                    </Button>
+                    <Button variant="ghost" aria-label={`Move step ${i + 1} down`} disabled={i === steps.length - 1} onClick={() => move(i, 1)}>
+                      <ArrowDown className="h-5 w-5" aria-hidden />
+                    </Button>
+                    <Button variant="ghost" aria-label={`Remove step ${i + 1}`} onClick={() => setDraft(steps.filter((_, j) => j !== i))}>
+                      <Trash2 className="h-5 w-5" aria-hidden />
+                    </Button>
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {editing && (
+        <div className="mt-3 flex flex-col gap-3">
+          <div>
+            <Button variant="secondary" onClick={() => setDraft([...steps, { name: 'New step', stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, cureMinutes: null, colour: null }])}>
+              <Plus className="h-5 w-5" aria-hidden /> Add a step
+            </Button>
+          </div>
+          {problems.length > 0 && (
+            <ul role="alert" className="list-disc pl-6 text-sm font-bold text-stop-700">
+              {problems.map((p, i) => (
+                <li key={i}>{p.message}</li>
+              ))}
+            </ul>
+          )}
+        </div>
+      )}
+      {(edit.error || reset.error) && <ErrorPanel title="Routing not saved" message={(edit.error ?? reset.error)!.message} />}
+    </Card>
+  );
+}

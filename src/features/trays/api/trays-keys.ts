@@ -1,0 +1,4 @@
+export const traysKeys = {
+  all: ['trays'] as const,
+  detail: (id: string) => [...traysKeys.all, 'detail', id] as const,
+};

@@ -180,7 +180,7 @@ export function describeStage(input: StageDescriptionInput): string {
     case 'cancelled':
       return 'Cancelled: this order will not be made.';
     case 'draft':
-      return 'Artwork and moulds: the order is being entered and is not on the floor yet.';
+      return 'Artwork and moulds: the order is entered and waits to be released to the floor.';
     case 'awaiting_payment':
       return 'Artwork and moulds: waiting for the payment before production can start.';
     case 'awaiting_proof':

@@ -20,16 +20,32 @@ export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQuer
 function Trays({ trays, empty }: { trays: TrayOnFloor[]; empty: string }) {
   if (trays.length === 0) return <p className="text-harbour-700">{empty}</p>;
   return (
-    <ul className="flex flex-col divide-y divide-harbour-100">
-      {trays.map((t) => (
-        <li key={t.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
-          <span className="font-mono font-bold">{t.number}</span>
-          <span>{t.quantity} pieces</span>
-          <span className="text-harbour-700">{t.phase === 'done' ? 'Dispatched' : t.stationKind ? `At ${STATION_KIND_NAMES[t.stationKind as StationKind]}` : t.phase}</span>
-          {t.onHold && <Pill tone="stop">On hold</Pill>}
-        </li>
-      ))}
-    </ul>
+    <table className="w-full text-left">
+      <caption className="sr-only">Trays</caption>
+      <thead className="sr-only">
+        <tr>
+          <th scope="col">Tray</th>
+          <th scope="col">Pieces</th>
+          <th scope="col">Where</th>
+        </tr>
+      </thead>
+      <tbody>
+        {trays.map((t) => (
+          <tr key={t.id} className="border-t border-harbour-100 first:border-t-0">
+            <td className="py-2 pr-3 font-mono font-bold">{t.number}</td>
+            <td className="py-2 pr-3 text-right">{t.quantity} pieces</td>
+            <td className="py-2">
+              {t.phase === 'done' ? 'Dispatched' : t.stationKind ? `At ${STATION_KIND_NAMES[t.stationKind as StationKind]}` : t.phase}
+              {t.onHold && (
+                <span className="ml-2">
+                  <Pill tone="stop">On hold</Pill>
+                </span>
+              )}
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
   );
 }
 

@@ -134,6 +134,18 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     lastSeenAt: now - ids.int(1, 90) * MINUTE,
   }));
   const deviceOf = new Map(deviceRows.map((d) => [d.stationId, d.id]));
+  // and the supervisors' wall display (read-only, no station)
+  const wallDevice = {
+    id: ids.uuid(),
+    name: 'Floor wall display',
+    kind: 'wall' as const,
+    stationId: null,
+    tokenHash: sha256Hex(randomToken()),
+    locale: 'en',
+    createdAt: now - (DEMO_HISTORY_DAYS + 7) * DAY,
+    updatedAt: now,
+    lastSeenAt: now - MINUTE,
+  };
 
   // ---- the order book, entered through the orders service ---------------------------------
   const plans = planOrders(rng.fork('orders'), now, DEMO_HISTORY_DAYS);
@@ -413,7 +425,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   }
 
   db.transaction((tx) => {
-    insertMany(tx, devices, deviceRows);
+    insertMany(tx, devices, [...deviceRows, wallDevice]);
     const shiftRows: (typeof calendarShifts.$inferInsert)[] = [];
     for (const weekday of DEMO_WORKDAYS) for (const sh of DEMO_SHIFTS) shiftRows.push({ id: ids.uuid(), stationId: null, weekday, startMinute: sh.start, endMinute: sh.end });
     insertMany(tx, calendarShifts, shiftRows);

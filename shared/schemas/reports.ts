@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { PROCESSES } from '../domain/vocabulary';
 import type { Summary } from '../domain/stats';
 
+export type { Summary };
+
 // A day ("2025-06-01", a whole local day in the factory's zone) or an instant (ISO 8601).
 const dayOrInstant = z.union([z.iso.date(), z.iso.datetime({ offset: true })], { error: 'Use a date (YYYY-MM-DD) or an ISO 8601 time' });
 

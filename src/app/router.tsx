@@ -10,6 +10,8 @@ export const router = createBrowserRouter([
   { path: '/sign-in', lazy: () => import('./routes/auth/sign-in'), ErrorBoundary: RouteError },
   // The customer's read-only order status: public, outside the signed-in shell.
   { path: '/status/:token', lazy: () => import('./routes/public/order-status'), ErrorBoundary: RouteError },
+  // The floor wall: full screen, for a paired wall display or a signed-in supervisor.
+  { path: '/wall', lazy: () => import('./routes/wall/wall'), ErrorBoundary: RouteError },
   {
     id: 'signed-in',
     loader: requireUser,
@@ -32,6 +34,7 @@ export const router = createBrowserRouter([
               { path: 'reason-codes', lazy: () => import('./routes/admin/reason-codes') },
               { path: 'backups', lazy: () => import('./routes/admin/backups') },
               { path: 'outbox', lazy: () => import('./routes/admin/outbox') },
+              { path: 'calendar', lazy: () => import('./routes/admin/calendar') },
               { path: 'routing-templates', lazy: () => import('./routes/admin/routing-templates') },
             ],
           },
@@ -41,6 +44,20 @@ export const router = createBrowserRouter([
           { path: 'orders/:id', lazy: () => import('./routes/orders/detail') },
           { path: 'trays/:id', lazy: () => import('./routes/trays/detail') },
           { path: 'moulds', lazy: () => import('./routes/moulds/library') },
+          { path: 'floor', lazy: () => import('./routes/floor/floor') },
+          { path: 'loads', lazy: () => import('./routes/loads/loads') },
+          {
+            path: 'reports',
+            lazy: () => import('./routes/reports/layout'),
+            children: [
+              { index: true, loader: () => redirect('/reports/lead-time') },
+              { path: 'lead-time', lazy: () => import('./routes/reports/lead-time') },
+              { path: 'cycle-time', lazy: () => import('./routes/reports/cycle-time') },
+              { path: 'flow', lazy: () => import('./routes/reports/flow') },
+              { path: 'on-time', lazy: () => import('./routes/reports/on-time') },
+              { path: 'yield', lazy: () => import('./routes/reports/yield') },
+            ],
+          },
           { path: 'sales', lazy: () => import('./routes/sales/order-search') },
           { path: 'sales/orders/:id', lazy: () => import('./routes/sales/order-status') },
           { path: 'dispatch', lazy: () => import('./routes/dispatch/dispatch-list') },

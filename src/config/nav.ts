@@ -1,4 +1,5 @@
 import type { LucideIcon } from 'lucide-react';
+import { CalendarClock } from 'lucide-react';
 import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { paths } from './paths';
@@ -32,5 +33,6 @@ export const ADMIN_SECTIONS: Omit<NavItem, 'roles'>[] = [
   { to: paths.adminReasonCodes, label: 'Reasons', icon: Tags },
   { to: paths.adminBackups, label: 'Backups', icon: DatabaseBackup },
   { to: paths.adminOutbox, label: 'Outbox', icon: Mail },
+  { to: paths.adminCalendar, label: 'Working calendar', icon: CalendarClock },
   { to: paths.adminRoutingTemplates, label: 'Routing templates', icon: Route },
 ];

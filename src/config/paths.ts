@@ -28,6 +28,7 @@ export const paths = {
   adminReasonCodes: '/admin/reason-codes',
   adminBackups: '/admin/backups',
   adminOutbox: '/admin/outbox',
+  adminCalendar: '/admin/calendar',
   publicStatus: (token: string) => `/status/${token}`,
 } as const;
 

@@ -1,0 +1,64 @@
+import { useCallback, useRef } from 'react';
+import { Link } from 'react-router';
+import { useQueryClient } from '@tanstack/react-query';
+import { Flame, MonitorPlay, Radio, WifiOff } from 'lucide-react';
+import { FLOOR_LEADS } from '@shared/domain/access';
+import type { WallView } from '@shared/schemas/live';
+import { queryClient } from '@/lib/query-client';
+import { liveKeys } from '@/features/live/api/live-keys';
+import { useWall, wallQueryOptions } from '@/features/live/api/get-wall';
+import { useLiveStream } from '@/features/live/api/use-live-stream';
+import { WallBoard } from '@/features/live/components/wall-board';
+import { ErrorPanel, Loading, PageHeader } from '@/components/ui/panels';
+import { paths } from '@/config/paths';
+
+export const handle = { roles: FLOOR_LEADS };
+export const loader = () => queryClient.ensureQueryData(wallQueryOptions());
+
+/** The supervisor's floor: the wall's picture inside the app, with the way to the big screen and the loads. */
+export function Component() {
+  const wall = useWall();
+  const qc = useQueryClient();
+  const pending = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const refresh = useCallback(() => {
+    if (pending.current) return;
+    pending.current = setTimeout(() => {
+      pending.current = null;
+      void qc.invalidateQueries({ queryKey: liveKeys.wall() });
+    }, 400);
+  }, [qc]);
+  const status = useLiveStream({
+    onWip: (wip) => qc.setQueryData<WallView>(liveKeys.wall(), (old) => (old ? { ...old, wip, asOf: wip.asOf } : old)),
+    onScan: refresh,
+    onRefusal: refresh,
+  });
+  return (
+    <>
+      <PageHeader
+        title="Floor"
+        subtitle={
+          <span className="flex items-center gap-2" role="status">
+            {status === 'live' ? <Radio className="h-5 w-5" aria-hidden /> : <WifiOff className="h-5 w-5" aria-hidden />}
+            {status === 'live' ? 'Live: updates as trays are scanned' : 'Reconnecting to the floor…'}
+          </span>
+        }
+        actions={
+          <>
+            <Link to={paths.loads} className="flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50">
+              <Flame className="h-5 w-5" aria-hidden /> Oven &amp; bath loads
+            </Link>
+            <a href={paths.wall} className="flex min-h-11 items-center gap-2 rounded-lg bg-harbour-800 px-4 font-bold text-white hover:bg-harbour-700">
+              <MonitorPlay className="h-5 w-5" aria-hidden /> Open the wall screen
+            </a>
+          </>
+        }
+      />
+      {wall.isPending ? <Loading /> : wall.error ? <ErrorPanel message={wall.error.message} /> : (
+        // the wall is drawn for 3 m away; at a desk the same picture is shown smaller
+        <div style={{ zoom: 0.62 }}>
+          <WallBoard view={wall.data} theme="light" compact />
+        </div>
+      )}
+    </>
+  );
+}

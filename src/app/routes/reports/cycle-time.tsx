@@ -1,0 +1,80 @@
+import { REPORT_READERS } from '@shared/domain/access';
+import type { Summary } from '@shared/schemas/reports';
+import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
+import { useReportFilterOptions } from '@/features/reports/api/get-filters';
+import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
+import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { Bars } from '@/features/reports/components/charts';
+import { useStations } from '@/features/stations/api/get-stations';
+import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
+import { humanise } from '@/lib/labels';
+import { minutesText, percentText } from '@/lib/duration';
+
+export const handle = { roles: REPORT_READERS };
+
+const cells = (s: Summary) => [s.n, s.p50 ?? '–', s.p85 ?? '–', s.p95 ?? '–', s.mean ?? '–'];
+
+export function Component() {
+  const [filters, setFilters] = useReportFilters();
+  const params = filterParams(filters, { station: true });
+  const report = useReport('cycle-time', params);
+  const options = useReportFilterOptions();
+  const stations = useStations();
+  const r = report.data;
+  return (
+    <ReportFrame
+      filters={filters}
+      onChange={setFilters}
+      customers={options.data?.customers ?? []}
+      stations={stations.data ?? []}
+      csvUrl={reportCsvUrl('cycle-time', params)}
+      csvName="cycle-time.csv"
+      note="Queue time runs from the previous step’s finish (or the end of a cure, or release) to the start; process time from start to finish. Minutes of the clock."
+    >
+      {report.isPending ? (
+        <Loading label="Working out cycle times…" />
+      ) : report.error ? (
+        <ErrorPanel message={report.error.message} />
+      ) : r ? (
+        <>
+          <Card>
+            <h2 className="text-xl font-bold text-harbour-900">Flow efficiency</h2>
+            {r.flowEfficiency.trays === 0 ? (
+              <p className="text-harbour-700">No tray finished in this period{filters.stationId ? ' (not shown for a single station)' : ''}.</p>
+            ) : (
+              <p className="mt-1 text-lg">
+                <strong className="text-3xl">{percentText(r.flowEfficiency.flowEfficiency)}</strong> of working time was spent on the trays’ process steps (
+                {minutesText(r.flowEfficiency.processMinutes)} of work in {minutesText(r.flowEfficiency.workingFlowMinutes)} of working time, {r.flowEfficiency.trays} trays
+                finished). Counted against the clock: {percentText(r.flowEfficiency.flowEfficiencyCalendar)}. Oven cure is needed but unattended, so it is not counted as
+                value-adding: it took {percentText(r.flowEfficiency.cureShare)} of the clock time, shown apart.
+              </p>
+            )}
+          </Card>
+          <ChartAndTable
+            title="Queue and process time per kind of station (minutes, p50)"
+            caption="The full spread (n, p50, p85, p95, mean) is in the table."
+            chart={
+              <Bars
+                layout="vertical"
+                data={r.stations.map((s) => ({ kind: humanise(s.stationKind), queue: s.queue.p50, process: s.process.p50 }))}
+                x="kind"
+                yLabel="minutes"
+                series={[
+                  { key: 'queue', name: 'Waiting (p50)' },
+                  { key: 'process', name: 'Process (p50)' },
+                ]}
+              />
+            }
+            table={
+              <StatTable
+                label="Cycle time table"
+                head={['Kind', 'Process n', 'p50', 'p85', 'p95', 'mean', 'Queue n', 'p50', 'p85', 'p95', 'mean']}
+                rows={r.stations.map((s) => [humanise(s.stationKind), ...cells(s.process), ...cells(s.queue)])}
+              />
+            }
+          />
+        </>
+      ) : null}
+    </ReportFrame>
+  );
+}

@@ -1,0 +1,69 @@
+import { REPORT_READERS } from '@shared/domain/access';
+import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
+import { useReportFilterOptions } from '@/features/reports/api/get-filters';
+import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
+import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { Bars, CumulativeFlow, Lines } from '@/features/reports/components/charts';
+import { ErrorPanel, Loading } from '@/components/ui/panels';
+
+export const handle = { roles: REPORT_READERS };
+
+const STAGE_NAMES: Record<string, string> = { released: 'Released', started: 'Started', inspected: 'Inspected', packed: 'Packed', shipped: 'Shipped' };
+
+export function Component() {
+  const [filters, setFilters] = useReportFilters();
+  const params = filterParams(filters, { bucket: true });
+  const report = useReport('flow', params);
+  const options = useReportFilterOptions();
+  const r = report.data;
+  const per = filters.bucket === 'week' ? 'week' : 'day';
+  return (
+    <ReportFrame
+      filters={filters}
+      onChange={setFilters}
+      customers={options.data?.customers ?? []}
+      bucket
+      csvUrl={reportCsvUrl('flow', params)}
+      csvName="flow.csv"
+      note="Counted in trays. The diagram shows only what has happened; trays scrapped whole leave it."
+    >
+      {report.isPending ? (
+        <Loading label="Drawing the flow…" />
+      ) : report.error ? (
+        <ErrorPanel message={report.error.message} />
+      ) : r ? (
+        <>
+          <ChartAndTable
+            title="Cumulative flow"
+            caption="Each line counts the trays that have reached a stage by the end of each day or week (less those shipped before the period). Lines never fall; the vertical gap between two lines is the number of trays between those stages."
+            chart={
+              <CumulativeFlow
+                data={r.buckets.map((b) => ({ label: b.label, ...Object.fromEntries(r.stages.map((s, i) => [s, b.cumulative[i]])) }))}
+                stages={r.stages.map((s) => ({ key: s, name: STAGE_NAMES[s] ?? s }))}
+              />
+            }
+            table={
+              <StatTable
+                label="Cumulative flow table"
+                head={[per === 'week' ? 'Week of' : 'Day', ...r.stages.map((s) => STAGE_NAMES[s] ?? s)]}
+                rows={r.buckets.map((b) => [b.label, ...b.cumulative])}
+              />
+            }
+          />
+          <ChartAndTable
+            title={`Throughput per ${per}`}
+            caption="Trays and orders that left dispatch."
+            chart={<Bars data={r.buckets} x="label" yLabel="trays" series={[{ key: 'trays', name: 'Trays shipped' }, { key: 'orders', name: 'Orders shipped' }]} />}
+            table={<StatTable label="Throughput table" head={[per === 'week' ? 'Week of' : 'Day', 'Trays', 'Pieces', 'Orders']} rows={r.buckets.map((b) => [b.label, b.trays, b.pieces, b.orders])} />}
+          />
+          <ChartAndTable
+            title="Work in progress over time"
+            caption="Trays released and not yet shipped: the average over each day or week, and the count at its end."
+            chart={<Lines data={r.buckets} x="label" yLabel="trays" series={[{ key: 'wipAverage', name: 'Average' }, { key: 'wipAtEnd', name: 'At the end' }]} />}
+            table={<StatTable label="WIP table" head={[per === 'week' ? 'Week of' : 'Day', 'Average', 'At the end']} rows={r.buckets.map((b) => [b.label, b.wipAverage, b.wipAtEnd])} />}
+          />
+        </>
+      ) : null}
+    </ReportFrame>
+  );
+}

@@ -1,0 +1,88 @@
+import { createColumnHelper } from '@tanstack/react-table';
+import { REPORT_READERS } from '@shared/domain/access';
+import type { YieldOrder } from '@shared/schemas/reports';
+import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
+import { useReportFilterOptions } from '@/features/reports/api/get-filters';
+import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
+import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { Bars, Pareto } from '@/features/reports/components/charts';
+import { useStations } from '@/features/stations/api/get-stations';
+import { DataTable } from '@/components/ui/data-table';
+import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
+import { humanise } from '@/lib/labels';
+import { percentText } from '@/lib/duration';
+
+export const handle = { roles: REPORT_READERS };
+
+const col = createColumnHelper<YieldOrder>();
+const columns = [
+  col.accessor('number', { header: 'Order' }),
+  col.accessor('customer', { header: 'Customer' }),
+  col.accessor('inQty', { header: 'Pieces in' }),
+  col.accessor('goodQty', { header: 'Good out' }),
+  col.accessor('reworkQty', { header: 'Reworked' }),
+  col.accessor('rolledThroughputYield', { header: 'Rolled throughput yield', cell: (c) => percentText(c.getValue(), 2) }),
+  col.accessor('finalYield', { header: 'Final yield', cell: (c) => percentText(c.getValue(), 2) }),
+];
+
+export function Component() {
+  const [filters, setFilters] = useReportFilters();
+  const params = filterParams(filters, { station: true });
+  const report = useReport('yield', params);
+  const options = useReportFilterOptions();
+  const stations = useStations();
+  const r = report.data;
+  return (
+    <ReportFrame
+      filters={filters}
+      onChange={setFilters}
+      customers={options.data?.customers ?? []}
+      stations={stations.data ?? []}
+      csvUrl={reportCsvUrl('yield', params)}
+      csvName="yield.csv"
+      note="First-pass yield counts reworked pieces as not passed; final yield counts them as good. Rolled throughput yield multiplies the steps’ first-pass yields as exact ratios."
+    >
+      {report.isPending ? (
+        <Loading label="Counting good pieces…" />
+      ) : report.error ? (
+        <ErrorPanel message={report.error.message} />
+      ) : r ? (
+        <>
+          <ChartAndTable
+            title="Yield per kind of step"
+            chart={
+              <Bars
+                layout="vertical"
+                percent
+                data={r.steps.map((s) => ({ kind: humanise(s.stationKind), fpy: s.firstPassYield, fy: s.finalYield }))}
+                x="kind"
+                yLabel="yield"
+                series={[
+                  { key: 'fpy', name: 'First-pass yield' },
+                  { key: 'fy', name: 'Final yield' },
+                ]}
+              />
+            }
+            table={
+              <StatTable
+                label="Yield per step table"
+                head={['Kind', 'In', 'Passed first time', 'Good', 'Scrap', 'Reworked', 'First-pass', 'Final']}
+                rows={r.steps.map((s) => [humanise(s.stationKind), s.inQty, s.firstPassQty, s.goodQty, s.scrapQty, s.reworkQty, percentText(s.firstPassYield, 2), percentText(s.finalYield, 2)])}
+              />
+            }
+          />
+          <ChartAndTable
+            title="Scrap by reason"
+            caption={`Largest first, with the running share. ${r.rework.qty.toLocaleString('en-GB')} pieces were reworked (recorded apart, not scrap).`}
+            chart={<Pareto data={r.scrap} />}
+            table={<StatTable label="Scrap table" head={['Reason', 'Pieces', 'Share', 'Running share']} rows={r.scrap.map((s) => [s.name, s.qty, percentText(s.share), percentText(s.cumulativeShare)])} />}
+          />
+          <Card>
+            <h2 className="mb-3 text-xl font-bold text-harbour-900">Rolled throughput yield per order shipped in the period</h2>
+            <DataTable data={r.orders} columns={columns} filterLabel="Find an order" caption="Yield per order" />
+          </Card>
+        </>
+      ) : null}
+    </ReportFrame>
+  );
+}

@@ -1,0 +1,4 @@
+export const calendarKeys = {
+  all: ['calendar'] as const,
+  view: () => [...calendarKeys.all, 'view'] as const,
+};

@@ -1,0 +1,207 @@
+import { useEffect, useState, type ReactNode } from 'react';
+import { AlertOctagon, Clock, Flame, Hand, Hourglass, PackageCheck, PauseCircle, ShieldAlert, Timer, TrendingUp, Wrench } from 'lucide-react';
+import type { WallView } from '@shared/schemas/live';
+import type { WipKind } from '@shared/schemas/reports';
+import { STATION_KIND_NAMES } from '@shared/domain/stages';
+import type { StationKind } from '@shared/domain/vocabulary';
+import { factoryTime, minutesText } from '@/lib/duration';
+
+export type WallTheme = 'dark' | 'light';
+
+// Two themes chosen in code rather than by the system setting: a wall display has no one to
+// change its system setting. Every state carries a word and an icon; colour only helps.
+const THEMES = {
+  dark: {
+    page: 'bg-[#0b1a1e] text-white',
+    tile: 'bg-[#12292f] border-[#2b4a52]',
+    tileHot: 'bg-[#3a2a0a] border-brass-400',
+    muted: 'text-[#b7cdd1]',
+    strong: 'text-white',
+    panel: 'bg-[#12292f] border-[#2b4a52]',
+    accent: 'text-brass-300',
+    badge: 'bg-brass-300 text-harbour-900',
+    stop: 'bg-[#5c1a15] text-white',
+  },
+  light: {
+    page: 'bg-paper text-ink',
+    tile: 'bg-white border-harbour-100',
+    tileHot: 'bg-warn-50 border-warn-700',
+    muted: 'text-harbour-700',
+    strong: 'text-harbour-900',
+    panel: 'bg-white border-harbour-100',
+    accent: 'text-brass-700',
+    badge: 'bg-harbour-800 text-white',
+    stop: 'bg-stop-50 text-stop-700',
+  },
+} as const;
+
+export const kindName = (k: string) => {
+  const n = STATION_KIND_NAMES[k as StationKind] ?? k.replace(/_/g, ' ');
+  return n.charAt(0).toUpperCase() + n.slice(1);
+};
+
+const fmt = (n: number) => n.toLocaleString('en-GB');
+
+/** Ticks once a second so countdowns move without a request. */
+export function useNow() {
+  const [now, setNow] = useState(() => Date.now());
+  useEffect(() => {
+    const t = setInterval(() => setNow(Date.now()), 1000);
+    return () => clearInterval(t);
+  }, []);
+  return now;
+}
+
+function Count({ icon, label, trays, pieces, theme }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme }) {
+  const t = THEMES[theme];
+  return (
+    <div className="flex items-baseline gap-3">
+      <span className={`flex w-44 items-center gap-2 text-2xl ${t.muted}`}>
+        {icon}
+        {label}
+      </span>
+      <span className={`text-5xl font-bold tabular-nums ${t.strong}`} data-testid={`count-${label.toLowerCase().replace(/\s/g, '-')}`}>
+        {fmt(trays)}
+      </span>
+      <span className={`text-xl ${t.muted}`}>{trays === 1 ? 'tray' : 'trays'}</span>
+      <span className={`ml-auto text-2xl tabular-nums ${t.muted}`}>{fmt(pieces)} pcs</span>
+    </div>
+  );
+}
+
+export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: WallTheme; bottleneck: boolean }) {
+  const t = THEMES[theme];
+  const idle = kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
+  return (
+    <section
+      aria-label={kindName(kind.stationKind)}
+      data-kind={kind.stationKind}
+      className={`flex flex-col gap-2 rounded-2xl border-4 p-4 ${bottleneck ? t.tileHot : t.tile} ${idle ? 'opacity-70' : ''}`}
+    >
+      <header className="flex items-center justify-between gap-2">
+        <h2 className={`text-3xl font-bold ${t.strong}`}>{kindName(kind.stationKind)}</h2>
+        {bottleneck && (
+          <span className={`flex items-center gap-1 rounded-full px-3 py-1 text-xl font-bold ${t.badge}`}>
+            <TrendingUp className="h-6 w-6" aria-hidden /> Bottleneck
+          </span>
+        )}
+      </header>
+      <Count theme={theme} icon={<Hourglass className="h-6 w-6" aria-hidden />} label="Waiting" trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
+      {kind.stationKind === 'cure' ? (
+        <Count theme={theme} icon={<Flame className="h-6 w-6" aria-hidden />} label="Curing" trays={kind.curing.trays} pieces={kind.curing.pieces} />
+      ) : (
+        <Count theme={theme} icon={<Wrench className="h-6 w-6" aria-hidden />} label="In process" trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
+      )}
+      <footer className={`mt-auto flex flex-wrap items-center gap-x-4 gap-y-1 text-xl ${t.muted}`}>
+        <span className="flex items-center gap-1">
+          <Clock className="h-5 w-5" aria-hidden /> Oldest wait <strong className={t.strong}>{kind.oldestMinutes == null ? 'none' : minutesText(kind.oldestMinutes)}</strong>
+        </span>
+        {kind.held > 0 && (
+          <span className={`flex items-center gap-1 rounded-full px-2 font-bold ${t.stop}`}>
+            <PauseCircle className="h-5 w-5" aria-hidden /> {kind.held} on hold
+          </span>
+        )}
+        {kind.moulds > 0 && <span>{kind.moulds} {kind.moulds === 1 ? 'mould' : 'moulds'}</span>}
+      </footer>
+    </section>
+  );
+}
+
+function Panel({ title, icon, children, theme, count }: { title: string; icon: ReactNode; children: ReactNode; theme: WallTheme; count?: number }) {
+  const t = THEMES[theme];
+  return (
+    <section aria-label={title} className={`flex min-h-0 flex-col rounded-2xl border-4 p-4 ${t.panel}`}>
+      <h2 className={`mb-2 flex items-center gap-2 text-2xl font-bold ${t.strong}`}>
+        {icon} {title}
+        {count !== undefined && <span className={`ml-auto text-xl ${t.muted}`}>{count}</span>}
+      </h2>
+      <div className="min-h-0 overflow-hidden">{children}</div>
+    </section>
+  );
+}
+
+/** The whole floor on one screen: a tile per kind of work, and what needs someone's attention. */
+export function WallBoard({ view, theme, compact = false }: { view: WallView; theme: WallTheme; compact?: boolean }) {
+  const t = THEMES[theme];
+  const now = useNow();
+  const active = view.wip.kinds.filter((k) => k.stations.length > 0 || k.waiting.trays + k.inProcess.trays + k.curing.trays + k.moulds > 0);
+  const tz = view.timeZone;
+  return (
+    <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_460px]'}`}>
+      <div className={`grid content-start gap-3 ${compact ? 'grid-cols-1 md:grid-cols-2 2xl:grid-cols-3' : 'grid-cols-3'}`}>
+        {active.map((k) => (
+          <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />
+        ))}
+      </div>
+      <div className="flex min-h-0 flex-col gap-3">
+        {view.bottleneck && (
+          <p className={`rounded-2xl border-4 p-4 text-2xl ${t.tileHot}`}>
+            <TrendingUp className="mr-2 inline h-7 w-7" aria-hidden />
+            Longest queue for its size: <strong>{kindName(view.bottleneck.stationKind)}</strong>, {view.bottleneck.waitingTrays} trays waiting for room for {view.bottleneck.capacityTrays} at a time.
+          </p>
+        )}
+        <Panel theme={theme} title="Cure countdowns" icon={<Timer className="h-7 w-7" aria-hidden />} count={view.curing.length}>
+          <ul className="flex flex-col gap-1 text-2xl">
+            {view.curing.slice(0, 6).map((c) => {
+              const left = Date.parse(c.readyAt) - now;
+              return (
+                <li key={c.trayId} className="flex justify-between gap-2">
+                  <span className="font-bold">{c.number}</span>
+                  <span className="tabular-nums">
+                    {left <= 0 ? (
+                      <span className="flex items-center gap-1 font-bold">
+                        <PackageCheck className="h-6 w-6" aria-hidden /> Ready
+                      </span>
+                    ) : (
+                      `${Math.floor(left / 60000)}:${String(Math.floor((left % 60000) / 1000)).padStart(2, '0')} left`
+                    )}
+                  </span>
+                </li>
+              );
+            })}
+            {view.curing.length === 0 && <li className={t.muted}>Nothing in the oven</li>}
+          </ul>
+        </Panel>
+        <Panel theme={theme} title="Needs a supervisor" icon={<ShieldAlert className="h-7 w-7" aria-hidden />} count={view.refusals.length + view.holds.length}>
+          <ul className="flex flex-col gap-1 text-xl">
+            {view.refusals.slice(0, 4).map((r) => (
+              <li key={r.id}>
+                <AlertOctagon className="mr-1 inline h-5 w-5" aria-hidden />
+                <strong>Refused</strong> {r.trayNumber ?? 'unknown tray'} at {r.stationName ?? 'a station'}: {r.message}
+              </li>
+            ))}
+            {view.holds.slice(0, 4).map((h) => (
+              <li key={h.trayId}>
+                <PauseCircle className="mr-1 inline h-5 w-5" aria-hidden />
+                <strong>On hold</strong> {h.number} at {kindName(h.stationKind)}
+                {h.reason ? `: ${h.reason.replace(/_/g, ' ')}` : ''}
+              </li>
+            ))}
+            {view.overrides.slice(0, 2).map((o) => (
+              <li key={o.id} className={t.muted}>
+                <Hand className="mr-1 inline h-5 w-5" aria-hidden />
+                Override {o.trayNumber} by {o.supervisorName ?? 'a supervisor'}: {o.reason}
+              </li>
+            ))}
+            {view.refusals.length + view.holds.length + view.overrides.length === 0 && <li className={t.muted}>Nothing waiting for a decision</li>}
+          </ul>
+        </Panel>
+        <Panel theme={theme} title="At risk of shipping late" icon={<AlertOctagon className="h-7 w-7" aria-hidden />} count={view.atRisk.length}>
+          <ul className="flex flex-col gap-1 text-xl">
+            {view.atRisk.slice(0, 5).map((o) => (
+              <li key={o.orderId} className="flex justify-between gap-2">
+                <span>
+                  <strong>{o.number}</strong> {o.customer}
+                </span>
+                <span className="text-right">
+                  <strong>{o.risk === 'late' ? 'Late' : 'At risk'}</strong> · due {o.dueDate} · expected {factoryTime(o.expectedAt, tz)}
+                </span>
+              </li>
+            ))}
+            {view.atRisk.length === 0 && <li className={t.muted}>Every open order is on course</li>}
+          </ul>
+        </Panel>
+      </div>
+    </div>
+  );
+}

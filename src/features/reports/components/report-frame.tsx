@@ -1,0 +1,163 @@
+import type { ReactNode } from 'react';
+import { Download, Info } from 'lucide-react';
+import { PROCESSES } from '@shared/domain/vocabulary';
+import { humanise } from '@/lib/labels';
+import { SelectField, TextField } from '@/components/ui/field';
+import { Card } from '@/components/ui/panels';
+
+export interface ReportFilterValues {
+  from: string;
+  to: string;
+  process: string;
+  customerId: string;
+  stationId: string;
+  bucket: string;
+}
+
+export function defaultFilters(): ReportFilterValues {
+  const day = (d: Date) => d.toISOString().slice(0, 10);
+  const to = new Date();
+  const from = new Date(to.getTime() - 89 * 86_400_000);
+  return { from: day(from), to: day(to), process: '', customerId: '', stationId: '', bucket: 'day' };
+}
+
+/** Only the filters a report uses, without the empty ones: the API query and the CSV link. */
+export function filterParams(f: ReportFilterValues, use: { station?: boolean; bucket?: boolean } = {}): Record<string, string> {
+  const p: Record<string, string> = { from: f.from, to: f.to };
+  if (f.process) p.process = f.process;
+  if (f.customerId) p.customerId = f.customerId;
+  if (use.station && f.stationId) p.stationId = f.stationId;
+  if (use.bucket) p.bucket = f.bucket || 'day';
+  return p;
+}
+
+export function ReportFrame({
+  filters,
+  onChange,
+  customers,
+  stations,
+  bucket,
+  csvUrl,
+  csvName,
+  children,
+  note,
+}: {
+  filters: ReportFilterValues;
+  onChange: (patch: Partial<ReportFilterValues>) => void;
+  customers: { id: string; name: string }[];
+  /** given when the report can be narrowed to one station */
+  stations?: { id: string; code: string; name: string }[];
+  bucket?: boolean;
+  csvUrl: string;
+  csvName: string;
+  children: ReactNode;
+  note?: ReactNode;
+}) {
+  return (
+    <div className="flex flex-col gap-4">
+      <Card>
+        <form className="grid grid-cols-2 gap-3 md:grid-cols-3 xl:grid-cols-7" onSubmit={(e) => e.preventDefault()} aria-label="Filters">
+          <TextField label="From" type="date" value={filters.from} max={filters.to} onChange={(e) => onChange({ from: e.target.value })} />
+          <TextField label="To" type="date" value={filters.to} min={filters.from} onChange={(e) => onChange({ to: e.target.value })} />
+          <SelectField label="Process" value={filters.process} onChange={(e) => onChange({ process: e.target.value })}>
+            <option value="">All processes</option>
+            {PROCESSES.map((p) => (
+              <option key={p} value={p}>
+                {humanise(p)}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField label="Customer" value={filters.customerId} onChange={(e) => onChange({ customerId: e.target.value })}>
+            <option value="">All customers</option>
+            {customers.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
+          </SelectField>
+          {stations && (
+            <SelectField label="Station" value={filters.stationId} onChange={(e) => onChange({ stationId: e.target.value })}>
+              <option value="">All stations</option>
+              {stations.map((s) => (
+                <option key={s.id} value={s.id}>
+                  {s.code} · {s.name}
+                </option>
+              ))}
+            </SelectField>
+          )}
+          {bucket && (
+            <SelectField label="Per" value={filters.bucket} onChange={(e) => onChange({ bucket: e.target.value })}>
+              <option value="day">Day</option>
+              <option value="week">Week</option>
+            </SelectField>
+          )}
+          <div className="flex items-end">
+            <a
+              href={csvUrl}
+              download={csvName}
+              className="flex min-h-11 w-full items-center justify-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50"
+            >
+              <Download className="h-5 w-5" aria-hidden /> Download CSV
+            </a>
+          </div>
+        </form>
+      </Card>
+      <p className="flex items-start gap-2 text-sm text-harbour-700">
+        <Info className="mt-0.5 h-4 w-4 shrink-0" aria-hidden />
+        <span>
+          Percentiles (p50, p85, p95) by the Hyndman &amp; Fan type 7 method, the default of R and NumPy; n, the number of values, is shown beside each.
+          Days are the factory’s local days. {note}
+        </span>
+      </p>
+      {children}
+    </div>
+  );
+}
+
+/** A chart and the table of the same figures, side by side on a wide screen. */
+export function ChartAndTable({ title, chart, table, caption }: { title: string; chart: ReactNode; table: ReactNode; caption?: ReactNode }) {
+  return (
+    <Card>
+      <h2 className="mb-1 text-xl font-bold text-harbour-900">{title}</h2>
+      {caption && <p className="mb-3 text-sm text-harbour-700">{caption}</p>}
+      <div className="grid gap-6 2xl:grid-cols-[3fr_2fr]">
+        <div className="h-80 min-w-0">{chart}</div>
+        <div className="min-w-0 overflow-x-auto">{table}</div>
+      </div>
+    </Card>
+  );
+}
+
+export function StatTable({ head, rows, label }: { head: string[]; rows: (string | number)[][]; label: string }) {
+  return (
+    <table className="w-full text-left text-sm" aria-label={label}>
+      <thead>
+        <tr className="border-b-2 border-harbour-100">
+          {head.map((h) => (
+            <th key={h} scope="col" className="px-2 py-2 font-bold">
+              {h}
+            </th>
+          ))}
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((r, i) => (
+          <tr key={i} className="border-b border-harbour-50">
+            {r.map((c, j) => (
+              <td key={j} className={`px-2 py-1.5 ${typeof c === 'number' ? 'text-right tabular-nums' : ''}`}>
+                {typeof c === 'number' ? c.toLocaleString('en-GB') : c}
+              </td>
+            ))}
+          </tr>
+        ))}
+        {rows.length === 0 && (
+          <tr>
+            <td colSpan={head.length} className="px-2 py-4 text-center text-harbour-700">
+              Nothing in this period
+            </td>
+          </tr>
+        )}
+      </tbody>
+    </table>
+  );
+}

@@ -49,7 +49,12 @@ export const scansRepository = {
   mouldsNotReady: (db: Db, orderIds: string[]) =>
     orderIds.length
       ? db
-          .select({ orderId: orderMoulds.orderId, notReady: sql<number>`sum(case when ${moulds.status} = 'ready' then 0 else 1 end)` })
+          // a mould is ready for this order when it is marked ready, or when the order's own mould
+          // traveller for it has finished (engraved where new, and checked)
+          .select({
+            orderId: orderMoulds.orderId,
+            notReady: sql<number>`sum(case when ${moulds.status} = 'ready' then 0 when exists (select 1 from ${trays} mt join ${trayStates} ms on ms.tray_id = mt.id where mt.order_id = ${orderMoulds.orderId} and mt.mould_id = ${moulds.id} and mt.kind = 'mould' and ms.phase = 'done') then 0 else 1 end)`,
+          })
           .from(orderMoulds)
           .innerJoin(moulds, eq(moulds.id, orderMoulds.mouldId))
           .where(inArray(orderMoulds.orderId, orderIds))

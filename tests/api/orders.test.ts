@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
+import crypto from 'node:crypto';
 import path from 'node:path';
 import { execFileSync } from 'node:child_process';
 import { PNG } from 'pngjs';
@@ -271,7 +272,7 @@ describe('proof uploads: checked by content, size, name (each refusal stores not
     expect(file.headers['content-type']).toMatch(/image\/png/);
     expect(Buffer.compare(file.body as Buffer, content)).toBe(0);
     // stored under the data folder by its sha-256, not by the name sent
-    const hash = (await import('node:crypto')).createHash('sha256').update(content).digest('hex');
+    const hash = crypto.createHash('sha256').update(content).digest('hex');
     expect(fs.existsSync(path.join(t.dataDir, 'files', hash.slice(0, 2), hash))).toBe(true);
   });
 });
@@ -556,5 +557,41 @@ describe('CSV import', () => {
     expect(none.body.error.code).toBe('nothing_to_import');
     expect((await planner.post('/api/orders/import').send({ csv: 'x'.repeat(1024 * 1024 + 1) })).status).toBe(413);
     expect((await planner.get('/api/orders')).body.length).toBe(before);
+  });
+});
+
+describe('moulds gate the strike: trays wait until their mould travellers finish (product.md rule 3)', () => {
+  it('new mould: engraved and checked; reorder: checked only; then striking may start', async () => {
+    const operator = await t.agentAs('operator');
+    const stations: { id: string; kind: string }[] = (await planner.get('/api/stations')).body;
+    const at = (kind: string) => stations.find((s) => s.kind === kind)!.id;
+    const scan = async (code: string, kind: string, type: 'start' | 'finish', extra: Record<string, unknown> = {}) => {
+      const res = await operator
+        .post('/api/scans')
+        .send({ events: [{ id: crypto.randomUUID(), code, stationId: at(kind), type, occurredAt: new Date().toISOString(), ...extra }] });
+      expect(res.status).toBe(200);
+      return res.body.results[0];
+    };
+
+    const first = await readyOrder({ quantity: 100, overrunPct: 0 });
+    const released = (await planner.post(`/api/orders/${first.id}/release`).send({ traySize: 100 })).body;
+    const tray = released.trays[0];
+    const mould = released.moulds[0];
+    expect(await scan(tray.code, 'strike', 'start')).toMatchObject({ status: 'rejected', code: 'mould_not_ready' });
+    for (const kind of ['engrave', 'mould_check']) {
+      expect((await scan(mould.code, kind, 'start')).status).toBe('accepted');
+      expect((await scan(mould.code, kind, 'finish', { goodQty: 1, scrapQty: 0 })).status).toBe('accepted');
+    }
+    expect((await planner.get('/api/moulds')).body.find((m: { number: string }) => m.number === mould.number).status).toBe('ready');
+    expect((await scan(tray.code, 'strike', 'start')).status).toBe('accepted');
+
+    const repeat = await readyOrder({ quantity: 100, overrunPct: 0, reorderOf: first.id });
+    const again = (await planner.post(`/api/orders/${repeat.id}/release`).send({ traySize: 100 })).body;
+    expect(await scan(again.trays[0].code, 'strike', 'start')).toMatchObject({ status: 'rejected', code: 'mould_not_ready' });
+    // a stored mould is not engraved again: its traveller waits at the check
+    expect((await scan(again.moulds[0].code, 'engrave', 'start')).status).toBe('rejected');
+    expect((await scan(again.moulds[0].code, 'mould_check', 'start')).status).toBe('accepted');
+    expect((await scan(again.moulds[0].code, 'mould_check', 'finish', { goodQty: 1, scrapQty: 0 })).status).toBe('accepted');
+    expect((await scan(again.trays[0].code, 'strike', 'start')).status).toBe('accepted');
   });
 });

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { ArrowDown, ArrowUp, Plus, Trash2 } from 'lucide-react';
 import { STEP_CONDITIONS, expandRouting, type RoutingTemplate, type StepCondition, type TemplateEntry } from '@shared/domain/routing';
 import { routingTemplateSchema } from '@shared/schemas/routing';
@@ -9,7 +9,7 @@ import { CheckboxField, TextField } from '@/components/ui/field';
 import { humanise } from '@/lib/labels';
 import { useSaveTemplate } from '../api/routing';
 
-const input = 'min-h-11 w-full rounded-lg border-2 border-harbour-100 bg-white px-2';
+const input = 'min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2';
 const CONDITION_LABELS: Record<StepCondition, string> = {
   always: 'Always',
   back_logo: 'When there is a back logo',
@@ -19,8 +19,22 @@ const CONDITION_LABELS: Record<StepCondition, string> = {
   posts: 'When fittings need posts',
 };
 
-function NumberCell({ label, value, onChange, step = '0.5' }: { label: string; value: number; onChange: (v: number) => void; step?: string }) {
-  return <input aria-label={label} type="number" min={0} step={step} className={input} value={value} onChange={(e) => onChange(Number(e.target.value))} />;
+/** A small captioned control; the aria-label keeps each row's controls apart for screen readers. */
+function Cap({ caption, children }: { caption: string; children: ReactNode }) {
+  return (
+    <label className="flex flex-col gap-0.5 text-xs font-bold text-harbour-700">
+      {caption}
+      {children}
+    </label>
+  );
+}
+
+function NumberCell({ label, caption, value, onChange, step = '0.5' }: { label: string; caption: string; value: number; onChange: (v: number) => void; step?: string }) {
+  return (
+    <Cap caption={caption}>
+      <input aria-label={label} type="number" min={0} step={step} className={`${input} w-24`} value={value} onChange={(e) => onChange(Number(e.target.value))} />
+    </Cap>
+  );
 }
 
 /** Admins edit a process's template: steps, times, conditions and how colours are cured. A preview shows the expansion. */
@@ -70,66 +84,60 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                 <span className="w-6 font-bold">{i + 1}</span>
                 {e.type === 'step' ? (
                   <>
-                    <div className="min-w-40 flex-1">
-                      <input aria-label={`Entry ${i + 1} name`} className={input} value={e.name} onChange={(ev) => setEntry(i, { ...e, name: ev.target.value })} />
-                    </div>
-                    <select
-                      aria-label={`Entry ${i + 1} station kind`}
-                      className={`${input} w-40`}
-                      value={e.stationKind}
-                      onChange={(ev) => {
-                        const kind = ev.target.value as StationKind;
-                        setEntry(i, { ...e, stationKind: kind, cureMinutes: kind === 'cure' ? (e.cureMinutes ?? 120) : null });
-                      }}
-                    >
-                      {STATION_KINDS.map((k) => (
-                        <option key={k} value={k}>
-                          {humanise(k)}
-                        </option>
-                      ))}
-                    </select>
-                    <select aria-label={`Entry ${i + 1} condition`} className={`${input} w-52`} value={e.when ?? 'always'} onChange={(ev) => setEntry(i, { ...e, when: ev.target.value as StepCondition })}>
-                      {STEP_CONDITIONS.map((c) => (
-                        <option key={c} value={c}>
-                          {CONDITION_LABELS[c]}
-                        </option>
-                      ))}
-                    </select>
-                    <div className="w-24">
-                      <NumberCell label={`Entry ${i + 1} minutes per tray`} value={e.trayMinutes} onChange={(v) => setEntry(i, { ...e, trayMinutes: v })} />
-                    </div>
-                    <div className="w-24">
-                      <NumberCell label={`Entry ${i + 1} minutes per piece`} value={e.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })} />
-                    </div>
+                    <Cap caption="Step name">
+                      <input aria-label={`Entry ${i + 1} name`} className={`${input} w-52`} value={e.name} onChange={(ev) => setEntry(i, { ...e, name: ev.target.value })} />
+                    </Cap>
+                    <Cap caption="Station kind">
+                      <select
+                        aria-label={`Entry ${i + 1} station kind`}
+                        className={`${input} w-36`}
+                        value={e.stationKind}
+                        onChange={(ev) => {
+                          const kind = ev.target.value as StationKind;
+                          setEntry(i, { ...e, stationKind: kind, cureMinutes: kind === 'cure' ? (e.cureMinutes ?? 120) : null });
+                        }}
+                      >
+                        {STATION_KINDS.map((k) => (
+                          <option key={k} value={k}>
+                            {humanise(k)}
+                          </option>
+                        ))}
+                      </select>
+                    </Cap>
+                    <Cap caption="Included">
+                      <select aria-label={`Entry ${i + 1} condition`} className={`${input} w-52`} value={e.when ?? 'always'} onChange={(ev) => setEntry(i, { ...e, when: ev.target.value as StepCondition })}>
+                        {STEP_CONDITIONS.map((c) => (
+                          <option key={c} value={c}>
+                            {CONDITION_LABELS[c]}
+                          </option>
+                        ))}
+                      </select>
+                    </Cap>
+                    <NumberCell label={`Entry ${i + 1} minutes per tray`} caption="Min / tray" value={e.trayMinutes} onChange={(v) => setEntry(i, { ...e, trayMinutes: v })} />
+                    <NumberCell label={`Entry ${i + 1} minutes per piece`} caption="Min / piece" value={e.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })} />
                     {e.stationKind === 'cure' && (
-                      <div className="w-24">
-                        <NumberCell label={`Entry ${i + 1} minimum cure minutes`} value={e.cureMinutes ?? 0} step="1" onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })} />
-                      </div>
+                      <NumberCell label={`Entry ${i + 1} minimum cure minutes`} caption="Cure at least" value={e.cureMinutes ?? 0} step="1" onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })} />
                     )}
                   </>
                 ) : (
                   <>
-                    <span className="font-bold">One fill per colour</span>
-                    <div className="w-24">
-                      <NumberCell label="Fill minutes per tray" value={e.fill.trayMinutes} onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, trayMinutes: v } })} />
-                    </div>
-                    <div className="w-24">
-                      <NumberCell label="Fill minutes per piece" value={e.fill.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, pieceMinutes: v } })} />
-                    </div>
-                    <select aria-label="How colours are cured" className={`${input} w-56`} value={e.cure} onChange={(ev) => setEntry(i, { ...e, cure: ev.target.value as 'each' | 'once' | 'none' })}>
-                      <option value="each">Cure after every colour</option>
-                      <option value="once">One bake after all colours</option>
-                      <option value="none">No cure (air-dried)</option>
-                    </select>
+                    <span className="self-center font-bold">One fill per colour</span>
+                    <NumberCell label="Fill minutes per tray" caption="Fill min / tray" value={e.fill.trayMinutes} onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, trayMinutes: v } })} />
+                    <NumberCell label="Fill minutes per piece" caption="Fill min / piece" value={e.fill.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, pieceMinutes: v } })} />
+                    <Cap caption="Curing">
+                      <select aria-label="How colours are cured" className={`${input} w-56`} value={e.cure} onChange={(ev) => setEntry(i, { ...e, cure: ev.target.value as 'each' | 'once' | 'none' })}>
+                        <option value="each">Cure after every colour</option>
+                        <option value="once">One bake after all colours</option>
+                        <option value="none">No cure (air-dried)</option>
+                      </select>
+                    </Cap>
                     {e.cure !== 'none' && (
-                      <div className="w-24">
-                        <NumberCell label="Minimum cure minutes" value={e.cureStep.cureMinutes} step="1" onChange={(v) => setEntry(i, { ...e, cureStep: { ...e.cureStep, cureMinutes: Math.round(v) } })} />
-                      </div>
+                      <NumberCell label="Minimum cure minutes" caption="Cure at least" value={e.cureStep.cureMinutes} step="1" onChange={(v) => setEntry(i, { ...e, cureStep: { ...e.cureStep, cureMinutes: Math.round(v) } })} />
                     )}
                     {e.cure === 'once' && (
-                      <div className="min-w-40 flex-1">
-                        <input aria-label="Name of the bake" className={input} value={e.onceName} onChange={(ev) => setEntry(i, { ...e, onceName: ev.target.value })} />
-                      </div>
+                      <Cap caption="Bake step name">
+                        <input aria-label="Name of the bake" className={`${input} w-48`} value={e.onceName} onChange={(ev) => setEntry(i, { ...e, onceName: ev.target.value })} />
+                      </Cap>
                     )}
                   </>
                 )}

@@ -91,7 +91,7 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
   for (const c of s.cartons) {
     row([String(c.count), String(c.piecesPerCarton), String(c.count * c.piecesPerCarton), c.weightKg != null ? kg(c.weightKg) : '–'], 'body');
   }
-  row([String(s.cartonCount), '', String(s.pieces), kg(s.weightKg)], 'bold');
+  row([String(s.cartonCount), 'Total', String(s.pieces), `${kg(s.weightKg)} in all`], 'bold');
   doc.moveDown(1);
 
   doc.font('body').fontSize(11).fillColor(INK);

@@ -92,7 +92,7 @@ export function Component() {
         </p>
       )}
       {closed && <ErrorPanel title="Not for shipping" message={v.order.status === 'on_hold' ? 'The order is on hold.' : 'The order is cancelled.'} />}
-      <div className="grid gap-6 lg:grid-cols-2">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-2">
         <div className="flex flex-col gap-6">
           <Card>
             <h2 className="mb-3 text-xl font-bold">Record a shipment</h2>

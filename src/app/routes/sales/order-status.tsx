@@ -44,14 +44,14 @@ export function Component() {
           </>
         }
       />
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="flex flex-col gap-6">
           <Card>
             <h2 className="text-xl font-bold">Where it stands</h2>
             <p className="mt-2 text-lg" data-testid="stage-text">
               {o.stageText}
             </p>
-            <div className="mt-4 grid gap-6 md:grid-cols-2">
+            <div className="mt-4 grid grid-cols-[minmax(0,1fr)] gap-6 md:grid-cols-2">
               <StageLine stages={o.stages} current={o.stage} />
               <div>
                 <h3 className="font-bold text-harbour-700">{o.shippedAt ? 'Shipped' : 'Projected ship date'}</h3>
@@ -96,7 +96,7 @@ export function Component() {
             <h2 className="mb-2 text-xl font-bold">History</h2>
             <ol className="flex flex-col gap-1">
               {o.history.map((h, i) => (
-                <li key={i} className="grid grid-cols-[11rem_1fr] gap-3 border-t border-harbour-100 py-1 first:border-t-0">
+                <li key={i} className="grid grid-cols-1 gap-x-3 sm:grid-cols-[11rem_1fr] border-t border-harbour-100 py-1 first:border-t-0">
                   <span className="text-sm text-harbour-700">{when(h.at)}</span>
                   <span>
                     {h.what}

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { seedDemo } from '../../server/seed/demo';
 import { evaluateScan, type GuardInput, type ValidOverride } from '@shared/domain/guards';
+import { compileCalendar, WEEKDAYS, type WeekSchedule } from '@shared/domain/calendar';
 import { ORDER_STATUSES, PROCESSES, REJECTION_CODES, initialTrayState, type Role, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
 
 // A fixed "now" (a Wednesday morning in the factory's time zone) so the run is repeatable.
@@ -218,6 +219,64 @@ describe('demo factory seed', () => {
     const late = q<{ n: number }>(a, "select count(*) n from orders where status = 'shipped' and due_date < date((shipped_at + 8*3600000)/1000, 'unixepoch')")[0].n;
     expect(late).toBeGreaterThan(0);
     expect(late).toBeLessThan(shipped.length / 2);
+  });
+
+  it('starts work only in the stored shifts and never puts more trays on a station than it holds', () => {
+    // the oracle: the product's working calendar, built from the calendar rows the seed stored
+    const [factory] = q<{ value: string }>(a, "select value from settings where key = 'factory'");
+    const timeZone = (JSON.parse(factory.value) as { timeZone: string }).timeZone;
+    const week = Object.fromEntries(WEEKDAYS.map((d) => [d, []])) as unknown as WeekSchedule;
+    const hm = (m: number) => `${String(Math.floor(m / 60)).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`;
+    const dbDay = ['sun', 'mon', 'tue', 'wed', 'thu', 'fri', 'sat'] as const;
+    for (const r of q<{ weekday: number; start_minute: number; end_minute: number }>(a, 'select weekday, start_minute, end_minute from calendar_shifts where station_id is null')) {
+      week[dbDay[r.weekday]].push({ start: hm(r.start_minute), end: hm(r.end_minute) });
+    }
+    expect(week.sun).toEqual([]);
+    const calendar = compileCalendar({ timeZone, week, daysOff: [] });
+    const starts = q<{ occurred_at: number }>(a, "select occurred_at from scan_events where type = 'start'");
+    const outside = starts.filter((e) => !calendar.factory.isWorking(e.occurred_at));
+    expect(outside.length).toBe(0);
+
+    // capacity: trays in process at a station at once (a cure holds its oven place until it is ready)
+    const cap = new Map(q<{ id: string; capacity_trays: number; kind: string }>(a, 'select id, capacity_trays, kind from stations').map((s) => [s.id, s]));
+    const rows = q<{ tray_id: string; type: string; step_seq: number; station_id: string; occurred_at: number }>(
+      a,
+      "select e.tray_id, e.type, e.step_seq, e.station_id, e.occurred_at from scan_events e where e.type in ('start', 'finish') order by e.occurred_at, e.rowid",
+    );
+    const cureMinutes = new Map(
+      q<{ tray_id: string; seq: number; cure_minutes: number | null }>(a, 'select t.id tray_id, s.seq, s.cure_minutes from trays t join order_steps s on s.order_id = t.order_id and s.traveller_kind = t.kind').map((r) => [`${r.tray_id}:${r.seq}`, r.cure_minutes]),
+    );
+    const open = new Map<string, number>();
+    const intervals: { station: string; from: number; to: number }[] = [];
+    for (const r of rows) {
+      const key = `${r.tray_id}:${r.step_seq}`;
+      if (r.type === 'start') {
+        const cure = cap.get(r.station_id)!.kind === 'cure' ? cureMinutes.get(key) : null;
+        if (cure != null) intervals.push({ station: r.station_id, from: r.occurred_at, to: r.occurred_at + cure * 60_000 });
+        else open.set(key, r.occurred_at);
+      } else if (open.has(key)) {
+        intervals.push({ station: r.station_id, from: open.get(key)!, to: r.occurred_at });
+        open.delete(key);
+      }
+    }
+    for (const [key, from] of open) intervals.push({ station: rows.find((r) => `${r.tray_id}:${r.step_seq}` === key)!.station_id, from, to: Infinity });
+    const points = intervals.flatMap((i) => [
+      { station: i.station, t: i.from, d: 1 },
+      { station: i.station, t: i.to, d: -1 },
+    ]);
+    points.sort((x, y) => x.t - y.t || x.d - y.d);
+    const level = new Map<string, number>();
+    const peak = new Map<string, number>();
+    for (const p of points) {
+      const n = (level.get(p.station) ?? 0) + p.d;
+      level.set(p.station, n);
+      peak.set(p.station, Math.max(peak.get(p.station) ?? 0, n));
+    }
+    for (const [station, n] of peak) expect(n, cap.get(station)!.kind).toBeLessThanOrEqual(cap.get(station)!.capacity_trays);
+    // and the oven and the plating bath did fill up at times (queues form there)
+    const kindPeak = (kind: string) => Math.max(...[...peak].filter(([id]) => cap.get(id)!.kind === kind).map(([, n]) => n));
+    expect(kindPeak('cure')).toBeGreaterThan(4);
+    expect(kindPeak('plate')).toBeGreaterThan(2);
   });
 
   it('keeps a few refused scans open for the supervisor and recorded overrides', () => {

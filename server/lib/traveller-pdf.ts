@@ -5,6 +5,7 @@ import QRCode from 'qrcode';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import type { RoutingStep } from '@shared/domain/vocabulary';
+import type { TravellerLayoutValue } from '@shared/schemas/travellers';
 
 const require = createRequire(import.meta.url);
 
@@ -16,8 +17,7 @@ export function fontFile(weight: 400 | 700): string {
 const FONT_REGULAR = fontFile(400);
 const FONT_BOLD = fontFile(700);
 
-export const TRAVELLER_LAYOUTS = ['a6', 'a4x2', 'a4x4'] as const;
-export type TravellerLayout = (typeof TRAVELLER_LAYOUTS)[number];
+export type TravellerLayout = TravellerLayoutValue;
 
 export interface TravellerCard {
   kind: 'tray' | 'mould';

@@ -5,6 +5,7 @@ import { PROCESSES } from '@shared/domain/vocabulary';
 import {
   importBodySchema,
   orderSpecPatchSchema,
+  orderReasonBodySchema,
   orderSpecSchema,
   paymentBodySchema,
   proofApprovalBodySchema,
@@ -66,6 +67,30 @@ export function registerOrderRoutes(api: Api) {
     params: idParams,
     body: orderSpecPatchSchema,
     handler: ({ deps, params, body, user }) => ordersService.update(deps, params.id, body, user!.id),
+  });
+
+  api.route({
+    method: 'post',
+    path: '/orders/:id/hold',
+    access: { roles: PLANNING },
+    params: idParams,
+    body: orderReasonBodySchema,
+    handler: ({ deps, params, body, user }) => ordersService.hold(deps, params.id, body.reason, user!.id),
+  });
+  api.route({
+    method: 'post',
+    path: '/orders/:id/resume',
+    access: { roles: PLANNING },
+    params: idParams,
+    handler: ({ deps, params, user }) => ordersService.resume(deps, params.id, user!.id),
+  });
+  api.route({
+    method: 'post',
+    path: '/orders/:id/cancel',
+    access: { roles: PLANNING },
+    params: idParams,
+    body: orderReasonBodySchema,
+    handler: ({ deps, params, body, user }) => ordersService.cancel(deps, params.id, body.reason, user!.id),
   });
 
   api.route({

@@ -719,6 +719,45 @@ export const ordersService = {
     return created;
   },
 
+  /** Puts an order that is not on the floor yet on hold (after release, trays are held one by one on the floor). */
+  hold(deps: AppDeps, id: string, reason: string, actorId: string) {
+    const now = deps.now();
+    deps.db.transaction((tx) => {
+      const order = getOrder(tx, id);
+      if (isReleased(order)) throw conflict('already_released', `Order ${order.number} is on the floor: hold its trays at the stations instead.`);
+      if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled.`);
+      if (order.status === 'on_hold') throw conflict('already_on_hold', `Order ${order.number} is on hold already.`);
+      ordersRepository.update(tx, id, { status: 'on_hold', holdReason: reason, updatedAt: now });
+      audit(tx, now, actorId, 'order.hold', id, `Put on hold: ${reason}`);
+    });
+    return ordersService.get(deps, id);
+  },
+
+  resume(deps: AppDeps, id: string, actorId: string) {
+    const now = deps.now();
+    deps.db.transaction((tx) => {
+      const order = getOrder(tx, id);
+      if (order.status !== 'on_hold') throw conflict('not_on_hold', `Order ${order.number} is not on hold.`);
+      const status = order.releasedAt != null ? 'released' : preReleaseStatus(openGates(tx, id));
+      ordersRepository.update(tx, id, { status, holdReason: null, updatedAt: now });
+      audit(tx, now, actorId, 'order.resume', id, 'Hold lifted');
+    });
+    return ordersService.get(deps, id);
+  },
+
+  /** Cancels an order before release; released work is written off tray by tray instead. */
+  cancel(deps: AppDeps, id: string, reason: string, actorId: string) {
+    const now = deps.now();
+    deps.db.transaction((tx) => {
+      const order = getOrder(tx, id);
+      if (isReleased(order)) throw conflict('already_released', `Order ${order.number} is on the floor: write off its trays instead.`);
+      if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled already.`);
+      ordersRepository.update(tx, id, { status: 'cancelled', cancelledAt: now, holdReason: reason, updatedAt: now });
+      audit(tx, now, actorId, 'order.cancel', id, `Cancelled: ${reason}`);
+    });
+    return ordersService.get(deps, id);
+  },
+
   previewImport: (csv: string) => previewOrderImport(csv),
 
   importOrders(deps: AppDeps, csv: string, actorId: string) {

@@ -134,6 +134,12 @@ export const paymentBodySchema = z.union([
 ]);
 export type PaymentBody = z.infer<typeof paymentBodySchema>;
 
+/** POST /api/orders/:id/hold and /cancel (before release; after release holds are per tray, on the floor) */
+export const orderReasonBodySchema = z.strictObject({
+  reason: z.string().trim().min(3, 'Say why').max(300),
+});
+export type OrderReasonBody = z.infer<typeof orderReasonBodySchema>;
+
 /** POST /api/orders/:id/proofs/:revision/approve */
 export const proofApprovalBodySchema = z.strictObject({
   /** the day the customer approved; defaults to today */

@@ -134,6 +134,30 @@ describe('orders: entry', () => {
   });
 });
 
+describe('hold and cancel before release', () => {
+  it('an order on hold cannot be released until the hold is lifted; a cancelled one never', async () => {
+    const order = await readyOrder({ quantity: 100 });
+    const held = await planner.post(`/api/orders/${order.id}/hold`).send({ reason: 'Customer checks the colours again' });
+    expect(held.status).toBe(200);
+    expect(held.body).toMatchObject({ status: 'on_hold', holdReason: 'Customer checks the colours again' });
+    const refused = await planner.post(`/api/orders/${order.id}/release`).send({ traySize: 100 });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('order_on_hold');
+    expect((await planner.post(`/api/orders/${order.id}/resume`).send({})).body.status).toBe('draft');
+    expect((await planner.post(`/api/orders/${order.id}/resume`).send({})).status).toBe(409);
+
+    const other = await createOrder();
+    expect((await planner.post(`/api/orders/${other.id}/cancel`).send({ reason: 'x' })).status).toBe(400);
+    expect((await planner.post(`/api/orders/${other.id}/cancel`).send({ reason: 'Customer withdrew' })).body.status).toBe('cancelled');
+    expect((await planner.post(`/api/orders/${other.id}/payment`).send({ amount: 5, reference: 'late' })).body.error.code).toBe('order_cancelled');
+    expect((await planner.post(`/api/orders/${other.id}/release`).send({ traySize: 100 })).body.error.code).toBe('order_cancelled');
+
+    await planner.post(`/api/orders/${order.id}/release`).send({ traySize: 100 });
+    expect((await planner.post(`/api/orders/${order.id}/cancel`).send({ reason: 'Too late now' })).body.error.code).toBe('already_released');
+    expect((await planner.post(`/api/orders/${order.id}/hold`).send({ reason: 'Too late now' })).body.error.code).toBe('already_released');
+  });
+});
+
 describe('gates: payment and proof approval before release (product.md rule 1)', () => {
   it('refuses release while a gate is open and says what is missing, changing nothing', async () => {
     const order = await createOrder();

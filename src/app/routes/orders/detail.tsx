@@ -1,13 +1,14 @@
 import { useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { useQueryClient } from '@tanstack/react-query';
-import { Copy, Pencil, Printer, RefreshCw } from 'lucide-react';
+import { Ban, Copy, Pause, Pencil, Play, Printer, RefreshCw } from 'lucide-react';
 import { FLOOR_LEADS, PLANNING } from '@shared/domain/access';
 import type { TravellerSummary } from '@shared/schemas/orders';
 import { queryClient } from '@/lib/query-client';
 import { orderQueryOptions, useOrder } from '@/features/orders/api/get-order';
 import { ordersKeys } from '@/features/orders/api/orders-keys';
 import { useUpdateOrder } from '@/features/orders/api/save-order';
+import { useOrderStatus } from '@/features/orders/api/order-status';
 import { OrderForm } from '@/features/orders/components/order-form';
 import { GatesPanel } from '@/features/orders/components/gates-panel';
 import { RoutingEditor } from '@/features/orders/components/routing-editor';
@@ -54,6 +55,7 @@ export function Component() {
   const qc = useQueryClient();
   const [editing, setEditing] = useState(false);
   const update = useUpdateOrder(id!);
+  const status = useOrderStatus(id!);
   if (order.isPending || !me.data) return <Loading />;
   if (order.error) return <ErrorPanel message={order.error.message} />;
   const o = order.data;
@@ -76,9 +78,38 @@ export function Component() {
         actions={
           mayPlan && (
             <>
-              {!released && !editing && (
+              {!released && !editing && o.status !== 'cancelled' && (
                 <Button variant="secondary" onClick={() => setEditing(true)}>
                   <Pencil className="h-5 w-5" aria-hidden /> Change spec
+                </Button>
+              )}
+              {!released && o.status === 'on_hold' && (
+                <Button variant="secondary" disabled={status.isPending} onClick={() => status.mutate({ action: 'resume' })}>
+                  <Play className="h-5 w-5" aria-hidden /> Lift the hold
+                </Button>
+              )}
+              {!released && o.status !== 'on_hold' && o.status !== 'cancelled' && (
+                <Button
+                  variant="ghost"
+                  disabled={status.isPending}
+                  onClick={() => {
+                    const reason = window.prompt('Why is the order on hold?');
+                    if (reason) status.mutate({ action: 'hold', reason });
+                  }}
+                >
+                  <Pause className="h-5 w-5" aria-hidden /> Hold
+                </Button>
+              )}
+              {!released && o.status !== 'cancelled' && (
+                <Button
+                  variant="ghost"
+                  disabled={status.isPending}
+                  onClick={() => {
+                    const reason = window.prompt(`Cancel order ${o.number}? Say why:`);
+                    if (reason) status.mutate({ action: 'cancel', reason });
+                  }}
+                >
+                  <Ban className="h-5 w-5" aria-hidden /> Cancel order
                 </Button>
               )}
               <Link className="inline-flex min-h-11 items-center gap-2 rounded-lg px-4 font-bold text-harbour-800 hover:bg-harbour-50" to={`${paths.newOrder}?repeat=${o.id}`}>
@@ -88,6 +119,12 @@ export function Component() {
           )
         }
       />
+      {status.error && <ErrorPanel title="Not changed" message={status.error.message} />}
+      {o.holdReason && (o.status === 'on_hold' || o.status === 'cancelled') && (
+        <div role="status" className="rounded-xl border-2 border-stop-700/40 bg-stop-50 p-4 font-bold text-stop-700">
+          {o.status === 'on_hold' ? 'On hold' : 'Cancelled'}: {o.holdReason}
+        </div>
+      )}
       {editing ? (
         <Card>
           <h2 className="mb-4 text-xl font-bold text-harbour-900">Change the spec</h2>
@@ -109,7 +146,7 @@ export function Component() {
       )}
       {(!released || o.payments.length > 0 || o.proofs.length > 0) && mayPlan && <GatesPanel order={o} role={role} />}
       <RoutingEditor order={o} canEdit={mayPlan} />
-      {!released && mayPlan && <ReleasePanel order={o} />}
+      {!released && mayPlan && o.status !== 'cancelled' && <ReleasePanel order={o} />}
       {released && <TravellersPanel order={o} actions={(t) => <TravellerActions t={t} onChanged={refresh} />} />}
       <HistoryList entries={o.history} />
     </div>

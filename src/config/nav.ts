@@ -1,6 +1,5 @@
 import type { LucideIcon } from 'lucide-react';
-import { CalendarClock } from 'lucide-react';
-import { ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail } from 'lucide-react';
+import { CalendarClock, ShieldAlert, ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { paths } from './paths';
 
@@ -15,6 +14,7 @@ export interface NavItem {
 export const NAV: NavItem[] = [
   { to: paths.station, label: 'Station', icon: ScanLine, roles: ['operator', 'supervisor'] },
   { to: paths.floor, label: 'Floor', icon: LayoutDashboard, roles: ['supervisor', 'planner', 'manager', 'admin'] },
+  { to: paths.scanExceptions, label: 'Refused scans', icon: ShieldAlert, roles: ['supervisor', 'planner', 'manager', 'admin'] },
   { to: paths.orders, label: 'Orders', icon: ClipboardList, roles: ['planner', 'manager', 'supervisor', 'admin'] },
   { to: paths.moulds, label: 'Moulds', icon: Boxes, roles: ['planner', 'manager', 'supervisor', 'admin'] },
   { to: paths.loads, label: 'Oven & bath loads', icon: Flame, roles: ['supervisor', 'planner', 'manager'] },

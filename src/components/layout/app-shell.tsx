@@ -47,7 +47,7 @@ export function AppShell() {
                 key={item.to}
                 to={item.to}
                 className={({ isActive }) =>
-                  `flex min-h-11 items-center gap-2 rounded-lg px-3 text-base font-bold ${isActive ? 'bg-brass-400 text-harbour-900' : 'text-white hover:bg-harbour-700'}`
+                  `flex min-h-11 items-center gap-1.5 rounded-lg px-2.5 text-[0.95rem] font-bold ${isActive ? 'bg-brass-400 text-harbour-900' : 'text-white hover:bg-harbour-700'}`
                 }
               >
                 <item.icon className="h-5 w-5" aria-hidden />

@@ -132,6 +132,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     createdAt: now - (DEMO_HISTORY_DAYS + 7) * DAY,
     updatedAt: now,
     lastSeenAt: now - ids.int(1, 90) * MINUTE,
+    clockOffsetMs: ids.int(-2500, 2500),
   }));
   const deviceOf = new Map(deviceRows.map((d) => [d.stationId, d.id]));
   // and the supervisors' wall display (read-only, no station)

@@ -208,6 +208,7 @@ interface Live extends SimTraveller {
   hadHold: boolean;
   dispatchCleared: boolean;
   last: number;
+  lastReceived: number;
 }
 
 interface OrderRun extends SimOrder {
@@ -314,6 +315,7 @@ export function simulateFloor(input: SimInput): SimResult {
     hadHold: false,
     dispatchCleared: false,
     last: t.releasedAt,
+    lastReceived: t.releasedAt,
   }));
   for (const t of live) {
     const o = orders.get(t.orderId)!;
@@ -372,6 +374,10 @@ export function simulateFloor(input: SimInput): SimResult {
     t.last = at;
     const id = rng.uuid();
     if (opts.override) opts.override.usedEventId = id;
+    // most scans reach the server within seconds; now and then a tablet was offline for a while
+    // (a traveller's scans still arrive in the order they happened)
+    const receivedAt = Math.max(t.lastReceived, Math.min(now, at + (rng.chance(0.02) ? rng.int(5, 75) * MINUTE : rng.int(1, 25) * 1000)));
+    t.lastReceived = receivedAt;
     events.push({
       id,
       trayId: t.id,
@@ -382,7 +388,7 @@ export function simulateFloor(input: SimInput): SimResult {
       deviceId: station.deviceId,
       userId,
       occurredAt: at,
-      receivedAt: at + rng.int(1, 25) * 1000,
+      receivedAt,
       qtyIn: type === 'start' || type === 'finish' ? qtyIn : null,
       goodQty: type === 'finish' ? (opts.good ?? null) : null,
       scrapQty: type === 'finish' ? (opts.scrap ?? 0) : null,

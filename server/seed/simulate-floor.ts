@@ -488,7 +488,7 @@ export function simulateFloor(input: SimInput): SimResult {
     }
 
     // A tray now and then waits for a decision (quality, material) and is released.
-    if (t.kind === 'tray' && o.holdAt == null && t.nextSeq > 1 && !t.hadHold && step.stationKind !== 'dispatch' && rng.chance(0.012)) {
+    if (t.kind === 'tray' && o.holdAt == null && t.nextSeq > 1 && !t.hadHold && step.stationKind !== 'dispatch' && rng.chance(0.004)) {
       const holdAt = sec(nextWorking(ready + rng.int(2, 40) * MINUTE));
       if (holdAt <= now && t.state.phase === 'waiting') {
         t.hadHold = true;

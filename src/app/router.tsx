@@ -8,6 +8,9 @@ import { requireUser } from './auth-loader';
 // Routes declared in code; each page is a lazy route module exporting Component (and loader, handle).
 export const router = createBrowserRouter([
   { path: '/sign-in', lazy: () => import('./routes/auth/sign-in'), ErrorBoundary: RouteError },
+  // The station tablet: full screen, outside the signed-in shell (it signs operators in itself and works offline).
+  { path: '/station', lazy: () => import('./routes/station/station'), ErrorBoundary: RouteError },
+  { path: '/pair', lazy: () => import('./routes/station/pair'), ErrorBoundary: RouteError },
   // The customer's read-only order status: public, outside the signed-in shell.
   { path: '/status/:token', lazy: () => import('./routes/public/order-status'), ErrorBoundary: RouteError },
   // The floor wall: full screen, for a paired wall display or a signed-in supervisor.
@@ -62,6 +65,7 @@ export const router = createBrowserRouter([
           { path: 'sales/orders/:id', lazy: () => import('./routes/sales/order-status') },
           { path: 'dispatch', lazy: () => import('./routes/dispatch/dispatch-list') },
           { path: 'dispatch/:id', lazy: () => import('./routes/dispatch/pack-and-ship') },
+          { path: 'exceptions', lazy: () => import('./routes/floor/scan-exceptions') },
           { path: '*', lazy: () => import('./routes/errors/not-found') },
         ],
       },

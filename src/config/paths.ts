@@ -7,6 +7,7 @@ export const paths = {
   station: '/station',
   pair: '/pair',
   floor: '/floor',
+  scanExceptions: '/exceptions',
   wall: '/wall',
   orders: '/orders',
   newOrder: '/orders/new',

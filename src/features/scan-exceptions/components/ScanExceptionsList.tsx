@@ -1,0 +1,98 @@
+import { useState } from 'react';
+import { RotateCcw, CheckCheck } from 'lucide-react';
+import { refusalMessage } from '@shared/domain/scan-messages';
+import type { ScanExceptionView } from '@shared/schemas/scans';
+import { Button } from '@/components/ui/button';
+import { EmptyState, ErrorPanel, Pill } from '@/components/ui/panels';
+import { useResolveScanException, useRetryScanException } from '../api/decide-scan-exception';
+
+const TYPE: Record<string, string> = { start: 'Start', finish: 'Finish', hold: 'Hold', release: 'Release' };
+
+function when(iso: string | null) {
+  return iso ? new Date(iso).toLocaleString() : '—';
+}
+
+function ExceptionRow({ item, canDecide }: { item: ScanExceptionView; canDecide: boolean }) {
+  const retry = useRetryScanException();
+  const resolve = useResolveScanException();
+  const [note, setNote] = useState('');
+  const m = refusalMessage(item.code, item.params);
+  const retried = retry.data;
+  return (
+    <li className="rounded-xl border border-harbour-100 bg-white p-4 shadow-sm" data-testid="exception-row">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div className="min-w-0">
+          <p className="text-lg font-bold">
+            <span className="font-mono">{item.trayNumber ?? item.scannedCode ?? '—'}</span> · {item.type ? TYPE[item.type] : 'Scan'} at {item.stationName ?? 'unknown station'}
+          </p>
+          <p className="text-sm text-harbour-700">
+            {item.operatorName ?? 'unknown operator'} · scanned {when(item.occurredAt)} · received {when(item.receivedAt)}
+          </p>
+          <p className="mt-2">
+            <Pill tone="stop">{m.title}</Pill> <span className="ml-1">{m.detail}</span>
+          </p>
+          <p className="mt-1 text-sm">
+            <span className="font-bold">What the operator was told to do: </span>
+            {m.next}
+          </p>
+          {item.resolvedAt && (
+            <p className="mt-2">
+              <Pill tone="ok">Resolved</Pill> {when(item.resolvedAt)} · {item.resolution === 'accepted_late' ? 'accepted when the missing scans arrived' : item.resolution === 'accepted_on_retry' ? 'accepted on retry' : item.resolution}
+            </p>
+          )}
+        </div>
+        {canDecide && !item.resolvedAt && (
+          <div className="flex w-full max-w-md flex-col gap-2">
+            <Button variant="secondary" onClick={() => retry.mutate(item.id)} disabled={retry.isPending}>
+              <RotateCcw className="h-5 w-5" aria-hidden /> Try again now
+            </Button>
+            <form
+              className="flex gap-2"
+              onSubmit={(e) => {
+                e.preventDefault();
+                resolve.mutate({ id: item.id, resolution: note.trim() });
+              }}
+            >
+              <label className="sr-only" htmlFor={`note-${item.id}`}>
+                What was done
+              </label>
+              <input
+                id={`note-${item.id}`}
+                value={note}
+                onChange={(e) => setNote(e.target.value)}
+                placeholder="What was done (e.g. scanned again at the right station)"
+                className="min-h-11 flex-1 rounded-lg border-2 border-harbour-100 px-3"
+              />
+              <Button type="submit" disabled={note.trim().length < 3 || resolve.isPending}>
+                <CheckCheck className="h-5 w-5" aria-hidden /> Resolve
+              </Button>
+            </form>
+            {retried && retried.status === 'rejected' && (
+              <p role="status" className="text-sm font-bold text-stop-700">
+                Still refused: {retried.message}
+              </p>
+            )}
+            {retried && retried.status === 'accepted' && (
+              <p role="status" className="text-sm font-bold text-ok-700">
+                Accepted now.
+              </p>
+            )}
+            {(retry.error || resolve.error) && <ErrorPanel title="Not done" message={(retry.error ?? resolve.error)!.message} />}
+          </div>
+        )}
+      </div>
+    </li>
+  );
+}
+
+/** Refused scans for supervisors: what happened, who, where, and the decision. */
+export function ScanExceptionsList({ items, canDecide }: { items: ScanExceptionView[]; canDecide: boolean }) {
+  if (items.length === 0) return <EmptyState title="No refused scans">Every scan the tablets sent was accepted.</EmptyState>;
+  return (
+    <ul className="flex flex-col gap-3">
+      {items.map((i) => (
+        <ExceptionRow key={i.id} item={i} canDecide={canDecide} />
+      ))}
+    </ul>
+  );
+}

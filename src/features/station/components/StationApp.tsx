@@ -1,0 +1,125 @@
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { Link } from 'react-router';
+import { useQueryClient } from '@tanstack/react-query';
+import { Loader2, TabletSmartphone } from 'lucide-react';
+import { paths } from '@/config/paths';
+import type { StationQueue } from '@shared/schemas/scans';
+import { useCurrentDevice } from '../api/get-current-device';
+import { useStationQueue } from '../api/get-station-queue';
+import { useReasonCodes } from '../api/get-reason-codes';
+import { signOutSession } from '../api/badge-sign-in';
+import { httpTransport } from '../api/scan-transport';
+import { stationKeys } from '../api/station-keys';
+import { stationDb } from '../lib/station-db';
+import { SyncEngine } from '../lib/sync-engine';
+import { useLive } from '../lib/hooks';
+import { setStationLang } from '../i18n/station-i18n';
+import type { StationLang } from '../lib/refusal-text';
+import { SignInPanel, type Operator } from './SignInPanel';
+import { StationScreen } from './StationScreen';
+import type { StationInfo } from './TrayPanel';
+
+const OPERATOR_KEY = 'operator';
+const LANG_KEY = 'lang';
+const SESSION_HOURS = 12;
+
+let sharedEngine: SyncEngine | null = null;
+/** One outbox loop per tab, whatever React does with mounts. */
+function engineOnce(): SyncEngine {
+  sharedEngine ??= new SyncEngine(stationDb(), httpTransport);
+  return sharedEngine;
+}
+
+function Centered({ children }: { children: React.ReactNode }) {
+  return <main className="mx-auto flex min-h-full max-w-xl flex-col items-center justify-center gap-6 p-6 text-center text-xl">{children}</main>;
+}
+
+/** The station tablet: which station it is, who is signed in, and the station screen. Works offline once loaded. */
+export function StationApp() {
+  const { t } = useTranslation('station');
+  const db = stationDb();
+  const qc = useQueryClient();
+  const device = useCurrentDevice();
+  const engine = useMemo(engineOnce, []);
+  const [operator, setOperator] = useState<Operator | null | undefined>(undefined);
+  const storedLang = useLive(() => db.getMeta<StationLang>(LANG_KEY), [], undefined);
+  const paired = device.data?.state === 'paired' ? device.data.device : null;
+  const station = paired?.station ?? null;
+  const lang: StationLang = storedLang ?? (paired?.locale === 'zh-CN' ? 'zh-CN' : 'en');
+  const queue = useStationQueue(station?.id ?? '');
+  const reasons = useReasonCodes();
+  const cachedInfo = useLive(() => db.getMeta<StationQueue['station']>('stationInfo'), [], undefined);
+
+  useEffect(() => setStationLang(lang), [lang]);
+
+  useEffect(() => {
+    void engine.init().then(() => engine.start());
+    const off = engine.onSynced(() => {
+      if (station) void qc.invalidateQueries({ queryKey: stationKeys.queue(station.id) });
+    });
+    return () => {
+      off();
+    };
+  }, [engine, qc, station]);
+
+  useEffect(() => {
+    void db.getMeta<Operator | null>(OPERATOR_KEY).then((op) => setOperator(op && op.since > Date.now() - SESSION_HOURS * 3600_000 ? op : null));
+  }, [db]);
+
+  const signIn = useCallback(
+    (op: Operator) => {
+      setOperator(op);
+      void db.setMeta(OPERATOR_KEY, op);
+    },
+    [db],
+  );
+  const signOut = useCallback(() => {
+    setOperator(null);
+    void db.setMeta(OPERATOR_KEY, null);
+    // the server session ends too when the server can be reached; scans already made keep their operator
+    void signOutSession().catch(() => undefined);
+  }, [db]);
+
+  if (device.isPending || operator === undefined) {
+    return (
+      <Centered>
+        <Loader2 className="h-10 w-10 animate-spin" aria-hidden />
+        <p role="status">{t('app.loading')}</p>
+      </Centered>
+    );
+  }
+  if (!paired || device.error) {
+    return (
+      <Centered>
+        <TabletSmartphone className="h-14 w-14" aria-hidden />
+        <p className="font-bold">{t('pair.notPaired')}</p>
+        <Link to={paths.pair} className="inline-flex min-h-16 items-center rounded-2xl bg-harbour-800 px-8 text-2xl font-bold text-white">
+          {t('pair.goPair')}
+        </Link>
+      </Centered>
+    );
+  }
+  if (!station) {
+    return (
+      <Centered>
+        <p className="font-bold">{t('pair.noStation')}</p>
+      </Centered>
+    );
+  }
+  const info: StationInfo = queue.data?.station ?? (cachedInfo?.id === station.id ? cachedInfo : null) ?? { ...station, instructions: '', safetyNotes: '' };
+  if (!operator) return <SignInPanel stationName={info.name} onSignedIn={signIn} />;
+  return (
+    <StationScreen
+      station={info}
+      operator={operator}
+      engine={engine}
+      lang={lang}
+      idleMinutes={paired.idleMinutes}
+      reasons={reasons.data ?? []}
+      onSignOut={signOut}
+      onSwitch={signOut}
+      onToggleLang={() => void db.setMeta(LANG_KEY, lang === 'en' ? 'zh-CN' : 'en')}
+    />
+  );
+}

@@ -1,0 +1,396 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { Camera, CameraOff, Keyboard, LogOut, Languages, ScanLine, Users } from 'lucide-react';
+import { ApiError } from '@/lib/api-client';
+import { awaitedStep, type RefusalParams } from '@shared/domain/guards';
+import { correctedIso } from '@shared/domain/clock-offset';
+import { parseTravellerCode } from '@shared/domain/traveller-code';
+import type { RejectionCode, RoutingStep, TrayState } from '@shared/domain/vocabulary';
+import type { ScanEvent, TrayCard } from '@shared/schemas/scans';
+import type { ReasonCodeView } from '@shared/schemas/stations';
+import { lookupTray } from '../api/lookup-tray';
+import { stationDb, type OutboxEntry } from '../lib/station-db';
+import type { SyncEngine } from '../lib/sync-engine';
+import { evaluateLocal, localVerdict, replayState } from '../lib/local-guard';
+import { useExternal, useIdle, useLive, useNow, useWedgeScanner } from '../lib/hooks';
+import { playFeedback, unlockAudio, type FeedbackKind } from '../lib/feedback';
+import { describeRefusal, type StationLang } from '../lib/refusal-text';
+import { formatClock, stepLabel } from '../lib/format';
+import { resizePhoto } from '../lib/photo';
+import { newId } from '../lib/ids';
+import { NetStatus } from './NetStatus';
+import { FeedbackBanner, type FeedbackView } from './FeedbackBanner';
+import { CameraScanner } from './CameraScanner';
+import { TrayPanel, type StationInfo, type TrayAction } from './TrayPanel';
+import { FinishPanel, type FinishCounts } from './FinishPanel';
+import { HoldPanel } from './HoldPanel';
+import { OverridePanel } from './OverridePanel';
+import { QueueLists, type QueueItem } from './QueueLists';
+import { RefusedPanel } from './RefusedPanel';
+import type { Operator } from './SignInPanel';
+
+type Panel = null | 'finish' | 'hold' | { override: 'wrong_station' | 'curing' | 'release'; retry: Omit<ScanEvent, 'id' | 'occurredAt' | 'code' | 'stationId'> };
+
+interface Current {
+  code: string;
+  number: string;
+}
+
+const RECENT_MS = 36 * 3600_000;
+
+export function StationScreen({
+  station,
+  operator,
+  engine,
+  lang,
+  idleMinutes,
+  reasons,
+  onSignOut,
+  onSwitch,
+  onToggleLang,
+}: {
+  station: StationInfo;
+  operator: Operator;
+  engine: SyncEngine;
+  lang: StationLang;
+  idleMinutes: number;
+  reasons: ReasonCodeView[];
+  onSignOut: () => void;
+  onSwitch: () => void;
+  onToggleLang: () => void;
+}) {
+  const { t } = useTranslation('station');
+  const db = stationDb();
+  const status = useExternal(engine.subscribe, engine.getStatus);
+  const clock = useCallback(() => engine.now(), [engine]);
+  const now = useNow(1000, clock);
+  const cards = useLive(() => db.cards.toArray(), [], []);
+  const recent = useLive(() => db.outbox.where('createdAt').above(Date.now() - RECENT_MS).toArray(), [], [] as OutboxEntry[]);
+  const [current, setCurrent] = useState<Current | null>(null);
+  const [panel, setPanel] = useState<Panel>(null);
+  const [feedback, setFeedback] = useState<FeedbackView | null>(null);
+  const [camera, setCamera] = useState(false);
+  const [typed, setTyped] = useState('');
+  const serial = useRef(0);
+  const photoInput = useRef<HTMLInputElement>(null);
+  const guardStation = useMemo(() => ({ id: station.id, kind: station.kind, name: station.name }), [station]);
+  const reasonCodes = useMemo(() => reasons.map((r) => r.code), [reasons]);
+  const time = useCallback((iso: unknown) => formatClock(lang, iso), [lang]);
+
+  const idle = useIdle(idleMinutes, onSignOut, true);
+  const stepWithKind = (step: RoutingStep, routing: readonly RoutingStep[]) => {
+    const label = stepLabel(t, lang, step, routing);
+    const kind = t(`kind.${step.stationKind}`);
+    return label.includes(kind) ? label : `${label} (${kind})`;
+  };
+
+  const say = useCallback((kind: FeedbackKind, view: Omit<FeedbackView, 'kind' | 'serial'>) => {
+    serial.current += 1;
+    setFeedback({ kind, serial: serial.current, ...view });
+    playFeedback(kind);
+  }, []);
+
+  // --- the tablet's view of each traveller ------------------------------------------------
+  const byNumber = useMemo(() => new Map(cards.map((c) => [c.number, c])), [cards]);
+  const stateOf = useCallback(
+    (number: string): { card: TrayCard | null; state: TrayState | null } => {
+      const cached = byNumber.get(number);
+      if (!cached) return { card: null, state: null };
+      return { card: cached.card, state: replayState(cached.card, cached.asOf, recent, guardStation, now, operator.role) };
+    },
+    [byNumber, recent, guardStation, now, operator.role],
+  );
+
+  const lists = useMemo(() => {
+    const inProcess: QueueItem[] = [];
+    const curing: QueueItem[] = [];
+    const waiting: QueueItem[] = [];
+    for (const c of cards) {
+      const { state } = stateOf(c.number);
+      if (!state) continue;
+      const min = (iso: string | null) => (iso ? (now - Date.parse(iso)) / 60_000 : 0);
+      const left = state.cureReadyAt ? (Date.parse(state.cureReadyAt) - now) / 60_000 : 0;
+      if (state.phase === 'in_process' && state.stationId === station.id) inProcess.push({ number: c.number, card: c.card, state, minutes: min(state.startedAt) });
+      else if (state.phase === 'curing' && state.stationId === station.id) curing.push({ number: c.number, card: c.card, state, minutes: left });
+      else if (state.phase === 'curing' && awaitedStep(state, c.card.routing)?.stationKind === station.kind) waiting.push({ number: c.number, card: c.card, state, minutes: left });
+      else if (state.phase === 'waiting' && awaitedStep(state, c.card.routing)?.stationKind === station.kind && !state.onHold) waiting.push({ number: c.number, card: c.card, state, minutes: min(state.waitingSince) });
+    }
+    const waitKey = (i: QueueItem) => Date.parse((i.state.phase === 'curing' ? i.state.cureReadyAt : i.state.waitingSince) ?? i.state.releasedAt);
+    inProcess.sort((a, b) => b.minutes - a.minutes);
+    curing.sort((a, b) => a.minutes - b.minutes);
+    waiting.sort((a, b) => waitKey(a) - waitKey(b));
+    return { inProcess, curing, waiting };
+  }, [cards, stateOf, now, station.id, station.kind]);
+
+  // Cure stations: a tray turning ready is announced once, with a sound.
+  const announced = useRef(new Set<string>());
+  useEffect(() => {
+    if (station.kind !== 'cure') return;
+    for (const i of lists.curing) {
+      if (i.minutes <= 0 && !announced.current.has(i.number)) {
+        announced.current.add(i.number);
+        if (i.minutes > -1) say('accepted', { title: `${i.number} · ${t('card.ready')}` });
+      }
+    }
+  }, [lists.curing, station.kind, say, t]);
+
+  // The server refused a scan that had already left the tablet: tell the operator at once.
+  const refusedUnseen = useMemo(() => recent.filter((e) => e.status === 'rejected' && !e.seen), [recent]);
+  const lastRefusals = useRef(refusedUnseen.length);
+  useEffect(() => {
+    if (refusedUnseen.length > lastRefusals.current) {
+      const e = refusedUnseen[refusedUnseen.length - 1];
+      const m = e.code ? describeRefusal(lang, e.code, e.params ?? {}, time) : null;
+      say('refused', { title: `${t('feedback.serverRefused')}: ${e.trayNumber}`, detail: m ? `${m.title}. ${m.detail}` : undefined, next: m?.next });
+    }
+    lastRefusals.current = refusedUnseen.length;
+  }, [refusedUnseen, lang, say, t, time]);
+
+  // --- scanning ---------------------------------------------------------------------------
+  const openCode = useCallback(
+    async (raw: string) => {
+      unlockAudio();
+      const text = raw.trim();
+      const parsed = parseTravellerCode(text);
+      if (!parsed) {
+        say('refused', { title: t('scan.notACode'), detail: text.slice(0, 40) });
+        return;
+      }
+      setPanel(null);
+      setCurrent({ code: text, number: parsed.number });
+      const cached = await db.cards.get(parsed.number);
+      if (!cached && engine.getStatus().online) {
+        try {
+          await lookupTray(text, new Date(engine.now()).toISOString());
+        } catch (error) {
+          if (error instanceof ApiError && (error.status === 404 || error.status === 409)) {
+            const code = (error.code === 'void_traveller' || error.code === 'bad_signature' ? error.code : 'unknown_tray') as RejectionCode;
+            const m = describeRefusal(lang, code, { currentRevision: (error.body.currentRevision as number | undefined) ?? null }, time);
+            say('refused', { title: m.title, detail: m.detail, next: m.next });
+            setCurrent(null);
+            return;
+          }
+        }
+      }
+      const card = (await db.cards.get(parsed.number))?.card ?? null;
+      const verdict = localVerdict(text, card);
+      if (verdict.status === 'void') {
+        const m = describeRefusal(lang, 'void_traveller', { currentRevision: verdict.currentRevision ?? null }, time);
+        say('refused', { title: m.title, detail: m.detail, next: m.next });
+        return;
+      }
+      setFeedback(null);
+    },
+    [db, engine, lang, say, t, time],
+  );
+
+  useWedgeScanner((text) => void openCode(text), panel === null || panel === 'finish');
+
+  // --- actions ------------------------------------------------------------------------------
+  const act = useCallback(
+    async (type: ScanEvent['type'], extra: Partial<ScanEvent> = {}, overrideId?: string) => {
+      if (!current) return;
+      const { card, state } = stateOf(current.number);
+      const event: ScanEvent = {
+        id: newId(),
+        code: current.code,
+        stationId: station.id,
+        type,
+        occurredAt: correctedIso(Date.now(), engine.getStatus().offset),
+        operatorId: operator.id,
+        ...extra,
+        ...(overrideId ? { overrideId } : {}),
+      };
+      if (card && state) {
+        const r = evaluateLocal({ card, state, station: guardStation, event, now: engine.now(), role: operator.role, overrideId, reasonCodes });
+        if (!r.ok) {
+          const m = describeRefusal(lang, r.code, r.params, time);
+          const retry = { type, ...extra };
+          say('refused', {
+            title: m.title,
+            detail: m.detail,
+            next: m.next,
+            actions: (
+              <>
+                {(r.overridable || r.code === 'bad_override') && (
+                  <button
+                    type="button"
+                    className="min-h-14 rounded-xl bg-brass-700 px-5 text-xl font-bold text-white"
+                    onClick={() => setPanel({ override: r.code === 'curing' ? 'curing' : r.code === 'bad_override' ? 'release' : 'wrong_station', retry })}
+                  >
+                    {t('action.override')}
+                  </button>
+                )}
+                <button type="button" className="min-h-14 rounded-xl bg-white px-5 text-lg font-bold text-harbour-800 ring-2 ring-harbour-800" onClick={() => void sendAnyway(event, r.code, r.params)}>
+                  {t('action.sendAnyway')}
+                </button>
+              </>
+            ),
+          });
+          return false;
+        }
+        await engine.add(event, { trayNumber: current.number, local: { ok: true } });
+        const next = r.next;
+        const nextStep = next.stepSeq != null ? card.routing.find((s) => s.seq === next.stepSeq) : undefined;
+        const title = type === 'start' ? t('feedback.started') : type === 'finish' ? t('feedback.finished') : type === 'hold' ? t('feedback.held') : t('feedback.released');
+        say('accepted', {
+          title: `${title}: ${current.number}`,
+          detail:
+            type === 'finish'
+              ? `${t('feedback.goodScrap', { good: extra.goodQty ?? state.quantity, scrap: extra.scrapQty ?? 0 })}${nextStep && next.phase === 'waiting' ? ` · ${t('feedback.nextTo', { step: stepWithKind(nextStep, card.routing) })}` : ''}`
+              : undefined,
+          next: status.online ? undefined : t('feedback.savedOffline'),
+        });
+      } else {
+        await engine.add(event, { trayNumber: current.number, local: null });
+        say('warning', { title: `${t('feedback.savedOffline')}: ${current.number}`, detail: t('feedback.checkLater') });
+      }
+      setPanel(null);
+      if (type === 'finish') setCurrent(null);
+      return true;
+    },
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [current, stateOf, station.id, engine, operator, guardStation, reasonCodes, lang, time, say, t, status.online],
+  );
+
+  const sendAnyway = useCallback(
+    async (event: ScanEvent, code: RejectionCode, _params: RefusalParams) => {
+      await engine.add(event, { trayNumber: parseTravellerCode(event.code)?.number ?? event.code, local: { ok: false, code } });
+      say('warning', { title: t('feedback.savedOffline'), detail: t('feedback.checkLater') });
+    },
+    [engine, say, t],
+  );
+
+  const onAction = (a: TrayAction) => {
+    unlockAudio();
+    if (a === 'start') void act('start');
+    else if (a === 'finish') setPanel('finish');
+    else if (a === 'hold') setPanel('hold');
+    else if (a === 'release') {
+      if (operator.role === 'supervisor' || operator.role === 'admin') void act('release');
+      else setPanel({ override: 'release', retry: { type: 'release' } });
+    } else if (a === 'photo') photoInput.current?.click();
+  };
+
+  const takePhoto = async (file: File | undefined) => {
+    if (!file || !current) return;
+    try {
+      const blob = await resizePhoto(file);
+      await engine.addPhoto({ id: newId(), code: current.code, trayNumber: current.number, blob, operatorId: operator.id });
+      say('accepted', { title: t('photo.saved') });
+    } catch {
+      say('refused', { title: t('photo.failed') });
+    }
+  };
+
+  const shown = current ? stateOf(current.number) : null;
+
+  return (
+    <div className="flex min-h-full flex-col">
+      <header className="flex items-center gap-2 bg-harbour-800 px-3 py-2 text-white">
+        <div className="mr-auto min-w-0">
+          <p className="text-sm">{t(`kind.${station.kind}`)}</p>
+          <p className="truncate text-2xl font-bold" data-testid="station-name">
+            {station.name}
+          </p>
+        </div>
+        <NetStatus status={status} lang={lang} />
+        <button type="button" onClick={onSwitch} className="flex min-h-12 items-center gap-2 rounded-xl px-2 text-left hover:bg-harbour-700" aria-label={`${t('top.switch')}: ${operator.name}`}>
+          <Users className="h-6 w-6 shrink-0" aria-hidden />
+          <span>
+            <span className="block text-xs">{t('top.switch')}</span>
+            <span className="block font-bold" data-testid="operator-name">
+              {operator.name}
+            </span>
+          </span>
+        </button>
+        <button type="button" onClick={onToggleLang} className="flex min-h-12 items-center gap-1 rounded-xl px-2 font-bold hover:bg-harbour-700" aria-label={t('app.language')}>
+          <Languages className="h-6 w-6" aria-hidden /> {lang === 'en' ? t('app.chinese') : t('app.english')}
+        </button>
+        <button type="button" onClick={onSignOut} className="flex min-h-12 items-center gap-1 rounded-xl px-2 font-bold hover:bg-harbour-700">
+          <LogOut className="h-6 w-6" aria-hidden /> {t('top.signOut')}
+        </button>
+      </header>
+      {idle.secondsLeft != null && (
+        <div role="alert" className="flex items-center justify-between gap-3 bg-warn-50 px-4 py-3 text-xl font-bold text-warn-700">
+          {t('top.idleSoon', { seconds: idle.secondsLeft })}
+          <button type="button" onClick={idle.stay} className="min-h-12 rounded-xl bg-white px-4 ring-2 ring-warn-700">
+            {t('top.stay')}
+          </button>
+        </div>
+      )}
+      {!status.online && <p className="bg-warn-50 px-4 py-2 text-lg text-warn-700">{t('net.offlineNote')}</p>}
+      {status.unpaired && <p role="alert" className="bg-stop-50 px-4 py-2 text-lg font-bold text-stop-700">{t('net.unpaired')}</p>}
+      <main className="grid flex-1 gap-4 p-4 lg:grid-cols-[3fr_2fr]">
+        <div className="flex flex-col gap-4">
+          {feedback && <FeedbackBanner feedback={feedback} />}
+          {refusedUnseen.length > 0 && <RefusedPanel entries={refusedUnseen} lang={lang} onSeen={(id) => void engine.markSeen(id)} />}
+          {current && shown ? (
+            <TrayPanel number={current.number} card={shown.card} state={shown.state} station={station} lang={lang} now={now} onAction={onAction} onClose={() => (setCurrent(null), setPanel(null))}>
+              {panel === 'finish' && (
+                <FinishPanel
+                  key={current.number}
+                  quantity={shown.state?.quantity ?? null}
+                  reasons={reasons.filter((r) => !r.stationKind || r.stationKind === station.kind)}
+                  lang={lang}
+                  onCancel={() => setPanel(null)}
+                  onConfirm={(c: FinishCounts) => void act('finish', c)}
+                />
+              )}
+              {panel === 'hold' && <HoldPanel reasons={reasons} lang={lang} onCancel={() => setPanel(null)} onConfirm={(r) => void act('hold', r)} />}
+              {panel && typeof panel === 'object' && (
+                <OverridePanel
+                  kind={panel.override}
+                  code={current.code}
+                  stationId={station.id}
+                  online={status.online}
+                  onCancel={() => setPanel(null)}
+                  onApproved={(ov) => {
+                    const { type, ...extra } = panel.retry;
+                    void act(type, extra, ov.id);
+                  }}
+                />
+              )}
+            </TrayPanel>
+          ) : (
+            <section aria-labelledby="scan-title" className="flex flex-col gap-4 rounded-2xl bg-white p-5 shadow-sm">
+              <h1 id="scan-title" className="flex items-center gap-3 text-4xl font-bold text-harbour-900">
+                <ScanLine className="h-12 w-12" aria-hidden /> {t('scan.prompt')}
+              </h1>
+              <p className="text-xl text-harbour-700">{t('scan.hint')}</p>
+              {camera && <CameraScanner onScan={(text) => void openCode(text)} />}
+              <div className="flex flex-wrap gap-3">
+                <button type="button" onClick={() => setCamera((c) => !c)} className="flex min-h-16 items-center gap-3 rounded-2xl bg-harbour-800 px-6 text-xl font-bold text-white">
+                  {camera ? <CameraOff className="h-7 w-7" aria-hidden /> : <Camera className="h-7 w-7" aria-hidden />}
+                  {camera ? t('scan.cameraStop') : t('scan.camera')}
+                </button>
+              </div>
+              <form
+                className="flex flex-wrap items-end gap-3"
+                onSubmit={(e) => {
+                  e.preventDefault();
+                  if (typed.trim()) void openCode(typed);
+                  setTyped('');
+                }}
+              >
+                <div className="flex flex-col gap-1">
+                  <label htmlFor="tray-number" className="flex items-center gap-2 text-lg font-bold">
+                    <Keyboard className="h-5 w-5" aria-hidden /> {t('scan.type')}
+                  </label>
+                  <input id="tray-number" autoComplete="off" value={typed} onChange={(e) => setTyped(e.target.value)} className="min-h-16 w-64 rounded-xl border-2 border-harbour-800 px-3 font-mono text-2xl uppercase" />
+                </div>
+                <button type="submit" className="min-h-16 rounded-2xl bg-white px-6 text-xl font-bold text-harbour-800 ring-2 ring-harbour-800">
+                  {t('scan.typeSubmit')}
+                </button>
+              </form>
+            </section>
+          )}
+        </div>
+        <aside className="flex flex-col gap-4">
+          <QueueLists inProcess={lists.inProcess} curing={lists.curing} waiting={lists.waiting} onOpen={(n) => void openCode(n)} isOven={station.kind === 'cure'} />
+        </aside>
+      </main>
+      <input ref={photoInput} type="file" accept="image/*" capture="environment" className="hidden" aria-hidden tabIndex={-1} onChange={(e) => void takePhoto(e.target.files?.[0]).finally(() => (e.target.value = ''))} />
+    </div>
+  );
+}

@@ -1,0 +1,43 @@
+import type { TFunction } from 'i18next';
+import type { RoutingStep } from '@shared/domain/vocabulary';
+import type { StationLang } from './refusal-text';
+
+/** "2 h 05 min", "3 d 4 h" … from minutes, in the tablet's language. */
+export function formatDuration(t: TFunction<'station'>, minutes: number): string {
+  const m = Math.max(0, Math.round(minutes));
+  if (m < 60) return t('duration.minutes', { m });
+  if (m < 24 * 60) return t('duration.hoursMinutes', { h: Math.floor(m / 60), m: m % 60 });
+  return t('duration.days', { d: Math.floor(m / 1440), h: Math.floor((m % 1440) / 60) });
+}
+
+export function formatClock(lang: StationLang, iso: unknown): string {
+  if (typeof iso !== 'string') return '—';
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return '—';
+  return new Intl.DateTimeFormat(lang, { hour: '2-digit', minute: '2-digit' }).format(d);
+}
+
+export function formatDateTime(lang: StationLang, iso: unknown): string {
+  if (typeof iso !== 'string') return '—';
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return '—';
+  return new Intl.DateTimeFormat(lang, { month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' }).format(d);
+}
+
+export function formatNumber(lang: StationLang, n: number): string {
+  return new Intl.NumberFormat(lang).format(n);
+}
+
+/**
+ * A step's name for the operator. Colour steps are built from their structure ("Colour 2 of 3:
+ * fill"), so they read right in every language; other steps keep the routing's own name in
+ * English and the station kind's name in Chinese.
+ */
+export function stepLabel(t: TFunction<'station'>, lang: StationLang, step: RoutingStep | undefined, routing: readonly RoutingStep[]): string {
+  if (!step) return '—';
+  if (step.colour != null && (step.stationKind === 'fill' || step.stationKind === 'cure')) {
+    const total = routing.reduce((m, s) => Math.max(m, s.colour ?? 0), 0);
+    return t('step.colourOf', { n: step.colour, total, kind: t(`kind.${step.stationKind}`) });
+  }
+  return lang === 'en' ? step.name : t(`kind.${step.stationKind}`);
+}

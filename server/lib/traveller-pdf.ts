@@ -3,7 +3,9 @@
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
 import { createRequire } from 'node:module';
+import fs from 'node:fs';
 import path from 'node:path';
+import { woffToSfnt } from './woff';
 import type { RoutingStep } from '@shared/domain/vocabulary';
 import type { TravellerLayoutValue } from '@shared/schemas/travellers';
 
@@ -14,8 +16,16 @@ export function fontFile(weight: 400 | 700): string {
   const dir = path.join(path.dirname(require.resolve('@fontsource/atkinson-hyperlegible/package.json')), 'files');
   return path.join(dir, `atkinson-hyperlegible-latin-${weight}-normal.woff`);
 }
-const FONT_REGULAR = fontFile(400);
-const FONT_BOLD = fontFile(700);
+/**
+ * The font unpacked from WOFF to a plain sfnt once: pdfkit's own WOFF reading inflates the
+ * tables in pure JavaScript for every document, which was most of a travellers PDF's time.
+ */
+const sfnt = new Map<400 | 700, Buffer>();
+export function fontBytes(weight: 400 | 700): Buffer {
+  let b = sfnt.get(weight);
+  if (!b) sfnt.set(weight, (b = woffToSfnt(fs.readFileSync(fontFile(weight)))));
+  return b;
+}
 
 export type TravellerLayout = TravellerLayoutValue;
 
@@ -283,8 +293,8 @@ export function renderTravellersPdf(cards: readonly TravellerCard[], layout: Tra
   if (cards.length === 0) return Promise.reject(new Error('No travellers to print'));
   const { size, slots } = pageSlots(layout);
   const doc = new PDFDocument({ size, margin: 0, autoFirstPage: false, info: { Title: 'Travellers', Creator: 'Trayce' } });
-  doc.registerFont('regular', FONT_REGULAR);
-  doc.registerFont('bold', FONT_BOLD);
+  doc.registerFont('regular', fontBytes(400));
+  doc.registerFont('bold', fontBytes(700));
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {

@@ -2,9 +2,12 @@
 // reading the original WOFF and our sfnt side by side (W3C WOFF File Format 1.0).
 import { describe, expect, it } from 'vitest';
 import fs from 'node:fs';
-import * as fontkit from 'fontkit';
+import { createRequire } from 'node:module';
 import { woffToSfnt } from './woff';
 import { fontFile } from './traveller-pdf';
+
+// fontkit comes with pdfkit and ships no type declarations
+const fontkit = createRequire(import.meta.url)('fontkit') as { create(buf: Buffer): unknown };
 
 type Font = { numGlyphs: number; postscriptName: string; unitsPerEm: number; layout(s: string): { advanceWidth: number; glyphs: { id: number; path: { toSVG(): string } }[] } };
 

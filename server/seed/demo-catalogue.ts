@@ -156,8 +156,8 @@ const HOUR = 3_600_000;
 
 /** How many orders end up aiming at each status (the floor may move a few on). */
 const TARGETS: [OrderStatus, number][] = [
-  ['shipped', 34],
-  ['in_production', 13],
+  ['shipped', 30],
+  ['in_production', 17],
   ['packed', 3],
   ['released', 2],
   ['on_hold', 2],

@@ -49,7 +49,7 @@ describe('expandRouting: every process, 1, 4 and 8 colours, back logo on and off
             if (s.stationKind === 'cure') expect(s.cureMinutes).toBeGreaterThan(0);
             else expect(s.cureMinutes ?? null).toBeNull();
           }
-          // striking, or casting for 3D die-cast, comes first (product.md, rule 2 and trade facts)
+          // striking, or casting for 3D die-cast, comes first (common practice)
           expect(steps[0].stationKind).toBe(process === 'die_cast_3d' ? 'cast' : 'strike');
           expect(kinds(steps)).not.toContain(process === 'die_cast_3d' ? 'strike' : 'cast');
           // the tail is the same for every process: inspect, clutches, bag, pack, dispatch (common practice)
@@ -63,7 +63,7 @@ describe('expandRouting: every process, 1, 4 and 8 colours, back logo on and off
   }
 });
 
-describe('hard enamel (product.md rule 2; order of steps: common practice)', () => {
+describe('hard enamel: one fill and cure per colour, then stone, polish, plate (common practice)', () => {
   for (const n of COLOUR_COUNTS) {
     it(`${n} colour(s): one fill and one cure per colour, cured before the next colour goes in`, () => {
       const steps = route(spec('hard_enamel', n));
@@ -140,7 +140,7 @@ describe('hard enamel (product.md rule 2; order of steps: common practice)', () 
   });
 });
 
-describe('soft enamel (product.md rule 2: plate first, then fill and cure)', () => {
+describe('soft enamel: plate first, then fill and cure (common practice)', () => {
   for (const n of COLOUR_COUNTS) {
     it(`${n} colour(s): plated before filling, one bake after the last colour`, () => {
       const steps = route(spec('soft_enamel', n));
@@ -226,7 +226,7 @@ describe('other processes', () => {
   });
 });
 
-describe('mould travellers (product.md rule 3)', () => {
+describe('mould travellers: engrave and check; a stored mould is only checked', () => {
   it('a new mould is engraved, then checked', () => {
     const steps = mouldRouting({ reuse: false, side: 'back' });
     expect(kinds(steps)).toEqual(['engrave', 'mould_check']);

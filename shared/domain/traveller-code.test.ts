@@ -18,7 +18,7 @@ const OTHER_KEY = 'another-key-0123456789abcdef-012345';
 // Characters of the alphanumeric mode, ISO/IEC 18004 (0–9, A–Z, space, $ % * + - . / :).
 const ALPHANUMERIC = /^[0-9A-Z $%*+\-./:]*$/;
 
-describe('traveller code: round trip, tamper, void (product.md rule 4)', () => {
+describe('traveller code: round trip, tamper, void', () => {
   const number = trayNumber('1042', 7);
 
   it('round trip: the code names the tray and its revision and verifies', () => {

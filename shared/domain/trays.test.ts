@@ -25,7 +25,7 @@ function rng(seed: number) {
   };
 }
 
-describe('releasedQuantity: quantity + overrun, rounded up (product.md rule 4)', () => {
+describe('releasedQuantity: quantity + overrun, rounded up', () => {
   it('adds the usual 5 % overrun (common practice)', () => {
     expect(releasedQuantity(1000, 5)).toBe(1050);
     expect(releasedQuantity(100, 5)).toBe(105);
@@ -104,7 +104,7 @@ const waiting = (quantity: number, over: Partial<TrayState> = {}): TrayState => 
   ...over,
 });
 
-describe('splitTray: pieces are conserved (product.md rule 7)', () => {
+describe('splitTray: pieces are conserved', () => {
   it('takes parts off and leaves the rest', () => {
     const r = splitTray(waiting(100), [20, 5]);
     expect(r).toEqual({ ok: true, remaining: 75, parts: [20, 5] });

@@ -158,7 +158,7 @@ describe('hold and cancel before release', () => {
   });
 });
 
-describe('gates: payment and proof approval before release (product.md rule 1)', () => {
+describe('gates: payment and proof approval before release', () => {
   it('refuses release while a gate is open and says what is missing, changing nothing', async () => {
     const order = await createOrder();
     const r1 = await planner.post(`/api/orders/${order.id}/release`).send({ traySize: 100 });
@@ -301,7 +301,7 @@ describe('proof uploads: checked by content, size, name (each refusal stores not
   });
 });
 
-describe('release: trays, moulds, codes (product.md rule 4)', () => {
+describe('release: trays, moulds, codes', () => {
   it('splits quantity + overrun into trays, the last taking the remainder, with signed codes and first states', async () => {
     const order = await readyOrder({ quantity: 1000, overrunPct: 5 });
     const res = await planner.post(`/api/orders/${order.id}/release`).send({ traySize: 100 });
@@ -584,7 +584,7 @@ describe('CSV import', () => {
   });
 });
 
-describe('moulds gate the strike: trays wait until their mould travellers finish (product.md rule 3)', () => {
+describe('moulds gate the strike: trays wait until their mould travellers finish', () => {
   it('new mould: engraved and checked; reorder: checked only; then striking may start', async () => {
     const operator = await t.agentAs('operator');
     const stations: { id: string; kind: string }[] = (await planner.get('/api/stations')).body;

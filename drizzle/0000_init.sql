@@ -451,10 +451,10 @@ CREATE TABLE `step_runs` (
 	`implicit` integer DEFAULT false NOT NULL
 );
 --> statement-breakpoint
-CREATE INDEX `step_runs_window_idx` ON `step_runs` (`finished_at`,`station_kind`,`traveller_kind`,`queue_minutes`,`process_minutes`,`implicit`,`qty_in`,`good_qty`,`scrap_qty`,`rework_qty`,`scrap_reason`,`station_id`,`order_id`);--> statement-breakpoint
-CREATE INDEX `step_runs_kind_finished_idx` ON `step_runs` (`station_kind`,`finished_at`);--> statement-breakpoint
+CREATE INDEX `step_runs_kind_finished_idx` ON `step_runs` (`station_kind`,`finished_at`,`traveller_kind`,`queue_minutes`,`process_minutes`,`implicit`,`qty_in`,`good_qty`,`scrap_qty`,`rework_qty`,`scrap_reason`,`station_id`,`order_id`);--> statement-breakpoint
 CREATE INDEX `step_runs_order_idx` ON `step_runs` (`order_id`,`step_seq`,`traveller_kind`,`qty_in`,`good_qty`,`scrap_qty`,`rework_qty`);--> statement-breakpoint
 CREATE INDEX `step_runs_tray_idx` ON `step_runs` (`tray_id`);--> statement-breakpoint
+CREATE INDEX `step_runs_scrap_idx` ON `step_runs` (`finished_at`,`scrap_reason`,`scrap_qty`,`traveller_kind`,`station_id`,`order_id`) WHERE "step_runs"."scrap_qty" > 0;--> statement-breakpoint
 CREATE TABLE `tray_flows` (
 	`tray_id` text PRIMARY KEY NOT NULL,
 	`order_id` text NOT NULL,

@@ -34,7 +34,36 @@ export interface OpenTrayRow {
   cureMinutes: number | null;
 }
 
+/** Just what the WIP counts need, per open traveller. */
+export interface WipRow {
+  kind: 'tray' | 'mould';
+  phase: 'waiting' | 'in_process' | 'curing';
+  stationKind: string | null;
+  stationId: string | null;
+  quantity: number;
+  waitingSince: number | null;
+  cureReadyAt: number | null;
+  onHold: number;
+  releasedAt: number;
+  nextKind: string | null;
+}
+
 export const floorRepository = {
+  /** The lean read behind GET /api/wip: tray_states alone, plus the next step only for trays at the oven. */
+  wipRows(db: Db): WipRow[] {
+    return client(db)
+      .prepare(
+        `select s.kind, s.phase, s.station_kind as stationKind, s.station_id as stationId, s.quantity, s.waiting_since as waitingSince,
+           s.cure_ready_at as cureReadyAt, s.on_hold as onHold, s.released_at as releasedAt,
+           case when s.phase = 'curing' then (
+             select n.station_kind from trays t join order_steps n on n.order_id = t.order_id and n.traveller_kind = s.kind and n.seq = s.step_seq + 1
+             where t.id = s.tray_id
+           ) end as nextKind
+         from tray_states s where s.phase in ('waiting', 'in_process', 'curing')`,
+      )
+      .all() as WipRow[];
+  },
+
   openTrays(db: Db): OpenTrayRow[] {
     return client(db)
       .prepare(

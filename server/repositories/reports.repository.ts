@@ -1,5 +1,6 @@
 import type { DbLike as Db } from '../db/client';
 import { sqlClient } from './sql-client';
+import { STATION_KINDS } from '@shared/domain/vocabulary';
 
 // Report queries: indexed aggregation over orders and the derived step_runs. Raw prepared
 // statements returning plain rows keep a year of data (half a million step rows) fast.
@@ -13,6 +14,8 @@ export interface ReportFilter {
 }
 
 const client = sqlClient;
+/** every station kind, so the kind/time index can serve a whole window */
+const KINDS = STATION_KINDS.map((k) => `'${k}'`).join(', ');
 
 function orderFilter(f: ReportFilter, alias = 'o'): { sql: string; args: unknown[] } {
   const parts: string[] = [];
@@ -37,14 +40,6 @@ export interface ShippedOrderRow {
   releasedAt: number | null;
   shippedAt: number;
   dueDate: string;
-}
-
-export interface CycleStatisticsRow {
-  stationKind: string;
-  n: number;
-  mean: number;
-  /** 0-based rank -> value */
-  orderStatistics: Map<number, number>;
 }
 
 export interface FlowTrayRow {
@@ -74,38 +69,23 @@ export const reportsRepository = {
   },
 
   /**
-   * Per station kind: n and mean of queue or process minutes of steps finished in the window, and
-   * the order statistics at the given 0-based ranks (SQLite sorts; only a few values come back).
-   * A cure closed on its own counts as process time only for the cure kind itself.
+   * Queue or process minutes of one station kind's steps finished in the window, as a flat list
+   * (one covering-index range scan, no row objects). A cure closed on its own counts as process
+   * time only for the cure kind itself.
    */
-  cycleStatistics(db: Db, f: ReportFilter, measure: 'queue' | 'process', percentiles: readonly number[]): CycleStatisticsRow[] {
+  cycleValues(db: Db, f: ReportFilter, stationKind: string, measure: 'queue' | 'process'): number[] {
     const of = orderFilter(f);
     const joinOrders = of.sql ? ' join orders o on o.id = r.order_id' : '';
     const station = f.stationId ? ' and r.station_id = ?' : '';
     const column = measure === 'queue' ? 'r.queue_minutes' : 'r.process_minutes';
-    const extra = measure === 'process' ? " and (r.implicit = 0 or r.station_kind = 'cure')" : '';
-    const ranks = percentiles.flatMap((p) => [`cast((n - 1) * ${p} as integer)`, `min(cast((n - 1) * ${p} as integer) + 1, n - 1)`]).join(', ');
-    const args = [f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args];
-    const source = `select r.station_kind as k, ${column} as x from step_runs r${joinOrders}
-      where r.finished_at >= ? and r.finished_at < ? and ${column} is not null${extra}${station}${of.sql}`;
-    const totals = client(db)
-      .prepare(`select k, count(*) as n, avg(x) as mean from (${source}) group by k`)
-      .all(...args) as { k: string; n: number; mean: number }[];
-    const stats = client(db)
+    const extra = measure === 'process' && stationKind !== 'cure' ? ' and r.implicit = 0' : '';
+    return client(db)
       .prepare(
-        `select k, i, x from (
-           select k, x, row_number() over (partition by k order by x) - 1 as i, count(*) over (partition by k) as n from (${source})
-         ) where i in (${ranks})`,
+        `select ${column} from step_runs r${joinOrders}
+         where r.station_kind = ? and r.finished_at >= ? and r.finished_at < ? and ${column} is not null${extra}${station}${of.sql}`,
       )
-      .raw(true)
-      .all(...args) as [string, number, number][];
-    const byKind = new Map<string, Map<number, number>>();
-    for (const [k, i, x] of stats) {
-      let m = byKind.get(k);
-      if (!m) byKind.set(k, (m = new Map()));
-      m.set(i, x);
-    }
-    return totals.map((t) => ({ stationKind: t.k, n: t.n, mean: t.mean, orderStatistics: byKind.get(t.k) ?? new Map() }));
+      .pluck()
+      .all(stationKind, f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args) as number[];
   },
 
   /** trays finished in the window with their summed process and cure minutes */
@@ -124,13 +104,15 @@ export const reportsRepository = {
   /** trays in the window (released before its end, not gone before its start) with their milestones */
   flowTrays(db: Db, f: ReportFilter): FlowTrayRow[] {
     const of = orderFilter(f);
+    const filtered = of.sql ? ` and exists (select 1 from trays t join orders o on o.id = t.order_id where t.id = s.tray_id${of.sql})` : '';
     return client(db)
       .prepare(
-        `select t.id, t.released_at as releasedAt, s.phase, s.last_event_at as lastEventAt, t.merged_into_id as mergedIntoId,
+        `select s.tray_id as id, s.released_at as releasedAt, s.phase, s.last_event_at as lastEventAt,
+           case when s.phase = 'merged' then (select t.merged_into_id from trays t where t.id = s.tray_id) end as mergedIntoId,
            fl.started_at as started, fl.inspected_at as inspected, fl.packed_at as packed, fl.shipped_at as shipped, fl.shipped_qty as shippedQty
-         from trays t join tray_states s on s.tray_id = t.id join orders o on o.id = t.order_id left join tray_flows fl on fl.tray_id = t.id
-         where t.kind = 'tray' and t.released_at < ?
-           and not (s.phase in ('done', 'scrapped', 'merged') and s.last_event_at < ?)${of.sql}`,
+         from tray_states s left join tray_flows fl on fl.tray_id = s.tray_id
+         where s.kind = 'tray' and s.released_at < ?
+           and not (s.phase in ('done', 'scrapped', 'merged') and s.last_event_at < ?)${filtered}`,
       )
       .all(f.to, f.from, ...of.args) as FlowTrayRow[];
   },
@@ -154,7 +136,7 @@ export const reportsRepository = {
       .prepare(
         `select r.station_kind as stationKind, sum(r.qty_in) as inQty, sum(r.good_qty) as goodQty, sum(r.scrap_qty) as scrapQty, sum(r.rework_qty) as reworkQty
          from step_runs r${joinOrders}
-         where r.traveller_kind = 'tray' and r.finished_at >= ? and r.finished_at < ?${station}${of.sql}
+         where r.station_kind in (${KINDS}) and r.finished_at >= ? and r.finished_at < ? and r.traveller_kind = 'tray'${station}${of.sql}
          group by r.station_kind`,
       )
       .all(f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args) as { stationKind: string; inQty: number; goodQty: number; scrapQty: number; reworkQty: number }[];
@@ -168,7 +150,7 @@ export const reportsRepository = {
       .prepare(
         `select coalesce(r.scrap_reason, 'unrecorded') as reason, rc.name as name, sum(r.scrap_qty) as qty
          from step_runs r${joinOrders} left join reason_codes rc on rc.code = r.scrap_reason
-         where r.traveller_kind = 'tray' and r.scrap_qty > 0 and r.finished_at >= ? and r.finished_at < ?${station}${of.sql}
+         where r.scrap_qty > 0 and r.finished_at >= ? and r.finished_at < ? and r.traveller_kind = 'tray'${station}${of.sql}
          group by coalesce(r.scrap_reason, 'unrecorded')`,
       )
       .all(f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args) as { reason: string; name: string | null; qty: number }[];
@@ -177,11 +159,13 @@ export const reportsRepository = {
   /** per order shipped in the window and per step: the summed counts of its trays */
   shippedOrderStepCounts(db: Db, f: ReportFilter): { orderId: string; seq: number; inQty: number; goodQty: number; scrapQty: number; reworkQty: number }[] {
     const of = orderFilter(f);
+    // the IN list is probed in order id order against the (order, step) index, so the grouping
+    // needs no sort
     return client(db)
       .prepare(
         `select r.order_id as orderId, r.step_seq as seq, sum(r.qty_in) as inQty, sum(r.good_qty) as goodQty, sum(r.scrap_qty) as scrapQty, sum(r.rework_qty) as reworkQty
-         from orders o join step_runs r on r.order_id = o.id
-         where o.shipped_at >= ? and o.shipped_at < ? and r.traveller_kind = 'tray'${of.sql}
+         from step_runs r
+         where r.order_id in (select o.id from orders o where o.shipped_at >= ? and o.shipped_at < ?${of.sql}) and r.traveller_kind = 'tray'
          group by r.order_id, r.step_seq`,
       )
       .all(f.from, f.to, ...of.args) as { orderId: string; seq: number; inQty: number; goodQty: number; scrapQty: number; reworkQty: number }[];

@@ -3,7 +3,7 @@ import { projectionRepository as repo, type OpenOrderRow, type StepRow, type Tra
 import { reportsRepository } from '../repositories/reports.repository';
 import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
-import { projectTrays, type ProjectedStep, type QueueSamples, type TrayOutlook } from '@shared/domain/projection';
+import { projectTrays, queueTimesOf, type ProjectedStep, type QueueSamples, type QueueTimes, type TrayOutlook } from '@shared/domain/projection';
 import { DAY, dayNumberOfDate, dateOfDayNumber, startOfLocalDate, type WorkingCalendar } from '@shared/domain/calendar';
 import { seedOf } from '@shared/domain/stats';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
@@ -74,8 +74,11 @@ function outlook(tray: TrayStateRow, steps: StepRow[], now: number, notBefore: n
   };
 }
 
+const formatters = new Map<string, Intl.DateTimeFormat>();
 function fmt(tz: string, ms: number): string {
-  return new Intl.DateTimeFormat('en-GB', { timeZone: tz, weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(ms);
+  let f = formatters.get(tz);
+  if (!f) formatters.set(tz, (f = new Intl.DateTimeFormat('en-GB', { timeZone: tz, weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })));
+  return f.format(ms);
 }
 
 function hours(min: number): string {
@@ -83,10 +86,10 @@ function hours(min: number): string {
   return h < 10 ? `${Math.round(h * 10) / 10} h` : `${Math.round(h)} h`;
 }
 
-function projectOrder(deps: AppDeps, order: OpenOrderRow, cal: WorkingCalendar, samples: QueueSamples, now: number): OrderProjection {
+function projectOrder(deps: AppDeps, order: OpenOrderRow, cal: WorkingCalendar, samples: QueueSamples, queueTimes: QueueTimes, now: number): OrderProjection {
   const trays = repo.traysOf(deps.db, order.id);
   const steps = repo.stepsOf(deps.db, order.id);
-  const opts = { now, calendar: cal, queueSamples: samples, runs: RUNS, seed: seedOf(order.id) };
+  const opts = { now, calendar: cal, queueSamples: samples, queueTimes, runs: RUNS, seed: seedOf(order.id) };
   const moulds = trays.filter((t) => t.kind === 'mould');
   const mouldsOpen = moulds.filter((t) => !['done', 'scrapped', 'merged'].includes(t.phase));
   const mouldReady = mouldsOpen.length ? projectTrays(mouldsOpen.map((m) => outlook(m, steps, now, null)), opts).expectedAt : null;
@@ -128,7 +131,8 @@ function compute(deps: AppDeps): Cache {
   const samples = queueSamples(deps, cal, now);
   const orders = repo.openOrders(deps.db);
   const byOrder = new Map<string, OrderProjection>();
-  for (const o of orders) byOrder.set(o.id, projectOrder(deps, o, cal, samples, now));
+  const queueTimes = queueTimesOf({ queueSamples: samples });
+  for (const o of orders) byOrder.set(o.id, projectOrder(deps, o, cal, samples, queueTimes, now));
   const fresh = { key, at: now, byOrder, orders };
   caches.set(deps.db, fresh);
   return fresh;

@@ -4,7 +4,7 @@ import { reportsRepository as repo, type FlowTrayRow, type ReportFilter } from '
 import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
 import { badInput } from '../errors';
-import { PERCENTILE_METHOD, quantileFromOrderStatistics, quantileSorted, summarize, roundSummary, sortNumbers } from '@shared/domain/stats';
+import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers, type Summary } from '@shared/domain/stats';
 import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/calendar';
 import { countPerBucket, cumulativeFlow, makeBuckets, wipOverTime, type StageArrival } from '@shared/domain/flow';
 import { pareto, rolledThroughputYield, stepYield } from '@shared/domain/yield';
@@ -107,17 +107,14 @@ export const reportsService = {
   cycleTime(deps: AppDeps, q: ReportQuery): CycleTimeReport {
     fresh(deps);
     const w = windowOf(deps, q);
-    const P = [0.5, 0.85, 0.95] as const;
-    const summaries = (measure: 'queue' | 'process') =>
-      new Map(
-        repo.cycleStatistics(deps.db, w.filter, measure, P).map((row) => {
-          const at = (i: number) => row.orderStatistics.get(i) as number;
-          const [p50, p85, p95] = P.map((p) => quantileFromOrderStatistics(row.n, p, at));
-          return [row.stationKind, roundSummary({ n: row.n, p50, p85, p95, mean: row.mean })] as const;
-        }),
-      );
-    const queue = summaries('queue');
-    const process = summaries('process');
+    const queue = new Map<string, Summary>();
+    const process = new Map<string, Summary>();
+    for (const kind of STATION_KINDS) {
+      const q = repo.cycleValues(deps.db, w.filter, kind, 'queue');
+      const p = repo.cycleValues(deps.db, w.filter, kind, 'process');
+      if (q.length) queue.set(kind, roundSummary(summarize(q)));
+      if (p.length) process.set(kind, roundSummary(summarize(p)));
+    }
     const empty = { n: 0, p50: null, p85: null, p95: null, mean: null };
     const order = (k: string) => {
       const i = STATION_KINDS.indexOf(k as (typeof STATION_KINDS)[number]);

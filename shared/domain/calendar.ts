@@ -207,6 +207,9 @@ class ShiftTimeline implements Timeline {
   private readonly hasWork: boolean;
   private firstDay = 0;
   private lastDay = -1; // table empty
+  /** instants safely inside the covered days (a day of margin each side) */
+  private safeFrom = Infinity;
+  private safeTo = -Infinity;
   private starts = new Float64Array(0);
   private ends = new Float64Array(0);
   /** working ms before interval i, and up to its end */
@@ -281,6 +284,21 @@ class ShiftTimeline implements Timeline {
     }
     this.firstDay = first;
     this.lastDay = last;
+    this.safeFrom = utcOfLocal(this.tz, first + 2, 0);
+    this.safeTo = utcOfLocal(this.tz, last - 1, 0);
+  }
+
+  /** the instant at which the working clock reads `target` (first interval whose end reaches it) */
+  private locate(target: number): number {
+    const ce = this.cumEnd;
+    let lo = 0;
+    let hi = ce.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (ce[mid] < target) lo = mid + 1;
+      else hi = mid;
+    }
+    return this.starts[lo] + (target - this.cumStart[lo]);
   }
 
   /** working ms from the table's start up to t (t inside the table's range) */
@@ -301,7 +319,9 @@ class ShiftTimeline implements Timeline {
   workingMinutesBetween(fromI: Instant, toI: Instant): number {
     const from = toMs(fromI);
     const to = toMs(toI);
-    this.cover(localDayNumber(this.tz, Math.min(from, to)) - 1, localDayNumber(this.tz, Math.max(from, to)) + 1);
+    const lo = Math.min(from, to);
+    const hi = Math.max(from, to);
+    if (lo < this.safeFrom || hi > this.safeTo) this.cover(localDayNumber(this.tz, lo) - 1, localDayNumber(this.tz, hi) + 1);
     return (this.clock(to) - this.clock(from)) / MINUTE;
   }
 
@@ -310,23 +330,20 @@ class ShiftTimeline implements Timeline {
     const from = toMs(fromI);
     if (minutes === 0) return from;
     if (!this.hasWork) throw new RangeError('the calendar has no working time');
+    // fast path: the table already reaches far enough
+    if (from >= this.safeFrom && from <= this.safeTo) {
+      const target = this.clock(from) + minutes * MINUTE;
+      const ce = this.cumEnd;
+      const last = ce.length - 1;
+      if (last >= 0 && ce[last] >= target) return this.locate(target);
+    }
     const fromDay = localDayNumber(this.tz, from);
     let horizon = fromDay + Math.ceil(minutes / 1440) + 14;
     for (;;) {
       this.cover(fromDay - 1, horizon);
       const target = this.clock(from) + minutes * MINUTE;
       const ce = this.cumEnd;
-      if (ce.length && ce[ce.length - 1] >= target) {
-        // first interval whose end reaches the target
-        let lo = 0;
-        let hi = ce.length;
-        while (lo < hi) {
-          const mid = (lo + hi) >>> 1;
-          if (ce[mid] < target) lo = mid + 1;
-          else hi = mid;
-        }
-        return this.starts[lo] + (target - this.cumStart[lo]);
-      }
+      if (ce.length && ce[ce.length - 1] >= target) return this.locate(target);
       if (horizon - fromDay > MAX_SEARCH_DAYS) throw new RangeError('no working time within ten years');
       horizon = fromDay + (horizon - fromDay) * 2;
     }

@@ -12,7 +12,7 @@
 // independent and station capacity is not modelled beyond what the measured queues show.
 // The 85th-percentile date is never reported earlier than the expected one.
 
-import type { WorkingCalendar } from './calendar';
+import type { Timeline, WorkingCalendar } from './calendar';
 import { MINUTE } from './calendar';
 import { quantileSorted, seededRandom } from './stats';
 
@@ -54,6 +54,8 @@ export interface ProjectionOptions {
   minSamples?: number;
   /** queue minutes when there is no history at all (default 60) */
   defaultQueueMinutes?: number;
+  /** a model built once from `queueSamples` (saves sorting them again for every order) */
+  queueTimes?: QueueTimes;
 }
 
 export interface Projection {
@@ -94,7 +96,8 @@ function firstAbove(sorted: Float64Array, x: number): number {
   return lo;
 }
 
-class QueueTimes {
+/** The measured queue times, sorted per kind: build once, use for many projections. */
+export class QueueTimes {
   private readonly byKind = new Map<string, QueueModel>();
   private readonly pooled: QueueModel;
   constructor(
@@ -141,54 +144,90 @@ interface PathCost {
   steps: number;
 }
 
-function walkTray(tray: TrayOutlook, o: ProjectionOptions, queueOf: (kind: string, waited: number) => number): PathCost {
+/** How a walk picks each queue time: the conditional mean, or a draw from the measured ones. */
+interface QueuePick {
+  queues: QueueTimes;
+  rnd: (() => number) | null;
+}
+
+function queueOf(pick: QueuePick, kind: string, waited: number): number {
+  return pick.rnd ? pick.queues.sampleRemaining(kind, waited, pick.rnd) : pick.queues.meanRemaining(kind, waited);
+}
+
+function walkTray(tray: TrayOutlook, o: ProjectionOptions, pick: QueuePick): PathCost {
   const cal = o.calendar;
   const cost: PathCost = { finish: o.now, standard: 0, queue: 0, cure: 0, steps: 0 };
   if (tray.phase === 'done' || tray.phase === 'scrapped' || tray.phase === 'merged' || tray.steps.length === 0) {
     cost.finish = tray.finishedAt ?? o.now;
     return cost;
   }
+  // Working minutes on one timeline add up (adding a then b is adding a + b), so consecutive
+  // steps on the same calendar are summed and laid on it once: the sampled runs stay cheap.
+  // (Plain loops, no closures: this runs a few hundred thousand times for the order list.)
   let t = o.now;
-  let readyAt = tray.cureReadyAt ?? -Infinity;
-  tray.steps.forEach((step, i) => {
+  let pending = 0;
+  let pendingLine: Timeline | null = null;
+  const readyAt = tray.cureReadyAt ?? -Infinity;
+  const steps = tray.steps;
+  for (let i = 0; i < steps.length; i++) {
+    const step = steps[i];
     const line = cal.forStation(step.stationKind);
     const curing = step.cureMinutes != null && step.cureMinutes > 0;
     const oven = curing ? cal.forStation('cure', step.stationKind) : line;
     cost.steps++;
-    let start: number;
-    let workFrom: number;
-    let doneMinutes = 0;
     if (i === 0 && (tray.phase === 'in_process' || tray.phase === 'curing') && tray.startedAt != null) {
-      start = tray.startedAt;
-      doneMinutes = Math.max(0, line.workingMinutesBetween(start, o.now));
-      workFrom = o.now;
-    } else {
-      const waited = i === 0 && tray.waitingSince != null ? Math.max(0, line.workingMinutesBetween(tray.waitingSince, t)) : 0;
-      const q = queueOf(step.stationKind, waited);
-      cost.queue += q;
-      start = line.addWorkingMinutes(t, q);
-      if (start < readyAt) start = readyAt;
-      workFrom = start;
+      // the step under way: what is left of its standard time, from now
+      const start = tray.startedAt;
+      const left = Math.max(0, step.standardMinutes - Math.max(0, line.workingMinutesBetween(start, o.now)));
+      cost.standard += left;
+      let end = line.addWorkingMinutes(o.now, left);
+      if (curing) {
+        const cureEnd = oven.addWorkingMinutes(start, step.cureMinutes as number);
+        cost.cure += Math.max(0, (cureEnd - Math.max(start, o.now)) / MINUTE);
+        if (cureEnd > end) end = cureEnd;
+      }
+      t = Math.max(end, o.now);
+      continue;
     }
-    const left = Math.max(0, step.standardMinutes - doneMinutes);
-    cost.standard += left;
-    let end = line.addWorkingMinutes(workFrom, left);
+    const waited = i === 0 && tray.waitingSince != null ? Math.max(0, line.workingMinutesBetween(tray.waitingSince, t)) : 0;
+    const q = queueOf(pick, step.stationKind, waited);
+    cost.queue += q;
+    cost.standard += step.standardMinutes;
+    if (pendingLine !== line) {
+      if (pendingLine && pending > 0) t = pendingLine.addWorkingMinutes(t, pending);
+      pending = 0;
+    }
+    pendingLine = line;
+    pending += q;
+    if ((i === 0 && readyAt > -Infinity) || curing) {
+      if (pending > 0) t = line.addWorkingMinutes(t, pending);
+      pending = 0;
+      // may not start before a cure (or a mould) is ready
+      if (i === 0 && t < readyAt) t = readyAt;
+    }
     if (curing) {
+      const start = t;
       const cureEnd = oven.addWorkingMinutes(start, step.cureMinutes as number);
-      cost.cure += Math.max(0, (cureEnd - Math.max(start, o.now)) / MINUTE);
+      cost.cure += step.cureMinutes as number;
       // the next step may not start before the cure has run out
-      readyAt = cureEnd;
-      if (cureEnd > end) end = cureEnd;
-    } else readyAt = -Infinity;
-    t = Math.max(end, o.now);
-  });
-  cost.finish = t;
+      t = Math.max(line.addWorkingMinutes(start, step.standardMinutes), cureEnd, o.now);
+      pendingLine = null;
+      continue;
+    }
+    pending += step.standardMinutes;
+  }
+  if (pendingLine && pending > 0) t = (pendingLine as Timeline).addWorkingMinutes(t, pending);
+  cost.finish = Math.max(t, o.now);
   return cost;
+}
+
+export function queueTimesOf(o: Pick<ProjectionOptions, 'queueSamples' | 'minSamples' | 'defaultQueueMinutes'>): QueueTimes {
+  return new QueueTimes(o.queueSamples, o.minSamples ?? 5, o.defaultQueueMinutes ?? 60);
 }
 
 export function projectTrays(trays: readonly TrayOutlook[], o: ProjectionOptions): Projection {
   const runs = o.runs ?? 200;
-  const queues = new QueueTimes(o.queueSamples, o.minSamples ?? 5, o.defaultQueueMinutes ?? 60);
+  const queues = o.queueTimes ?? queueTimesOf(o);
   const result: Projection = {
     expectedAt: null,
     p85At: null,
@@ -204,7 +243,7 @@ export function projectTrays(trays: readonly TrayOutlook[], o: ProjectionOptions
 
   let critical: PathCost | null = null;
   for (const tray of trays) {
-    const c = walkTray(tray, o, (k, w) => queues.meanRemaining(k, w));
+    const c = walkTray(tray, o, { queues, rnd: null });
     if (!critical || c.finish > critical.finish) {
       critical = c;
       result.criticalTrayId = tray.trayId;
@@ -223,12 +262,12 @@ export function projectTrays(trays: readonly TrayOutlook[], o: ProjectionOptions
     return result;
   }
   const closedLatest = Math.max(-Infinity, ...trays.filter((t) => !open.includes(t)).map((t) => t.finishedAt ?? -Infinity));
-  const rnd = seededRandom(o.seed ?? 1);
+  const sampled: QueuePick = { queues, rnd: seededRandom(o.seed ?? 1) };
   const finishes = new Float64Array(runs);
   for (let r = 0; r < runs; r++) {
     let latest = closedLatest;
-    for (const tray of open) {
-      const c = walkTray(tray, o, (k, w) => queues.sampleRemaining(k, w, rnd));
+    for (let i = 0; i < open.length; i++) {
+      const c = walkTray(open[i], o, sampled);
       if (c.finish > latest) latest = c.finish;
     }
     finishes[r] = latest;

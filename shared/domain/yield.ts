@@ -58,11 +58,10 @@ export function multiplyRatios(rs: readonly Ratio[]): Ratio {
   for (const r of rs) {
     num *= r.num;
     den *= r.den;
-    const g = gcd(num, den) || 1n;
-    num /= g;
-    den /= g;
   }
-  return { num, den };
+  // one reduction at the end: big-integer products are cheap, repeated gcds are not
+  const g = gcd(num, den) || 1n;
+  return { num: num / g, den: den / g };
 }
 
 /** Nearest double to an exact ratio (exact when both parts are safe integers). */

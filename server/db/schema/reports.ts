@@ -1,4 +1,5 @@
 import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core';
+import { sql } from 'drizzle-orm';
 import { ms, flag } from './columns';
 
 /**
@@ -33,11 +34,11 @@ export const stepRuns = sqliteTable(
     implicit: flag('implicit').notNull().default(false),
   },
   (t) => [
-    // covers the window queries (cycle time, yields, scrap): a year is read from the index alone,
-    // in time order, without a table lookup per row
-    index('step_runs_window_idx').on(
-      t.finishedAt,
+    // covers every window query (cycle times, yields, scrap): one kind's steps in a period are
+    // read from the index alone, in time order, without a table lookup per row
+    index('step_runs_kind_finished_idx').on(
       t.stationKind,
+      t.finishedAt,
       t.travellerKind,
       t.queueMinutes,
       t.processMinutes,
@@ -50,10 +51,13 @@ export const stepRuns = sqliteTable(
       t.stationId,
       t.orderId,
     ),
-    index('step_runs_kind_finished_idx').on(t.stationKind, t.finishedAt),
     // covers the per-order step counts of the yield report
     index('step_runs_order_idx').on(t.orderId, t.stepSeq, t.travellerKind, t.qtyIn, t.goodQty, t.scrapQty, t.reworkQty),
     index('step_runs_tray_idx').on(t.trayId),
+    // the scrap Pareto reads only the steps that scrapped something
+    index('step_runs_scrap_idx')
+      .on(t.finishedAt, t.scrapReason, t.scrapQty, t.travellerKind, t.stationId, t.orderId)
+      .where(sql`${t.scrapQty} > 0`),
   ],
 );
 

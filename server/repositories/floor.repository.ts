@@ -69,7 +69,7 @@ export const floorRepository = {
       .prepare(
         `select s.tray_id as trayId, t.number, t.kind, t.order_id as orderId, o.number as orderNumber, o.title, c.name as customer, o.plating, o.due_date as dueDate,
            s.phase, s.step_seq as stepSeq, s.station_kind as stationKind, s.station_id as stationId, s.quantity,
-           s.started_at as startedAt, s.waiting_since as waitingSince, s.cure_ready_at as cureReadyAt, s.on_hold as onHold, s.hold_reason as holdReason,
+           s.started_at as startedAt, s.waiting_since as waitingSince, s.cure_ready_at as cureReadyAt, s.on_hold as onHold, coalesce(hr.name, s.hold_reason) as holdReason,
            s.released_at as releasedAt,
            cur.name as stepName, cur.cure_minutes as cureMinutes,
            nxt.station_kind as nextKind, nxt.cure_minutes as nextCureMinutes
@@ -77,6 +77,7 @@ export const floorRepository = {
          join trays t on t.id = s.tray_id
          join orders o on o.id = t.order_id
          join customers c on c.id = o.customer_id
+         left join reason_codes hr on hr.code = s.hold_reason
          left join order_steps cur on cur.order_id = t.order_id and cur.traveller_kind = t.kind and cur.seq = s.step_seq
          left join order_steps nxt on nxt.order_id = t.order_id and nxt.traveller_kind = t.kind and nxt.seq = s.step_seq + 1
          where s.phase in ('waiting', 'in_process', 'curing')`,

@@ -13,7 +13,7 @@ export function minutesText(min: number | null | undefined): string {
 /** hours with one decimal below 10 and whole above */
 export function hoursText(h: number | null | undefined): string {
   if (h == null || !Number.isFinite(h)) return '–';
-  return h < 10 ? `${h.toFixed(1)} h` : `${Math.round(h)} h`;
+  return h < 10 ? `${h.toFixed(1)} h` : `${Math.round(h).toLocaleString('en-GB')} h`;
 }
 
 /** a time in the factory's zone: "Tue 14 Oct, 15:00" */

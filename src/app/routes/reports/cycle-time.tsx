@@ -8,7 +8,7 @@ import { Bars } from '@/features/reports/components/charts';
 import { useStations } from '@/features/stations/api/get-stations';
 import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
 import { humanise } from '@/lib/labels';
-import { minutesText, percentText } from '@/lib/duration';
+import { hoursText, percentText } from '@/lib/duration';
 
 export const handle = { roles: REPORT_READERS };
 
@@ -28,7 +28,6 @@ export function Component() {
       customers={options.data?.customers ?? []}
       stations={stations.data ?? []}
       csvUrl={reportCsvUrl('cycle-time', params)}
-      csvName="cycle-time.csv"
       note="Queue time runs from the previous step’s finish (or the end of a cure, or release) to the start; process time from start to finish. Minutes of the clock."
     >
       {report.isPending ? (
@@ -44,8 +43,8 @@ export function Component() {
             ) : (
               <p className="mt-1 text-lg">
                 <strong className="text-3xl">{percentText(r.flowEfficiency.flowEfficiency)}</strong> of working time was spent on the trays’ process steps (
-                {minutesText(r.flowEfficiency.processMinutes)} of work in {minutesText(r.flowEfficiency.workingFlowMinutes)} of working time, {r.flowEfficiency.trays} trays
-                finished). Counted against the clock: {percentText(r.flowEfficiency.flowEfficiencyCalendar)}. Oven cure is needed but unattended, so it is not counted as
+                {hoursText(r.flowEfficiency.processMinutes / 60)} of work in {hoursText(r.flowEfficiency.workingFlowMinutes / 60)} of working time, summed over the{' '}
+                {r.flowEfficiency.trays.toLocaleString('en-GB')} trays finished). Counted against the clock: {percentText(r.flowEfficiency.flowEfficiencyCalendar)}. Oven cure is needed but unattended, so it is not counted as
                 value-adding: it took {percentText(r.flowEfficiency.cureShare)} of the clock time, shown apart.
               </p>
             )}

@@ -24,7 +24,6 @@ export function Component() {
       customers={options.data?.customers ?? []}
       bucket
       csvUrl={reportCsvUrl('flow', params)}
-      csvName="flow.csv"
       note="Counted in trays. The diagram shows only what has happened; trays scrapped whole leave it."
     >
       {report.isPending ? (

@@ -8,18 +8,19 @@ import { Histogram, Lines, bins } from '@/features/reports/components/charts';
 import { DataTable } from '@/components/ui/data-table';
 import { Card, ErrorPanel, Loading, Pill } from '@/components/ui/panels';
 import { humanise } from '@/lib/labels';
+import { factoryTime } from '@/lib/duration';
 import { WITH_SALES } from './layout';
 
 export const handle = { roles: WITH_SALES };
 
 const summaryRow = (label: string, s: Summary | undefined) => [label, s?.n ?? 0, s?.p50 ?? '–', s?.p85 ?? '–', s?.p95 ?? '–', s?.mean ?? '–'];
 const col = createColumnHelper<LeadTimeOrder>();
-const columns = [
+const columnsFor = (tz: string) => [
   col.accessor('number', { header: 'Order' }),
   col.accessor('customer', { header: 'Customer' }),
   col.accessor('process', { header: 'Process', cell: (c) => humanise(c.getValue()) }),
-  col.accessor('releasedAt', { header: 'Released', cell: (c) => c.getValue().slice(0, 16).replace('T', ' ') }),
-  col.accessor('shippedAt', { header: 'Shipped', cell: (c) => c.getValue().slice(0, 16).replace('T', ' ') }),
+  col.accessor('releasedAt', { header: 'Released', cell: (c) => factoryTime(c.getValue(), tz) }),
+  col.accessor('shippedAt', { header: 'Shipped', cell: (c) => factoryTime(c.getValue(), tz) }),
   col.accessor('calendarHours', { header: 'Calendar h' }),
   col.accessor('workingHours', { header: 'Working h' }),
   col.accessor('dueDate', { header: 'Due' }),
@@ -38,7 +39,6 @@ export function Component() {
       onChange={setFilters}
       customers={options.data?.customers ?? []}
       csvUrl={reportCsvUrl('lead-time', params)}
-      csvName="lead-time.csv"
       note="Lead time runs from release to the dispatch scan of the order’s last tray; working hours count only the factory’s shifts."
     >
       {report.isPending ? (
@@ -70,7 +70,7 @@ export function Component() {
           />
           <Card>
             <h2 className="mb-3 text-xl font-bold text-harbour-900">Orders</h2>
-            <DataTable data={r.orders} columns={columns} filterLabel="Find an order" caption="Orders shipped in the period" initialSorting={[{ id: 'shippedAt', desc: true }]} />
+            <DataTable data={r.orders} columns={columnsFor(r.window.timeZone)} filterLabel="Find an order" caption="Orders shipped in the period" initialSorting={[{ id: 'shippedAt', desc: true }]} />
           </Card>
         </>
       ) : null}

@@ -22,7 +22,6 @@ export function Component() {
       customers={options.data?.customers ?? []}
       bucket
       csvUrl={reportCsvUrl('on-time', params)}
-      csvName="on-time.csv"
       note="An order is on time when its last tray left dispatch on or before its due date (factory time)."
     >
       {report.isPending ? (

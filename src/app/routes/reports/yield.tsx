@@ -39,7 +39,6 @@ export function Component() {
       customers={options.data?.customers ?? []}
       stations={stations.data ?? []}
       csvUrl={reportCsvUrl('yield', params)}
-      csvName="yield.csv"
       note="First-pass yield counts reworked pieces as not passed; final yield counts them as good. Rolled throughput yield multiplies the steps’ first-pass yields as exact ratios."
     >
       {report.isPending ? (

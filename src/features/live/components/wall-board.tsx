@@ -52,19 +52,21 @@ export function useNow() {
   return now;
 }
 
-function Count({ icon, label, trays, pieces, theme }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme }) {
+function Figure({ icon, label, trays, pieces, theme, testId }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme; testId: string }) {
   const t = THEMES[theme];
   return (
-    <div className="flex items-baseline gap-3">
-      <span className={`flex w-44 items-center gap-2 text-2xl ${t.muted}`}>
+    <div className="flex min-w-0 flex-col">
+      <span className={`flex items-center gap-1 text-xl ${t.muted}`}>
         {icon}
         {label}
       </span>
-      <span className={`text-5xl font-bold tabular-nums ${t.strong}`} data-testid={`count-${label.toLowerCase().replace(/\s/g, '-')}`}>
-        {fmt(trays)}
+      <span className="flex items-baseline gap-1">
+        <span className={`text-5xl leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`}>
+          {fmt(trays)}
+        </span>
+        <span className={`text-lg ${t.muted}`}>{trays === 1 ? 'tray' : 'trays'}</span>
       </span>
-      <span className={`text-xl ${t.muted}`}>{trays === 1 ? 'tray' : 'trays'}</span>
-      <span className={`ml-auto text-2xl tabular-nums ${t.muted}`}>{fmt(pieces)} pcs</span>
+      <span className={`text-lg tabular-nums ${t.muted}`}>{fmt(pieces)} pcs</span>
     </div>
   );
 }
@@ -72,33 +74,34 @@ function Count({ icon, label, trays, pieces, theme }: { icon: ReactNode; label: 
 export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: WallTheme; bottleneck: boolean }) {
   const t = THEMES[theme];
   const idle = kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
+  const oven = kind.stationKind === 'cure';
   return (
     <section
       aria-label={kindName(kind.stationKind)}
       data-kind={kind.stationKind}
-      className={`flex flex-col gap-2 rounded-2xl border-4 p-4 ${bottleneck ? t.tileHot : t.tile} ${idle ? 'opacity-70' : ''}`}
+      className={`flex min-h-0 flex-col gap-1 rounded-2xl border-4 px-3 py-2 ${bottleneck ? t.tileHot : t.tile} ${idle ? 'opacity-60' : ''}`}
     >
-      <header className="flex items-center justify-between gap-2">
-        <h2 className={`text-3xl font-bold ${t.strong}`}>{kindName(kind.stationKind)}</h2>
-        {bottleneck && (
-          <span className={`flex items-center gap-1 rounded-full px-3 py-1 text-xl font-bold ${t.badge}`}>
-            <TrendingUp className="h-6 w-6" aria-hidden /> Bottleneck
-          </span>
-        )}
-      </header>
-      <Count theme={theme} icon={<Hourglass className="h-6 w-6" aria-hidden />} label="Waiting" trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
-      {kind.stationKind === 'cure' ? (
-        <Count theme={theme} icon={<Flame className="h-6 w-6" aria-hidden />} label="Curing" trays={kind.curing.trays} pieces={kind.curing.pieces} />
-      ) : (
-        <Count theme={theme} icon={<Wrench className="h-6 w-6" aria-hidden />} label="In process" trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
+      <h2 className={`truncate text-2xl font-bold ${t.strong}`}>{kindName(kind.stationKind)}</h2>
+      {bottleneck && (
+        <span className={`flex w-fit items-center gap-1 rounded-full px-2 text-lg font-bold ${t.badge}`}>
+          <TrendingUp className="h-5 w-5" aria-hidden /> Bottleneck
+        </span>
       )}
-      <footer className={`mt-auto flex flex-wrap items-center gap-x-4 gap-y-1 text-xl ${t.muted}`}>
+      <div className="grid grid-cols-2 gap-2">
+        <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label="Waiting" trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
+        {oven ? (
+          <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label="Curing" trays={kind.curing.trays} pieces={kind.curing.pieces} />
+        ) : (
+          <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label="In process" trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
+        )}
+      </div>
+      <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-lg ${t.muted}`}>
         <span className="flex items-center gap-1">
-          <Clock className="h-5 w-5" aria-hidden /> Oldest wait <strong className={t.strong}>{kind.oldestMinutes == null ? 'none' : minutesText(kind.oldestMinutes)}</strong>
+          <Clock className="h-5 w-5" aria-hidden /> Oldest <strong className={t.strong}>{kind.oldestMinutes == null ? 'none' : minutesText(kind.oldestMinutes)}</strong>
         </span>
         {kind.held > 0 && (
           <span className={`flex items-center gap-1 rounded-full px-2 font-bold ${t.stop}`}>
-            <PauseCircle className="h-5 w-5" aria-hidden /> {kind.held} on hold
+            <PauseCircle className="h-5 w-5" aria-hidden /> {kind.held} held
           </span>
         )}
         {kind.moulds > 0 && <span>{kind.moulds} {kind.moulds === 1 ? 'mould' : 'moulds'}</span>}
@@ -110,7 +113,7 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
 function Panel({ title, icon, children, theme, count }: { title: string; icon: ReactNode; children: ReactNode; theme: WallTheme; count?: number }) {
   const t = THEMES[theme];
   return (
-    <section aria-label={title} className={`flex min-h-0 flex-col rounded-2xl border-4 p-4 ${t.panel}`}>
+    <section aria-label={title} className={`flex min-h-0 flex-1 flex-col rounded-2xl border-4 px-4 py-3 ${t.panel}`}>
       <h2 className={`mb-2 flex items-center gap-2 text-2xl font-bold ${t.strong}`}>
         {icon} {title}
         {count !== undefined && <span className={`ml-auto text-xl ${t.muted}`}>{count}</span>}
@@ -127,22 +130,22 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const active = view.wip.kinds.filter((k) => k.stations.length > 0 || k.waiting.trays + k.inProcess.trays + k.curing.trays + k.moulds > 0);
   const tz = view.timeZone;
   return (
-    <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_460px]'}`}>
-      <div className={`grid content-start gap-3 ${compact ? 'grid-cols-1 md:grid-cols-2 2xl:grid-cols-3' : 'grid-cols-3'}`}>
+    <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_440px] grid-rows-[minmax(0,1fr)]'}`}>
+      <div className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-5 grid-rows-4'}`}>
         {active.map((k) => (
           <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />
         ))}
       </div>
       <div className="flex min-h-0 flex-col gap-3">
         {view.bottleneck && (
-          <p className={`rounded-2xl border-4 p-4 text-2xl ${t.tileHot}`}>
-            <TrendingUp className="mr-2 inline h-7 w-7" aria-hidden />
-            Longest queue for its size: <strong>{kindName(view.bottleneck.stationKind)}</strong>, {view.bottleneck.waitingTrays} trays waiting for room for {view.bottleneck.capacityTrays} at a time.
+          <p className={`rounded-2xl border-4 px-4 py-3 text-xl ${t.tileHot}`}>
+            <TrendingUp className="mr-2 inline h-6 w-6" aria-hidden />
+            Longest queue for its size: <strong>{kindName(view.bottleneck.stationKind)}</strong>, {view.bottleneck.waitingTrays} trays waiting, room for {view.bottleneck.capacityTrays} at a time.
           </p>
         )}
         <Panel theme={theme} title="Cure countdowns" icon={<Timer className="h-7 w-7" aria-hidden />} count={view.curing.length}>
           <ul className="flex flex-col gap-1 text-2xl">
-            {view.curing.slice(0, 6).map((c) => {
+            {view.curing.slice(0, 5).map((c) => {
               const left = Date.parse(c.readyAt) - now;
               return (
                 <li key={c.trayId} className="flex justify-between gap-2">
@@ -164,17 +167,17 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
         </Panel>
         <Panel theme={theme} title="Needs a supervisor" icon={<ShieldAlert className="h-7 w-7" aria-hidden />} count={view.refusals.length + view.holds.length}>
           <ul className="flex flex-col gap-1 text-xl">
-            {view.refusals.slice(0, 4).map((r) => (
+            {view.refusals.slice(0, 3).map((r) => (
               <li key={r.id}>
                 <AlertOctagon className="mr-1 inline h-5 w-5" aria-hidden />
                 <strong>Refused</strong> {r.trayNumber ?? 'unknown tray'} at {r.stationName ?? 'a station'}: {r.message}
               </li>
             ))}
-            {view.holds.slice(0, 4).map((h) => (
+            {view.holds.slice(0, 3).map((h) => (
               <li key={h.trayId}>
                 <PauseCircle className="mr-1 inline h-5 w-5" aria-hidden />
                 <strong>On hold</strong> {h.number} at {kindName(h.stationKind)}
-                {h.reason ? `: ${h.reason.replace(/_/g, ' ')}` : ''}
+                {h.reason ? `: ${h.reason}` : ''}
               </li>
             ))}
             {view.overrides.slice(0, 2).map((o) => (
@@ -188,14 +191,9 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
         </Panel>
         <Panel theme={theme} title="At risk of shipping late" icon={<AlertOctagon className="h-7 w-7" aria-hidden />} count={view.atRisk.length}>
           <ul className="flex flex-col gap-1 text-xl">
-            {view.atRisk.slice(0, 5).map((o) => (
-              <li key={o.orderId} className="flex justify-between gap-2">
-                <span>
-                  <strong>{o.number}</strong> {o.customer}
-                </span>
-                <span className="text-right">
-                  <strong>{o.risk === 'late' ? 'Late' : 'At risk'}</strong> · due {o.dueDate} · expected {factoryTime(o.expectedAt, tz)}
-                </span>
+            {view.atRisk.slice(0, 3).map((o) => (
+              <li key={o.orderId}>
+                <strong>{o.number}</strong> {o.customer}: <strong>{o.risk === 'late' ? 'late' : 'at risk'}</strong>, due {o.dueDate}, expected {factoryTime(o.expectedAt, tz)}
               </li>
             ))}
             {view.atRisk.length === 0 && <li className={t.muted}>Every open order is on course</li>}

@@ -76,7 +76,7 @@ export function Bars({ data, x, series, yLabel, percent = false, layout = 'horiz
         {layout === 'vertical' ? (
           <>
             <XAxis type="number" tick={axis} tickFormatter={fmt} domain={percent ? [0, 1] : undefined} />
-            <YAxis type="category" dataKey={x} tick={axis} width={110} />
+            <YAxis type="category" dataKey={x} tick={{ ...axis, fontSize: 12 }} width={110} interval={0} />
           </>
         ) : (
           <>

@@ -38,7 +38,6 @@ export function ReportFrame({
   stations,
   bucket,
   csvUrl,
-  csvName,
   children,
   note,
 }: {
@@ -49,7 +48,6 @@ export function ReportFrame({
   stations?: { id: string; code: string; name: string }[];
   bucket?: boolean;
   csvUrl: string;
-  csvName: string;
   children: ReactNode;
   note?: ReactNode;
 }) {
@@ -94,7 +92,8 @@ export function ReportFrame({
           <div className="flex items-end">
             <a
               href={csvUrl}
-              download={csvName}
+              // the server names the file after the report and its period
+              download
               className="flex min-h-11 w-full items-center justify-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50"
             >
               <Download className="h-5 w-5" aria-hidden /> Download CSV
@@ -120,9 +119,12 @@ export function ChartAndTable({ title, chart, table, caption }: { title: string;
     <Card>
       <h2 className="mb-1 text-xl font-bold text-harbour-900">{title}</h2>
       {caption && <p className="mb-3 text-sm text-harbour-700">{caption}</p>}
-      <div className="grid gap-6 2xl:grid-cols-[3fr_2fr]">
-        <div className="h-80 min-w-0">{chart}</div>
-        <div className="min-w-0 overflow-x-auto">{table}</div>
+      <div className="grid gap-6 xl:grid-cols-[3fr_2fr]">
+        <div className="h-96 min-w-0">{chart}</div>
+        {/* the table keeps the chart's height and scrolls; its header stays in view */}
+        <div className="max-h-96 min-w-0 overflow-auto rounded-lg border border-harbour-50" tabIndex={0} aria-label={`${title}: table`}>
+          {table}
+        </div>
       </div>
     </Card>
   );
@@ -131,7 +133,7 @@ export function ChartAndTable({ title, chart, table, caption }: { title: string;
 export function StatTable({ head, rows, label }: { head: string[]; rows: (string | number)[][]; label: string }) {
   return (
     <table className="w-full text-left text-sm" aria-label={label}>
-      <thead>
+      <thead className="sticky top-0 bg-white">
         <tr className="border-b-2 border-harbour-100">
           {head.map((h) => (
             <th key={h} scope="col" className="px-2 py-2 font-bold">

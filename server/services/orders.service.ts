@@ -266,7 +266,8 @@ function progressOf(deps: AppDeps, rows: { order: OrderRow; customer: string }[]
     contactName: null,
     contactEmail: null,
   }));
-  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), { project: true });
+  // ship dates from the projection service (measured queues on the working calendar)
+  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), { project: true, shipDates: shipDateService.measuredShipDates(deps, list.map((o) => o.id)) });
 }
 
 // ---------------------------------------------------------------------------------------
@@ -359,6 +360,7 @@ export const ordersService = {
       createdAt: iso(order.createdAt)!,
       late: progress?.late ?? isLate(order, deps.now()),
       projectedShipAt: iso(progress?.projection.expectedAt),
+      projectionNote: progress?.projection.basis || null,
       warnings: specWarnings(spec),
       openGates: isReleased(order) ? [] : openGates(db, id),
       payments: payments.map(({ payment: p, by }) => ({

@@ -106,10 +106,14 @@ function rebuildAll(deps: AppDeps, upTo: number) {
   const db = deps.db;
   const trays = new Map(repo.trays(db).map((t) => [t.id, t]));
   const cure = repo.cureSteps(db);
-  const insert = repo.inserter(db);
-  const insertFlow = repo.flowInserter(db);
   repo.deleteAllRuns(db);
   const ids = repo.trayIdsWithEvents(db);
+  repo.withoutIndexes(db, () => fillAll(db, ids, trays, cure, upTo));
+}
+
+function fillAll(db: AppDeps['db'], ids: string[], trays: Map<string, TrayInfo>, cure: Map<string, number>, upTo: number) {
+  const insert = repo.inserter(db);
+  const insertFlow = repo.flowInserter(db);
   // a few hundred trays at a time keeps memory flat on a year of events
   for (let i = 0; i < ids.length; i += TRAYS_PER_PAGE) {
     const page = ids.slice(i, i + TRAYS_PER_PAGE);

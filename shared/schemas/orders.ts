@@ -298,6 +298,8 @@ export interface OrderDetail {
   createdAt: string;
   late: boolean;
   projectedShipAt: string | null;
+  /** one or two lines on how the projected date was found */
+  projectionNote: string | null;
   warnings: SpecWarning[];
   openGates: OrderGate[];
   payments: PaymentView[];

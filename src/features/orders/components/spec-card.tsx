@@ -42,6 +42,12 @@ export function SpecCard({ order }: { order: OrderDetail }) {
             <dd>{v}</dd>
           </div>
         ))}
+        {order.projectionNote && order.projectedShipAt && (
+          <>
+            <dt className="font-bold text-harbour-700">How it is projected</dt>
+            <dd className="text-sm text-harbour-700">{order.projectionNote}</dd>
+          </>
+        )}
         <dt className="font-bold text-harbour-700">Colours</dt>
         <dd className="flex flex-wrap gap-2">
           {s.colours.length === 0

@@ -6,8 +6,8 @@ import { calendarService } from './calendar.service';
 import { badInput } from '../errors';
 import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers, type Summary } from '@shared/domain/stats';
 import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/calendar';
-import { countPerBucket, cumulativeFlow, makeBuckets, wipOverTime, type StageArrival } from '@shared/domain/flow';
-import { pareto, rolledThroughputYield, stepYield } from '@shared/domain/yield';
+import { countPerBucket, cumulativeFlowOfItems, makeBuckets, wipOverTime } from '@shared/domain/flow';
+import { pareto, rolledThroughputYield, stepYield, type StepCounts } from '@shared/domain/yield';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
 import type {
   CycleTimeReport,
@@ -162,42 +162,43 @@ export const reportsService = {
     const byId = new Map(trays.map((t) => [t.id, t]));
     const missing = [...new Set(trays.filter((t) => t.phase === 'merged' && t.mergedIntoId && !byId.has(t.mergedIntoId)).map((t) => t.mergedIntoId as string))];
     for (const m of repo.flowsOf(deps.db, missing)) byId.set(m.id, m);
-    const arrivals: StageArrival[] = [];
-    const exits = new Map<string, { at: number; qty: number }>();
-    for (const t of trays) {
-      if (t.phase === 'scrapped') continue; // left the flow without shipping
+    // one row of first-arrival times per tray (NaN: not there yet); a year is tens of thousands
+    const rows: Float64Array[] = [];
+    const exitAt = new Float64Array(trays.length).fill(Number.NaN);
+    const exitQty = new Float64Array(trays.length);
+    trays.forEach((t, k) => {
+      if (t.phase === 'scrapped') return; // left the flow without shipping
       let m: FlowTrayRow = t;
       // a tray merged into another for packing goes on inside it
       if (t.phase === 'merged' && t.mergedIntoId) {
         const target = byId.get(t.mergedIntoId);
-        if (!target) continue;
+        if (!target) return;
         m = { ...t, started: t.started ?? target.started, inspected: t.inspected ?? target.inspected, packed: t.packed ?? target.packed, shipped: target.shipped, shippedQty: 0 };
       }
-      arrivals.push({ itemId: t.id, stage: 0, at: t.releasedAt });
-      [m.started, m.inspected, m.packed, m.shipped].forEach((at, i) => {
-        if (at != null) arrivals.push({ itemId: t.id, stage: i + 1, at });
-      });
-      if (m.shipped != null) exits.set(t.id, { at: m.shipped, qty: m.shippedQty ?? 0 });
-    }
-    const cfd = cumulativeFlow(arrivals, FLOW_STAGES.length, buckets.map((b) => Math.min(b.end, end)));
+      rows.push(Float64Array.of(t.releasedAt, m.started ?? Number.NaN, m.inspected ?? Number.NaN, m.packed ?? Number.NaN, m.shipped ?? Number.NaN));
+      if (m.shipped != null) {
+        exitAt[k] = m.shipped;
+        exitQty[k] = m.shippedQty ?? 0;
+      }
+    });
+    const cfd = cumulativeFlowOfItems(rows, FLOW_STAGES.length, buckets.map((b) => Math.min(b.end, end)));
     // trays already shipped before the window are not in `trays`: every line starts from that base
-    const trayCounts = countPerBucket(
-      [...exits.values()].map((e) => e.at),
-      buckets,
-    );
+    const shippedTimes = Array.from(exitAt).filter((x) => !Number.isNaN(x));
+    const trayCounts = countPerBucket(shippedTimes, buckets);
     const pieces = buckets.map(() => 0);
-    for (const e of exits.values()) {
-      const i = buckets.findIndex((b) => e.at >= b.start && e.at < b.end);
-      if (i >= 0) pieces[i] += e.qty;
-    }
+    exitAt.forEach((at, k) => {
+      if (Number.isNaN(at)) return;
+      const i = buckets.findIndex((b) => at >= b.start && at < b.end);
+      if (i >= 0) pieces[i] += exitQty[k];
+    });
     const orders = countPerBucket(
       repo.shippedOrders(deps.db, w.filter).map((o) => o.shippedAt),
       buckets,
     );
     const wip = wipOverTime(
-      trays.map((t) => ({
+      trays.map((t, k) => ({
         start: t.releasedAt,
-        end: exits.get(t.id)?.at ?? (t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null),
+        end: !Number.isNaN(exitAt[k]) ? exitAt[k] : (t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null),
       })),
       buckets,
       end,
@@ -257,9 +258,12 @@ export const reportsService = {
         };
       });
     const shipped = repo.shippedOrders(deps.db, w.filter);
-    const counts = repo.shippedOrderStepCounts(deps.db, w.filter);
-    const byOrder = new Map<string, typeof counts>();
-    for (const c of counts) byOrder.set(c.orderId, [...(byOrder.get(c.orderId) ?? []), c]);
+    const byOrder = new Map<string, StepCounts[]>();
+    for (const [orderId, seq, inQty, goodQty, scrapQty, reworkQty] of repo.shippedOrderStepCounts(deps.db, w.filter)) {
+      let rows = byOrder.get(orderId);
+      if (!rows) byOrder.set(orderId, (rows = []));
+      rows.push({ seq, inQty, goodQty, scrapQty, reworkQty });
+    }
     const orders = shipped.map((o) => {
       const rows = byOrder.get(o.id) ?? [];
       const r = rolledThroughputYield(rows);

@@ -4,6 +4,7 @@ import {
   averageWip,
   countPerBucket,
   cumulativeFlow,
+  cumulativeFlowOfItems,
   flowEfficiency,
   littlesLaw,
   makeBuckets,
@@ -101,6 +102,15 @@ describe('cumulative flow diagram (Reinertsen 2009 pp. 71-72; Anderson 2010 p. 2
         expect(gap[k]).toBe(wip);
       });
     }
+  });
+
+  it('gives the same diagram from per-item milestones as from arrival events', () => {
+    const rows = [...paths.values()].map((path) => {
+      const row = new Array(STAGES).fill(Number.NaN);
+      for (const p of path) row[p.stage] = Number.isNaN(row[p.stage]) ? p.at : Math.min(row[p.stage], p.at);
+      return row;
+    });
+    expect(cumulativeFlowOfItems(rows, STAGES, times)).toEqual(cfd);
   });
 
   it('shows only history: nothing before the first arrival, nothing counted ahead of time', () => {

@@ -118,16 +118,25 @@ export function cumulativeFlow(arrivals: readonly StageArrival[], stageCount: nu
     if (!row) first.set(a.itemId, (row = new Array(stageCount).fill(Infinity)));
     if (a.at < row[a.stage]) row[a.stage] = a.at;
   }
+  return cumulativeFlowOfItems(first.values(), stageCount, at);
+}
+
+/**
+ * The same diagram from each item's first arrival per stage (Infinity or NaN where it has not
+ * arrived), without building one event per arrival.
+ */
+export function cumulativeFlowOfItems(items: Iterable<ArrayLike<number>>, stageCount: number, at: readonly number[]): number[][] {
   const reached: number[][] = Array.from({ length: stageCount }, () => []);
-  for (const row of first.values()) {
+  for (const row of items) {
     let earliest = Infinity;
     for (let s = stageCount - 1; s >= 0; s--) {
-      earliest = Math.min(earliest, row[s]);
+      const v = row[s];
+      if (v < earliest) earliest = v; // NaN compares false: not arrived
       if (earliest < Infinity) reached[s].push(earliest);
     }
   }
   const sorted = reached.map((r) => Float64Array.from(r).sort());
-  return at.map((t) => sorted.map((s) => upperBound(s, t)));
+  return at.map((t) => sorted.map((x) => upperBound(x, t)));
 }
 
 /** Items between stage a (reached) and stage b (not yet reached) at each row of a CFD. */

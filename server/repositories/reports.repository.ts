@@ -73,19 +73,31 @@ export const reportsRepository = {
    * (one covering-index range scan, no row objects). A cure closed on its own counts as process
    * time only for the cure kind itself.
    */
-  cycleValues(db: Db, f: ReportFilter, stationKind: string, measure: 'queue' | 'process'): number[] {
+  cycleValues(db: Db, f: ReportFilter, stationKind: string, measure: 'queue' | 'process'): Float64Array {
     const of = orderFilter(f);
     const joinOrders = of.sql ? ' join orders o on o.id = r.order_id' : '';
     const station = f.stationId ? ' and r.station_id = ?' : '';
     const column = measure === 'queue' ? 'r.queue_minutes' : 'r.process_minutes';
     const extra = measure === 'process' && stationKind !== 'cure' ? ' and r.implicit = 0' : '';
-    return client(db)
+    const rows = client(db)
       .prepare(
         `select ${column} from step_runs r${joinOrders}
          where r.station_kind = ? and r.finished_at >= ? and r.finished_at < ? and ${column} is not null${extra}${station}${of.sql}`,
       )
       .pluck()
-      .all(stationKind, f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args) as number[];
+      .iterate(stationKind, f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args);
+    // straight into a typed buffer: no array of boxed numbers for half a million values
+    let out = new Float64Array(4096);
+    let n = 0;
+    for (const v of rows as Iterable<number>) {
+      if (n === out.length) {
+        const bigger = new Float64Array(out.length * 2);
+        bigger.set(out);
+        out = bigger;
+      }
+      out[n++] = v;
+    }
+    return out.subarray(0, n);
   },
 
   /** trays finished in the window with their summed process and cure minutes */

@@ -3,13 +3,14 @@ import type { DbLike as Db } from '../db/client';
 import { scanEvents, scanRejections, overrides, attachments } from '../db/schema/scans';
 import { trays, trayStates } from '../db/schema/trays';
 import { orders, orderSteps, proofs } from '../db/schema/orders';
-import { moulds, orderMoulds } from '../db/schema/moulds';
 import { stations } from '../db/schema/stations';
-import { reasonCodes } from '../db/schema/reference-data';
 import { users, sessions } from '../db/schema/users';
 import { customers } from '../db/schema/customers';
+import { sqlClient } from './sql-client';
+import type Database from 'better-sqlite3';
 
-export type TrayRow = typeof trays.$inferSelect;
+/** The traveller fields a scan needs. */
+export type TrayRow = Pick<typeof trays.$inferSelect, 'id' | 'number' | 'kind' | 'orderId' | 'revision' | 'quantity' | 'releasedAt'>;
 export type TrayStateRow = typeof trayStates.$inferSelect;
 export type OrderStepRow = typeof orderSteps.$inferSelect;
 export type OverrideRow = typeof overrides.$inferSelect;
@@ -17,54 +18,124 @@ export type RejectionRow = typeof scanRejections.$inferSelect;
 export type ScanEventInsert = typeof scanEvents.$inferInsert;
 export type RejectionInsert = typeof scanRejections.$inferInsert;
 
-/** SQLite allows 32,766 bound values per statement; keep well below when inserting many rows. */
-const INSERT_CHUNK = 50;
+// The scan path runs for every scan a tablet sends, so its statements are prepared once per
+// connection and reused (raw better-sqlite3: building each query through the ORM cost more than
+// the write itself). Lists go in as one JSON array parameter, read with json_each.
+const TRAY_COLS = 'id, number, kind, order_id as orderId, revision, quantity, released_at as releasedAt';
+const STATE_COLS = `tray_id as trayId, kind, phase, step_seq as stepSeq, station_kind as stationKind, quantity, station_id as stationId,
+  started_at as startedAt, waiting_since as waitingSince, cure_ready_at as cureReadyAt, on_hold as onHold, hold_reason as holdReason,
+  released_at as releasedAt, last_event_at as lastEventAt, updated_at as updatedAt`;
+const STEP_COLS = `id, order_id as orderId, traveller_kind as travellerKind, seq, name, station_kind as stationKind, tray_minutes as trayMinutes,
+  piece_minutes as pieceMinutes, cure_minutes as cureMinutes, colour`;
+const REJECTION_COLS = `id, event_id as eventId, tray_id as trayId, station_id as stationId, device_id as deviceId, user_id as userId, code, message,
+  payload, occurred_at as occurredAt, received_at as receivedAt, resolved_at as resolvedAt, resolved_by as resolvedBy, resolution`;
+const IN_LIST = '(select value from json_each(?))';
 
-function chunks<T>(rows: T[], size: number): T[][] {
-  const out: T[][] = [];
-  for (let i = 0; i < rows.length; i += size) out.push(rows.slice(i, i + size));
-  return out;
+function prepareAll(c: Database.Database) {
+  return {
+    acceptedIds: c.prepare(`select id from scan_events where id in ${IN_LIST}`).pluck(),
+    rejectionsByEventIds: c.prepare(`select ${REJECTION_COLS} from scan_rejections where event_id in ${IN_LIST}`),
+    traysByNumbers: c.prepare(`select ${TRAY_COLS} from trays where number in ${IN_LIST}`),
+    trayById: c.prepare(`select ${TRAY_COLS} from trays where id = ?`),
+    statesByTrayIds: c.prepare(`select ${STATE_COLS} from tray_states where tray_id in ${IN_LIST}`),
+    stepsByOrders: c.prepare(`select ${STEP_COLS} from order_steps where order_id in ${IN_LIST} order by order_id, seq`),
+    mouldsNotReady: c.prepare(`select om.order_id as orderId, sum(case when m.status = 'ready' then 0 else 1 end) as notReady
+      from order_moulds om join moulds m on m.id = om.mould_id where om.order_id in ${IN_LIST} group by om.order_id`),
+    openRetryable: c.prepare(`select ${REJECTION_COLS} from scan_rejections
+      where tray_id in ${IN_LIST} and resolved_at is null and code in (select value from json_each(?))
+      order by occurred_at, received_at`),
+    insertEvent: c.prepare(`insert into scan_events (id, tray_id, type, step_seq, station_id, station_kind, device_id, user_id, occurred_at, received_at,
+      qty_in, good_qty, scrap_qty, rework_qty, scrap_reason, override_id, note, photo_hash)
+      values (@id, @trayId, @type, @stepSeq, @stationId, @stationKind, @deviceId, @userId, @occurredAt, @receivedAt,
+      @qtyIn, @goodQty, @scrapQty, @reworkQty, @scrapReason, @overrideId, @note, @photoHash)`),
+    insertRejection: c.prepare(`insert into scan_rejections (id, event_id, tray_id, station_id, device_id, user_id, code, message, payload, occurred_at, received_at)
+      values (@id, @eventId, @trayId, @stationId, @deviceId, @userId, @code, @message, @payload, @occurredAt, @receivedAt)`),
+    upsertState: c.prepare(`insert into tray_states (tray_id, kind, phase, step_seq, station_kind, quantity, station_id, started_at, waiting_since,
+      cure_ready_at, on_hold, hold_reason, released_at, last_event_at, updated_at)
+      values (@trayId, @kind, @phase, @stepSeq, @stationKind, @quantity, @stationId, @startedAt, @waitingSince,
+      @cureReadyAt, @onHold, @holdReason, @releasedAt, @lastEventAt, @updatedAt)
+      on conflict(tray_id) do update set kind = excluded.kind, phase = excluded.phase, step_seq = excluded.step_seq,
+      station_kind = excluded.station_kind, quantity = excluded.quantity, station_id = excluded.station_id,
+      started_at = excluded.started_at, waiting_since = excluded.waiting_since, cure_ready_at = excluded.cure_ready_at,
+      on_hold = excluded.on_hold, hold_reason = excluded.hold_reason, released_at = excluded.released_at,
+      last_event_at = excluded.last_event_at, updated_at = excluded.updated_at`),
+    updateState: c.prepare(`update tray_states set kind = @kind, phase = @phase, step_seq = @stepSeq, station_kind = @stationKind, quantity = @quantity,
+      station_id = @stationId, started_at = @startedAt, waiting_since = @waitingSince, cure_ready_at = @cureReadyAt, on_hold = @onHold,
+      hold_reason = @holdReason, released_at = @releasedAt, last_event_at = @lastEventAt, updated_at = @updatedAt where tray_id = @trayId`),
+    markInProduction: c.prepare(`update orders set status = 'in_production', updated_at = ? where status = 'released' and id in ${IN_LIST}`),
+    savepoint: c.prepare('savepoint scan_batch'),
+    release: c.prepare('release savepoint scan_batch'),
+    rollbackTo: c.prepare('rollback to savepoint scan_batch'),
+    stations: c.prepare('select id, code, name, kind, active from stations'),
+    reasonCodes: c.prepare('select code from reason_codes where active = 1').pluck(),
+  };
 }
+
+const prepared = new WeakMap<Database.Database, ReturnType<typeof prepareAll>>();
+function q(db: Db) {
+  const c = sqlClient(db);
+  let p = prepared.get(c);
+  if (!p) {
+    p = prepareAll(c);
+    prepared.set(c, p);
+  }
+  return p;
+}
+
+/** Stations and reason codes change rarely (an admin's edit); a scan batch reads them from a 5-second cache. */
+const REFERENCE_TTL_MS = 5000;
+const reference = new WeakMap<Database.Database, { at: number; stations: StationRef[]; reasonCodes: string[] }>();
+export interface StationRef {
+  id: string;
+  code: string;
+  name: string;
+  kind: string;
+  active: boolean;
+}
+function referenceData(db: Db) {
+  const c = sqlClient(db);
+  const now = Date.now();
+  let r = reference.get(c);
+  if (!r || now - r.at > REFERENCE_TTL_MS) {
+    const p = q(db);
+    r = {
+      at: now,
+      stations: (p.stations.all() as (Omit<StationRef, 'active'> & { active: number })[]).map((s) => ({ ...s, active: !!s.active })),
+      reasonCodes: p.reasonCodes.all() as string[],
+    };
+    reference.set(c, r);
+  }
+  return r;
+}
+
+const json = (xs: readonly string[]) => JSON.stringify(xs);
+
+type RawState = Omit<TrayStateRow, 'onHold'> & { onHold: number };
+type RawRejection = Omit<RejectionRow, 'payload'> & { payload: string };
+const toRejection = (r: RawRejection): RejectionRow => ({ ...r, payload: JSON.parse(r.payload) });
 
 export const scansRepository = {
   // --- reads for a batch ---------------------------------------------------------------
-  acceptedIds: (db: Db, ids: string[]) =>
-    ids.length ? db.select({ id: scanEvents.id }).from(scanEvents).where(inArray(scanEvents.id, ids)).all().map((r) => r.id) : [],
+  acceptedIds: (db: Db, ids: string[]): string[] => (ids.length ? (q(db).acceptedIds.all(json(ids)) as string[]) : []),
 
-  rejectionsByEventIds: (db: Db, ids: string[]) =>
-    ids.length ? db.select().from(scanRejections).where(inArray(scanRejections.eventId, ids)).all() : [],
+  rejectionsByEventIds: (db: Db, ids: string[]): RejectionRow[] => (ids.length ? (q(db).rejectionsByEventIds.all(json(ids)) as RawRejection[]).map(toRejection) : []),
 
-  traysByNumbers: (db: Db, numbers: string[]) => (numbers.length ? db.select().from(trays).where(inArray(trays.number, numbers)).all() : []),
+  traysByNumbers: (db: Db, numbers: string[]): TrayRow[] => (numbers.length ? (q(db).traysByNumbers.all(json(numbers)) as TrayRow[]) : []),
 
-  trayById: (db: Db, id: string) => db.select().from(trays).where(eq(trays.id, id)).get(),
+  trayById: (db: Db, id: string): TrayRow | undefined => q(db).trayById.get(id) as TrayRow | undefined,
 
-  statesByTrayIds: (db: Db, ids: string[]) => (ids.length ? db.select().from(trayStates).where(inArray(trayStates.trayId, ids)).all() : []),
+  statesByTrayIds: (db: Db, ids: string[]): TrayStateRow[] =>
+    ids.length ? (q(db).statesByTrayIds.all(json(ids)) as RawState[]).map((r) => ({ ...r, onHold: !!r.onHold })) as TrayStateRow[] : [],
 
-  stepsByOrders: (db: Db, orderIds: string[]) =>
-    orderIds.length
-      ? db.select().from(orderSteps).where(inArray(orderSteps.orderId, orderIds)).orderBy(asc(orderSteps.orderId), asc(orderSteps.seq)).all()
-      : [],
+  stepsByOrders: (db: Db, orderIds: string[]): OrderStepRow[] => (orderIds.length ? (q(db).stepsByOrders.all(json(orderIds)) as OrderStepRow[]) : []),
 
-  /** Per order: how many of its moulds are not ready yet (0 when it needs none, or all are ready). */
-  mouldsNotReady: (db: Db, orderIds: string[]) =>
-    orderIds.length
-      ? db
-          // a mould is ready for this order when it is marked ready, or when the order's own mould
-          // traveller for it has finished (engraved where new, and checked)
-          .select({
-            orderId: orderMoulds.orderId,
-            notReady: sql<number>`sum(case when ${moulds.status} = 'ready' then 0 when exists (select 1 from ${trays} mt join ${trayStates} ms on ms.tray_id = mt.id where mt.order_id = ${orderMoulds.orderId} and mt.mould_id = ${moulds.id} and mt.kind = 'mould' and ms.phase = 'done') then 0 else 1 end)`,
-          })
-          .from(orderMoulds)
-          .innerJoin(moulds, eq(moulds.id, orderMoulds.mouldId))
-          .where(inArray(orderMoulds.orderId, orderIds))
-          .groupBy(orderMoulds.orderId)
-          .all()
-      : [],
+  /** Per order: how many of its moulds are not ready yet (none listed: it needs none, or all are ready). */
+  mouldsNotReady: (db: Db, orderIds: string[]): { orderId: string; notReady: number }[] =>
+    orderIds.length ? (q(db).mouldsNotReady.all(json(orderIds)) as { orderId: string; notReady: number }[]) : [],
 
-  stations: (db: Db) => db.select({ id: stations.id, code: stations.code, name: stations.name, kind: stations.kind, active: stations.active }).from(stations).all(),
+  stations: (db: Db): StationRef[] => referenceData(db).stations,
 
-  reasonCodes: (db: Db) => db.select({ code: reasonCodes.code }).from(reasonCodes).where(eq(reasonCodes.active, true)).all().map((r) => r.code),
+  reasonCodes: (db: Db): string[] => referenceData(db).reasonCodes,
 
   overridesByIds: (db: Db, ids: string[]) => (ids.length ? db.select().from(overrides).where(inArray(overrides.id, ids)).all() : []),
 
@@ -82,28 +153,50 @@ export const scansRepository = {
       : [],
 
   /** Open refusals of these trays that a late scan from another tablet may have made right. */
-  openRetryable: (db: Db, trayIds: string[], codes: readonly string[]) =>
-    trayIds.length
-      ? db
-          .select()
-          .from(scanRejections)
-          .where(and(inArray(scanRejections.trayId, trayIds), isNull(scanRejections.resolvedAt), inArray(scanRejections.code, [...codes])))
-          .orderBy(asc(scanRejections.occurredAt), asc(scanRejections.receivedAt))
-          .all()
-      : [],
+  openRetryable: (db: Db, trayIds: string[], codes: readonly string[]): RejectionRow[] =>
+    trayIds.length ? (q(db).openRetryable.all(json(trayIds), json(codes)) as RawRejection[]).map(toRejection) : [],
+
+  /**
+   * Runs `fn` in a savepoint of the open transaction: on a throw only its own writes are undone.
+   * (Prepared once; the ORM's nested transaction builds and prepares its SQL on every call.)
+   */
+  inSavepoint<T>(db: Db, fn: () => T): { ok: T } | { error: unknown } {
+    const p = q(db);
+    p.savepoint.run();
+    try {
+      const ok = fn();
+      p.release.run();
+      return { ok };
+    } catch (error) {
+      p.rollbackTo.run();
+      p.release.run();
+      return { error };
+    }
+  },
 
   // --- writes ---------------------------------------------------------------------------
   insertEvents(db: Db, rows: ScanEventInsert[]) {
-    for (const part of chunks(rows, INSERT_CHUNK)) db.insert(scanEvents).values(part).run();
+    const stmt = q(db).insertEvent;
+    for (const r of rows) {
+      stmt.run({
+        stepSeq: null, stationId: null, stationKind: null, deviceId: null, userId: null, qtyIn: null, goodQty: null, scrapQty: null,
+        reworkQty: null, scrapReason: null, overrideId: null, note: null, photoHash: null, ...r,
+      });
+    }
   },
 
   insertRejections(db: Db, rows: RejectionInsert[]) {
-    for (const part of chunks(rows, INSERT_CHUNK)) db.insert(scanRejections).values(part).run();
+    const stmt = q(db).insertRejection;
+    for (const r of rows) {
+      stmt.run({ trayId: null, stationId: null, deviceId: null, userId: null, occurredAt: null, ...r, payload: JSON.stringify(r.payload) });
+    }
   },
 
-  upsertState(db: Db, row: typeof trayStates.$inferInsert) {
-    const { trayId: _id, ...rest } = row;
-    db.insert(trayStates).values(row).onConflictDoUpdate({ target: trayStates.trayId, set: rest }).run();
+  /** Writes a traveller's state: an update almost always (the row exists from its release), an insert otherwise. */
+  upsertState(db: Db, row: TrayStateRow) {
+    const p = q(db);
+    const params = { ...row, onHold: row.onHold ? 1 : 0 };
+    if (p.updateState.run(params).changes === 0) p.upsertState.run(params);
   },
 
   useOverride: (db: Db, id: string, eventId: string) => db.update(overrides).set({ usedEventId: eventId }).where(eq(overrides.id, id)).run(),
@@ -117,14 +210,9 @@ export const scansRepository = {
 
   rejectionById: (db: Db, id: string) => db.select().from(scanRejections).where(eq(scanRejections.id, id)).get(),
 
-  markOrderInProduction: (db: Db, orderIds: string[], at: number) =>
-    orderIds.length
-      ? db
-          .update(orders)
-          .set({ status: 'in_production', updatedAt: at })
-          .where(and(inArray(orders.id, orderIds), eq(orders.status, 'released')))
-          .run()
-      : undefined,
+  markOrderInProduction: (db: Db, orderIds: string[], at: number) => {
+    if (orderIds.length) q(db).markInProduction.run(at, json(orderIds));
+  },
 
   insertAttachment: (db: Db, row: typeof attachments.$inferInsert) => db.insert(attachments).values(row).run(),
 

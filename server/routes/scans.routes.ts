@@ -35,7 +35,7 @@ export function registerScanRoutes(api: Api) {
     body: batchBody,
     handler: ({ deps, body, user, device }) => {
       if (body.events.length > MAX_SCAN_BATCH) throw tooLarge(`Send at most ${MAX_SCAN_BATCH} scans at a time.`);
-      return scansService.submit(deps, body.events, { user, device });
+      return scansService.submitQueued(deps, body.events, { user, device });
     },
   });
 

@@ -344,127 +344,34 @@ function resolveOperators(db: DbLike, events: ScanEvent[], caller: ScanCaller): 
 
 export const scansService = {
   /**
-   * POST /api/scans: one transaction per batch; each event answered in the order sent. An event
-   * already stored (accepted or refused) is a `duplicate` and changes nothing.
+   * POST /api/scans: the batch is validated event by event, guarded and written in one
+   * transaction; each event is answered in the order sent. An event already stored (accepted or
+   * refused) is a `duplicate` and changes nothing.
    */
   submit(deps: AppDeps, rawEvents: unknown[], caller: ScanCaller): ScanBatchResponse {
     const now = deps.now();
-    const deviceId = caller.device?.id ?? null;
-    const parsed = rawEvents.map((raw) => {
-      const r = scanEventSchema.safeParse(raw);
-      return r.success ? { raw, event: r.data } : { raw, event: null, issues: r.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).slice(0, 5) };
-    });
-    const accepted: AcceptedScan[] = [];
+    const parsed = parseEvents(rawEvents);
+    const out = deps.db.transaction((tx) => processBatch(tx, deps, parsed, caller, now), { behavior: 'immediate' });
+    afterCommit(deps, out.accepted);
+    return { results: out.results, serverTime: new Date(now).toISOString() };
+  },
 
-    const results = deps.db.transaction(
-      (tx) => {
-        const data = new BatchData(tx, deps.keys.traveller);
-        const valid = parsed.filter((p) => p.event).map((p) => p.event!);
-        const ids = valid.map((e) => e.id);
-        const already = new Set(scansRepository.acceptedIds(tx, ids));
-        const refusedBefore = new Map(scansRepository.rejectionsByEventIds(tx, ids).map((r) => [r.eventId, r]));
-        const numbers = valid.map((e) => parseTravellerCode(e.code)?.number).filter((n): n is string => !!n);
-        data.loadTrays(numbers);
-        data.loadOverrides(valid.map((e) => e.overrideId).filter((x): x is string => !!x));
-        const operators = resolveOperators(tx, valid, caller);
-
-        const seen = new Set<string>();
-        const results: ScanResult[] = [];
-        const newEvents: ScanEventInsert[] = [];
-        const newRejections: RejectionInsert[] = [];
-        const resultIndexByEvent = new Map<string, number>();
-        const touched = new Set<string>();
-
-        for (const p of parsed) {
-          if (!p.event) {
-            const rawId = typeof (p.raw as { id?: unknown })?.id === 'string' ? (p.raw as { id: string }).id : '';
-            const params = { reason: 'schema', issues: (p as { issues?: string[] }).issues?.join('; ') ?? null };
-            newRejections.push(rejectionRow(null, p.raw, null, 'invalid_event', params, deviceId, caller.user?.id ?? null, now));
-            results.push({ id: rawId, status: 'rejected', code: 'invalid_event', message: refusalText('invalid_event', params), params });
-            continue;
-          }
-          const event = p.event;
-          if (already.has(event.id)) {
-            results.push({ id: event.id, status: 'duplicate' });
-            continue;
-          }
-          if (seen.has(event.id)) {
-            const first = results[resultIndexByEvent.get(event.id)!];
-            results.push({ id: event.id, status: 'duplicate', ...(first?.status === 'rejected' ? { code: first.code, message: first.message } : {}) });
-            continue;
-          }
-          const before = refusedBefore.get(event.id);
-          if (before) {
-            // Refused earlier (and perhaps accepted later on a retry): the same answer again.
-            results.push(
-              before.resolution === 'accepted_late' || before.resolution === 'accepted_on_retry'
-                ? { id: event.id, status: 'duplicate' }
-                : { id: event.id, status: 'duplicate', code: before.code as RejectionCode, message: before.message },
-            );
-            continue;
-          }
-          seen.add(event.id);
-          const op = operators.get(event)!;
-          const prepared: PreparedEvent = { event, operator: op.operator, operatorProblem: op.problem };
-          const e = evaluate(data, prepared, now);
-          if (e.result.ok) {
-            const ok = e.result;
-            newEvents.push(...eventRows({ ...e, result: ok }, prepared, deviceId, now));
-            data.states.set(e.tray!.id, ok.next);
-            touched.add(e.tray!.id);
-            if (e.override && ok.facts.overridden.length) {
-              data.usedOverrides.add(e.override.id);
-              scansRepository.useOverride(tx, e.override.id, event.id);
-              auditRepository.record(tx, now, {
-                userId: e.override.supervisorId,
-                action: 'scan.override',
-                entity: 'tray',
-                entityId: e.tray!.id,
-                detail: { eventId: event.id, overridden: ok.facts.overridden, skippedSeqs: ok.facts.skippedSeqs, reason: e.override.reason, operatorId: prepared.operator!.id },
-              });
-            }
-            accepted.push(acceptedScan(e.tray!, event, e.stationKind!, ok.next));
-            results.push({ id: event.id, status: 'accepted', tray: traySummary(e.tray!, ok.next, data.routing(e.tray!)) });
-          } else {
-            const r = e.result;
-            newRejections.push(rejectionRow(prepared, p.raw, e, r.code, r.params, deviceId, prepared.operator?.id ?? caller.user?.id ?? null, now));
-            results.push(refusalResult(event.id, e, data));
-          }
-          resultIndexByEvent.set(event.id, results.length - 1);
-        }
-
-        scansRepository.insertEvents(tx, newEvents);
-        scansRepository.insertRejections(tx, newRejections);
-
-        // Scans that arrived late from another tablet may make earlier refusals right: try them again.
-        const late = retryOpenRefusals(tx, data, [...touched], now, accepted);
-        for (const [eventId, tray] of late) {
-          const i = resultIndexByEvent.get(eventId);
-          if (i != null && results[i].status === 'rejected') results[i] = { id: eventId, status: 'accepted', tray };
-          touched.add(tray.id);
-        }
-
-        for (const trayId of touched) {
-          const tray = data.traysById.get(trayId)!;
-          scansRepository.upsertState(tx, rowFromState(data.states.get(trayId)!, data.routing(tray), now));
-        }
-        const startedOrders = [...new Set(accepted.filter((a) => a.type === 'start').map((a) => a.orderId))];
-        scansRepository.markOrderInProduction(tx, startedOrders, now);
-        for (const hook of scanHooks.inTransaction) hook(tx, accepted, deps);
-        return results;
-      },
-      { behavior: 'immediate' },
-    );
-
-    if (accepted.length || parsed.length) notifyFloorChanged(deps);
-    for (const hook of scanHooks.afterCommit) {
-      try {
-        hook(accepted, deps);
-      } catch (error) {
-        deps.log.error({ err: error }, 'a scan listener failed');
+  /**
+   * The same, with group commit: batches that arrive while the previous commit is being made are
+   * written together in one transaction (each in its own savepoint, so one failing batch never
+   * takes the others down), and share one sync to disk. Every caller still gets only its own
+   * answers, after the commit that made them durable.
+   */
+  submitQueued(deps: AppDeps, rawEvents: unknown[], caller: ScanCaller): Promise<ScanBatchResponse> {
+    return new Promise((resolve, reject) => {
+      let group = groups.get(deps.db);
+      if (!group) {
+        group = [];
+        groups.set(deps.db, group);
+        setImmediate(() => flushGroup(deps));
       }
-    }
-    return { results, serverTime: new Date(now).toISOString() };
+      group.push({ rawEvents, caller, resolve, reject });
+    });
   },
 
   /** What a station's tablet shows and caches: its travellers with order, routing and state. */
@@ -659,6 +566,164 @@ function cards(db: DbLike, items: { tray: TrayRow; state: TrayState }[]): TrayCa
       artworkUrl: artwork.has(tray.orderId) ? `/api/scans/artwork/${tray.orderId}` : null,
     };
   });
+}
+
+type ParsedEvent = { raw: unknown; event: ScanEvent; issues?: undefined } | { raw: unknown; event: null; issues: string[] };
+
+function parseEvents(rawEvents: unknown[]): ParsedEvent[] {
+  return rawEvents.map((raw) => {
+    const r = scanEventSchema.safeParse(raw);
+    return r.success ? { raw, event: r.data } : { raw, event: null, issues: r.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).slice(0, 5) };
+  });
+}
+
+function afterCommit(deps: AppDeps, accepted: AcceptedScan[]) {
+  notifyFloorChanged(deps);
+  for (const hook of scanHooks.afterCommit) {
+    try {
+      hook(accepted, deps);
+    } catch (error) {
+      deps.log.error({ err: error }, 'a scan listener failed');
+    }
+  }
+}
+
+interface QueuedBatch {
+  rawEvents: unknown[];
+  caller: ScanCaller;
+  resolve: (r: ScanBatchResponse) => void;
+  reject: (e: unknown) => void;
+}
+const groups = new WeakMap<object, QueuedBatch[]>();
+
+function flushGroup(deps: AppDeps) {
+  const items = groups.get(deps.db) ?? [];
+  groups.delete(deps.db);
+  const now = deps.now();
+  const outcomes: ({ ok: { results: ScanResult[]; accepted: AcceptedScan[] } } | { error: unknown })[] = [];
+  try {
+    deps.db.transaction(
+      (tx) => {
+        for (const item of items) {
+          outcomes.push(scansRepository.inSavepoint(tx, () => processBatch(tx, deps, parseEvents(item.rawEvents), item.caller, now)));
+        }
+      },
+      { behavior: 'immediate' },
+    );
+  } catch (error) {
+    for (const item of items) item.reject(error);
+    return;
+  }
+  afterCommit(
+    deps,
+    outcomes.flatMap((o) => ('ok' in o ? o.ok.accepted : [])),
+  );
+  const serverTime = new Date(now).toISOString();
+  items.forEach((item, i) => {
+    const o = outcomes[i];
+    if ('ok' in o) item.resolve({ results: o.ok.results, serverTime });
+    else item.reject(o.error);
+  });
+}
+
+/** One batch inside a transaction: read what it needs in a few queries, decide each event, write. */
+function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: ScanCaller, now: number): { results: ScanResult[]; accepted: AcceptedScan[] } {
+  const deviceId = caller.device?.id ?? null;
+  const accepted: AcceptedScan[] = [];
+  const data = new BatchData(tx, deps.keys.traveller);
+  const valid = parsed.filter((p) => p.event).map((p) => p.event!);
+  const ids = valid.map((e) => e.id);
+  const already = new Set(scansRepository.acceptedIds(tx, ids));
+  const refusedBefore = new Map(scansRepository.rejectionsByEventIds(tx, ids).map((r) => [r.eventId, r]));
+  const numbers = valid.map((e) => parseTravellerCode(e.code)?.number).filter((n): n is string => !!n);
+  data.loadTrays(numbers);
+  data.loadOverrides(valid.map((e) => e.overrideId).filter((x): x is string => !!x));
+  const operators = resolveOperators(tx, valid, caller);
+
+  const seen = new Set<string>();
+  const results: ScanResult[] = [];
+  const newEvents: ScanEventInsert[] = [];
+  const newRejections: RejectionInsert[] = [];
+  const resultIndexByEvent = new Map<string, number>();
+  const touched = new Set<string>();
+
+  for (const p of parsed) {
+    if (!p.event) {
+      const rawId = typeof (p.raw as { id?: unknown })?.id === 'string' ? (p.raw as { id: string }).id : '';
+      const params = { reason: 'schema', issues: (p as { issues?: string[] }).issues?.join('; ') ?? null };
+      newRejections.push(rejectionRow(null, p.raw, null, 'invalid_event', params, deviceId, caller.user?.id ?? null, now));
+      results.push({ id: rawId, status: 'rejected', code: 'invalid_event', message: refusalText('invalid_event', params), params });
+      continue;
+    }
+    const event = p.event;
+    if (already.has(event.id)) {
+      results.push({ id: event.id, status: 'duplicate' });
+      continue;
+    }
+    if (seen.has(event.id)) {
+      const first = results[resultIndexByEvent.get(event.id)!];
+      results.push({ id: event.id, status: 'duplicate', ...(first?.status === 'rejected' ? { code: first.code, message: first.message } : {}) });
+      continue;
+    }
+    const before = refusedBefore.get(event.id);
+    if (before) {
+      // Refused earlier (and perhaps accepted later on a retry): the same answer again.
+      results.push(
+        before.resolution === 'accepted_late' || before.resolution === 'accepted_on_retry'
+          ? { id: event.id, status: 'duplicate' }
+          : { id: event.id, status: 'duplicate', code: before.code as RejectionCode, message: before.message },
+      );
+      continue;
+    }
+    seen.add(event.id);
+    const op = operators.get(event)!;
+    const prepared: PreparedEvent = { event, operator: op.operator, operatorProblem: op.problem };
+    const e = evaluate(data, prepared, now);
+    if (e.result.ok) {
+      const ok = e.result;
+      newEvents.push(...eventRows({ ...e, result: ok }, prepared, deviceId, now));
+      data.states.set(e.tray!.id, ok.next);
+      touched.add(e.tray!.id);
+      if (e.override && ok.facts.overridden.length) {
+        data.usedOverrides.add(e.override.id);
+        scansRepository.useOverride(tx, e.override.id, event.id);
+        auditRepository.record(tx, now, {
+          userId: e.override.supervisorId,
+          action: 'scan.override',
+          entity: 'tray',
+          entityId: e.tray!.id,
+          detail: { eventId: event.id, overridden: ok.facts.overridden, skippedSeqs: ok.facts.skippedSeqs, reason: e.override.reason, operatorId: prepared.operator!.id },
+        });
+      }
+      accepted.push(acceptedScan(e.tray!, event, e.stationKind!, ok.next));
+      results.push({ id: event.id, status: 'accepted', tray: traySummary(e.tray!, ok.next, data.routing(e.tray!)) });
+    } else {
+      const r = e.result;
+      newRejections.push(rejectionRow(prepared, p.raw, e, r.code, r.params, deviceId, prepared.operator?.id ?? caller.user?.id ?? null, now));
+      results.push(refusalResult(event.id, e, data));
+    }
+    resultIndexByEvent.set(event.id, results.length - 1);
+  }
+
+  scansRepository.insertEvents(tx, newEvents);
+  scansRepository.insertRejections(tx, newRejections);
+
+  // Scans that arrived late from another tablet may make earlier refusals right: try them again.
+  const late = retryOpenRefusals(tx, data, [...touched], now, accepted);
+  for (const [eventId, tray] of late) {
+    const i = resultIndexByEvent.get(eventId);
+    if (i != null && results[i].status === 'rejected') results[i] = { id: eventId, status: 'accepted', tray };
+    touched.add(tray.id);
+  }
+
+  for (const trayId of touched) {
+    const tray = data.traysById.get(trayId)!;
+    scansRepository.upsertState(tx, rowFromState(data.states.get(trayId)!, data.routing(tray), now));
+  }
+  const startedOrders = [...new Set(accepted.filter((a) => a.type === 'start').map((a) => a.orderId))];
+  scansRepository.markOrderInProduction(tx, startedOrders, now);
+  for (const hook of scanHooks.inTransaction) hook(tx, accepted, deps);
+  return { results, accepted };
 }
 
 function acceptedScan(tray: TrayRow, event: ScanEvent, stationKind: StationKind, state: TrayState): AcceptedScan {

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import crypto from 'node:crypto';
 import { eq, sql } from 'drizzle-orm';
 import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertBadgeUser, insertFloorOrder, pairTablet, scan, stationId, tabletAgent, TWO_COLOUR_ROUTING } from '../support/scan-fixtures';
 import { scanEvents, scanRejections } from '../../server/db/schema/scans';
@@ -34,7 +35,7 @@ const RELEASED = T0 - 24 * 60 * MIN;
 const now = () => t.deps.now();
 const floor = (opts: Partial<Parameters<typeof insertFloorOrder>[1]> = {}) => insertFloorOrder(t.deps, { releasedAt: RELEASED, ...opts });
 
-async function post(events: unknown[], agent = operator) {
+async function post(events: unknown[], agent: TestAgent = operator) {
   const res = await agent.post('/api/scans').send({ events });
   expect(res.status, JSON.stringify(res.body)).toBe(200);
   return scanBatchResponseSchema.parse(res.body);
@@ -288,6 +289,26 @@ describe('POST /api/scans: batches', () => {
   });
 });
 
+describe('group commit', () => {
+  it('batches arriving together share one commit; a batch that fails never takes the others down', async () => {
+    const { trays: list } = floor({ trays: 6 });
+    const doomed = list[5];
+    const boom = (_tx: unknown, accepted: { trayId: string }[]) => {
+      if (accepted.some((a) => a.trayId === doomed.id)) throw new Error('simulated failure in one batch');
+    };
+    scanHooks.inTransaction.push(boom);
+    try {
+      const sent = await Promise.all(list.map((tr) => operator.post('/api/scans').send({ events: [scan(tr.code, ST['STR-1'], 'start', now())] })));
+      expect(sent.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 500]);
+    } finally {
+      scanHooks.inTransaction.splice(scanHooks.inTransaction.indexOf(boom), 1);
+    }
+    for (const tr of list.slice(0, 5)) expect(stateOf(tr.id).phase).toBe('in_process');
+    expect(stateOf(doomed.id).phase).toBe('waiting');
+    expect(t.deps.db.select().from(scanEvents).where(eq(scanEvents.trayId, doomed.id)).all()).toHaveLength(0);
+  });
+});
+
 describe('two tablets, events out of order', () => {
   it('an oven scan that arrives before the fill bench’s offline scans is accepted once they arrive', async () => {
     const { trays: [tray] } = floor({ stepSeq: 4 });
@@ -354,10 +375,10 @@ describe('two tablets, events out of order', () => {
     expect(t.deps.db.select().from(scanEvents).where(eq(scanEvents.trayId, tray.id)).get()!.userId).toBe(first.id);
     // The device alone (every session gone) may still deliver its outbox, for people who signed in on it.
     const deviceOnly = request.agent(t.app).set('Authorization', `Device ${tablet.token}`);
-    const fin = await post([scan(tray.code, ST['STR-1'], 'finish', now() + 2 * MIN, { operatorId: first.id })], deviceOnly as never);
+    const fin = await post([scan(tray.code, ST['STR-1'], 'finish', now() + 2 * MIN, { operatorId: first.id })], deviceOnly);
     expect(fin.results[0].status).toBe('accepted');
     const stranger = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '5813');
-    const refused = await post([scan(tray.code, ST['TRM-1'], 'start', now() + 2 * MIN, { operatorId: stranger.id })], deviceOnly as never);
+    const refused = await post([scan(tray.code, ST['TRM-1'], 'start', now() + 2 * MIN, { operatorId: stranger.id })], deviceOnly);
     expect(refused.results[0]).toMatchObject({ status: 'rejected', code: 'invalid_event', params: { reason: 'operator_not_signed_in_here' } });
   });
 });

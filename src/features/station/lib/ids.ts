@@ -1,12 +1,10 @@
+import { uuidv7 } from '@shared/domain/event-id';
+
 /**
- * A random UUID (version 4). crypto.randomUUID exists only on secure pages (https or localhost);
- * a tablet on the factory network over plain http still has crypto.getRandomValues.
+ * A new event id: a time-ordered UUIDv7 (see shared/domain/event-id.ts). It needs only
+ * crypto.getRandomValues, which a tablet on plain http on the factory network still has
+ * (crypto.randomUUID exists only on secure pages).
  */
 export function newId(): string {
-  if (typeof crypto !== 'undefined' && typeof crypto.randomUUID === 'function' && globalThis.isSecureContext !== false) return crypto.randomUUID();
-  const b = crypto.getRandomValues(new Uint8Array(16));
-  b[6] = (b[6] & 0x0f) | 0x40;
-  b[8] = (b[8] & 0x3f) | 0x80;
-  const h = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('');
-  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`;
+  return uuidv7();
 }

@@ -52,6 +52,20 @@ describe('keyboard-wedge scanner capture', () => {
     expect(slowEnter.key({ key: 'Enter', time: 500 })).toBeNull();
   });
 
+  it('tolerates a single hiccup of a busy tablet inside a scan', () => {
+    const r = createWedgeReader();
+    let t = 0;
+    for (const [i, ch] of [...'T1:1042-07:2:K3J7QZ2M'].entries()) {
+      r.key({ key: ch, time: t });
+      t += i === 8 ? 90 : 6;
+    }
+    expect(r.key({ key: 'Enter', time: t })).toBe('T1:1042-07:2:K3J7QZ2M');
+  });
+
+  it('ignores a very fast person (90 ms a key on average)', () => {
+    expect(feed(createWedgeReader(), '1042-07', 90).out).toBeNull();
+  });
+
   it('reads two scans in a row', () => {
     const r = createWedgeReader();
     const a = feed(r, '1111-01', 5, 0);

@@ -1,11 +1,14 @@
 // A hand scanner in keyboard-wedge mode "types" the code very fast and ends with Enter. People
-// type far slower: even a quick typist leaves 100 ms or more between keys (from memory: 60 words
-// a minute is about 5 keys a second). So a run of keys with every gap under `maxGapMs`, ended by
-// Enter, is a scan; anything slower is a person, and is left alone.
+// type far slower: even a quick typist leaves 100 ms or more between keys on average (from
+// memory: 60 words a minute is about 5 keys a second). So a run of keys whose average gap is
+// under `meanGapMs` (no single pause longer than `maxGapMs`), ended by Enter, is a scan; anything
+// slower is a person, and is left alone. The average tolerates the odd hiccup of a busy tablet.
 
 export interface WedgeOptions {
-  /** longest pause between two keys of one scan (ms) */
+  /** longest single pause inside one scan (ms) */
   maxGapMs?: number;
+  /** largest average gap between the keys of one scan (ms) */
+  meanGapMs?: number;
   /** shortest code worth reporting */
   minLength?: number;
 }
@@ -25,29 +28,30 @@ export interface WedgeReader {
 }
 
 export function createWedgeReader(options: WedgeOptions = {}): WedgeReader {
-  const maxGap = options.maxGapMs ?? 50;
+  const maxGap = options.maxGapMs ?? 120;
+  const meanGap = options.meanGapMs ?? 35;
   const minLength = options.minLength ?? 4;
   let buffer = '';
+  let first = 0;
   let last = -Infinity;
-  let burst = false;
+  const fast = () => buffer.length >= 2 && (last - first) / (buffer.length - 1) <= meanGap;
   return {
     get inBurst() {
-      return burst && buffer.length >= 2;
+      return fast();
     },
     key({ key, time }) {
       const gap = time - last;
       if (key === 'Enter') {
+        const ok = gap <= maxGap && buffer.length >= minLength && fast();
         const text = buffer;
-        const fast = gap <= maxGap && burst;
         buffer = '';
-        burst = false;
-        last = time;
-        return fast && text.length >= minLength ? text : null;
+        last = -Infinity;
+        return ok ? text : null;
       }
       if (key.length !== 1) return null; // Shift and other keys a scanner may send between characters
       if (gap > maxGap) {
         buffer = key;
-        burst = true;
+        first = time;
       } else {
         buffer += key;
       }
@@ -56,7 +60,6 @@ export function createWedgeReader(options: WedgeOptions = {}): WedgeReader {
     },
     reset() {
       buffer = '';
-      burst = false;
       last = -Infinity;
     },
   };

@@ -9,6 +9,16 @@ import { auditLog, settings } from '../db/schema/reference-data';
 import { users } from '../db/schema/users';
 import type { Role } from '@shared/domain/vocabulary';
 
+
+/** SQLite caps the variables in one statement; long id lists are read in slices. */
+function inChunks<T>(ids: string[], read: (slice: string[]) => T[], size = 5000): T[] {
+  if (ids.length === 0) return [];
+  if (ids.length <= size) return read(ids);
+  const out: T[] = [];
+  for (let i = 0; i < ids.length; i += size) out.push(...read(ids.slice(i, i + size)));
+  return out;
+}
+
 export type ShipmentRow = typeof shipments.$inferSelect;
 export type CartonRow = typeof cartons.$inferSelect;
 
@@ -85,9 +95,9 @@ export const shippingRepository = {
       .all(),
 
   /** travellers of the orders with their current state */
-  travellers: (db: Db, orderIds: string[]) =>
-    orderIds.length
-      ? db
+  travellers: (db: Db, allOrderIds: string[]) =>
+    inChunks(allOrderIds, (orderIds) =>
+      db
           .select({
             id: trays.id,
             orderId: trays.orderId,
@@ -108,12 +118,12 @@ export const shippingRepository = {
           .leftJoin(trayStates, eq(trayStates.trayId, trays.id))
           .where(inArray(trays.orderId, orderIds))
           .orderBy(asc(trays.number))
-          .all()
-      : [],
+          .all(),
+    ),
 
-  steps: (db: Db, orderIds: string[]) =>
-    orderIds.length
-      ? db
+  steps: (db: Db, allOrderIds: string[]) =>
+    inChunks(allOrderIds, (orderIds) =>
+      db
           .select({
             orderId: orderSteps.orderId,
             travellerKind: orderSteps.travellerKind,
@@ -127,19 +137,19 @@ export const shippingRepository = {
           .from(orderSteps)
           .where(inArray(orderSteps.orderId, orderIds))
           .orderBy(asc(orderSteps.orderId), asc(orderSteps.travellerKind), asc(orderSteps.seq))
-          .all()
-      : [],
+          .all(),
+    ),
 
   /** when each tray's dispatch step last finished */
-  dispatchFinishes: (db: Db, trayIds: string[]) =>
-    trayIds.length
-      ? db
+  dispatchFinishes: (db: Db, allTrayIds: string[]) =>
+    inChunks(allTrayIds, (trayIds) =>
+      db
           .select({ trayId: scanEvents.trayId, at: max(scanEvents.occurredAt) })
           .from(scanEvents)
           .where(and(inArray(scanEvents.trayId, trayIds), eq(scanEvents.type, 'finish'), eq(scanEvents.stationKind, 'dispatch')))
           .groupBy(scanEvents.trayId)
-          .all()
-      : [],
+          .all(),
+    ),
 
   /** holds and releases of the order's travellers, for the history */
   holdEvents: (db: Db, trayIds: string[]) =>
@@ -162,10 +172,8 @@ export const shippingRepository = {
           .get()?.at ?? null)
       : null,
 
-  shipments: (db: Db, orderIds: string[]) =>
-    orderIds.length
-      ? db.select().from(shipments).where(inArray(shipments.orderId, orderIds)).orderBy(asc(shipments.number)).all()
-      : [],
+  shipments: (db: Db, allOrderIds: string[]) =>
+    inChunks(allOrderIds, (orderIds) => db.select().from(shipments).where(inArray(shipments.orderId, orderIds)).orderBy(asc(shipments.number)).all()),
   shipmentById: (db: Db, id: string) => db.select().from(shipments).where(eq(shipments.id, id)).get(),
   cartons: (db: Db, orderId: string) => db.select().from(cartons).where(eq(cartons.orderId, orderId)).orderBy(asc(cartons.createdAt)).all(),
   nextShipmentNumber: (db: Db, orderId: string) =>

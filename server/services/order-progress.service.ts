@@ -56,16 +56,17 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
   const steps = shippingRepository.steps(db, ids);
   const dispatch = new Map(shippingRepository.dispatchFinishes(db, rows.filter((r) => r.kind === 'tray').map((r) => r.id)).map((d) => [d.trayId, d.at]));
   const shipments = shippingRepository.shipments(db, ids);
+  const stepsByOrder = groupBy(steps, (s) => s.orderId);
+  const rowsByOrder = groupBy(rows, (r) => r.orderId);
+  const shipmentsByOrder = groupBy(shipments, (s) => s.orderId);
   const out = new Map<string, OrderProgress>();
   for (const order of list) {
-    const orderSteps = steps.filter((s) => s.orderId === order.id) as (ProjectionStep & { name: string; orderId: string })[];
+    const orderSteps = (stepsByOrder.get(order.id) ?? []) as (ProjectionStep & { name: string; orderId: string })[];
     const routing = {
       tray: orderSteps.filter((s) => s.travellerKind === 'tray'),
       mould: orderSteps.filter((s) => s.travellerKind === 'mould'),
     };
-    const travellers: TravellerInfo[] = rows
-      .filter((r) => r.orderId === order.id)
-      .map((r) => {
+    const travellers: TravellerInfo[] = (rowsByOrder.get(order.id) ?? []).map((r) => {
         const phase: TrayPhase = r.writtenOffAt != null ? 'scrapped' : ((r.phase ?? 'waiting') as TrayPhase);
         const stepSeq = phase === 'done' || WRITTEN_OFF.includes(phase) ? null : (r.stepSeq ?? (r.phase ? null : 1));
         const own = routing[r.kind];
@@ -116,7 +117,7 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
       stageText,
       shipped: verdict,
       shippedAt,
-      shipments: shipments.filter((s) => s.orderId === order.id),
+      shipments: shipmentsByOrder.get(order.id) ?? [],
       projection,
       late,
     });
@@ -172,4 +173,15 @@ export function packedAndOnFloor(p: OrderProgress): { packed: TravellerInfo[]; o
 export function unshippedCartonPieces(cartons: { count: number; piecesPerCarton: number; weightKg: number | null; shipmentId: string | null }[]): number {
   const open = cartons.filter((c) => c.shipmentId == null);
   return open.length ? cartonTotals(open.map((c) => ({ count: c.count, piecesPerCarton: c.piecesPerCarton, weightKg: c.weightKg ?? 0 }))).pieces : 0;
+}
+
+function groupBy<T>(items: T[], key: (item: T) => string): Map<string, T[]> {
+  const out = new Map<string, T[]>();
+  for (const item of items) {
+    const k = key(item);
+    const list = out.get(k);
+    if (list) list.push(item);
+    else out.set(k, [item]);
+  }
+  return out;
 }

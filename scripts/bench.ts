@@ -3,6 +3,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { spawnSync } from 'node:child_process';
 
 type Figures = Record<string, unknown>;
 interface Section {
@@ -23,6 +24,10 @@ const sections: Section[] = [
   { name: 'Scans', module: './bench/scans.ts', run: (m) => m.benchScans() },
   { name: 'Reports, WIP and the wall at a year of history', module: './bench/reports.ts', run: (m) => m.benchReports() },
 ];
+
+// The servers measured here run the production bundle, as `npm start` does.
+const build = spawnSync('npm', ['run', 'build', '--silent'], { cwd: path.join(import.meta.dirname, '..'), stdio: 'inherit' });
+if (build.status !== 0) process.exit(build.status ?? 1);
 
 const only = process.argv.slice(2);
 const results: Record<string, Figures> = {};

@@ -1,5 +1,5 @@
-// `npm start`: build the client when it is missing or older than its sources, then serve API and
-// client on one port (the server migrates and seeds an empty database on start).
+// `npm start`: build the client and the server bundle when missing or older than their sources,
+// then serve API and client on one port (the server migrates and seeds an empty database on start).
 import { spawnSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -15,15 +15,21 @@ function newestMtime(target) {
   return newest;
 }
 
-const sources = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'package-lock.json'].map((p) => path.join(root, p));
-const stale = !fs.existsSync(built) || Math.max(...sources.filter(fs.existsSync).map(newestMtime)) > fs.statSync(built).mtimeMs;
-if (stale) {
-  console.log('Building the client…');
-  const result = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+const sources = (paths) => paths.map((p) => path.join(root, p)).filter(fs.existsSync);
+const newest = (paths) => Math.max(...sources(paths).map(newestMtime));
+const staleAgainst = (output, inputs) => !fs.existsSync(output) || newest(inputs) > fs.statSync(output).mtimeMs;
+
+function run(label, command, args) {
+  console.log(label);
+  const result = spawnSync(command, args, { cwd: root, stdio: 'inherit' });
   if (result.status !== 0) process.exit(result.status ?? 1);
 }
 
-const server = spawn('npx', ['tsx', 'server/index.ts'], {
+if (staleAgainst(built, ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'package-lock.json'])) run('Building the client…', 'npx', ['vite', 'build', '--logLevel', 'warn']);
+const serverBundle = path.join(root, 'dist-server', 'index.mjs');
+if (staleAgainst(serverBundle, ['server', 'shared', 'package-lock.json', 'scripts/build-server.mjs'])) run('Building the server…', process.execPath, ['scripts/build-server.mjs']);
+
+const server = spawn(process.execPath, ['--enable-source-maps', serverBundle], {
   cwd: root,
   stdio: 'inherit',
   env: { NODE_ENV: 'production', ...process.env },

@@ -4,8 +4,8 @@ import cookieParser from 'cookie-parser';
 import { pinoHttp } from 'pino-http';
 import fs from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import type { AppDeps } from './app-deps';
+import { PROJECT_ROOT } from './lib/project-root';
 import { Api } from './http/api';
 import { authenticate } from './middleware/authenticate';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
@@ -25,7 +25,7 @@ import { registerReportRoutes } from './routes/reports.routes';
 import { registerCalendarRoutes } from './routes/calendar.routes';
 import { registerLoadRoutes } from './routes/loads.routes';
 
-const clientDist = fileURLToPath(new URL('../dist', import.meta.url));
+const clientDist = path.join(PROJECT_ROOT, 'dist');
 
 export interface CreatedApp {
   app: express.Express;

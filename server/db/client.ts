@@ -1,12 +1,13 @@
 import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
-import { fileURLToPath } from 'node:url';
+import path from 'node:path';
+import { PROJECT_ROOT } from '../lib/project-root';
 import * as schema from './schema/all';
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
-const migrationsFolder = fileURLToPath(new URL('../../drizzle', import.meta.url));
+const migrationsFolder = path.join(PROJECT_ROOT, 'drizzle');
 
 /**
  * Opens the database with the pragmas every connection needs (see docs/decisions/0002).

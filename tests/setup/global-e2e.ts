@@ -4,10 +4,10 @@ import path from 'node:path';
 import { PROJECT_ROOT } from '../support/paths';
 import { startServer } from '../support/server-process';
 
-/** Builds the client once, then serves the demo factory for the browser tests. */
+/** Builds the client and the server bundle once, then serves the demo factory for the browser tests. */
 export default async function setup() {
-  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: PROJECT_ROOT, stdio: 'inherit' });
-  if (build.status !== 0) throw new Error('the client build failed');
+  const build = spawnSync('npm', ['run', 'build', '--silent'], { cwd: PROJECT_ROOT, stdio: 'inherit' });
+  if (build.status !== 0) throw new Error('the build failed');
   fs.rmSync(path.join(PROJECT_ROOT, '.tmp', 'e2e'), { recursive: true, force: true });
   const server = await startServer({ seed: 'demo' });
   process.env.TRAYCE_E2E_URL = server.url;

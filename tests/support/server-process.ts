@@ -49,7 +49,8 @@ export async function startServer(options: { seed?: 'demo' | 'none'; dataDir?: s
   let output = '';
   const launch = async () => {
     output = '';
-    child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    // the production bundle (npm run build), as `npm start` runs it
+    child = spawn(process.execPath, ['--enable-source-maps', 'dist-server/index.mjs'], {
       cwd: PROJECT_ROOT,
       env: { ...process.env, NODE_ENV: 'production', PORT: String(port), TRAYCE_DATA_DIR: dataDir, TRAYCE_SEED: options.seed ?? 'demo', LOG_LEVEL: 'warn', ...options.env },
       stdio: ['ignore', 'pipe', 'pipe'],

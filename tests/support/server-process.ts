@@ -61,10 +61,12 @@ export async function startServer(options: { seed?: 'demo' | 'none'; dataDir?: s
   };
   const stop = () =>
     new Promise<void>((resolve) => {
-      if (!child || child.exitCode !== null) return resolve();
-      child.once('exit', () => resolve());
-      child.kill('SIGTERM');
-      setTimeout(() => child.kill('SIGKILL'), 5000).unref();
+      // this process, not whatever `child` points at later (a restart launches a new one)
+      const current = child;
+      if (!current || current.exitCode !== null) return resolve();
+      const force = setTimeout(() => current.kill('SIGKILL'), 5000);
+      current.once('exit', () => (clearTimeout(force), resolve()));
+      current.kill('SIGTERM');
     });
   await launch();
   return { url, port, dataDir, stop, restart: async () => (await stop(), await launch()) };

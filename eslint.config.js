@@ -14,7 +14,7 @@ const sharedOnly = {
 };
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'drizzle/**', '.tmp/**', 'data/**', 'dev-dist/**', 'test-results/**'] },
+  { ignores: ['dist/**', 'dist-server/**', 'node_modules/**', 'drizzle/**', '.tmp/**', 'data/**', 'dev-dist/**', 'test-results/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

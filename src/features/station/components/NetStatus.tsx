@@ -7,14 +7,14 @@ import type { StationLang } from '../lib/refusal-text';
 /** Always on screen: online or not, and how many scans wait (words and icon, never colour alone). */
 export function NetStatus({ status, lang }: { status: SyncStatus; lang: StationLang }) {
   const { t } = useTranslation('station');
-  const waiting = status.pending > 0 ? t('net.waiting', { count: status.pending }) : t('net.allSent');
+  const waiting = !status.ready ? t('app.loading') : status.pending > 0 ? t('net.waiting', { count: status.pending }) : t('net.allSent');
   return (
     <div
       role="status"
       aria-live="polite"
       data-testid="net-status"
       data-online={status.online ? 'yes' : 'no'}
-      data-pending={status.pending}
+      data-pending={status.ready ? status.pending : undefined}
       className={`flex min-h-12 items-center gap-3 rounded-xl px-3 py-1 font-bold ${status.online ? 'bg-ok-50 text-ok-700' : 'bg-warn-50 text-warn-700'}`}
     >
       {status.online ? <Wifi className="h-6 w-6" aria-hidden /> : <CloudOff className="h-6 w-6" aria-hidden />}

@@ -71,6 +71,8 @@ export function StationScreen({
   const [feedback, setFeedback] = useState<FeedbackView | null>(null);
   const [camera, setCamera] = useState(false);
   const [typed, setTyped] = useState('');
+  /** a supervisor approved an early or wrong-station finish: the counts still come from the operator */
+  const [finishOverride, setFinishOverride] = useState<string | null>(null);
   const serial = useRef(0);
   const photoInput = useRef<HTMLInputElement>(null);
   const guardStation = useMemo(() => ({ id: station.id, kind: station.kind, name: station.name }), [station]);
@@ -157,6 +159,7 @@ export function StationScreen({
         return;
       }
       setPanel(null);
+      setFinishOverride(null);
       setCurrent({ code: text, number: parsed.number });
       const cached = await db.cards.get(parsed.number);
       if (!cached && engine.getStatus().online) {
@@ -227,6 +230,7 @@ export function StationScreen({
               </>
             ),
           });
+          if (!r.overridable && r.code !== 'bad_override') setPanel(null);
           return false;
         }
         await engine.add(event, { trayNumber: current.number, local: { ok: true } });
@@ -264,7 +268,26 @@ export function StationScreen({
   const onAction = (a: TrayAction) => {
     unlockAudio();
     if (a === 'start') void act('start');
-    else if (a === 'finish') setPanel('finish');
+    else if (a === 'finish') {
+      // Say at once when a finish cannot be right here (not started, on hold, still curing...),
+      // before anyone counts pieces; the counts themselves are checked when confirmed.
+      const { card, state } = current ? stateOf(current.number) : { card: null, state: null };
+      if (card && state) {
+        const probe = evaluateLocal({
+          card,
+          state,
+          station: guardStation,
+          event: { type: 'finish', code: current!.code, occurredAt: correctedIso(Date.now(), engine.getStatus().offset), goodQty: state.quantity, scrapQty: 0 },
+          now: engine.now(),
+          role: operator.role,
+        });
+        if (!probe.ok) {
+          void act('finish', { goodQty: state.quantity, scrapQty: 0 });
+          return;
+        }
+      }
+      setPanel('finish');
+    }
     else if (a === 'hold') setPanel('hold');
     else if (a === 'release') {
       if (operator.role === 'supervisor' || operator.role === 'admin') void act('release');
@@ -334,7 +357,7 @@ export function StationScreen({
                   reasons={reasons.filter((r) => !r.stationKind || r.stationKind === station.kind)}
                   lang={lang}
                   onCancel={() => setPanel(null)}
-                  onConfirm={(c: FinishCounts) => void act('finish', c)}
+                  onConfirm={(c: FinishCounts) => void act('finish', c, finishOverride ?? undefined).then(() => setFinishOverride(null))}
                 />
               )}
               {panel === 'hold' && <HoldPanel reasons={reasons} lang={lang} onCancel={() => setPanel(null)} onConfirm={(r) => void act('hold', r)} />}
@@ -347,7 +370,10 @@ export function StationScreen({
                   onCancel={() => setPanel(null)}
                   onApproved={(ov) => {
                     const { type, ...extra } = panel.retry;
-                    void act(type, extra, ov.id);
+                    if (type === 'finish') {
+                      setFinishOverride(ov.id);
+                      setPanel('finish');
+                    } else void act(type, extra, ov.id);
                   }}
                 />
               )}

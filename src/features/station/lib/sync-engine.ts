@@ -33,6 +33,8 @@ export interface SyncStatus {
   nextRetryAt: number | null;
   /** the device token was refused: the tablet must be paired again */
   unpaired: boolean;
+  /** the outbox has been read from the tablet's storage (counts before that mean nothing) */
+  ready: boolean;
 }
 
 const SAMPLES_KEY = 'clockSamples';
@@ -58,6 +60,7 @@ export class SyncEngine {
     offset: null,
     nextRetryAt: null,
     unpaired: false,
+    ready: false,
   };
   private samples: ClockSample[] = [];
   private attempt = 0;
@@ -107,6 +110,7 @@ export class SyncEngine {
     await this.db.outbox.where('createdAt').below(cutoff).and((e) => e.status !== 'pending').delete();
     this.update({ offset: bestOffset(this.samples) });
     await this.refreshCounts();
+    this.update({ ready: true });
   }
 
   start() {

@@ -1,0 +1,233 @@
+// The station tablet in Chromium at tablet size: pairing, badge sign-in, offline scanning with a
+// keyboard-wedge hand scanner, the outbox delivering every scan exactly once (also across a server
+// restart), and the Chinese screen.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import path from 'node:path';
+import fs from 'node:fs';
+import crypto from 'node:crypto';
+import { inArray } from 'drizzle-orm';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { launchBrowser, screenshot, TABLET } from '../support/browser';
+import { startServer, type ServerProcess } from '../support/server-process';
+import { PROJECT_ROOT } from '../support/paths';
+import { insertFloorOrder, type FloorTray } from '../support/scan-fixtures';
+import { openDb, type Db } from '../../server/db/client';
+import { loadOrCreateKey } from '../../server/lib/keys';
+import { scanEvents } from '../../server/db/schema/scans';
+import { trayStates } from '../../server/db/schema/trays';
+import { stationsRepository } from '../../server/repositories/stations.repository';
+import { devicesService } from '../../server/services/devices.service';
+import { usersService } from '../../server/services/users.service';
+import type { AppDeps } from '../../server/app-deps';
+import { en } from '../../src/features/station/i18n/en';
+
+// One server of our own (base seed, our people and travellers), in a folder of its own so other
+// test runs that clear the shared e2e folder cannot pull it away; it is also the one restarted.
+let browser: Browser;
+let server: ServerProcess;
+let s: ReturnType<typeof serverDb>;
+beforeAll(async () => {
+  browser = await launchBrowser();
+  server = await startServer({ seed: 'none', dataDir: path.join(PROJECT_ROOT, '.tmp', 'station-e2e', crypto.randomUUID()) });
+  s = serverDb(server.dataDir);
+  usersService.create(s.deps, { name: 'Chen Xiuying', email: 'chen@e2e.test', role: 'operator', password: 'operator-password-1', badge: 'B-201', pin: '1357' }, null);
+  usersService.create(s.deps, { name: 'Huang Yimin', email: 'huang@e2e.test', role: 'operator', password: 'operator-password-2', badge: 'B-202', pin: '2580' }, null);
+  usersService.create(s.deps, { name: 'Dario Okonjo', email: 'dario@e2e.test', role: 'supervisor', password: 'supervisor-password-1', badge: 'S-100', pin: '2468' }, null);
+});
+afterAll(async () => {
+  await browser?.close();
+  s?.close();
+  await server?.stop();
+  if (server) fs.rmSync(server.dataDir, { recursive: true, force: true });
+});
+
+/** A second connection to a running server's database (SQLite in WAL mode takes it). */
+function serverDb(dataDir: string) {
+  const db = openDb(path.join(dataDir, 'trayce.db'));
+  const deps = { db, now: () => Date.now(), keys: { traveller: loadOrCreateKey(dataDir, 'traveller'), session: new Uint8Array(32) } } as unknown as AppDeps;
+  return {
+    db,
+    deps,
+    station: (code: string) => stationsRepository.byCode(db, code)!,
+    pairingCode(stationCode: string, locale: 'en' | 'zh-CN' = 'en') {
+      const s = stationsRepository.byCode(db, stationCode)!;
+      return devicesService.create(deps, { name: `E2E tablet ${stationCode} ${Date.now() % 100000}`, stationId: s.id, locale, idleMinutes: 30 }, null).pairingCode;
+    },
+    close: () => db.$client.close(),
+  };
+}
+
+function eventsOf(db: Db, trays: FloorTray[]) {
+  return db.select().from(scanEvents).where(inArray(scanEvents.trayId, trays.map((t) => t.id))).all();
+}
+
+async function pairAndSignIn(context: BrowserContext, baseUrl: string, code: string, badge: string, pin: string, labels = { pair: 'Pairing code', pairButton: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in' }): Promise<Page> {
+  const page = await context.newPage();
+  await page.goto(`${baseUrl}/pair`);
+  await page.getByLabel(labels.pair).fill(code);
+  await page.getByRole('button', { name: labels.pairButton }).click();
+  await page.getByText(labels.paired).waitFor();
+  await page.goto(`${baseUrl}/station`);
+  await page.getByLabel(labels.badge, { exact: true }).fill(badge);
+  await page.getByRole('button', { name: labels.confirm }).click();
+  await page.getByRole('textbox', { name: labels.pin }).fill(pin);
+  await page.getByRole('button', { name: labels.signIn, exact: true }).click();
+  await page.getByTestId('station-name').waitFor();
+  return page;
+}
+
+/** Types like a hand scanner in keyboard-wedge mode: the whole code at once, then Enter, no field focused. */
+async function wedgeScan(page: Page, text: string) {
+  await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+  await page.keyboard.type(text);
+  await page.keyboard.press('Enter');
+}
+
+async function startAndFinish(page: Page, tray: FloorTray) {
+  await wedgeScan(page, tray.code);
+  await page.getByRole('heading', { name: tray.number }).waitFor();
+  await page.getByRole('button', { name: 'Start', exact: true }).click();
+  await page.getByTestId('feedback').getByText(`Started: ${tray.number}`).waitFor();
+  await page.getByRole('button', { name: 'Finish', exact: true }).click();
+  await page.getByRole('button', { name: 'Confirm' }).click();
+  await page.getByTestId('feedback').getByText(`Finished: ${tray.number}`).waitFor();
+}
+
+async function pendingCount(page: Page): Promise<number> {
+  return Number(await page.getByTestId('net-status').getAttribute('data-pending'));
+}
+
+describe('station tablet', () => {
+  it('offline: 50 trays scanned through a station with a hand scanner reach the server exactly once', async () => {
+    const base = server.url;
+    // Travellers waiting at post fitting, released six days ago so they head the station's list.
+    const { trays } = insertFloorOrder(s.deps, { trays: 50, quantity: 40, releasedAt: Date.now() - 6 * 24 * 3600_000, stepSeq: 3 });
+    const context = await browser.newContext({ viewport: TABLET });
+    const page = await pairAndSignIn(context, base, s.pairingCode('PST-1'), 'B-201', '1357');
+    // The app shell is cached by the service worker and the station's travellers are on the tablet.
+    await page.evaluate(() => navigator.serviceWorker.ready.then(() => true));
+    await page.getByTestId('queue-row').filter({ hasText: trays[49].number }).waitFor();
+    await screenshot(page, 'station-online');
+
+    await context.setOffline(true);
+    await page.getByTestId('net-status').and(page.locator('[data-online="no"]')).waitFor();
+    for (const tray of trays) await startAndFinish(page, tray);
+    expect(await pendingCount(page)).toBe(100);
+    await expect(page.getByTestId('net-status').textContent()).resolves.toMatch(/Offline.*100 scans waiting/);
+    expect(eventsOf(s.db, trays)).toHaveLength(0);
+    await screenshot(page, 'station-offline-100-waiting');
+
+    // Closing and reopening the app offline keeps every scan: the outbox is on the tablet.
+    await page.reload();
+    await page.getByTestId('net-status').and(page.locator('[data-pending="100"]')).waitFor();
+    await expect(page.getByTestId('net-status').getAttribute('data-online')).resolves.toBe('no');
+
+    await context.setOffline(false);
+    await page.getByTestId('net-status').and(page.locator('[data-pending="0"]')).waitFor({ timeout: 60_000 });
+    const rows = eventsOf(s.db, trays);
+    expect(rows).toHaveLength(100);
+    expect(new Set(rows.map((r) => r.id)).size).toBe(100);
+    for (const tray of trays) expect(rows.filter((r) => r.trayId === tray.id).map((r) => r.type).sort()).toEqual(['finish', 'start']);
+    const states = s.db.select().from(trayStates).where(inArray(trayStates.trayId, trays.map((t) => t.id))).all();
+    expect(states.every((st) => st.phase === 'waiting' && st.stepSeq === 4 && st.quantity === 40)).toBe(true);
+    await screenshot(page, 'station-back-online');
+    await context.close();
+  });
+
+  it('the server restarts while the tablet syncs: every scan ends up on the server exactly once', async () => {
+    const { trays } = insertFloorOrder(s.deps, { trays: 30, quantity: 25, releasedAt: Date.now() - 24 * 3600_000, stepSeq: 2 });
+    const context = await browser.newContext({ viewport: TABLET });
+    const page = await pairAndSignIn(context, server.url, s.pairingCode('TRM-1'), 'B-202', '2580');
+    await page.getByTestId('queue-row').filter({ hasText: trays[29].number }).waitFor();
+    await context.setOffline(true);
+    await page.getByTestId('net-status').and(page.locator('[data-online="no"]')).waitFor();
+    for (const tray of trays) await startAndFinish(page, tray);
+    expect(await pendingCount(page)).toBe(60);
+
+    // The first batch reaches the server and is stored, then the server goes down before the
+    // tablet hears the answer; the tablet must send again once the server is back.
+    let restarted = false;
+    await page.route('**/api/scans', async (route) => {
+      if (restarted) return route.continue();
+      restarted = true;
+      await route.fetch();
+      await server.restart();
+      await route.abort('connectionreset');
+    });
+    await context.setOffline(false);
+    await page.getByTestId('net-status').and(page.locator('[data-pending="0"]')).waitFor({ timeout: 90_000 });
+    expect(restarted).toBe(true);
+    const rows = eventsOf(s.db, trays);
+    expect(rows).toHaveLength(60);
+    expect(new Set(rows.map((r) => r.id)).size).toBe(60);
+    await context.close();
+  });
+
+  it('a wrong-station scan goes through with a supervisor’s badge, PIN and reason, and is recorded', async () => {
+    const { trays: [tray] } = insertFloorOrder(s.deps, { trays: 1, quantity: 30, releasedAt: Date.now() - 24 * 3600_000, stepSeq: 3 });
+    const context = await browser.newContext({ viewport: TABLET });
+    const page = await pairAndSignIn(context, server.url, s.pairingCode('TRM-1'), 'B-201', '1357');
+    await wedgeScan(page, tray.code);
+    await page.getByRole('heading', { name: tray.number }).waitFor();
+    await page.getByRole('button', { name: 'Start', exact: true }).click();
+    await page.getByTestId('feedback').getByText('Wrong station').waitFor();
+    await page.getByRole('button', { name: 'Supervisor override' }).click();
+    await page.getByLabel('Supervisor badge').fill('S-100');
+    await page.getByRole('textbox', { name: 'Supervisor PIN' }).fill('2468');
+    await page.getByLabel('Reason', { exact: true }).fill('Posts fitted on the trimming bench today');
+    await screenshot(page, 'station-override');
+    await page.getByRole('button', { name: 'Approve' }).click();
+    await page.getByTestId('feedback').getByText(`Started: ${tray.number}`).waitFor();
+    await page.getByTestId('net-status').and(page.locator('[data-pending="0"]')).waitFor();
+    const [row] = eventsOf(s.db, [tray]);
+    expect(row.overrideId).toBeTruthy();
+    const audit = s.db.$client.prepare("select user_id as userId, detail from audit_log where action = 'scan.override' and entity_id = ?").get(tray.id) as { userId: string; detail: string };
+    expect(JSON.parse(audit.detail)).toMatchObject({ overridden: ['wrong_station'], reason: 'Posts fitted on the trimming bench today' });
+    await context.close();
+  });
+
+  it('in Chinese, the station screen shows no English words of ours', async () => {
+    const base = server.url;
+    const { trays } = insertFloorOrder(s.deps, { trays: 3, quantity: 60, releasedAt: Date.now() - 5 * 24 * 3600_000, stepSeq: 4 });
+    const context = await browser.newContext({ viewport: TABLET, locale: 'zh-CN' });
+    const page = await pairAndSignIn(context, base, s.pairingCode('FIL-2', 'zh-CN'), 'B-202', '2580', {
+      pair: 'Pairing code',
+      pairButton: 'Pair tablet',
+      paired: 'Paired as',
+      badge: '工牌',
+      confirm: '确认',
+      pin: '密码',
+      signIn: '登录',
+    });
+    await page.getByTestId('queue-row').filter({ hasText: trays[0].number }).waitFor();
+    await wedgeScan(page, trays[0].code);
+    await page.getByRole('heading', { name: trays[0].number }).waitFor();
+    // a refusal, in Chinese: finishing a tray that was never started (said before any counting)
+    await page.getByRole('button', { name: '完成', exact: true }).click();
+    await page.getByTestId('feedback').getByText('尚未开始').waitFor();
+    // and the counting panel of a tray that is in process
+    await page.getByRole('button', { name: '开始', exact: true }).click();
+    await page.getByTestId('feedback').getByText('已开始').waitFor();
+    await page.getByRole('button', { name: '完成', exact: true }).click();
+    await page.getByRole('heading', { name: '完成：清点数量' }).waitFor();
+    await screenshot(page, 'station-chinese');
+
+    // Everything on screen, minus the factory's own data (names, numbers, titles, station texts).
+    const queue = await page.evaluate(async (id) => (await fetch(`/api/stations/${id}/queue`)).json(), s.station('FIL-2').id);
+    const data: string[] = [queue.station.name, queue.station.instructions, queue.station.safetyNotes, await page.getByTestId('operator-name').innerText()];
+    for (const c of queue.trays) {
+      data.push(c.tray.number);
+      if (c.order) data.push(c.order.number, c.order.title, c.order.customer, ...c.order.colours.flatMap((x: { name: string; ref?: string }) => [x.name, x.ref ?? '']));
+    }
+    let text = await page.locator('body').innerText();
+    for (const d of data.filter(Boolean).sort((a, b) => b.length - a.length)) text = text.split(d).join(' ');
+    const words = (text.match(/[A-Za-z]{2,}/g) ?? []).filter((w) => w !== 'English');
+    expect(words, text).toEqual([]);
+    // and none of the English strings of the tablet (checked against the English resources)
+    const english: string[] = [];
+    const walk = (o: object) => Object.values(o).forEach((v) => (typeof v === 'string' ? english.push(v) : walk(v)));
+    walk(en);
+    for (const phrase of english.filter((e) => e.length > 4 && !e.includes('{{') && e !== 'English' && e !== '简体中文')) expect(text.includes(phrase), phrase).toBe(false);
+    await context.close();
+  });
+});

@@ -222,10 +222,8 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
   let verdict: TravellerVerdict = { status: 'valid' };
   if (!parsed || !tray) verdict = { status: 'unknown' };
   else {
-    const check = verifyTravellerCode(parsed, data.travellerKey, tray.revision);
-    if (check.status === 'bad_signature') verdict = { status: 'forged' };
-    else if (check.status === 'void_traveller') verdict = { status: 'void', currentRevision: check.currentRevision, currentNumber: tray.number };
-    else if (check.status === 'unreadable') verdict = { status: 'unknown' };
+    if (parsed.form === 'qr' && !macValid(data.travellerKey, event.code, parsed)) verdict = { status: 'forged' };
+    else if (parsed.form === 'qr' && parsed.revision !== tray.revision) verdict = { status: 'void', currentRevision: tray.revision, currentNumber: tray.number };
   }
   const before = tray ? data.states.get(tray.id)! : null;
 
@@ -250,6 +248,25 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
     reasonCodes: data.reasonCodes,
   });
   return { result, tray, before, override, stationKind: station.kind };
+}
+
+/**
+ * Whether a QR code's MAC is right. A tray is scanned at every step, so each code's answer is
+ * remembered (per key; a bounded map) rather than computed again: the revision is still compared
+ * with the tray's current one on every scan.
+ */
+const macCache = new WeakMap<Uint8Array, Map<string, boolean>>();
+const MAC_CACHE_MAX = 50_000;
+function macValid(key: Uint8Array, code: string, parsed: NonNullable<ReturnType<typeof parseTravellerCode>>): boolean {
+  let cache = macCache.get(key);
+  if (!cache) macCache.set(key, (cache = new Map()));
+  const known = cache.get(code);
+  if (known !== undefined) return known;
+  // verified against its own revision: only the MAC is in question here
+  const ok = verifyTravellerCode(parsed, key, parsed.form === 'qr' ? parsed.revision : 1).status !== 'bad_signature';
+  if (cache.size >= MAC_CACHE_MAX) cache.delete(cache.keys().next().value!);
+  cache.set(code, ok);
+  return ok;
 }
 
 function invalid(reason: string): GuardResult {

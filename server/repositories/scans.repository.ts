@@ -39,7 +39,12 @@ function prepareAll(c: Database.Database) {
     trayById: c.prepare(`select ${TRAY_COLS} from trays where id = ?`),
     statesByTrayIds: c.prepare(`select ${STATE_COLS} from tray_states where tray_id in ${IN_LIST}`),
     stepsByOrders: c.prepare(`select ${STEP_COLS} from order_steps where order_id in ${IN_LIST} order by order_id, seq`),
-    mouldsNotReady: c.prepare(`select om.order_id as orderId, sum(case when m.status = 'ready' then 0 else 1 end) as notReady
+    // a mould is ready for an order when it is marked ready, or when the order's own mould traveller
+    // for it has finished (engraved where new, and checked)
+    mouldsNotReady: c.prepare(`select om.order_id as orderId, sum(case when m.status = 'ready' then 0
+        when exists (select 1 from trays mt join tray_states ms on ms.tray_id = mt.id
+          where mt.order_id = om.order_id and mt.mould_id = m.id and mt.kind = 'mould' and ms.phase = 'done') then 0
+        else 1 end) as notReady
       from order_moulds om join moulds m on m.id = om.mould_id where om.order_id in ${IN_LIST} group by om.order_id`),
     openRetryable: c.prepare(`select ${REJECTION_COLS} from scan_rejections
       where tray_id in ${IN_LIST} and resolved_at is null and code in (select value from json_each(?))

@@ -42,6 +42,23 @@ function recordFailure(db: Db, user: UserRow, now: number) {
   usersRepository.update(db, user.id, { failedLogins: failures, throttledUntil: delay ? now + delay * 1000 : null });
 }
 
+/** Badge and PIN, with the same throttle and the same answer for an unknown badge as a wrong PIN. */
+function checkBadge(deps: AppDeps, badge: string, pin: string, inactiveMessage: string): UserRow {
+  const now = deps.now();
+  const user = usersRepository.byBadge(deps.db, badge);
+  if (!user || !user.pinHash) {
+    bcrypt.compareSync(pin, DUMMY_HASH);
+    throw invalid();
+  }
+  checkThrottle(user, now);
+  if (!bcrypt.compareSync(pin, user.pinHash)) {
+    recordFailure(deps.db, user, now);
+    throw invalid();
+  }
+  if (!user.active) throw new AppError(403, 'account_inactive', inactiveMessage);
+  return user;
+}
+
 async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, deviceId: string | null) {
   const now = deps.now();
   const sessionId = crypto.randomUUID();
@@ -85,36 +102,14 @@ export const authService = {
 
   /** Operators (and supervisors) on a registered tablet: badge plus PIN. */
   async badgeLogin(deps: AppDeps, device: DeviceAuth, badge: string, pin: string) {
-    const now = deps.now();
-    const user = usersRepository.byBadge(deps.db, badge);
-    if (!user || !user.pinHash) {
-      bcrypt.compareSync(pin, DUMMY_HASH);
-      throw invalid();
-    }
-    checkThrottle(user, now);
-    if (!bcrypt.compareSync(pin, user.pinHash)) {
-      recordFailure(deps.db, user, now);
-      throw invalid();
-    }
-    if (!user.active) throw new AppError(403, 'account_inactive', 'This badge is switched off. Ask a supervisor.');
+    const user = checkBadge(deps, badge, pin, 'This badge is switched off. Ask a supervisor.');
     const row = devicesRepository.byId(deps.db, device.id);
     return startSession(deps, user, row?.idleMinutes ?? 10, device.id);
   },
 
   /** Checks a badge and PIN without starting a session (a supervisor approving an override). */
   verifyBadge(deps: AppDeps, badge: string, pin: string): UserRow {
-    const now = deps.now();
-    const user = usersRepository.byBadge(deps.db, badge);
-    if (!user || !user.pinHash) {
-      bcrypt.compareSync(pin, DUMMY_HASH);
-      throw invalid();
-    }
-    checkThrottle(user, now);
-    if (!bcrypt.compareSync(pin, user.pinHash)) {
-      recordFailure(deps.db, user, now);
-      throw invalid();
-    }
-    if (!user.active) throw new AppError(403, 'account_inactive', 'This badge is switched off.');
+    const user = checkBadge(deps, badge, pin, 'This badge is switched off.');
     usersRepository.update(deps.db, user.id, { failedLogins: 0, throttledUntil: null });
     return user;
   },

@@ -88,7 +88,13 @@ export function syncOrderStatus(tx: DbLike, orderId: string, now: number): 'ship
  * finish packing and dispatch (a finish with every piece scrapped can complete an order too).
  */
 function statusAfterScans(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps): void {
-  const orderIds = new Set(accepted.filter((a) => a.type === 'finish').map((a) => a.orderId));
+  // Only a finish at packing or dispatch, or one that ends a tray (done, or every piece scrapped),
+  // can change the order's status: other finishes skip the order's progress read.
+  const orderIds = new Set(
+    accepted
+      .filter((a) => a.type === 'finish' && (a.stationKind === 'pack' || a.stationKind === 'dispatch' || a.state.phase === 'done' || a.state.phase === 'scrapped'))
+      .map((a) => a.orderId),
+  );
   for (const orderId of orderIds) syncOrderStatus(tx, orderId, deps.now());
 }
 if (!scanHooks.inTransaction.includes(statusAfterScans)) scanHooks.inTransaction.push(statusAfterScans);

@@ -21,7 +21,7 @@ export function openDb(file: string): Db {
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
   sqlite.pragma('temp_store = MEMORY');
-  sqlite.pragma('cache_size = -32000');
+  sqlite.pragma('cache_size = -16000');
   return drizzle(sqlite, { schema }) as Db;
 }
 

@@ -3,7 +3,7 @@ import { FLOOR_LEADS } from '@shared/domain/access';
 import { queryClient } from '@/lib/query-client';
 import { useMe } from '@/features/auth/api/get-me';
 import { scanExceptionsQueryOptions, useScanExceptions } from '@/features/scan-exceptions/api/get-scan-exceptions';
-import { ScanExceptionsList } from '@/features/scan-exceptions/components/ScanExceptionsList';
+import { ScanExceptionsList } from '@/features/scan-exceptions/components/scan-exceptions-list';
 import { ErrorPanel, Loading, PageHeader } from '@/components/ui/panels';
 import { SelectField } from '@/components/ui/field';
 

@@ -1,6 +1,6 @@
 import { I18nextProvider } from 'react-i18next';
 import { stationI18n } from '@/features/station/i18n/station-i18n';
-import { PairScreen } from '@/features/station/components/PairScreen';
+import { PairScreen } from '@/features/station/components/pair-screen';
 
 export function Component() {
   return (

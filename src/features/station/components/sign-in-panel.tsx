@@ -8,7 +8,7 @@ import { stationDb } from '../lib/station-db';
 import { checkPin, makePinVerifier, OFFLINE_SIGN_IN_HOURS } from '../lib/pin-verifier';
 import { useLive, useWedgeScanner } from '../lib/hooks';
 import { playFeedback, unlockAudio } from '../lib/feedback';
-import { PinPad } from './PinPad';
+import { PinPad } from './pin-pad';
 
 export interface Operator {
   id: string;

@@ -16,9 +16,9 @@ import { SyncEngine } from '../lib/sync-engine';
 import { useLive } from '../lib/hooks';
 import { setStationLang } from '../i18n/station-i18n';
 import type { StationLang } from '../lib/refusal-text';
-import { SignInPanel, type Operator } from './SignInPanel';
-import { StationScreen } from './StationScreen';
-import type { StationInfo } from './TrayPanel';
+import { SignInPanel, type Operator } from './sign-in-panel';
+import { StationScreen } from './station-screen';
+import type { StationInfo } from './tray-panel';
 
 const OPERATOR_KEY = 'operator';
 const LANG_KEY = 'lang';

@@ -18,16 +18,16 @@ import { describeRefusal, type StationLang } from '../lib/refusal-text';
 import { formatClock, stepLabel } from '../lib/format';
 import { resizePhoto } from '../lib/photo';
 import { newId } from '../lib/ids';
-import { NetStatus } from './NetStatus';
-import { FeedbackBanner, type FeedbackView } from './FeedbackBanner';
-import { CameraScanner } from './CameraScanner';
-import { TrayPanel, type StationInfo, type TrayAction } from './TrayPanel';
-import { FinishPanel, type FinishCounts } from './FinishPanel';
-import { HoldPanel } from './HoldPanel';
-import { OverridePanel } from './OverridePanel';
-import { QueueLists, type QueueItem } from './QueueLists';
-import { RefusedPanel } from './RefusedPanel';
-import type { Operator } from './SignInPanel';
+import { NetStatus } from './net-status';
+import { FeedbackBanner, type FeedbackView } from './feedback-banner';
+import { CameraScanner } from './camera-scanner';
+import { TrayPanel, type StationInfo, type TrayAction } from './tray-panel';
+import { FinishPanel, type FinishCounts } from './finish-panel';
+import { HoldPanel } from './hold-panel';
+import { OverridePanel } from './override-panel';
+import { QueueLists, type QueueItem } from './queue-lists';
+import { RefusedPanel } from './refused-panel';
+import type { Operator } from './sign-in-panel';
 
 type Panel = null | 'finish' | 'hold' | { override: 'wrong_station' | 'curing' | 'release'; retry: Omit<ScanEvent, 'id' | 'occurredAt' | 'code' | 'stationId'> };
 

@@ -4,7 +4,7 @@ import { ShieldCheck } from 'lucide-react';
 import { ApiError } from '@/lib/api-client';
 import type { OverrideView } from '@shared/schemas/scans';
 import { createOverride } from '../api/create-override';
-import { PinPad } from './PinPad';
+import { PinPad } from './pin-pad';
 
 /** A supervisor approves one scan on this tablet with badge, PIN and a reason; the server records it. */
 export function OverridePanel({

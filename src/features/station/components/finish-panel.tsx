@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { ReasonCodeView } from '@shared/schemas/stations';
 import type { StationLang } from '../lib/refusal-text';
-import { Stepper } from './Stepper';
+import { Stepper } from './stepper';
 
 export interface FinishCounts {
   goodQty: number;

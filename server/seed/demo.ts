@@ -12,13 +12,14 @@ import { trays, trayStates } from '../db/schema/trays';
 import { overrides, scanEvents, scanRejections } from '../db/schema/scans';
 import { cartons, shipments } from '../db/schema/shipping';
 import { hashSecret } from '../services/auth.service';
+import { rowFromState, stateFromRow } from '../services/scans.service';
 import { ordersService, routingOf as routingOfOrder } from '../services/orders.service';
 import { ordersRepository } from '../repositories/orders.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { randomToken, sha256Hex } from '../lib/keys';
 import { orderSpecSchema } from '@shared/schemas/orders';
 import { planCartons } from '@shared/domain/shipping';
-import type { Process, Role, RoutingStep, StationKind, TrayState } from '@shared/domain/vocabulary';
+import type { Process, Role, RoutingStep, StationKind } from '@shared/domain/vocabulary';
 import { DEMO_FACTORY, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 import { DEMO_CREW, STATION_CREW } from './demo-crew';
 import { planOrders, DEMO_CUSTOMERS, type OrderPlan } from './demo-catalogue';
@@ -279,7 +280,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           const row = db.select().from(trayStates).where(eq(trayStates.trayId, t.id)).get()!;
           const routing = trayRoutes[t.kind];
           routingOf.set(t.id, routing);
-          simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateOfRow(row) });
+          simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateFromRow(row) });
         }
       }
     }
@@ -433,7 +434,8 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     for (const [id, patch] of orderPatches) tx.update(orders).set(patch).where(eq(orders.id, id)).run();
     for (const [id, patch] of mouldPatches) tx.update(moulds).set(patch).where(eq(moulds.id, id)).run();
     for (const t of simTravellers) {
-      const { trayId, ...row } = stateRow(sim.states.get(t.id)!, t.routing);
+      const state = sim.states.get(t.id)!;
+      const { trayId, ...row } = rowFromState(state, t.routing, Date.parse(state.lastEventAt ?? state.releasedAt));
       tx.update(trayStates).set(row).where(eq(trayStates.trayId, trayId)).run();
     }
     insertMany(tx, overrides, sim.overrides);
@@ -455,48 +457,3 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   lap('written');
 }
 
-const ms = (iso: string | null | undefined) => (iso ? Date.parse(iso) : null);
-const isoOf = (t: number | null) => (t == null ? null : new Date(t).toISOString());
-
-/** A stored traveller state as the guard reads it. */
-export function stateOfRow(r: typeof trayStates.$inferSelect): TrayState {
-  return {
-    trayId: r.trayId,
-    kind: r.kind,
-    phase: r.phase,
-    stepSeq: r.stepSeq,
-    quantity: r.quantity,
-    stationId: r.stationId,
-    startedAt: isoOf(r.startedAt),
-    waitingSince: isoOf(r.waitingSince),
-    cureReadyAt: isoOf(r.cureReadyAt),
-    onHold: r.onHold,
-    holdReason: r.holdReason,
-    releasedAt: isoOf(r.releasedAt)!,
-    lastEventAt: isoOf(r.lastEventAt),
-  };
-}
-
-/** The stored row of a traveller's state (the guard's state, instants as epoch ms). */
-export function stateRow(s: TrayState, routing: readonly RoutingStep[]): typeof trayStates.$inferInsert {
-  const step = s.stepSeq != null ? routing.find((r) => r.seq === s.stepSeq) : undefined;
-  const releasedAt = Date.parse(s.releasedAt);
-  const lastEventAt = ms(s.lastEventAt);
-  return {
-    trayId: s.trayId,
-    kind: s.kind,
-    phase: s.phase,
-    stepSeq: s.stepSeq,
-    stationKind: step?.stationKind ?? null,
-    quantity: s.quantity,
-    stationId: s.stationId,
-    startedAt: ms(s.startedAt),
-    waitingSince: ms(s.waitingSince),
-    cureReadyAt: ms(s.cureReadyAt),
-    onHold: s.onHold,
-    holdReason: s.holdReason,
-    releasedAt,
-    lastEventAt,
-    updatedAt: lastEventAt ?? releasedAt,
-  };
-}

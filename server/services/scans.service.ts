@@ -82,7 +82,8 @@ export function stateFromRow(r: TrayStateRow): TrayState {
   };
 }
 
-function rowFromState(s: TrayState, routing: readonly RoutingStep[], now: number): TrayStateRow {
+/** The stored row of a traveller's state (the guard's state, instants as epoch ms). */
+export function rowFromState(s: TrayState, routing: readonly RoutingStep[], now: number): TrayStateRow {
   const step = s.stepSeq == null ? undefined : routing.find((r) => r.seq === s.stepSeq);
   return {
     trayId: s.trayId,

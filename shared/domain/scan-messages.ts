@@ -2,28 +2,7 @@
 // tablet says the same thing in its own language from the same code and params.
 
 import type { RefusalParams } from './guards';
-import type { RejectionCode, StationKind } from './vocabulary';
-
-export const STATION_KIND_NAMES: Record<StationKind, string> = {
-  engrave: 'mould engraving',
-  mould_check: 'mould check',
-  strike: 'die striking',
-  cast: 'zinc die casting',
-  trim: 'trimming',
-  post: 'post fitting',
-  fill: 'colour fill',
-  cure: 'curing oven',
-  stone: 'stoning',
-  polish: 'polishing',
-  plate: 'plating',
-  print: 'screen printing',
-  epoxy: 'epoxy',
-  inspect: 'final inspection',
-  clutch: 'clutch fitting',
-  bag: 'bagging',
-  pack: 'packing',
-  dispatch: 'dispatch',
-};
+import { STATION_KIND_NAMES, type RejectionCode, type StationKind } from './vocabulary';
 
 export interface PlainMessage {
   /** a few words, shown large */

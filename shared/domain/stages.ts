@@ -1,6 +1,6 @@
 // Where an order stands, told the way a customer or a sales person understands it: a short
 // progress line of seven stages instead of twenty station steps.
-import { STATION_KINDS, type OrderStatus, type RoutingStep, type StationKind, type TrayPhase, type TravellerKind } from './vocabulary';
+import { STATION_KINDS, STATION_KIND_NAMES, type OrderStatus, type RoutingStep, type StationKind, type TrayPhase, type TravellerKind } from './vocabulary';
 
 export const CUSTOMER_STAGES = [
   'artwork_moulds',
@@ -60,28 +60,6 @@ export const STAGE_OF_STATION_KIND: Record<StationKind, CustomerStage> = {
   bag: 'packing',
   pack: 'packing',
   dispatch: 'packing',
-};
-
-/** Plain names of the station kinds, for the sales view. */
-export const STATION_KIND_NAMES: Record<StationKind, string> = {
-  engrave: 'mould engraving',
-  mould_check: 'mould check',
-  strike: 'die striking',
-  cast: 'zinc die casting',
-  trim: 'trimming',
-  post: 'post fitting',
-  fill: 'colour fill',
-  cure: 'curing oven',
-  stone: 'stoning',
-  polish: 'polishing',
-  plate: 'plating',
-  print: 'screen printing',
-  epoxy: 'epoxy',
-  inspect: 'final inspection',
-  clutch: 'clutch fitting',
-  bag: 'bagging',
-  pack: 'packing',
-  dispatch: 'dispatch',
 };
 
 /** What the stage computation needs to know about one traveller (tray or mould). */

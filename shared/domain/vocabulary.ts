@@ -25,6 +25,28 @@ export const STATION_KINDS = [
 ] as const;
 export type StationKind = (typeof STATION_KINDS)[number];
 
+/** Plain English names of the station kinds (the tablet has its own translations). */
+export const STATION_KIND_NAMES: Record<StationKind, string> = {
+  engrave: 'mould engraving',
+  mould_check: 'mould check',
+  strike: 'die striking',
+  cast: 'zinc die casting',
+  trim: 'trimming',
+  post: 'post fitting',
+  fill: 'colour fill',
+  cure: 'curing oven',
+  stone: 'stoning',
+  polish: 'polishing',
+  plate: 'plating',
+  print: 'screen printing',
+  epoxy: 'epoxy',
+  inspect: 'final inspection',
+  clutch: 'clutch fitting',
+  bag: 'bagging',
+  pack: 'packing',
+  dispatch: 'dispatch',
+};
+
 export const PROCESSES = ['hard_enamel', 'soft_enamel', 'die_struck', 'printed', 'die_cast_3d'] as const;
 export type Process = (typeof PROCESSES)[number];
 

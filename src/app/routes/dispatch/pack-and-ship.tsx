@@ -1,7 +1,7 @@
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { Trash2 } from 'lucide-react';
 import { SHIPPING } from '@shared/domain/access';
-import { STATION_KIND_NAMES } from '@shared/domain/stages';
+import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
 import type { StationKind } from '@shared/domain/vocabulary';
 import type { TrayOnFloor } from '@shared/schemas/shipping';
 import { queryClient } from '@/lib/query-client';

@@ -2,7 +2,7 @@ import { useEffect, useState, type ReactNode } from 'react';
 import { AlertOctagon, Clock, Flame, Hand, Hourglass, PackageCheck, PauseCircle, ShieldAlert, Timer, TrendingUp, Wrench } from 'lucide-react';
 import type { WallView } from '@shared/schemas/live';
 import type { WipKind } from '@shared/schemas/reports';
-import { STATION_KIND_NAMES } from '@shared/domain/stages';
+import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
 import type { StationKind } from '@shared/domain/vocabulary';
 import { factoryTime, minutesText } from '@/lib/duration';
 

@@ -5,7 +5,7 @@ import { describeRefusal, type StationLang } from '../lib/refusal-text';
 import { formatClock, formatDateTime } from '../lib/format';
 
 /** Scans the server refused after the fact (say, after a sync): shown until the operator has seen them. */
-export function RefusedPanel({ entries, lang, onSeen }: { entries: OutboxEntry[]; lang: StationLang; onSeen: (id: string) => void }) {
+export function RefusedPanel({ entries, lang, reasonName, onSeen }: { entries: OutboxEntry[]; lang: StationLang; reasonName: (code: string) => string; onSeen: (id: string) => void }) {
   const { t } = useTranslation('station');
   if (entries.length === 0) return null;
   return (
@@ -16,7 +16,7 @@ export function RefusedPanel({ entries, lang, onSeen }: { entries: OutboxEntry[]
       <p>{t('refusedList.supervisorKnows')}</p>
       <ul className="flex flex-col gap-2">
         {entries.map((e) => {
-          const m = e.code ? describeRefusal(lang, e.code, e.params ?? {}, (iso) => formatClock(lang, iso)) : null;
+          const m = e.code ? describeRefusal(lang, e.code, e.params ?? {}, (iso) => formatClock(lang, iso), reasonName) : null;
           return (
             <li key={e.id} data-testid="refused-row" className="flex items-start justify-between gap-3 rounded-xl bg-white p-3">
               <div>

@@ -14,7 +14,7 @@ import type { SyncEngine } from '../lib/sync-engine';
 import { evaluateLocal, localVerdict, replayState } from '../lib/local-guard';
 import { useExternal, useIdle, useLive, useNow, useWedgeScanner } from '../lib/hooks';
 import { playFeedback, unlockAudio, type FeedbackKind } from '../lib/feedback';
-import { describeRefusal, type StationLang } from '../lib/refusal-text';
+import { describeRefusal, reasonNamer, type StationLang } from '../lib/refusal-text';
 import { formatClock, stepLabel } from '../lib/format';
 import { resizePhoto } from '../lib/photo';
 import { newId } from '../lib/ids';
@@ -77,6 +77,7 @@ export function StationScreen({
   const photoInput = useRef<HTMLInputElement>(null);
   const guardStation = useMemo(() => ({ id: station.id, kind: station.kind, name: station.name }), [station]);
   const reasonCodes = useMemo(() => reasons.map((r) => r.code), [reasons]);
+  const reasonName = useMemo(() => reasonNamer(reasons, lang), [reasons, lang]);
   const time = useCallback((iso: unknown) => formatClock(lang, iso), [lang]);
 
   const idle = useIdle(idleMinutes, onSignOut, true);
@@ -142,11 +143,11 @@ export function StationScreen({
   useEffect(() => {
     if (refusedUnseen.length > lastRefusals.current) {
       const e = refusedUnseen[refusedUnseen.length - 1];
-      const m = e.code ? describeRefusal(lang, e.code, e.params ?? {}, time) : null;
+      const m = e.code ? describeRefusal(lang, e.code, e.params ?? {}, time, reasonName) : null;
       say('refused', { title: `${t('feedback.serverRefused')}: ${e.trayNumber}`, detail: m ? `${m.title}. ${m.detail}` : undefined, next: m?.next });
     }
     lastRefusals.current = refusedUnseen.length;
-  }, [refusedUnseen, lang, say, t, time]);
+  }, [refusedUnseen, lang, say, t, time, reasonName]);
 
   // --- scanning ---------------------------------------------------------------------------
   const openCode = useCallback(
@@ -207,7 +208,7 @@ export function StationScreen({
       if (card && state) {
         const r = evaluateLocal({ card, state, station: guardStation, event, now: engine.now(), role: operator.role, overrideId, reasonCodes });
         if (!r.ok) {
-          const m = describeRefusal(lang, r.code, r.params, time);
+          const m = describeRefusal(lang, r.code, r.params, time, reasonName);
           const retry = { type, ...extra };
           say('refused', {
             title: m.title,
@@ -347,9 +348,9 @@ export function StationScreen({
       <main className="grid flex-1 gap-4 p-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
           {feedback && <FeedbackBanner feedback={feedback} />}
-          {refusedUnseen.length > 0 && <RefusedPanel entries={refusedUnseen} lang={lang} onSeen={(id) => void engine.markSeen(id)} />}
+          {refusedUnseen.length > 0 && <RefusedPanel entries={refusedUnseen} lang={lang} reasonName={reasonName} onSeen={(id) => void engine.markSeen(id)} />}
           {current && shown ? (
-            <TrayPanel number={current.number} card={shown.card} state={shown.state} station={station} lang={lang} now={now} onAction={onAction} onClose={() => (setCurrent(null), setPanel(null))}>
+            <TrayPanel number={current.number} card={shown.card} state={shown.state} station={station} lang={lang} reasonName={reasonName} now={now} onAction={onAction} onClose={() => (setCurrent(null), setPanel(null))}>
               {panel === 'finish' && (
                 <FinishPanel
                   key={current.number}

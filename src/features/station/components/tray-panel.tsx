@@ -46,6 +46,7 @@ export function TrayPanel({
   state,
   station,
   lang,
+  reasonName,
   now,
   onAction,
   onClose,
@@ -56,6 +57,8 @@ export function TrayPanel({
   state: TrayState | null;
   station: StationInfo;
   lang: StationLang;
+  /** a hold reason's code → its name in the tablet's language */
+  reasonName: (code: string) => string;
   now: number;
   onAction: (a: TrayAction) => void;
   onClose: () => void;
@@ -79,7 +82,7 @@ export function TrayPanel({
       case 'hold':
         return (
           <p className="flex items-center gap-2 text-xl font-bold text-warn-700">
-            <Hand className="h-6 w-6" aria-hidden /> {t('card.onHold')} {state?.holdReason ? `· ${t('card.holdReason', { reason: state.holdReason })}` : ''}
+            <Hand className="h-6 w-6" aria-hidden /> {t('card.onHold')} {state?.holdReason ? `· ${t('card.holdReason', { reason: reasonName(state.holdReason) })}` : ''}
           </p>
         );
       case 'here':

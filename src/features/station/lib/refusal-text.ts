@@ -99,7 +99,22 @@ function refusalZh(code: RejectionCode, p: RefusalParams, time: (iso: unknown) =
   }
 }
 
-/** A refusal in the tablet's language. */
-export function describeRefusal(lang: StationLang, code: RejectionCode, params: RefusalParams = {}, time: (iso: unknown) => string): PlainMessage {
-  return lang === 'zh-CN' ? refusalZh(code, params, time) : refusalMessage(code, params, time);
+/** A refusal in the tablet's language; `reasonName` turns a hold reason's code into its name. */
+export function describeRefusal(
+  lang: StationLang,
+  code: RejectionCode,
+  params: RefusalParams = {},
+  time: (iso: unknown) => string,
+  reasonName: (code: string) => string = (c) => c,
+): PlainMessage {
+  const named = typeof params.holdReason === 'string' ? { ...params, holdReason: reasonName(params.holdReason) } : params;
+  return lang === 'zh-CN' ? refusalZh(code, named, time) : refusalMessage(code, named, time);
+}
+
+/** The name of a reason code in the tablet's language; free text (a note) stays as typed. */
+export function reasonNamer(reasons: readonly { code: string; name: string; nameZh: string }[], lang: StationLang): (code: string) => string {
+  return (code) => {
+    const r = reasons.find((x) => x.code === code);
+    return r ? (lang === 'zh-CN' ? r.nameZh : r.name) : code;
+  };
 }

@@ -73,6 +73,7 @@ function prepareAll(c: Database.Database) {
     rollbackTo: c.prepare('rollback to savepoint scan_batch'),
     stations: c.prepare('select id, code, name, kind, active from stations'),
     reasonCodes: c.prepare('select code from reason_codes where active = 1').pluck(),
+    reasonNames: c.prepare('select code, name from reason_codes'),
   };
 }
 
@@ -89,7 +90,7 @@ function q(db: Db) {
 
 /** Stations and reason codes change rarely (an admin's edit); a scan batch reads them from a 5-second cache. */
 const REFERENCE_TTL_MS = 5000;
-const reference = new WeakMap<Database.Database, { at: number; stations: StationRef[]; reasonCodes: string[] }>();
+const reference = new WeakMap<Database.Database, { at: number; stations: StationRef[]; reasonCodes: string[]; reasonNames: Map<string, string> }>();
 export interface StationRef {
   id: string;
   code: string;
@@ -107,6 +108,7 @@ function referenceData(db: Db) {
       at: now,
       stations: (p.stations.all() as (Omit<StationRef, 'active'> & { active: number })[]).map((s) => ({ ...s, active: !!s.active })),
       reasonCodes: p.reasonCodes.all() as string[],
+      reasonNames: new Map((p.reasonNames.all() as { code: string; name: string }[]).map((x) => [x.code, x.name])),
     };
     reference.set(c, r);
   }
@@ -141,6 +143,9 @@ export const scansRepository = {
   stations: (db: Db): StationRef[] => referenceData(db).stations,
 
   reasonCodes: (db: Db): string[] => referenceData(db).reasonCodes,
+
+  /** reason code → English name, for the refusal texts supervisors read */
+  reasonNames: (db: Db): Map<string, string> => referenceData(db).reasonNames,
 
   overridesByIds: (db: Db, ids: string[]) => (ids.length ? db.select().from(overrides).where(inArray(overrides.id, ids)).all() : []),
 

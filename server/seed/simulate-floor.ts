@@ -20,6 +20,12 @@ import { refusalText } from '@shared/domain/scan-messages';
 import type { Role, RoutingStep, ScanType, StationKind, TrayState } from '@shared/domain/vocabulary';
 import { initialTrayState, standardMinutes } from '@shared/domain/vocabulary';
 import type { Rng } from './prng';
+import { DEFAULT_REASON_CODES } from './base';
+
+const REASON_NAMES = new Map(DEFAULT_REASON_CODES.map((r) => [r.code, r.name]));
+/** Refusal texts name a hold reason, as the scan service writes them. */
+const named = (params: Record<string, string | number | null>) =>
+  typeof params.holdReason === 'string' && REASON_NAMES.has(params.holdReason) ? { ...params, holdReason: REASON_NAMES.get(params.holdReason)! } : params;
 
 export const MINUTE = 60_000;
 export const HOUR = 60 * MINUTE;
@@ -415,7 +421,7 @@ export function simulateFloor(input: SimInput): SimResult {
       deviceId: station.deviceId,
       userId,
       code: res.code,
-      message: refusalText(res.code, res.params),
+      message: refusalText(res.code, named(res.params)),
       payload: { event: { id: eventId, code: t.number, stationId: station.id, type, occurredAt: iso(at), ...extra }, params: res.params },
       occurredAt: at,
       receivedAt: at + rng.int(1, 20) * 1000,

@@ -8,7 +8,7 @@ import { authService } from './auth.service';
 import { notifyFloorChanged } from './live-bus';
 import { AppError, badInput, conflict, notFound } from '../errors';
 import { putFile, readFile } from '../lib/file-store';
-import { evaluateScan, lastEventTime, type GuardResult, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
+import { evaluateScan, lastEventTime, type GuardResult, type RefusalParams, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
 import { refusalText } from '@shared/domain/scan-messages';
 import { parseTravellerCode, verifyTravellerCode } from '@shared/domain/traveller-code';
 import {
@@ -140,6 +140,7 @@ class BatchData {
   readonly mouldReady = new Map<string, boolean>();
   readonly stations: Map<string, { id: string; code: string; name: string; kind: StationKind; active: boolean }>;
   readonly reasonCodes: string[];
+  readonly reasonNames: Map<string, string>;
   readonly overrides = new Map<string, OverrideRow>();
   readonly usedOverrides = new Set<string>();
 
@@ -149,6 +150,13 @@ class BatchData {
   ) {
     this.stations = new Map(scansRepository.stations(db).map((s) => [s.id, { ...s, kind: s.kind as StationKind }]));
     this.reasonCodes = scansRepository.reasonCodes(db);
+    this.reasonNames = scansRepository.reasonNames(db);
+  }
+
+  /** Refusal params with a hold reason's code replaced by its name, for texts people read. */
+  named(params: RefusalParams): RefusalParams {
+    const code = params.holdReason;
+    return typeof code === 'string' && this.reasonNames.has(code) ? { ...params, holdReason: this.reasonNames.get(code)! } : params;
   }
 
   loadTrays(numbers: string[], ids: string[] = []) {
@@ -312,7 +320,7 @@ function refusalResult(id: string, e: Evaluated, data: BatchData): ScanResult {
     id,
     status: 'rejected',
     code: r.code,
-    message: refusalText(r.code, r.params),
+    message: refusalText(r.code, data.named(r.params)),
     ...(r.minutesLeft != null ? { minutesLeft: r.minutesLeft } : {}),
     params: r.params,
     ...(e.tray && e.before ? { tray: traySummary(e.tray, e.before, data.routing(e.tray)) } : {}),
@@ -539,7 +547,7 @@ export const scansService = {
         const e = evaluate(data, prepared, now);
         if (!e.result.ok) {
           const r = e.result;
-          scansRepository.updateRejection(tx, id, { code: r.code, message: refusalText(r.code, r.params), payload: { event, params: r.params } });
+          scansRepository.updateRejection(tx, id, { code: r.code, message: refusalText(r.code, data.named(r.params)), payload: { event, params: r.params } });
           return refusalResult(event.id, e, data);
         }
         const ok = e.result;
@@ -717,7 +725,7 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
       results.push({ id: event.id, status: 'accepted', tray: traySummary(e.tray!, ok.next, data.routing(e.tray!)) });
     } else {
       const r = e.result;
-      newRejections.push(rejectionRow(prepared, p.raw, e, r.code, r.params, deviceId, prepared.operator?.id ?? caller.user?.id ?? null, now));
+      newRejections.push(rejectionRow(prepared, p.raw, e, r.code, data.named(r.params), deviceId, prepared.operator?.id ?? caller.user?.id ?? null, now));
       results.push(refusalResult(event.id, e, data));
     }
     resultIndexByEvent.set(event.id, results.length - 1);

@@ -140,7 +140,10 @@ describe('POST /api/scans: every rejection code', () => {
     await expectRefused(scan(tray.code, ST['STR-1'], 'release', now() - 9 * MIN), 'not_on_hold');
     await post([scan(tray.code, ST['STR-1'], 'hold', now() - 8 * MIN, { scrapReason: 'hold_quality', note: 'burr on the edge' })]);
     expect(stateOf(tray.id)).toMatchObject({ onHold: true, holdReason: 'hold_quality' });
-    await expectRefused(scan(tray.code, ST['STR-1'], 'start', now() - 7 * MIN), 'on_hold');
+    const held = await expectRefused(scan(tray.code, ST['STR-1'], 'start', now() - 7 * MIN), 'on_hold');
+    // the text supervisors read names the reason (the base seed's hold_quality), not its code
+    expect(held.message).toContain('Quality question');
+    expect(held.message).not.toContain('hold_quality');
     const r = await expectRefused(scan(tray.code, ST['STR-1'], 'release', now() - 6 * MIN), 'bad_override');
     expect(r.params).toMatchObject({ reason: 'release_needs_supervisor' });
     const released = await post([scan(tray.code, ST['STR-1'], 'release', now() - 5 * MIN)], supervisorAgent);

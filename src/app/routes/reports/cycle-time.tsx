@@ -1,9 +1,7 @@
 import { REPORT_READERS } from '@shared/domain/access';
 import type { Summary } from '@shared/schemas/reports';
-import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
-import { useReportFilterOptions } from '@/features/reports/api/get-filters';
-import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
-import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
+import { useReportPage } from '@/features/reports/api/use-report-page';
 import { Bars } from '@/features/reports/components/charts';
 import { useStations } from '@/features/stations/api/get-stations';
 import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
@@ -15,19 +13,13 @@ export const handle = { roles: REPORT_READERS };
 const cells = (s: Summary) => [s.n, s.p50 ?? '–', s.p85 ?? '–', s.p95 ?? '–', s.mean ?? '–'];
 
 export function Component() {
-  const [filters, setFilters] = useReportFilters();
-  const params = filterParams(filters, { station: true });
-  const report = useReport('cycle-time', params);
-  const options = useReportFilterOptions();
+  const { filters, report, frame } = useReportPage('cycle-time', { station: true });
   const stations = useStations();
   const r = report.data;
   return (
     <ReportFrame
-      filters={filters}
-      onChange={setFilters}
-      customers={options.data?.customers ?? []}
+      {...frame}
       stations={stations.data ?? []}
-      csvUrl={reportCsvUrl('cycle-time', params)}
       note="Queue time runs from the previous step’s finish (or the end of a cure, or release) to the start; process time from start to finish. Minutes of the clock."
     >
       {report.isPending ? (

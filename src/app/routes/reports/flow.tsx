@@ -1,8 +1,6 @@
 import { REPORT_READERS } from '@shared/domain/access';
-import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
-import { useReportFilterOptions } from '@/features/reports/api/get-filters';
-import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
-import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
+import { useReportPage } from '@/features/reports/api/use-report-page';
 import { Bars, CumulativeFlow, Lines } from '@/features/reports/components/charts';
 import { ErrorPanel, Loading } from '@/components/ui/panels';
 
@@ -11,19 +9,12 @@ export const handle = { roles: REPORT_READERS };
 const STAGE_NAMES: Record<string, string> = { released: 'Released', started: 'Started', inspected: 'Inspected', packed: 'Packed', shipped: 'Shipped' };
 
 export function Component() {
-  const [filters, setFilters] = useReportFilters();
-  const params = filterParams(filters, { bucket: true });
-  const report = useReport('flow', params);
-  const options = useReportFilterOptions();
+  const { filters, report, frame } = useReportPage('flow', { bucket: true });
   const r = report.data;
   const per = filters.bucket === 'week' ? 'week' : 'day';
   return (
     <ReportFrame
-      filters={filters}
-      onChange={setFilters}
-      customers={options.data?.customers ?? []}
-      bucket
-      csvUrl={reportCsvUrl('flow', params)}
+      {...frame}
       note="Counted in trays. The diagram shows only what has happened; trays scrapped whole leave it."
     >
       {report.isPending ? (

@@ -1,9 +1,7 @@
 import { createColumnHelper } from '@tanstack/react-table';
 import type { LeadTimeOrder, Summary } from '@shared/schemas/reports';
-import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
-import { useReportFilterOptions } from '@/features/reports/api/get-filters';
-import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
-import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
+import { useReportPage } from '@/features/reports/api/use-report-page';
 import { Histogram, Lines, bins } from '@/features/reports/components/charts';
 import { DataTable } from '@/components/ui/data-table';
 import { Card, ErrorPanel, Loading, Pill } from '@/components/ui/panels';
@@ -28,17 +26,11 @@ const columnsFor = (tz: string) => [
 ];
 
 export function Component() {
-  const [filters, setFilters] = useReportFilters();
-  const params = filterParams(filters);
-  const report = useReport('lead-time', params);
-  const options = useReportFilterOptions();
+  const { report, frame } = useReportPage('lead-time');
   const r = report.data;
   return (
     <ReportFrame
-      filters={filters}
-      onChange={setFilters}
-      customers={options.data?.customers ?? []}
-      csvUrl={reportCsvUrl('lead-time', params)}
+      {...frame}
       note="Lead time runs from release to the dispatch scan of the order’s last tray; working hours count only the factory’s shifts."
     >
       {report.isPending ? (

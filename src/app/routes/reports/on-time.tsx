@@ -1,7 +1,5 @@
-import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
-import { useReportFilterOptions } from '@/features/reports/api/get-filters';
-import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
-import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
+import { useReportPage } from '@/features/reports/api/use-report-page';
 import { Bars } from '@/features/reports/components/charts';
 import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
 import { percentText } from '@/lib/duration';
@@ -10,18 +8,11 @@ import { WITH_SALES } from './layout';
 export const handle = { roles: WITH_SALES };
 
 export function Component() {
-  const [filters, setFilters] = useReportFilters();
-  const params = filterParams(filters, { bucket: true });
-  const report = useReport('on-time', params);
-  const options = useReportFilterOptions();
+  const { filters, report, frame } = useReportPage('on-time', { bucket: true });
   const r = report.data;
   return (
     <ReportFrame
-      filters={filters}
-      onChange={setFilters}
-      customers={options.data?.customers ?? []}
-      bucket
-      csvUrl={reportCsvUrl('on-time', params)}
+      {...frame}
       note="An order is on time when its last tray left dispatch on or before its due date (factory time)."
     >
       {report.isPending ? (

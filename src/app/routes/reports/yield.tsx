@@ -1,10 +1,8 @@
 import { createColumnHelper } from '@tanstack/react-table';
 import { REPORT_READERS } from '@shared/domain/access';
 import type { YieldOrder } from '@shared/schemas/reports';
-import { reportCsvUrl, useReport } from '@/features/reports/api/get-report';
-import { useReportFilterOptions } from '@/features/reports/api/get-filters';
-import { ChartAndTable, ReportFrame, StatTable, filterParams } from '@/features/reports/components/report-frame';
-import { useReportFilters } from '@/features/reports/components/use-report-filters';
+import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
+import { useReportPage } from '@/features/reports/api/use-report-page';
 import { Bars, Pareto } from '@/features/reports/components/charts';
 import { useStations } from '@/features/stations/api/get-stations';
 import { DataTable } from '@/components/ui/data-table';
@@ -26,19 +24,13 @@ const columns = [
 ];
 
 export function Component() {
-  const [filters, setFilters] = useReportFilters();
-  const params = filterParams(filters, { station: true });
-  const report = useReport('yield', params);
-  const options = useReportFilterOptions();
+  const { report, frame } = useReportPage('yield', { station: true });
   const stations = useStations();
   const r = report.data;
   return (
     <ReportFrame
-      filters={filters}
-      onChange={setFilters}
-      customers={options.data?.customers ?? []}
+      {...frame}
       stations={stations.data ?? []}
-      csvUrl={reportCsvUrl('yield', params)}
       note="First-pass yield counts reworked pieces as not passed; final yield counts them as good. Rolled throughput yield multiplies the steps’ first-pass yields as exact ratios."
     >
       {report.isPending ? (

@@ -6,6 +6,7 @@
 // flow time is reported beside it, so a reader can see both.
 
 import { MINUTE, dateOfDayNumber, localDayNumber, utcOfLocal } from './calendar';
+import { countAtMost } from './stats';
 
 export interface FlowEfficiencyInput {
   processMinutes: number;
@@ -67,17 +68,6 @@ export function makeBuckets(timeZone: string, from: number, to: number, size: Bu
   return out;
 }
 
-function upperBound(sorted: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (sorted[mid] <= x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
 function lowerBound(sorted: Float64Array, x: number): number {
   let lo = 0;
   let hi = sorted.length;
@@ -136,7 +126,7 @@ export function cumulativeFlowOfItems(items: Iterable<ArrayLike<number>>, stageC
     }
   }
   const sorted = reached.map((r) => Float64Array.from(r).sort());
-  return at.map((t) => sorted.map((x) => upperBound(x, t)));
+  return at.map((t) => sorted.map((x) => countAtMost(x, t)));
 }
 
 /** Items between stage a (reached) and stage b (not yet reached) at each row of a CFD. */
@@ -166,7 +156,7 @@ export function wipOverTime(items: readonly Interval[], buckets: readonly Bucket
   return buckets.map((b) => {
     const to = Math.min(b.end, now);
     if (to <= b.start) return { average: 0, atEnd: 0 };
-    const atEnd = upperBound(starts, to) - upperBound(ends, to);
+    const atEnd = countAtMost(starts, to) - countAtMost(ends, to);
     return { average: averageWip(items, b.start, to, starts, ends), atEnd };
   });
 }
@@ -181,7 +171,7 @@ export function averageWip(items: readonly Interval[], from: number, to: number,
 
 /** integral over [from, to) of #{x in sorted : x <= t} dt */
 function integralCount(sorted: Float64Array, from: number, to: number): number {
-  const before = upperBound(sorted, from);
+  const before = countAtMost(sorted, from);
   let total = before * (to - from);
   for (let i = before; i < sorted.length && sorted[i] < to; i++) total += to - sorted[i];
   return total;

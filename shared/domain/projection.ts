@@ -14,7 +14,7 @@
 
 import type { Timeline, WorkingCalendar } from './calendar';
 import { MINUTE } from './calendar';
-import { quantileSorted, seededRandom } from './stats';
+import { countAtMost, quantileSorted, seededRandom } from './stats';
 
 export interface ProjectedStep {
   seq: number;
@@ -85,17 +85,6 @@ function model(samples: readonly number[]): QueueModel {
   return { sorted, suffix };
 }
 
-function firstAbove(sorted: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (sorted[mid] <= x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
 /** The measured queue times, sorted per kind: build once, use for many projections. */
 export class QueueTimes {
   private readonly byKind = new Map<string, QueueModel>();
@@ -122,14 +111,14 @@ export class QueueTimes {
     const m = this.pick(kind);
     if (!m) return Math.max(0, this.fallback - waited);
     // a tray still waiting after `waited` minutes has a queue longer than that
-    const i = waited > 0 ? firstAbove(m.sorted, waited) : 0;
+    const i = waited > 0 ? countAtMost(m.sorted, waited) : 0;
     const n = m.sorted.length - i;
     return n === 0 ? 0 : m.suffix[i] / n - waited;
   }
   sampleRemaining(kind: string, waited: number, rnd: () => number): number {
     const m = this.pick(kind);
     if (!m) return Math.max(0, this.fallback - waited);
-    const i = waited > 0 ? firstAbove(m.sorted, waited) : 0;
+    const i = waited > 0 ? countAtMost(m.sorted, waited) : 0;
     const n = m.sorted.length - i;
     if (n === 0) return 0;
     return m.sorted[i + Math.floor(rnd() * n)] - waited;

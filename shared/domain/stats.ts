@@ -106,3 +106,15 @@ export function seedOf(text: string): number {
   }
   return h >>> 0;
 }
+
+/** How many values of an ascending array are ≤ x (the index of the first value above x). */
+export function countAtMost(sorted: ArrayLike<number>, x: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (sorted[mid] <= x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}

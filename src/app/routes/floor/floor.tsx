@@ -1,13 +1,9 @@
-import { useCallback, useRef } from 'react';
 import { Link } from 'react-router';
-import { useQueryClient } from '@tanstack/react-query';
 import { Flame, MonitorPlay, Radio, WifiOff } from 'lucide-react';
 import { FLOOR_LEADS } from '@shared/domain/access';
-import type { WallView } from '@shared/schemas/live';
 import { queryClient } from '@/lib/query-client';
-import { liveKeys } from '@/features/live/api/live-keys';
 import { useWall, wallQueryOptions } from '@/features/live/api/get-wall';
-import { useLiveStream } from '@/features/live/api/use-live-stream';
+import { useLiveWall } from '@/features/live/api/use-live-wall';
 import { WallBoard } from '@/features/live/components/wall-board';
 import { ErrorPanel, Loading, PageHeader } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
@@ -18,20 +14,7 @@ export const loader = () => queryClient.ensureQueryData(wallQueryOptions());
 /** The supervisor's floor: the wall's picture inside the app, with the way to the big screen and the loads. */
 export function Component() {
   const wall = useWall();
-  const qc = useQueryClient();
-  const pending = useRef<ReturnType<typeof setTimeout> | null>(null);
-  const refresh = useCallback(() => {
-    if (pending.current) return;
-    pending.current = setTimeout(() => {
-      pending.current = null;
-      void qc.invalidateQueries({ queryKey: liveKeys.wall() });
-    }, 400);
-  }, [qc]);
-  const status = useLiveStream({
-    onWip: (wip) => qc.setQueryData<WallView>(liveKeys.wall(), (old) => (old ? { ...old, wip, asOf: wip.asOf } : old)),
-    onScan: refresh,
-    onRefusal: refresh,
-  });
+  const status = useLiveWall();
   return (
     <>
       <PageHeader

@@ -1,4 +1,5 @@
-import { NavLink, Outlet } from 'react-router';
+import { Outlet } from 'react-router';
+import { TabNav } from '@/components/ui/tab-nav';
 import { Clock, GitCommitVertical, LineChart, Percent, Truck } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { REPORT_READERS } from '@shared/domain/access';
@@ -22,20 +23,7 @@ export function Component() {
   return (
     <>
       <PageHeader title="Reports" subtitle="How long orders take, where trays wait, what comes out good. Every figure is computed on the server from the scans." />
-      <nav aria-label="Reports" className="mb-6 flex flex-wrap gap-1 border-b-2 border-harbour-100">
-        {TABS.filter((t) => role && t.roles.includes(role)).map((t) => (
-          <NavLink
-            key={t.to}
-            to={t.to}
-            className={({ isActive }) =>
-              `-mb-0.5 flex min-h-11 items-center gap-2 border-b-4 px-3 font-bold ${isActive ? 'border-brass-400 text-harbour-900' : 'border-transparent text-harbour-700 hover:text-harbour-900'}`
-            }
-          >
-            <t.icon className="h-5 w-5" aria-hidden />
-            {t.label}
-          </NavLink>
-        ))}
-      </nav>
+      <TabNav label="Reports" items={TABS.filter((t) => role && t.roles.includes(role))} />
       <Outlet />
     </>
   );

@@ -1,12 +1,10 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
-import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
 import { Moon, Radio, Sun, WifiOff } from 'lucide-react';
 import type { WallView } from '@shared/schemas/live';
 import { ApiError } from '@/lib/api-client';
-import { liveKeys } from '@/features/live/api/live-keys';
 import { useWall } from '@/features/live/api/get-wall';
 import { usePairWall } from '@/features/live/api/wall-device';
-import { useLiveStream } from '@/features/live/api/use-live-stream';
+import { useLiveWall } from '@/features/live/api/use-live-wall';
 import { WallBoard, useNow, type WallTheme } from '@/features/live/components/wall-board';
 import { factoryTime } from '@/lib/duration';
 import { Button } from '@/components/ui/button';
@@ -53,21 +51,7 @@ function PairPanel() {
 }
 
 function LiveWall({ view, theme, setTheme }: { view: WallView; theme: WallTheme; setTheme: (t: WallTheme) => void }) {
-  const qc = useQueryClient();
-  const refetchSoon = useRef<ReturnType<typeof setTimeout> | null>(null);
-  const refresh = useCallback(() => {
-    if (refetchSoon.current) return;
-    refetchSoon.current = setTimeout(() => {
-      refetchSoon.current = null;
-      void qc.invalidateQueries({ queryKey: liveKeys.wall() });
-    }, 400);
-  }, [qc]);
-  const status = useLiveStream({
-    // the counts arrive with the event itself; the lists beside them are fetched again
-    onWip: (wip) => qc.setQueryData<WallView>(liveKeys.wall(), (old) => (old ? { ...old, wip, asOf: wip.asOf } : old)),
-    onScan: refresh,
-    onRefusal: refresh,
-  });
+  const status = useLiveWall();
   const now = useNow();
   const dark = theme === 'dark';
   const totals = view.wip.totals;

@@ -3,6 +3,16 @@ import { boot } from './boot';
 import { createApp } from './app';
 import { startMail } from './services/mail.service';
 
+// A failure nobody awaited (a library's late callback, a stream error) is logged and survived:
+// nothing a user sends may end the process. Uploads are decoded in full before they are kept
+// (server/lib/upload-decode.ts), so these are a last line, not the way errors are handled.
+process.on('unhandledRejection', (reason) => {
+  console.error(JSON.stringify({ level: 'error', msg: 'unhandled rejection (survived)', err: String((reason as Error)?.message ?? reason) }));
+});
+process.on('uncaughtException', (err) => {
+  console.error(JSON.stringify({ level: 'error', msg: 'uncaught exception (survived)', err: err.message }));
+});
+
 const env = loadEnv();
 const deps = await boot(env);
 // Outgoing mail: SMTP_URL, or the local catcher on a loopback port; the queue worker runs here.

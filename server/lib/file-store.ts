@@ -10,9 +10,9 @@ export function putFile(dataDir: string, content: Buffer): { hash: string; sizeB
   const hash = crypto.createHash('sha256').update(content).digest('hex');
   const file = filePath(dataDir, hash);
   if (!fs.existsSync(file)) {
-    fs.mkdirSync(path.dirname(file), { recursive: true });
+    fs.mkdirSync(path.dirname(file), { recursive: true, mode: 0o700 });
     const tmp = `${file}.${process.pid}.tmp`;
-    fs.writeFileSync(tmp, content);
+    fs.writeFileSync(tmp, content, { mode: 0o600 });
     fs.renameSync(tmp, file);
   }
   return { hash, sizeBytes: content.length };
@@ -25,5 +25,20 @@ export function filePath(dataDir: string, hash: string): string {
 
 export function readFile(dataDir: string, hash: string): Buffer | null {
   const file = filePath(dataDir, hash);
+  return fs.existsSync(file) ? fs.readFileSync(file) : null;
+}
+
+/** The printable thumbnail made from a stored file at upload, kept beside it by the file's hash. */
+export function putThumbnail(dataDir: string, sourceHash: string, png: Buffer): void {
+  const file = `${filePath(dataDir, sourceHash)}.thumb.png`;
+  if (fs.existsSync(file)) return;
+  fs.mkdirSync(path.dirname(file), { recursive: true, mode: 0o700 });
+  const tmp = `${file}.${process.pid}.tmp`;
+  fs.writeFileSync(tmp, png, { mode: 0o600 });
+  fs.renameSync(tmp, file);
+}
+
+export function readThumbnail(dataDir: string, sourceHash: string): Buffer | null {
+  const file = `${filePath(dataDir, sourceHash)}.thumb.png`;
   return fs.existsSync(file) ? fs.readFileSync(file) : null;
 }

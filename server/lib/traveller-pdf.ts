@@ -211,14 +211,23 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
   }
   const ax = CARD_W - pad - artSize;
   doc.rect(ax, y, artSize, artSize).lineWidth(0.5).stroke(RULE);
+  let drawn = false;
   if (card.artwork) {
-    let img = images.get(card.artwork);
-    if (!img) {
-      img = (doc as unknown as { openImage(src: Buffer): unknown }).openImage(card.artwork);
-      images.set(card.artwork, img);
+    // the artwork is a thumbnail we made at upload; should pdfkit still refuse it, the card
+    // prints without a picture rather than failing the whole PDF
+    try {
+      let img = images.get(card.artwork);
+      if (img === undefined) {
+        img = (doc as unknown as { openImage(src: Buffer): unknown }).openImage(card.artwork);
+        images.set(card.artwork, img);
+      }
+      doc.image(img as Buffer, ax + 1, y + 1, { fit: [artSize - 2, artSize - 2], align: 'center', valign: 'center' });
+      drawn = true;
+    } catch {
+      images.set(card.artwork, null);
     }
-    doc.image(img as Buffer, ax + 1, y + 1, { fit: [artSize - 2, artSize - 2], align: 'center', valign: 'center' });
-  } else {
+  }
+  if (!drawn) {
     text(doc, card.artworkNote ?? 'No artwork image', ax + 1 * MM, y + artSize / 2 - 3 * MM, {
       size: 6,
       width: artSize - 2 * MM,

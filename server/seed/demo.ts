@@ -24,6 +24,7 @@ import { DEMO_FACTORY, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 import { DEMO_CREW, STATION_CREW } from './demo-crew';
 import { planOrders, DEMO_CUSTOMERS, type OrderPlan } from './demo-catalogue';
 import { demoProofPdf } from './demo-proof';
+import { decodeUpload, type DecodedUpload } from '../lib/upload-decode';
 import { makeRng } from './prng';
 import {
   DAY,
@@ -182,7 +183,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   }
 
   // Proof files first (drawing a PDF is asynchronous); then the office work in one transaction.
-  const proofPdfs = new Map<OrderPlan, Buffer[]>();
+  const proofPdfs = new Map<OrderPlan, { pdf: Buffer; decoded: DecodedUpload }[]>();
   for (const plan of plans) {
     const released = plan.releasedAt != null;
     const approved = released || plan.target === 'draft';
@@ -190,10 +191,9 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     if (!uploaded) continue;
     const revisions = ids.chance(0.2) ? 2 : 1;
     const st = stageAt(plan);
-    const files: Buffer[] = [];
+    const files: { pdf: Buffer; decoded: DecodedUpload }[] = [];
     for (let rev = 1; rev <= revisions; rev++) {
-      files.push(
-        await demoProofPdf({
+      const pdf = await demoProofPdf({
           number: plan.number,
           customer: plan.customer.name,
           title: plan.title,
@@ -204,8 +204,9 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           backLogo: plan.backLogo,
           revision: rev,
           createdAt: rev === 1 ? st.proof1 : st.proof2,
-        }),
-      );
+      });
+      // checked and drawn to a thumbnail exactly as an uploaded proof is
+      files.push({ pdf, decoded: await decodeUpload(pdf, `proof-${plan.number}-r${rev}.pdf`, ['application/pdf']) });
     }
     proofPdfs.set(plan, files);
   }
@@ -245,9 +246,8 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       const proofApproved = released || plan.target === 'draft';
       const pdfs = proofPdfs.get(plan) ?? [];
       if (pdfs.length) {
-        pdfs.forEach((pdf, i) => {
-          const file = { fieldname: 'file', originalname: `proof-${plan.number}-r${i + 1}.pdf`, mimetype: 'application/pdf', size: pdf.length, buffer: pdf } as unknown as Express.Multer.File;
-          ordersService.uploadProof(at(i === 0 ? st.proof1 : st.proof2), orderId, file, planner);
+        pdfs.forEach(({ pdf, decoded }, i) => {
+          ordersService.storeProof(at(i === 0 ? st.proof1 : st.proof2), orderId, { buffer: pdf, name: `proof-${plan.number}-r${i + 1}.pdf`, decoded }, planner);
         });
         if (proofApproved) {
           ordersService.approveProof(at(st.approved), orderId, pdfs.length, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);

@@ -8,8 +8,9 @@ import { traysRepository, type TrayRow, type TrayStateInsert, type TrayStateRow 
 import { mouldsRepository } from '../repositories/moulds.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { AppError, badInput, conflict, forbidden, notFound } from '../errors';
-import { putFile, readFile } from '../lib/file-store';
-import { checkUploadName, sniffProofType } from '../lib/uploads';
+import { putFile, putThumbnail, readFile } from '../lib/file-store';
+import { checkUploadName } from '../lib/uploads';
+import { decodeUpload, type DecodedUpload } from '../lib/upload-decode';
 import {
   checkReleasedAt,
   orderSpecSchema,
@@ -525,23 +526,28 @@ export const ordersService = {
     return ordersService.get(deps, id);
   },
 
-  uploadProof(deps: AppDeps, id: string, file: Express.Multer.File | undefined, actorId: string): { revision: number } {
+  async uploadProof(deps: AppDeps, id: string, file: Express.Multer.File | undefined, actorId: string): Promise<{ revision: number }> {
     const { db } = deps;
     const order = getOrder(db, id);
     if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled.`);
     if (!file) throw badInput('Choose a proof file to upload (field "file").', undefined, 'file_missing');
     const name = checkUploadName(file.originalname);
     if (file.size === 0 || file.buffer.length === 0) throw badInput('The file is empty.', undefined, 'empty_file');
-    const mime = sniffProofType(file.buffer);
-    if (!mime) {
-      throw badInput(
-        `"${name}" is not a PDF, PNG or JPEG file (checked by its content, not its name). Export the proof as PDF, PNG or JPEG.`,
-        undefined,
-        'bad_file_type',
-      );
-    }
+    // decoded in full before anything is kept; the thumbnail is what travellers print
+    const decoded = await decodeUpload(file.buffer, name, ['application/pdf', 'image/png', 'image/jpeg']);
+    return ordersService.storeProof(deps, id, { buffer: file.buffer, name, decoded }, actorId);
+  },
+
+  /** Keeps a proof that decodeUpload has checked, with its thumbnail, as the next revision. */
+  storeProof(deps: AppDeps, id: string, file: { buffer: Buffer; name: string; decoded: DecodedUpload }, actorId: string): { revision: number } {
+    const { db } = deps;
+    const order = getOrder(db, id);
+    if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled.`);
+    const { name } = file;
+    const { mime, thumbnail } = file.decoded;
     const now = deps.now();
     const { hash, sizeBytes } = putFile(deps.env.dataDir, file.buffer);
+    if (thumbnail) putThumbnail(deps.env.dataDir, hash, thumbnail);
     return db.transaction((tx) => {
       const existing = ordersRepository.proofs(tx, id);
       const revision = (existing[existing.length - 1]?.revision ?? 0) + 1;

@@ -8,7 +8,7 @@ import { ordersRepository, type OrderRow } from '../repositories/orders.reposito
 import { mouldsRepository } from '../repositories/moulds.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { conflict, notFound, badInput } from '../errors';
-import { readFile } from '../lib/file-store';
+import { readThumbnail } from '../lib/file-store';
 import { renderTravellersPdf, humanise, type TravellerCard, type TravellerLayout } from '../lib/traveller-pdf';
 import { routingOf, specOf, summariseTraveller, travellerCode } from './orders.service';
 import { canMerge, childTrayNumber, normaliseTrayNumber, releasedQuantity, splitTray, TRAY_NUMBER_PATTERN } from '@shared/domain/trays';
@@ -283,7 +283,8 @@ export const traysService = {
     const mouldRouting = routingOf(db, order.id, 'mould');
     const proofs = ordersRepository.proofs(db, order.id).filter((p) => p.approvedAt != null);
     const approved = proofs[proofs.length - 1];
-    const artwork = approved && approved.mime !== 'application/pdf' ? readFile(deps.env.dataDir, approved.fileHash) : null;
+    // only the thumbnail made (and so decoded) at upload is printed, never the file as sent
+    const artwork = approved ? readThumbnail(deps.env.dataDir, approved.fileHash) : null;
     const artworkNote = approved ? `Proof rev ${approved.revision}${approved.mime === 'application/pdf' ? ' (PDF)' : ''}` : 'No approved proof';
     const originals = traysRepository.forOrder(db, order.id).filter((t) => t.tray.kind === 'tray' && !t.tray.parentTrayId);
     const numbers = new Map(originals.map((t, i) => [t.tray.id, i + 1]));

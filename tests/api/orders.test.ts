@@ -4,6 +4,7 @@ import crypto from 'node:crypto';
 import path from 'node:path';
 import { execFileSync } from 'node:child_process';
 import { PNG } from 'pngjs';
+import PDFDocument from 'pdfkit';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { verifyTravellerCode } from '@shared/domain/traveller-code';
 import { releasedQuantity } from '@shared/domain/trays';
@@ -30,7 +31,18 @@ function png(): Buffer {
   img.data.fill(200);
   return PNG.sync.write(img);
 }
-const PDF = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n');
+// a real one-page PDF (uploads are parsed with pdf.js before they are kept)
+let PDF: Buffer;
+beforeAll(async () => {
+  PDF = await new Promise<Buffer>((resolve) => {
+    const doc = new PDFDocument({ size: 'A6' });
+    const chunks: Buffer[] = [];
+    doc.on('data', (c: Buffer) => chunks.push(c));
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.text('Proof');
+    doc.end();
+  });
+});
 
 // due two months from now, so no order of these tests is late
 const DUE = new Date(Date.now() + 60 * 86_400_000).toISOString().slice(0, 10);

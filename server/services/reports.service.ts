@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { toCsv, type CsvCell } from '@shared/domain/csv-safety';
 import type { AppDeps } from '../app-deps';
 import { reportsRepository as repo, type FlowTrayRow, type ReportFilter } from '../repositories/reports.repository';
 import { reportFactsService } from './report-facts.service';
@@ -301,10 +301,9 @@ export const reportsService = {
 
 // ---- CSV ------------------------------------------------------------------------------
 
-type Cell = string | number | boolean | null;
-function csv(fields: string[], rows: Cell[][]): string {
-  return Papa.unparse({ fields, data: rows.map((r) => r.map((c) => (c === null ? '' : c))) }, { newline: '\r\n' });
-}
+type Cell = CsvCell;
+// every CSV goes through the one writer that escapes cells that would be formulas
+const csv = toCsv;
 const s = (x: { n: number; p50: number | null; p85: number | null; p95: number | null; mean: number | null }) => [x.n, x.p50, x.p85, x.p95, x.mean];
 
 export const reportsCsv = {

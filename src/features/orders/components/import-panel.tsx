@@ -50,6 +50,12 @@ function PreviewTable({ preview }: { preview: ImportPreview }) {
                       {w.message}
                     </div>
                   ))}
+                  {r.formulaCells.map((f, k) => (
+                    <div key={`formula-${k}`} role="note" className="text-warn-700">
+                      {f.column ? `${f.column}: ` : ''}
+                      {f.message}
+                    </div>
+                  ))}
                 </td>
                 {shown.map((c) => {
                   const err = r.errors.find((e) => e.column === c);

@@ -8,6 +8,7 @@ import type { AppDeps } from './app-deps';
 import { PROJECT_ROOT } from './lib/project-root';
 import { Api } from './http/api';
 import { authenticate } from './middleware/authenticate';
+import { sameOrigin } from './middleware/same-origin';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { registerAuthRoutes } from './routes/auth.routes';
 import { registerUserRoutes } from './routes/users.routes';
@@ -77,7 +78,7 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   registerCalendarRoutes(api);
   registerLoadRoutes(api);
 
-  app.use('/api', express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
+  app.use('/api', sameOrigin(deps.env), express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
 
   if (options.serveClient !== false && fs.existsSync(path.join(clientDist, 'index.html'))) {
     app.use(express.static(clientDist, { index: false, maxAge: '1h' }));

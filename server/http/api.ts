@@ -2,6 +2,7 @@ import { Router, type Request, type Response, type RequestHandler } from 'expres
 import type { z } from 'zod';
 import type { Role } from '@shared/domain/vocabulary';
 import type { AppDeps } from '../app-deps';
+import { checkBodyKind, type BodyKind } from '../middleware/same-origin';
 import { badInput, forbidden, notSignedIn, type ErrorIssue } from '../errors';
 
 export interface SessionUser {
@@ -58,6 +59,8 @@ export interface RouteSpec<P, Q, B> {
   body?: z.ZodType<B>;
   /** status for a successful answer with a body (default 200; 204 when the handler returns undefined) */
   status?: number;
+  /** what a write carries: JSON (default), a file (multipart/form-data), or either */
+  bodyKind?: BodyKind;
   /** extra middleware run after the access check (uploads, rate limits) */
   before?: RequestHandler[];
   handler: (ctx: HandlerContext<P, Q, B>) => unknown | Promise<unknown>;
@@ -67,6 +70,8 @@ export interface RegisteredRoute {
   method: Method;
   path: string;
   access: Access;
+  /** what a write to this route must carry (see server/middleware/same-origin.ts) */
+  bodyKind: BodyKind;
 }
 
 function toIssues(error: z.ZodError): ErrorIssue[] {
@@ -105,8 +110,10 @@ export class Api {
   constructor(private readonly deps: AppDeps) {}
 
   route<P = Record<string, string>, Q = unknown, B = unknown>(spec: RouteSpec<P, Q, B>): void {
-    this.routes.push({ method: spec.method, path: spec.path, access: spec.access });
+    const bodyKind: BodyKind = spec.bodyKind ?? 'json';
+    this.routes.push({ method: spec.method, path: spec.path, access: spec.access, bodyKind });
     const guard: RequestHandler = (req, _res, next) => {
+      checkBodyKind(bodyKind, req);
       checkAccess(spec.access, req.auth);
       next();
     };

@@ -41,6 +41,7 @@ export function registerOrderRoutes(api: Api) {
     method: 'post',
     path: '/orders/import/preview',
     access: { roles: PLANNING },
+    bodyKind: 'json-or-file',
     before: [singleFile(CSV_MAX_BYTES)],
     body: importPreviewBody,
     handler: ({ req, body }) => {
@@ -108,6 +109,7 @@ export function registerOrderRoutes(api: Api) {
     path: '/orders/:id/proofs',
     access: { roles: PLANNING },
     params: idParams,
+    bodyKind: 'file',
     before: [singleFile(PROOF_MAX_BYTES)],
     status: 201,
     handler: ({ deps, params, req, user }) => ordersService.uploadProof(deps, params.id, req.file, user!.id),

@@ -109,6 +109,7 @@ export function registerScanRoutes(api: Api) {
     method: 'post',
     path: '/scans/photos',
     access: { roles: SCANNING, devices: ['tablet'] },
+    bodyKind: 'file',
     before: [photoUpload.single('file')],
     status: 201,
     handler: ({ deps, req, user }) => {

@@ -9,7 +9,9 @@ import { seedIfEmpty } from './seed/seed';
 
 /** Opens the data folder: database migrated, keys present, seeded when empty. */
 export async function boot(env: Env, overrides: Partial<AppDeps> = {}): Promise<AppDeps> {
-  fs.mkdirSync(env.dataDir, { recursive: true });
+  // the data folder holds the database, keys, uploads and backups: only the server user may read it
+  fs.mkdirSync(env.dataDir, { recursive: true, mode: 0o700 });
+  fs.chmodSync(env.dataDir, 0o700);
   const db = openDb(path.join(env.dataDir, 'trayce.db'));
   migrateDb(db);
   const log = pino({ level: env.logLevel, base: undefined });

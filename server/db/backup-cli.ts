@@ -6,7 +6,7 @@ import fs from 'node:fs';
 
 const env = loadEnv();
 const dir = path.join(env.dataDir, 'backups');
-fs.mkdirSync(dir, { recursive: true });
+fs.mkdirSync(dir, { recursive: true, mode: 0o700 });
 const stamp = new Date().toISOString().replace(/[:.]/g, '-');
 const target = process.argv[2] ?? path.join(dir, `trayce-${stamp}.db`);
 const db = openDb(path.join(env.dataDir, 'trayce.db'));

@@ -1,6 +1,7 @@
 import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import fs from 'node:fs';
 import path from 'node:path';
 import { PROJECT_ROOT } from '../lib/project-root';
 import * as schema from './schema/all';
@@ -16,6 +17,8 @@ const migrationsFolder = path.join(PROJECT_ROOT, 'drizzle');
  */
 export function openDb(file: string): Db {
   const sqlite = new Database(file);
+  // SQLite gives the -wal and -shm files the database file's mode: private to the server user
+  fs.chmodSync(file, 0o600);
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('synchronous = FULL');
   sqlite.pragma('foreign_keys = ON');

@@ -7,6 +7,7 @@ export function loadOrCreateKey(dataDir: string, name: string): Uint8Array {
   const dir = path.join(dataDir, 'keys');
   const file = path.join(dir, `${name}.key`);
   fs.mkdirSync(dir, { recursive: true, mode: 0o700 });
+  fs.chmodSync(dir, 0o700);
   if (!fs.existsSync(file)) {
     fs.writeFileSync(file, crypto.randomBytes(32).toString('base64'), { mode: 0o600, flag: 'wx' });
   }

@@ -1,16 +1,40 @@
 // Uploads are read into memory (small limits), checked by their content, then stored by hash.
 // The name a browser sends is only kept as a label, and refused when it looks like a path.
-import multer from 'multer';
+import multer, { MulterError } from 'multer';
 import type { RequestHandler } from 'express';
-import { badInput } from '../errors';
+import { AppError, badInput } from '../errors';
 
 export const PROOF_MAX_BYTES = 20 * 1024 * 1024;
 export const CSV_MAX_BYTES = 1024 * 1024;
 
-/** One file in field `file`, at most `maxBytes`; larger files are refused with 413 by the error handler. */
+/**
+ * One file in field `file`, at most `maxBytes`; larger files are refused with 413 by the error
+ * handler. Every upload route uses this one parser, so a broken body is mapped in one place:
+ * whatever the multipart parser throws (a body cut short, a malformed part header, a NUL in a
+ * name) is the sender's fault and answers 400 `bad_upload`, never 500.
+ */
 export function singleFile(maxBytes: number): RequestHandler {
   // preservePath: see the name as sent, so a name with folders is refused rather than silently cut
-  return multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: maxBytes, files: 1, fields: 10, parts: 12 } }).single('file');
+  const parse = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: maxBytes, files: 1, fields: 10, parts: 12 } }).single('file');
+  return (req, res, next) => {
+    parse(req, res, (err?: unknown) => {
+      if (!err || err instanceof MulterError || err instanceof AppError) return next(err as Error | undefined);
+      const disk = diskFull(err);
+      if (disk) return next(disk);
+      next(badInput('The upload was not complete or not well formed. Choose the file again and retry.', undefined, 'bad_upload'));
+    });
+  };
+}
+
+/** A 507 for a full disk (ENOSPC from the file system, SQLITE_FULL from the database), else null. */
+export function diskFull(err: unknown): AppError | null {
+  const code = (err as { code?: unknown } | null)?.code;
+  if (code !== 'ENOSPC' && code !== 'SQLITE_FULL') return null;
+  return new AppError(
+    507,
+    'disk_full',
+    'The server\'s disk is full, so nothing was saved. Ask the person who looks after the server to free space (old backups, logs), then try again; the tablets keep their scans until then.',
+  );
 }
 
 export type SniffedType = 'application/pdf' | 'image/png' | 'image/jpeg';

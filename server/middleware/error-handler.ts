@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { MulterError } from 'multer';
 import { AppError } from '../errors';
+import { diskFull } from '../lib/uploads';
 
 function body(code: string, message: string, extra: Record<string, unknown> = {}, issues?: unknown) {
   return { error: { code, message, ...extra, ...(issues ? { issues } : {}) } };
@@ -21,6 +22,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof MulterError) {
     const tooBig = err.code === 'LIMIT_FILE_SIZE';
     res.status(tooBig ? 413 : 400).json(body(tooBig ? 'too_large' : 'bad_upload', tooBig ? 'The file is too large.' : `The upload was not accepted: ${err.message}.`));
+    return;
+  }
+  const disk = diskFull(err);
+  if (disk) {
+    req.log?.error({ err }, 'disk full');
+    res.status(507).json(body(disk.code, disk.message));
     return;
   }
   // body-parser errors carry a `type`

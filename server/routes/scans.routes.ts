@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import multer from 'multer';
+import { singleFile } from '../lib/uploads';
 import type { Api } from '../http/api';
 import { FLOOR_LEADS } from '@shared/domain/access';
 import type { Role } from '@shared/domain/vocabulary';
@@ -14,7 +14,6 @@ export const DECIDING: readonly Role[] = ['supervisor', 'manager', 'admin'];
 
 const idParams = z.object({ id: z.string().min(1).max(100) });
 const PHOTO_MAX_BYTES = 3 * 1024 * 1024;
-const photoUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1 } });
 
 // Counts the events before the full schema check, so a too-big batch gets 413 rather than 400.
 const batchBody = z.object({ events: z.array(z.unknown()) }).transform((b, ctx) => {
@@ -110,14 +109,14 @@ export function registerScanRoutes(api: Api) {
     path: '/scans/photos',
     access: { roles: SCANNING, devices: ['tablet'] },
     bodyKind: 'file',
-    before: [photoUpload.single('file')],
+    before: [singleFile(PHOTO_MAX_BYTES)],
     status: 201,
     handler: ({ deps, req, user }) => {
       const file = req.file;
       if (!file) throw badInput('Attach the photo as the field "file".');
       const fields = z.object({ code: z.string().trim().min(1).max(256), eventId: z.string().max(100).optional(), operatorId: z.string().max(64).optional() }).safeParse(req.body);
       if (!fields.success) throw badInput('Say which tray the photo belongs to (field "code").');
-      return scansService.addPhoto(deps, { code: fields.data.code, eventId: fields.data.eventId, file }, user?.id ?? fields.data.operatorId ?? null);
+      return scansService.addPhoto(deps, { code: fields.data.code, eventId: fields.data.eventId, file, operatorId: fields.data.operatorId }, user?.id ?? null);
     },
   });
 

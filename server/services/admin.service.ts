@@ -46,7 +46,8 @@ export const adminService = {
   /** An online backup while the factory keeps scanning (SQLite backup API). */
   async makeBackup(deps: AppDeps, actorId: string): Promise<BackupView> {
     const dir = backupDir(deps);
-    fs.mkdirSync(dir, { recursive: true });
+    fs.mkdirSync(dir, { recursive: true, mode: 0o700 });
+    fs.chmodSync(dir, 0o700);
     const name = `trayce-${new Date(deps.now()).toISOString().replace(/[:.]/g, '-')}.db`;
     await backupDb(deps.db, path.join(dir, name));
     auditRepository.record(deps.db, deps.now(), { userId: actorId, action: 'backup.create', entity: 'backup', entityId: name });

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import crypto from 'node:crypto';
+import sharp from 'sharp';
 import { eq, sql } from 'drizzle-orm';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
@@ -450,7 +451,8 @@ describe('overrides, exceptions and station screens', () => {
 
   it('keeps a QC photo with the tray', async () => {
     const { trays: [tray] } = floor();
-    const jpeg = Buffer.from('ffd8ffe000104a46494600010100000100010000ffd9', 'hex');
+    // a real picture: photos are decoded in full before they are kept
+    const jpeg = await sharp({ create: { width: 32, height: 24, channels: 3, background: '#8899aa' } }).jpeg().toBuffer();
     const res = await operator.post('/api/scans/photos').field('code', tray.code).attach('file', jpeg, { filename: 'qc.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     expect(res.body.hash).toBe(crypto.createHash('sha256').update(jpeg).digest('hex'));

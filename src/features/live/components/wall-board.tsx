@@ -1,5 +1,5 @@
 import { useEffect, useState, type ReactNode } from 'react';
-import { AlertOctagon, Clock, Flame, Hand, Hourglass, PackageCheck, PauseCircle, ShieldAlert, Timer, TrendingUp, Wrench } from 'lucide-react';
+import { AlertOctagon, CircleDashed, Clock, Flame, Hand, Hourglass, PackageCheck, PauseCircle, ShieldAlert, Timer, TrendingUp, Wrench } from 'lucide-react';
 import type { WallView } from '@shared/schemas/live';
 import type { WipKind } from '@shared/schemas/reports';
 import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
@@ -12,19 +12,21 @@ export type WallTheme = 'dark' | 'light';
 // change its system setting. Every state carries a word and an icon; colour only helps.
 const THEMES = {
   dark: {
-    page: 'bg-[#0b1a1e] text-white',
-    tile: 'bg-[#12292f] border-[#2b4a52]',
-    tileHot: 'bg-[#3a2a0a] border-brass-400',
-    muted: 'text-[#b7cdd1]',
+    page: 'bg-wall-page text-white',
+    tile: 'bg-wall-tile border-wall-edge',
+    tileIdle: 'bg-wall-page border-wall-idle-edge border-dashed',
+    tileHot: 'bg-wall-hot border-brass-400',
+    muted: 'text-wall-muted',
     strong: 'text-white',
-    panel: 'bg-[#12292f] border-[#2b4a52]',
+    panel: 'bg-wall-tile border-wall-edge',
     accent: 'text-brass-300',
     badge: 'bg-brass-300 text-harbour-900',
-    stop: 'bg-[#5c1a15] text-white',
+    stop: 'bg-wall-stop text-white',
   },
   light: {
     page: 'bg-paper text-ink',
     tile: 'bg-white border-harbour-100',
+    tileIdle: 'bg-paper border-harbour-600 border-dashed',
     tileHot: 'bg-warn-50 border-warn-700',
     muted: 'text-harbour-700',
     strong: 'text-harbour-900',
@@ -52,7 +54,7 @@ export function useNow() {
   return now;
 }
 
-function Figure({ icon, label, trays, pieces, theme, testId }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme; testId: string }) {
+function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme; testId: string; quiet: boolean }) {
   const t = THEMES[theme];
   return (
     <div className="flex min-w-0 flex-col">
@@ -61,7 +63,7 @@ function Figure({ icon, label, trays, pieces, theme, testId }: { icon: ReactNode
         {label}
       </span>
       <span className="flex items-baseline gap-1">
-        <span className={`text-5xl leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`}>
+        <span className={`${quiet ? 'text-3xl' : 'text-5xl'} leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`}>
           {fmt(trays)}
         </span>
         <span className={`text-lg ${t.muted}`}>{trays === 1 ? 'tray' : 'trays'}</span>
@@ -75,11 +77,14 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
   const t = THEMES[theme];
   const idle = kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
   const oven = kind.stationKind === 'cure';
+  // An empty station looks quiet through a dashed outline, smaller figures and the word "Empty",
+  // never through faded text: every word on the tile keeps its contrast (WCAG 2.1, 1.4.3).
   return (
     <section
       aria-label={kindName(kind.stationKind)}
       data-kind={kind.stationKind}
-      className={`flex min-h-0 flex-col gap-1 rounded-2xl border-4 px-3 py-2 ${bottleneck ? t.tileHot : t.tile} ${idle ? 'opacity-60' : ''}`}
+      className={`flex min-h-0 flex-col gap-1 rounded-2xl border-4 px-3 py-2 ${bottleneck ? t.tileHot : idle ? t.tileIdle : t.tile}`}
+      data-idle={idle ? 'yes' : 'no'}
     >
       <h2 className={`truncate text-2xl font-bold ${t.strong}`}>{kindName(kind.stationKind)}</h2>
       {bottleneck && (
@@ -87,12 +92,17 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
           <TrendingUp className="h-5 w-5" aria-hidden /> Bottleneck
         </span>
       )}
+      {idle && !bottleneck && (
+        <span className={`flex w-fit items-center gap-1 text-lg font-bold ${t.strong}`} data-testid="idle">
+          <CircleDashed className="h-5 w-5" aria-hidden /> Empty
+        </span>
+      )}
       <div className="grid grid-cols-2 gap-2">
-        <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label="Waiting" trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
+        <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label="Waiting" quiet={idle} trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
         {oven ? (
-          <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label="Curing" trays={kind.curing.trays} pieces={kind.curing.pieces} />
+          <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label="Curing" quiet={idle} trays={kind.curing.trays} pieces={kind.curing.pieces} />
         ) : (
-          <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label="In process" trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
+          <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label="In process" quiet={idle} trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
         )}
       </div>
       <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-lg ${t.muted}`}>

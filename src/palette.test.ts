@@ -49,6 +49,11 @@ const outlines: [string, string][] = [
   ['wall-idle-edge', 'wall-tile'],
   ['harbour-600', 'paper'],
   ['harbour-600', 'white'],
+  // the focus ring: dark outline on light surfaces, brass halo on dark ones
+  ['harbour-800', 'paper'],
+  ['harbour-800', 'white'],
+  ['brass-300', 'wall-page'],
+  ['brass-300', 'harbour-800'],
 ];
 
 describe('palette meets WCAG AA contrast for normal text', () => {

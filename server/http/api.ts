@@ -1,6 +1,6 @@
 import { Router, type Request, type Response, type RequestHandler } from 'express';
 import type { z } from 'zod';
-import type { Role } from '@shared/domain/vocabulary';
+import type { Locale, Role } from '@shared/domain/vocabulary';
 import type { AppDeps } from '../app-deps';
 import { checkBodyKind, type BodyKind } from '../middleware/same-origin';
 import { badInput, forbidden, notSignedIn, type ErrorIssue } from '../errors';
@@ -9,6 +9,7 @@ export interface SessionUser {
   id: string;
   name: string;
   role: Role;
+  locale: Locale;
   sessionId: string;
 }
 

@@ -2,7 +2,7 @@ import type { Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import type { Api } from '../http/api';
 import type { AppDeps } from '../app-deps';
-import { loginBody, badgeBody } from '@shared/schemas/auth';
+import { loginBody, badgeBody, localeBody } from '@shared/schemas/auth';
 import { authService, SESSION_COOKIE } from '../services/auth.service';
 import { ALL_ROLES } from '@shared/domain/access';
 import { throttled } from '../errors';
@@ -72,8 +72,16 @@ export function registerAuthRoutes(api: Api, deps: AppDeps) {
     path: '/auth/me',
     access: { roles: ALL_ROLES },
     handler: ({ user, device }) => ({
-      user: { id: user!.id, name: user!.name, role: user!.role },
+      user: { id: user!.id, name: user!.name, role: user!.role, locale: user!.locale },
       device,
     }),
+  });
+
+  api.route({
+    method: 'put',
+    path: '/auth/me/locale',
+    access: { roles: ALL_ROLES },
+    body: localeBody,
+    handler: ({ deps, body, user }) => authService.setLocale(deps, user!.id, body.locale),
   });
 }

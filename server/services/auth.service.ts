@@ -10,7 +10,7 @@ import { sha256Hex } from '../lib/keys';
 import { PASSWORD_MAX_BYTES } from '@shared/schemas/auth';
 import { signInDelaySeconds, SESSION_ABSOLUTE_HOURS, OFFICE_IDLE_MINUTES } from '@shared/domain/sign-in-throttle';
 import type { DeviceAuth, SessionUser } from '../http/api';
-import type { Role } from '@shared/domain/vocabulary';
+import type { Locale, Role } from '@shared/domain/vocabulary';
 
 /** OWASP Password Storage Cheat Sheet: bcrypt work factor of at least 10. */
 export const BCRYPT_COST = 10;
@@ -79,7 +79,7 @@ async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, d
     .setIssuedAt(Math.floor(now / 1000))
     .setExpirationTime(Math.floor(expiresAt / 1000))
     .sign(deps.keys.session);
-  return { token, expiresAt, user: { id: user.id, name: user.name, role: user.role as Role } };
+  return { token, expiresAt, user: { id: user.id, name: user.name, role: user.role as Role, locale: user.locale } };
 }
 
 export const authService = {
@@ -135,7 +135,13 @@ export const authService = {
     if (!user || !user.active) return null;
     // Write the idle clock at most every 30 s: reads stay cheap.
     if (now - session.lastSeenAt > 30_000) usersRepository.touchSession(deps.db, sid, now);
-    return { id: user.id, name: user.name, role: user.role as Role, sessionId: sid };
+    return { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, sessionId: sid };
+  },
+
+  /** A person's own language; it follows them to every screen and tablet they sign in on. */
+  setLocale(deps: AppDeps, userId: string, locale: Locale) {
+    usersRepository.update(deps.db, userId, { locale, updatedAt: deps.now() });
+    return { locale };
   },
 
   logout(deps: AppDeps, sessionId: string) {

@@ -13,6 +13,7 @@ export function toUserView(u: UserRow): UserView {
     name: u.name,
     email: u.email,
     role: u.role as Role,
+    locale: u.locale,
     badge: u.badge,
     hasPin: !!u.pinHash,
     active: u.active,
@@ -35,6 +36,7 @@ export const usersService = {
         name: input.name,
         email: input.email.toLowerCase(),
         role: input.role,
+        locale: input.locale ?? 'en',
         passwordHash: hashSecret(input.password),
         badge: input.badge ?? null,
         pinHash: input.pin ? hashSecret(input.pin) : null,
@@ -62,6 +64,7 @@ export const usersService = {
       usersRepository.update(tx, id, {
         ...(patch.name !== undefined && { name: patch.name }),
         ...(patch.role !== undefined && { role: patch.role }),
+        ...(patch.locale !== undefined && { locale: patch.locale }),
         ...(patch.active !== undefined && { active: patch.active }),
         ...(patch.badge !== undefined && { badge: patch.badge }),
         ...(patch.pin !== undefined && { pinHash: hashSecret(patch.pin) }),

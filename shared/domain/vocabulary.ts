@@ -1,6 +1,10 @@
 // The words of the trade that client and server share. Pure data: no I/O, no Drizzle.
 
 export const ROLES = ['operator', 'supervisor', 'planner', 'manager', 'sales', 'admin'] as const;
+
+/** The languages a person can read the app in. */
+export const LOCALES = ['en', 'zh-CN'] as const;
+export type Locale = (typeof LOCALES)[number];
 export type Role = (typeof ROLES)[number];
 
 export const STATION_KINDS = [

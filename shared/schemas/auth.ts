@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES } from '../domain/vocabulary';
+import { LOCALES, ROLES } from '../domain/vocabulary';
 
 /** bcrypt reads at most 72 bytes; longer passwords are refused rather than silently cut. */
 export const PASSWORD_MAX_BYTES = 72;
@@ -27,10 +27,16 @@ export type BadgeBody = z.infer<typeof badgeBody>;
 
 export const roleSchema = z.enum(ROLES);
 
-export const sessionUser = z.object({ id: z.string(), name: z.string(), role: roleSchema });
+export const localeSchema = z.enum(LOCALES);
+
+export const sessionUser = z.object({ id: z.string(), name: z.string(), role: roleSchema, locale: localeSchema });
 export type SessionUserWire = z.infer<typeof sessionUser>;
 export const meResponse = z.object({
   user: sessionUser,
   device: z.object({ id: z.string(), name: z.string(), kind: z.enum(['tablet', 'wall']), stationId: z.string().nullable() }).nullable().optional(),
 });
 export type MeResponse = z.infer<typeof meResponse>;
+
+/** A person choosing the language they read the app in. */
+export const localeBody = z.strictObject({ locale: localeSchema });
+export type LocaleBody = z.infer<typeof localeBody>;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { passwordSchema, roleSchema } from './auth';
+import { localeSchema, passwordSchema, roleSchema } from './auth';
 
 export const pinSchema = z.string().regex(/^\d{4,8}$/, 'A PIN is 4 to 8 digits.');
 
@@ -7,6 +7,7 @@ export const createUserBody = z.strictObject({
   name: z.string().trim().min(1).max(120),
   email: z.email('Enter a valid e-mail address.').max(254),
   role: roleSchema,
+  locale: localeSchema.optional(),
   password: passwordSchema,
   badge: z.string().trim().min(1).max(64).optional(),
   pin: pinSchema.optional(),
@@ -17,6 +18,7 @@ export const updateUserBody = z
   .strictObject({
     name: z.string().trim().min(1).max(120),
     role: roleSchema,
+    locale: localeSchema,
     active: z.boolean(),
     badge: z.string().trim().min(1).max(64).nullable(),
     pin: pinSchema,
@@ -30,6 +32,7 @@ export const userView = z.object({
   name: z.string(),
   email: z.string(),
   role: roleSchema,
+  locale: localeSchema,
   badge: z.string().nullable(),
   hasPin: z.boolean(),
   active: z.boolean(),

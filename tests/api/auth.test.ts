@@ -138,3 +138,34 @@ describe('sign-in', () => {
     expect((await request(t.app).post('/api/devices/pair').send({ code: device.pairingCode })).status).toBe(404);
   });
 });
+
+describe('each person\'s language', () => {
+  it('starts in English, is set by the person themselves and comes back with /me and the next sign-in', async () => {
+    const planner = await t.agentAs('planner');
+    expect((await planner.get('/api/auth/me')).body.user.locale).toBe('en');
+    const set = await planner.put('/api/auth/me/locale').send({ locale: 'zh-CN' });
+    expect(set.status).toBe(200);
+    expect(set.body).toEqual({ locale: 'zh-CN' });
+    expect((await planner.get('/api/auth/me')).body.user.locale).toBe('zh-CN');
+    const again = await login({ email: planner.user.email, password: planner.user.password });
+    expect(again.body.user.locale).toBe('zh-CN');
+  });
+
+  it('refuses a language the app does not have, and changes nothing', async () => {
+    const sales = await t.agentAs('sales');
+    const res = await sales.put('/api/auth/me/locale').send({ locale: 'fr' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_input');
+    expect((await sales.get('/api/auth/me')).body.user.locale).toBe('en');
+  });
+
+  it('lets an admin set someone\'s language', async () => {
+    const admin = await t.agentAs('admin');
+    const op = await t.agentAs('operator', { badge: 'B-7001', pin: '2580' });
+    const res = await admin.patch(`/api/users/${op.user.id}`).send({ locale: 'zh-CN' });
+    expect(res.status).toBe(200);
+    expect(res.body.locale).toBe('zh-CN');
+    expect((await op.get('/api/auth/me')).body.user.locale).toBe('zh-CN');
+    expect((await admin.get('/api/users')).body.find((u: { id: string }) => u.id === op.user.id).locale).toBe('zh-CN');
+  });
+});

@@ -11,6 +11,7 @@ export const users = sqliteTable(
     passwordHash: text('password_hash').notNull(),
     badge: text('badge').unique(),
     pinHash: text('pin_hash'),
+    locale: text('locale', { enum: ['en', 'zh-CN'] }).notNull().default('en'),
     active: flag('active').notNull().default(true),
     failedLogins: integer('failed_logins').notNull().default(0),
     throttledUntil: ms('throttled_until'),

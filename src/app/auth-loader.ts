@@ -2,6 +2,7 @@ import { redirect, type LoaderFunctionArgs } from 'react-router';
 import { queryClient } from '@/lib/query-client';
 import { meQueryOptions } from '@/features/auth/api/get-me';
 import { paths } from '@/config/paths';
+import { applyLocale } from '@/lib/i18n';
 
 /** Loader of the signed-in area: sends visitors without a session to the sign-in page. */
 export async function requireUser({ request }: LoaderFunctionArgs) {
@@ -10,5 +11,6 @@ export async function requireUser({ request }: LoaderFunctionArgs) {
     const url = new URL(request.url);
     throw redirect(`${paths.signIn}?next=${encodeURIComponent(url.pathname + url.search)}`);
   }
+  applyLocale(me.user.locale);
   return me;
 }

@@ -1,15 +1,17 @@
 import { Link } from 'react-router';
+import { useTranslation } from 'react-i18next';
 import { ErrorPanel } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
 
 export function Forbidden() {
+  const { t } = useTranslation();
   return (
     <ErrorPanel
-      title="Not part of your role"
-      message="This screen belongs to another role. Your own start page has what you need; ask an administrator if your role should change."
+      title={t('errors.forbiddenTitle')}
+      message={t('errors.forbidden')}
       action={
         <Link className="font-bold text-harbour-700 underline" to={paths.home}>
-          Go to my start page
+          {t('errors.home')}
         </Link>
       }
     />

@@ -1,21 +1,24 @@
 import { isRouteErrorResponse, Link, useRouteError } from 'react-router';
+import { useTranslation } from 'react-i18next';
 import { ErrorPanel } from '@/components/ui/panels';
 import { ApiError } from '@/lib/api-client';
+import { errorText } from '@/lib/error-text';
 import { paths } from '@/config/paths';
 
 /** The error boundary of every route: a readable message, never a stack trace. */
 export function RouteError() {
+  const { t } = useTranslation();
   const error = useRouteError();
-  let title = 'This page could not be shown';
-  let message = 'Something unexpected happened. Reload the page; if it happens again, tell your administrator what you were doing.';
+  let title = t('errors.pageTitle');
+  let message = t('errors.page');
   if (isRouteErrorResponse(error)) {
     if (error.status === 404) {
-      title = 'Not found';
-      message = 'There is nothing at this address. Check the link, or go back to your start page.';
-    } else message = `The page answered ${error.status}.`;
+      title = t('errors.notFoundTitle');
+      message = t('errors.notFound');
+    } else message = t('errors.status', { status: error.status });
   } else if (error instanceof ApiError) {
-    if (error.status === 404) title = 'Not found';
-    message = error.message;
+    if (error.status === 404) title = t('errors.notFoundTitle');
+    message = errorText(error);
   }
   return (
     <div className="mx-auto max-w-2xl p-6">
@@ -24,7 +27,7 @@ export function RouteError() {
         message={message}
         action={
           <Link className="font-bold text-harbour-700 underline" to={paths.home}>
-            Go to my start page
+            {t('errors.home')}
           </Link>
         }
       />

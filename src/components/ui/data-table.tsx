@@ -9,6 +9,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
+import { useTranslation } from 'react-i18next';
 import { EmptyState } from './panels';
 
 /** The one table: sortable headers, optional quick filter, row click. */
@@ -16,7 +17,7 @@ export function DataTable<T>({
   data,
   columns,
   filterLabel,
-  emptyTitle = 'Nothing here yet',
+  emptyTitle,
   onRowClick,
   initialSorting = [],
   toolbar,
@@ -31,6 +32,7 @@ export function DataTable<T>({
   toolbar?: ReactNode;
   caption?: string;
 }) {
+  const { t } = useTranslation();
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const [filter, setFilter] = useState('');
   const table = useReactTable({
@@ -105,7 +107,7 @@ export function DataTable<T>({
         </table>
         {rows.length === 0 && (
           <div className="p-4">
-            <EmptyState title={emptyTitle} />
+            <EmptyState title={emptyTitle ?? t('app.nothingHere')} />
           </div>
         )}
       </div>

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { AlertTriangle, Loader2, Inbox } from 'lucide-react';
+import { useTranslation } from 'react-i18next';
 
 export function Card({ children, className = '' }: { children: ReactNode; className?: string }) {
   return <section className={`rounded-xl border border-harbour-100 bg-white p-5 shadow-sm ${className}`}>{children}</section>;
@@ -17,22 +18,24 @@ export function PageHeader({ title, subtitle, actions }: { title: string; subtit
   );
 }
 
-export function Loading({ label = 'Loading…' }: { label?: string }) {
+export function Loading({ label }: { label?: string }) {
+  const { t } = useTranslation();
   return (
     <div role="status" className="flex items-center gap-3 p-6 text-harbour-700">
       <Loader2 className="h-6 w-6 animate-spin" aria-hidden />
-      <span>{label}</span>
+      <span>{label ?? t('app.loading')}</span>
     </div>
   );
 }
 
 /** A readable problem message: what happened and what to do, never a stack trace. */
-export function ErrorPanel({ title = 'Something went wrong', message, action }: { title?: string; message: string; action?: ReactNode }) {
+export function ErrorPanel({ title, message, action }: { title?: string; message: string; action?: ReactNode }) {
+  const { t } = useTranslation();
   return (
     <div role="alert" className="flex gap-3 rounded-xl border-2 border-stop-700 bg-stop-50 p-5 text-ink">
       <AlertTriangle className="mt-1 h-6 w-6 shrink-0 text-stop-700" aria-hidden />
       <div>
-        <p className="font-bold text-stop-700">{title}</p>
+        <p className="font-bold text-stop-700">{title ?? t('app.somethingWrong')}</p>
         <p className="mt-1">{message}</p>
         {action && <div className="mt-3">{action}</div>}
       </div>

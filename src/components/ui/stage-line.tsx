@@ -1,4 +1,5 @@
 import { Check } from 'lucide-react';
+import { useTranslation } from 'react-i18next';
 
 export interface StageStep {
   name: string;
@@ -9,9 +10,10 @@ export interface StageStep {
  * An order's progress as a line of stages: done ones ticked, the current one marked, the rest
  * to come. The words say it as well as the colours ("done", "now").
  */
-export function StageLine({ stages, current, label = 'Order progress' }: { stages: StageStep[]; current: string | null; label?: string }) {
+export function StageLine({ stages, current, label }: { stages: StageStep[]; current: string | null; label?: string }) {
+  const { t } = useTranslation();
   return (
-    <ol aria-label={label} className="flex flex-col gap-0">
+    <ol aria-label={label ?? t('app.orderProgress')} className="flex flex-col gap-0">
       {stages.map((s, i) => {
         const now = !s.done && s.name === current;
         const last = i === stages.length - 1;
@@ -28,7 +30,7 @@ export function StageLine({ stages, current, label = 'Order progress' }: { stage
             </span>
             <span className="pt-1">
               <span className={`text-lg ${now ? 'font-bold text-harbour-900' : s.done ? 'text-ink' : 'text-harbour-700'}`}>{s.name}</span>
-              <span className="ml-2 text-sm font-bold text-harbour-700">{s.done ? 'done' : now ? 'now' : ''}</span>
+              <span className="ml-2 text-sm font-bold text-harbour-700">{s.done ? t('app.stageDone') : now ? t('app.stageNow') : ''}</span>
             </span>
           </li>
         );

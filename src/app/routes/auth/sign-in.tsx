@@ -1,6 +1,8 @@
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { redirect, useNavigate, useSearchParams } from 'react-router';
+import { useTranslation } from 'react-i18next';
 import { loginBody, type LoginBody } from '@shared/schemas/auth';
 import { useSignIn } from '@/features/auth/api/sign-in';
 import { TextField } from '@/components/ui/field';
@@ -10,6 +12,10 @@ import { queryClient } from '@/lib/query-client';
 import { meQueryOptions } from '@/features/auth/api/get-me';
 import { paths, roleHome } from '@/config/paths';
 import { authKeys } from '@/features/auth/api/auth-keys';
+import { LanguageSwitch } from '@/components/layout/language-switch';
+import { applyLocale, currentLocale, rememberLocale } from '@/lib/i18n';
+import { errorText } from '@/lib/error-text';
+import type { Locale } from '@shared/domain/vocabulary';
 
 export async function loader() {
   const me = await queryClient.ensureQueryData(meQueryOptions());
@@ -23,6 +29,8 @@ function safeNext(next: string | null): string | null {
 }
 
 export function Component() {
+  const { t } = useTranslation();
+  const [locale, setLocale] = useState<Locale>(currentLocale);
   const navigate = useNavigate();
   const [params] = useSearchParams();
   const signIn = useSignIn();
@@ -31,6 +39,7 @@ export function Component() {
   const onSubmit = form.handleSubmit((values) =>
     signIn.mutate(values, {
       onSuccess: async ({ user }) => {
+        applyLocale(user.locale);
         // refetch the (inactive) session query too, or the signed-in area's loader would read the stale "nobody"
         await queryClient.invalidateQueries({ queryKey: authKeys.all, refetchType: 'all' });
         navigate(safeNext(params.get('next')) ?? roleHome[user.role], { replace: true });
@@ -41,25 +50,35 @@ export function Component() {
   return (
     <main className="flex min-h-full items-center justify-center bg-harbour-800 p-4">
       <div className="w-full max-w-md rounded-2xl bg-paper p-8 shadow-xl">
+        <div className="mb-4 flex justify-end">
+          <LanguageSwitch
+            tone="light"
+            value={locale}
+            onChange={(l) => {
+              rememberLocale(l);
+              setLocale(l);
+            }}
+          />
+        </div>
         <div className="mb-6 flex items-center gap-3">
           <img src="/favicon.svg" alt="" className="h-12 w-12" />
           <div>
-            <h1 className="text-3xl font-bold text-harbour-900">Trayce</h1>
-            <p className="text-harbour-700">Every tray, from the mould to the mail bag.</p>
+            <h1 className="text-3xl font-bold text-harbour-900">{t('app.name')}</h1>
+            <p className="text-harbour-700">{t('app.tagline')}</p>
           </div>
         </div>
         <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-          <TextField label="E-mail" type="email" autoComplete="username" {...form.register('email')} error={form.formState.errors.email?.message} />
-          <TextField label="Password" type="password" autoComplete="current-password" {...form.register('password')} error={form.formState.errors.password?.message} />
-          {signIn.error && <ErrorPanel title="Not signed in" message={signIn.error.message} />}
+          <TextField label={t('signIn.email')} type="email" autoComplete="username" {...form.register('email')} error={form.formState.errors.email && t('signIn.enterEmail')} />
+          <TextField label={t('signIn.password')} type="password" autoComplete="current-password" {...form.register('password')} error={form.formState.errors.password && t('signIn.enterPassword')} />
+          {signIn.error && <ErrorPanel title={t('signIn.notSignedIn')} message={errorText(signIn.error)} />}
           <Button type="submit" size="lg" disabled={signIn.isPending}>
-            {signIn.isPending ? 'Signing in…' : 'Sign in'}
+            {signIn.isPending ? t('signIn.working') : t('signIn.submit')}
           </Button>
         </form>
         <p className="mt-6 text-sm text-harbour-700">
-          On a station tablet? Operators sign in there with their badge and PIN.{' '}
+          {t('signIn.tabletHint')}{' '}
           <a className="font-bold underline" href={paths.station}>
-            Open the station screen
+            {t('signIn.openStation')}
           </a>
         </p>
       </div>

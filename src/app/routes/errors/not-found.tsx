@@ -1,16 +1,18 @@
 import { Link } from 'react-router';
+import { useTranslation } from 'react-i18next';
 import { ErrorPanel } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
 
 export function Component() {
+  const { t } = useTranslation();
   return (
     <div className="mx-auto max-w-2xl">
       <ErrorPanel
-        title="Not found"
-        message="There is no page at this address. Check the link, or go back to your start page."
+        title={t('errors.notFoundTitle')}
+        message={t('errors.notFound')}
         action={
           <Link className="font-bold text-harbour-700 underline" to={paths.home}>
-            Go to my start page
+            {t('errors.home')}
           </Link>
         }
       />

@@ -370,7 +370,7 @@ export function simulateFloor(input: SimInput): SimResult {
     const extra: Partial<GuardInput['event']> = {};
     if (type === 'finish') Object.assign(extra, { goodQty: opts.good, scrapQty: opts.scrap ?? 0, reworkQty: opts.rework ?? 0, scrapReason: opts.reason ?? null });
     if (type === 'hold') Object.assign(extra, { scrapReason: opts.reason ?? null, note: opts.note ?? null });
-    const override = opts.override ? { id: opts.override.id, supervisorId: opts.override.supervisorId, reason: opts.override.reason } : null;
+    const override = opts.override ? { id: opts.override.id, supervisorId: opts.override.supervisorId, reason: opts.override.reason, kind: opts.override.kind } : null;
     const qtyIn = t.state.quantity;
     const res = evaluateScan(guardInput(t, type, at, station, extra, userId, override));
     if (!res.ok) {
@@ -476,7 +476,7 @@ export function simulateFloor(input: SimInput): SimResult {
     if (t.stopped) continue;
     const o = orders.get(t.orderId)!;
     let ready = job.at;
-    let step = t.routing[t.nextSeq - 1];
+    const step = t.routing[t.nextSeq - 1];
 
     // The courier takes an order when every tray of it is packed.
     if (t.kind === 'tray' && step.stationKind === 'dispatch' && !t.dispatchCleared) {
@@ -515,33 +515,35 @@ export function simulateFloor(input: SimInput): SimResult {
       }
     }
 
-    // A supervisor lets one tray skip trimming (it was trimmed at the press without a scan).
+    // A supervisor lets one tray be trimmed at the post bench (the trimming bench was down): a
+    // wrong-station override does the awaited step at another station, it never skips one.
     let override: SimOverride | null = null;
+    let standIn: StationKind | null = null;
     if (
       !wrongStationOverrideUsed &&
       t.kind === 'tray' &&
       step.stationKind === 'trim' &&
       recent(ready, 20) &&
       ready < now - 3 * DAY &&
-      t.routing[t.nextSeq] != null
+      t.routing[t.nextSeq]?.stationKind === 'post'
     ) {
       wrongStationOverrideUsed = true;
-      step = t.routing[t.nextSeq];
+      standIn = 'post';
       override = {
         id: rng.uuid(),
         trayId: t.id,
         stationId: '',
         kind: 'wrong_station',
         supervisorId: supervisor(),
-        reason: 'Trimmed at the press by the setter; trimming was not scanned',
+        reason: 'Trimming bench down; trimmed on the post bench',
         createdAt: 0,
         expiresAt: 0,
         usedEventId: '',
       };
     }
 
-    const candidates = slots.get(step.stationKind);
-    if (!candidates?.length) throw new Error(`no station of kind ${step.stationKind}`);
+    const candidates = slots.get(standIn ?? step.stationKind);
+    if (!candidates?.length) throw new Error(`no station of kind ${standIn ?? step.stationKind}`);
     let slot = candidates[0];
     for (const c of candidates) if (c.freeAt < slot.freeAt) slot = c;
     const person = crewFor(step.stationKind);

@@ -242,9 +242,11 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
   let override: ValidOverride | null = null;
   if (event.overrideId) {
     const o = data.overrides.get(event.overrideId);
-    const usable = o && tray && o.trayId === tray.id && o.expiresAt >= now && (!o.usedEventId || o.usedEventId === event.id) && !data.usedOverrides.has(o.id);
+    // One traveller, one station, once, before it expires; the guard checks it names the guard passed.
+    const usable =
+      o && tray && o.trayId === tray.id && o.stationId === event.stationId && o.expiresAt >= now && (!o.usedEventId || o.usedEventId === event.id) && !data.usedOverrides.has(o.id);
     if (!usable) return { result: { ok: false, code: 'bad_override', params: { reason: 'invalid' }, overridable: false }, tray, before, override: null, stationKind: station.kind };
-    override = { id: o.id, supervisorId: o.supervisorId, reason: o.reason };
+    override = { id: o.id, supervisorId: o.supervisorId, reason: o.reason, kind: o.kind };
   }
 
   const result = evaluateScan({
@@ -496,7 +498,7 @@ export const scansService = {
       });
       auditRepository.record(tx, now, { userId: supervisor.id, action: 'override.create', entity: 'tray', entityId: tray.id, detail: { kind: input.kind, reason: input.reason, stationId: input.stationId } });
     });
-    return { id, supervisor: { id: supervisor.id, name: supervisor.name }, expiresAt: new Date(now + OVERRIDE_MINUTES * 60_000).toISOString() };
+    return { id, kind: input.kind, stationId: input.stationId, supervisor: { id: supervisor.id, name: supervisor.name }, expiresAt: new Date(now + OVERRIDE_MINUTES * 60_000).toISOString() };
   },
 
   /** Refused scans for supervisors (open first-class; `open=false` for the resolved history). */
@@ -733,7 +735,7 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
           action: 'scan.override',
           entity: 'tray',
           entityId: e.tray!.id,
-          detail: { eventId: event.id, overridden: ok.facts.overridden, skippedSeqs: ok.facts.skippedSeqs, reason: e.override.reason, operatorId: prepared.operator!.id },
+          detail: { eventId: event.id, kind: e.override.kind, overridden: ok.facts.overridden, stationId: event.stationId, reason: e.override.reason, operatorId: prepared.operator!.id },
         });
       }
       accepted.push(acceptedScan(e.tray!, event, e.stationKind!, ok.next));

@@ -9,6 +9,7 @@ import {
   type GuardEvent,
   type GuardInput,
   type GuardResult,
+  type OverrideKind,
   type Refusal,
 } from './guards';
 import { initialTrayState, REJECTION_CODES, type RoutingStep, type StationKind, type TrayState } from './vocabulary';
@@ -89,7 +90,10 @@ function inOven(): TrayState {
   return r.next;
 }
 
-const OVERRIDE = { id: 'ov-1', supervisorId: 'sup-1', reason: 'Customer rush agreed by the manager' };
+const ov = (kind: OverrideKind) => ({ id: `ov-${kind}`, supervisorId: 'sup-1', reason: 'Customer rush agreed by the manager', kind });
+const WRONG_STATION = ov('wrong_station');
+const CURING = ov('curing');
+const RELEASE = ov('release');
 
 describe('start and finish', () => {
   it('a start at the next step’s station puts the tray in process there, with its queue time', () => {
@@ -161,15 +165,39 @@ describe('wrong station', () => {
     expect(r.params).toMatchObject({ expectedSeq: 1, expectedKind: 'strike', stationKind: 'polish', action: 'start' });
   });
 
-  it('with a supervisor override jumps to the first later step of this kind and records the skipped steps', () => {
-    const r = accepted(evaluateScan(input(fresh(), 'post', { type: 'start', occurredAt: at(10) }, { override: OVERRIDE })));
-    expect(r.next).toMatchObject({ phase: 'in_process', stepSeq: 3, stationId: 'st-post' });
-    expect(r.facts.skippedSeqs).toEqual([1, 2]);
+  it('with a wrong-station override does the awaited step here and never jumps to a later step of this kind', () => {
+    // posts are step 3: the override does step 1 (striking) at the post bench, nothing is skipped
+    const r = accepted(evaluateScan(input(fresh(), 'post', { type: 'start', occurredAt: at(10) }, { override: WRONG_STATION })));
+    expect(r.next).toMatchObject({ phase: 'in_process', stepSeq: 1, stationId: 'st-post' });
+    expect(r.facts.substitutedKind).toBe('post');
     expect(r.facts.overridden).toEqual(['wrong_station']);
+    expect(r.facts.completed).toEqual([]);
+  });
+
+  it('an override of another guard does not pass the wrong-station guard', () => {
+    for (const o of [CURING, RELEASE]) {
+      refused(evaluateScan(input(fresh(), 'post', { type: 'start', occurredAt: at(10) }, { override: o })), 'wrong_station');
+    }
+  });
+
+  it('a wrong-station override never stands in for a cure: a tray waiting for its oven stays refused at the fill bench', () => {
+    let s = fresh();
+    s = doStep(s, 'strike', 10, 20).next;
+    s = doStep(s, 'trim', 30, 40).next;
+    s = doStep(s, 'post', 50, 60).next;
+    s = doStep(s, 'fill', 70, 90).next; // waiting for step 5, colour 1 cure
+    const r = refused(evaluateScan(input(s, 'fill', { type: 'start', occurredAt: at(95) }, { override: WRONG_STATION })), 'wrong_station');
+    expect(r.overridable).toBe(false);
+    expect(r.params).toMatchObject({ expectedSeq: 5, expectedKind: 'cure' });
+  });
+
+  it('a tray in the oven is not taken out by a wrong-station override at another station', () => {
+    const r = refused(evaluateScan(input(inOven(), 'polish', { type: 'finish', occurredAt: at(250) }, { override: WRONG_STATION })), 'wrong_station');
+    expect(r.overridable).toBe(false);
   });
 
   it('with an override and no later step of this kind does the next step here', () => {
-    const r = accepted(evaluateScan(input(fresh(), 'inspect', { type: 'start', occurredAt: at(10) }, { override: OVERRIDE })));
+    const r = accepted(evaluateScan(input(fresh(), 'inspect', { type: 'start', occurredAt: at(10) }, { override: WRONG_STATION })));
     expect(r.next).toMatchObject({ phase: 'in_process', stepSeq: 1, stationId: 'st-inspect' });
     expect(r.facts.substitutedKind).toBe('inspect');
     // and it is finished at the station where it started
@@ -181,12 +209,13 @@ describe('wrong station', () => {
     const s = accepted(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(10) }))).next;
     const r = refused(evaluateScan(input(s, 'trim', { type: 'finish', occurredAt: at(20) })), 'wrong_station');
     expect(r.params).toMatchObject({ action: 'finish', expectedKind: 'strike' });
-    const o = accepted(evaluateScan(input(s, 'trim', { type: 'finish', occurredAt: at(20) }, { override: OVERRIDE })));
+    refused(evaluateScan(input(s, 'trim', { type: 'finish', occurredAt: at(20) }, { override: CURING })), 'wrong_station');
+    const o = accepted(evaluateScan(input(s, 'trim', { type: 'finish', occurredAt: at(20) }, { override: WRONG_STATION })));
     expect(o.facts.overridden).toEqual(['wrong_station']);
   });
 
   it('an override that was not needed changes nothing and is not counted as used', () => {
-    const r = accepted(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(10) }, { override: OVERRIDE })));
+    const r = accepted(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(10) }, { override: WRONG_STATION })));
     expect(r.facts.overridden).toEqual([]);
     expect(r.next.stepSeq).toBe(1);
   });
@@ -240,14 +269,25 @@ describe('cure interlock (2 h cure per colour: common practice)', () => {
     accepted(evaluateScan(input(out.next, 'fill', { type: 'start', occurredAt: at(221) })));
   });
 
-  it('a supervisor override lets the next colour start early; the cure closes at the override', () => {
-    const r = accepted(evaluateScan(input(inOven(), 'fill', { type: 'start', occurredAt: at(200) }, { override: OVERRIDE })));
+  it('a wrong-station or release override does not let the next colour start early', () => {
+    for (const o of [WRONG_STATION, RELEASE]) {
+      const r = refused(evaluateScan(input(inOven(), 'fill', { type: 'start', occurredAt: at(200) }, { override: o })), 'curing');
+      expect(r.minutesLeft).toBe(20);
+    }
+    // nor at a bench of another kind: that needs two overrides, one per guard
+    refused(evaluateScan(input(inOven(), 'polish', { type: 'start', occurredAt: at(200) }, { override: WRONG_STATION })), 'curing');
+    refused(evaluateScan(input(inOven(), 'polish', { type: 'start', occurredAt: at(200) }, { override: CURING })), 'wrong_station');
+  });
+
+  it('a curing override lets the next colour start early; the cure closes at the override', () => {
+    const r = accepted(evaluateScan(input(inOven(), 'fill', { type: 'start', occurredAt: at(200) }, { override: CURING })));
     expect(r.facts.overridden).toEqual(['curing']);
     expect(r.facts.completed[0]).toMatchObject({ seq: 5, finishedAt: at(200), processMinutes: 100, implicit: true });
   });
 
   it('an overridden early take-out does not need a second override for the next colour', () => {
-    const out = accepted(evaluateScan(input(inOven(), 'cure', { type: 'finish', occurredAt: at(200) }, { override: OVERRIDE })));
+    refused(evaluateScan(input(inOven(), 'cure', { type: 'finish', occurredAt: at(200) }, { override: WRONG_STATION })), 'curing');
+    const out = accepted(evaluateScan(input(inOven(), 'cure', { type: 'finish', occurredAt: at(200) }, { override: CURING })));
     expect(out.facts.overridden).toEqual(['curing']);
     accepted(evaluateScan(input(out.next, 'fill', { type: 'start', occurredAt: at(201) })));
   });
@@ -291,6 +331,27 @@ describe('quantities', () => {
     expect(ok.next.quantity).toBe(95);
     refused(finishWith({ goodQty: 95, scrapQty: 5, reworkQty: 96, scrapReason: 'die_crack' }), 'quantity_mismatch');
   });
+  it('negative, fractional, excess and non-numeric counts are refused, whoever calls the guard', () => {
+    const cases: Partial<GuardEvent>[] = [
+      { goodQty: 105, scrapQty: -5, scrapReason: 'die_crack' }, // sums to 100, but scrap < 0 and good > pieces in
+      { goodQty: 101 }, // good > pieces in (scrap would be -1)
+      { goodQty: 99.5, scrapQty: 0.5, scrapReason: 'die_crack' }, // fractions that sum to 100
+      { goodQty: 100, reworkQty: -1 },
+      { goodQty: 100, reworkQty: 0.5 },
+      { goodQty: Number.NaN },
+      { goodQty: Number.POSITIVE_INFINITY, scrapQty: Number.NEGATIVE_INFINITY, scrapReason: 'die_crack' },
+      { goodQty: '100' as unknown as number },
+    ];
+    for (const c of cases) {
+      const r = refused(finishWith(c), 'quantity_mismatch');
+      expect(r.params.quantityIn).toBe(100);
+      // the params stay JSON-safe numbers (or null)
+      for (const v of [r.params.good, r.params.scrap, r.params.rework]) expect(v === null || Number.isFinite(v)).toBe(true);
+    }
+    // with no scrap given, good may not exceed the pieces in either
+    refused(finishWith({ scrapQty: -1, scrapReason: 'die_crack' }), 'quantity_mismatch');
+  });
+
   it('scrap needs a reason, and a reason from the list when the list is given', () => {
     refused(finishWith({ goodQty: 98, scrapQty: 2 }), 'scrap_reason_missing');
     const r = evaluateScan(
@@ -344,14 +405,17 @@ describe('hold and release', () => {
     expect(r.params.holdReason).toBe('artwork_query');
     expect(r.overridable).toBe(false);
     // an override does not lift a hold
-    refused(evaluateScan(input(held, 'strike', { type: 'start', occurredAt: at(6) }, { override: OVERRIDE })), 'on_hold');
+    for (const o of [WRONG_STATION, CURING, RELEASE]) refused(evaluateScan(input(held, 'strike', { type: 'start', occurredAt: at(6) }, { override: o })), 'on_hold');
     refused(evaluateScan(input(held, 'strike', { type: 'hold', occurredAt: at(6), scrapReason: 'x' })), 'on_hold');
 
     const byOperator = refused(evaluateScan(input(held, 'strike', { type: 'release', occurredAt: at(7) }, { actorRole: 'operator' })), 'bad_override');
     expect(byOperator.params.reason).toBe('release_needs_supervisor');
     const bySup = accepted(evaluateScan(input(held, 'strike', { type: 'release', occurredAt: at(7) }, { actorRole: 'supervisor' })));
     expect(bySup.next).toMatchObject({ onHold: false, holdReason: null });
-    const byOverride = accepted(evaluateScan(input(held, 'strike', { type: 'release', occurredAt: at(7) }, { actorRole: 'operator', override: OVERRIDE })));
+    for (const o of [WRONG_STATION, CURING]) {
+      refused(evaluateScan(input(held, 'strike', { type: 'release', occurredAt: at(7) }, { actorRole: 'operator', override: o })), 'bad_override');
+    }
+    const byOverride = accepted(evaluateScan(input(held, 'strike', { type: 'release', occurredAt: at(7) }, { actorRole: 'operator', override: RELEASE })));
     expect(byOverride.next.onHold).toBe(false);
     accepted(evaluateScan(input(bySup.next, 'strike', { type: 'start', occurredAt: at(8) })));
   });
@@ -372,7 +436,7 @@ describe('mould not ready', () => {
   it('a striking or casting start waits for the mould; other steps do not', () => {
     const r = refused(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(5) }, { mouldReady: false })), 'mould_not_ready');
     expect(r.overridable).toBe(false);
-    refused(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(5) }, { mouldReady: false, override: OVERRIDE })), 'mould_not_ready');
+    refused(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(5) }, { mouldReady: false, override: WRONG_STATION })), 'mould_not_ready');
     accepted(evaluateScan(input(fresh(), 'strike', { type: 'start', occurredAt: at(5) }, { mouldReady: true })));
     const trimming = { ...fresh(), stepSeq: 2 };
     accepted(evaluateScan(input(trimming, 'trim', { type: 'start', occurredAt: at(5) }, { mouldReady: false })));

@@ -29,12 +29,16 @@
 //
 // Overrides
 // ---------
-// `wrong_station` and `curing` can be let through by a valid supervisor override (checked by the
-// caller; the guard only sees a valid one). An overridden wrong-station start jumps to the first
-// later step of this station's kind when there is one (the steps in between are recorded as
-// skipped: the usual cause is a tray that went through a station without being scanned);
-// otherwise the tray's next step is done here, at a station of another kind.
-// Every other refusal stands whatever the override.
+// An override names one guard (`wrong_station`, `curing` or `release`), one traveller and one
+// station; the caller checks the traveller, the station, the expiry and that it is used once, the
+// guard that its kind is the guard being passed. It lets through only that guard:
+// - a `wrong_station` override does the awaited step at this station. It never skips a step, and
+//   never stands in for a cure: a cure step is done in an oven, and a tray still curing needs
+//   a `curing` override to leave early;
+// - a `curing` override lets the next step start (or the oven finish) before the cure has run;
+// - a `release` override lets an operator lift a hold.
+// A scan that two guards refuse needs two scans (one override each); every other refusal stands
+// whatever the override.
 //
 // Time
 // ----
@@ -77,11 +81,17 @@ export interface GuardEvent {
   note?: string | null;
 }
 
-/** An override the caller has checked: a supervisor's, for this traveller, with a reason. */
+/** The guards an override can name. */
+export const OVERRIDE_KINDS = ['wrong_station', 'curing', 'release'] as const;
+export type OverrideKind = (typeof OVERRIDE_KINDS)[number];
+
+/** An override the caller has checked: a supervisor's, for this traveller and station, with a reason. */
 export interface ValidOverride {
   id: string;
   supervisorId: string;
   reason: string;
+  /** the one guard it lets through */
+  kind: OverrideKind;
 }
 
 export interface GuardInput {
@@ -142,11 +152,9 @@ export interface ScanFacts {
   processMinutes?: number;
   /** steps this event closed, in order (an implicit cure close comes before a start) */
   completed: StepRecord[];
-  /** steps jumped over by an overridden wrong-station start */
-  skippedSeqs: number[];
-  /** refusals the override let through (empty: no override needed) */
+  /** refusals the override let through (empty: no override needed; at most one) */
   overridden: RejectionCode[];
-  /** set when an overridden start did the next step at a station of another kind */
+  /** set when an overridden start did the awaited step at a station of another kind */
   substitutedKind?: StationKind;
 }
 
@@ -171,6 +179,11 @@ function iso(ms: number): string {
 /** Whole minutes until `readyMs`, rounded up: 59 s left is "1 minute left". */
 export function minutesUntil(fromMs: number, readyMs: number): number {
   return Math.max(0, Math.ceil((readyMs - fromMs) / MINUTE_MS));
+}
+
+/** A count as a refusal parameter: a number that JSON can carry (NaN and infinities become null). */
+function num(n: unknown): number | null {
+  return typeof n === 'number' && Number.isFinite(n) ? n : null;
 }
 
 function refuse(code: RejectionCode, params: RefusalParams = {}, overridable = false): Refusal {
@@ -309,7 +322,7 @@ export function evaluateScan(input: GuardInput): GuardResult {
 type Stamp = (s: TrayState) => TrayState;
 
 function noFacts(stepSeq: number | null): ScanFacts {
-  return { stepSeq, completed: [], skippedSeqs: [], overridden: [] };
+  return { stepSeq, completed: [], overridden: [] };
 }
 
 function reasonKnown(input: GuardInput, reason: string): boolean {
@@ -329,7 +342,7 @@ function hold(input: GuardInput, state: TrayState, _occurredMs: number, stamp: S
 function release(input: GuardInput, state: TrayState, stamp: Stamp): GuardResult {
   if (!state.onHold) return refuse('not_on_hold');
   const bySupervisor = input.actorRole != null && RELEASE_ROLES.includes(input.actorRole);
-  if (!bySupervisor && !input.override) return refuse('bad_override', { reason: 'release_needs_supervisor' });
+  if (!bySupervisor && input.override?.kind !== 'release') return refuse('bad_override', { reason: 'release_needs_supervisor' });
   const next = stamp({ ...state, onHold: false, holdReason: null });
   return { ok: true, next, facts: noFacts(state.stepSeq) };
 }
@@ -352,24 +365,16 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
   if (!awaited) return refuse('finished', { phase: state.phase });
 
   const overridden: RejectionCode[] = [];
-  let target = awaited;
+  const target = awaited;
   let substitutedKind: StationKind | undefined;
-  const skippedSeqs: number[] = [];
 
   if (station.kind !== awaited.stationKind) {
-    if (!input.override) {
-      return refuse('wrong_station', { ...stepParams(awaited, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'start' }, true);
-    }
+    const params = { ...stepParams(awaited, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'start' };
+    // A cure is done in an oven: no override makes another station stand in for it.
+    if (awaited.stationKind === 'cure') return refuse('wrong_station', params, false);
+    if (input.override?.kind !== 'wrong_station') return refuse('wrong_station', params, true);
     overridden.push('wrong_station');
-    const later = routing
-      .filter((s) => s.seq > awaited.seq && s.stationKind === station.kind)
-      .sort((a, b) => a.seq - b.seq)[0];
-    if (later) {
-      target = later;
-      for (let s = awaited.seq; s < later.seq; s++) skippedSeqs.push(s);
-    } else {
-      substitutedKind = station.kind;
-    }
+    substitutedKind = station.kind;
   }
 
   if (state.kind === 'tray' && MOULD_KINDS.includes(target.stationKind) && input.mouldReady === false) {
@@ -379,7 +384,7 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
   // The cure interlock: the cure in the oven (or the one just taken out) must have run its time.
   const readyMs = state.cureReadyAt ? Date.parse(state.cureReadyAt) : null;
   const early = readyMs != null && occurredMs < readyMs;
-  if (early && !input.override) {
+  if (early && input.override?.kind !== 'curing') {
     const minutesLeft = minutesUntil(occurredMs, readyMs);
     const cureStep = state.phase === 'curing' ? current : stepAt(routing, awaited.seq - 1);
     return {
@@ -418,7 +423,6 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
       stepSeq: target.seq,
       queueMinutes: Math.max(0, (occurredMs - waitingFromMs) / MINUTE_MS),
       completed,
-      skippedSeqs,
       overridden,
       ...(substitutedKind ? { substitutedKind } : {}),
     },
@@ -440,8 +444,10 @@ function finish(input: GuardInput, state: TrayState, occurredMs: number, stamp: 
     if (state.phase === 'curing' && after && station.kind === after.stationKind) {
       return refuse('not_started', { ...stepParams(after), stationKind: station.kind });
     }
-    if (!input.override) {
-      return refuse('wrong_station', { ...stepParams(current, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'finish' }, true);
+    // A cure is finished at its oven only; a wrong-station override cannot take a tray out of it.
+    const overridable = state.phase !== 'curing';
+    if (!overridable || input.override?.kind !== 'wrong_station') {
+      return refuse('wrong_station', { ...stepParams(current, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'finish' }, overridable);
     }
     overridden.push('wrong_station');
   }
@@ -450,7 +456,7 @@ function finish(input: GuardInput, state: TrayState, occurredMs: number, stamp: 
   if (state.phase === 'curing') {
     const readyMs = state.cureReadyAt ? Date.parse(state.cureReadyAt) : occurredMs;
     if (occurredMs < readyMs) {
-      if (!input.override) {
+      if (input.override?.kind !== 'curing') {
         const minutesLeft = minutesUntil(occurredMs, readyMs);
         return {
           ...refuse('curing', { minutesLeft, readyAt: state.cureReadyAt, ...stepParams(current, 'cure'), ...stepParams(current) }, true),
@@ -464,12 +470,15 @@ function finish(input: GuardInput, state: TrayState, occurredMs: number, stamp: 
     }
   }
 
+  // Counts are whole, not negative, and conserve the pieces: good + scrap = pieces in, rework
+  // within good. Checked here for every caller (tablet, server, simulator), not only by the wire schema.
   const quantityIn = state.quantity;
   const scrap = event.scrapQty ?? 0;
   const good = event.goodQty ?? quantityIn - scrap;
   const rework = event.reworkQty ?? 0;
-  if (good < 0 || good + scrap !== quantityIn || rework > good) {
-    return refuse('quantity_mismatch', { quantityIn, good, scrap, rework });
+  const whole = (n: number) => typeof n === 'number' && Number.isSafeInteger(n) && n >= 0;
+  if (!whole(good) || !whole(scrap) || !whole(rework) || good > quantityIn || good + scrap !== quantityIn || rework > good) {
+    return refuse('quantity_mismatch', { quantityIn, good: num(good), scrap: num(scrap), rework: num(rework) });
   }
   const reason = event.scrapReason?.trim() || null;
   if (scrap > 0 && !reason) return refuse('scrap_reason_missing', { for: 'scrap', scrap });
@@ -484,7 +493,6 @@ function finish(input: GuardInput, state: TrayState, occurredMs: number, stamp: 
       stepSeq: current.seq,
       processMinutes: record.processMinutes ?? undefined,
       completed: [record],
-      skippedSeqs: [],
       overridden,
     },
   };

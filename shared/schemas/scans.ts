@@ -103,6 +103,9 @@ export type OverrideBody = z.infer<typeof overrideBody>;
 
 export const overrideView = z.object({
   id: z.string(),
+  /** the one guard it lets through, at `stationId`, for one scan */
+  kind: z.enum(['wrong_station', 'curing', 'release']),
+  stationId: z.string(),
   supervisor: z.object({ id: z.string(), name: z.string() }),
   expiresAt: z.string(),
 });

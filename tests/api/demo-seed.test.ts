@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { seedDemo } from '../../server/seed/demo';
-import { evaluateScan, type GuardInput, type ValidOverride } from '@shared/domain/guards';
+import { evaluateScan, type GuardInput, type OverrideKind, type ValidOverride } from '@shared/domain/guards';
 import { compileCalendar, WEEKDAYS, type WeekSchedule } from '@shared/domain/calendar';
 import { ORDER_STATUSES, PROCESSES, REJECTION_CODES, initialTrayState, type Role, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
 
@@ -86,7 +86,9 @@ describe('demo factory seed', () => {
     const devices = new Map(q<{ id: string; station_id: string }>(a, 'select id, station_id from devices').map((d) => [d.id, d.station_id]));
     const roles = new Map(q<{ id: string; role: Role }>(a, 'select id, role from users').map((u) => [u.id, u.role]));
     const reasonCodes = q<{ code: string }>(a, 'select code from reason_codes').map((r) => r.code);
-    const overrides = new Map(q<{ id: string; tray_id: string; supervisor_id: string; reason: string; used_event_id: string | null }>(a, 'select * from overrides').map((o) => [o.id, o]));
+    const overrides = new Map(
+      q<{ id: string; tray_id: string; station_id: string; kind: OverrideKind; supervisor_id: string; reason: string; used_event_id: string | null }>(a, 'select * from overrides').map((o) => [o.id, o]),
+    );
     const steps = q<RoutingStep & { order_id: string; traveller_kind: string; station_kind: StationKind; tray_minutes: number; piece_minutes: number; cure_minutes: number | null }>(
       a,
       'select order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour from order_steps order by seq',
@@ -130,7 +132,8 @@ describe('demo factory seed', () => {
           const o = overrides.get(e.override_id)!;
           expect(o.tray_id).toBe(t.id);
           expect(o.used_event_id).toBe(e.id);
-          override = { id: o.id, supervisorId: o.supervisor_id, reason: o.reason };
+          expect(o.station_id, 'an override names the station it was used at').toBe(e.station_id);
+          override = { id: o.id, supervisorId: o.supervisor_id, reason: o.reason, kind: o.kind };
         }
         const moulds = mouldsOf.get(t.order_id) ?? [];
         const input: GuardInput = {

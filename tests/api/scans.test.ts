@@ -401,11 +401,12 @@ describe('overrides, exceptions and station screens', () => {
     expect(ov.status).toBe(201);
     expect(ov.body.supervisor).toMatchObject({ id: supervisor.id });
     const ok = await post([scan(tray.code, ST['TRM-1'], 'start', now(), { overrideId: ov.body.id })]);
-    expect(ok.results[0]).toMatchObject({ status: 'accepted', tray: { stepSeq: 2, phase: 'in_process' } });
+    // striking done at the trimming bench: the awaited step, nothing skipped
+    expect(ok.results[0]).toMatchObject({ status: 'accepted', tray: { stepSeq: 1, phase: 'in_process' } });
     const row = t.deps.db.select().from(scanEvents).where(eq(scanEvents.trayId, tray.id)).get()!;
     expect(row.overrideId).toBe(ov.body.id);
     const audit = t.deps.db.$client.prepare("select detail from audit_log where action = 'scan.override' and entity_id = ?").get(tray.id) as { detail: string };
-    expect(JSON.parse(audit.detail)).toMatchObject({ overridden: ['wrong_station'], skippedSeqs: [1], reason: 'Struck on the old press last night' });
+    expect(JSON.parse(audit.detail)).toMatchObject({ kind: 'wrong_station', overridden: ['wrong_station'], reason: 'Struck on the old press last night' });
   });
 
   it('a supervisor retries a refused scan after the cause is gone, or resolves it with a note', async () => {

@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Camera, CameraOff, Keyboard, LogOut, Languages, ScanLine, Users } from 'lucide-react';
 import { ApiError } from '@/lib/api-client';
-import { awaitedStep, type RefusalParams } from '@shared/domain/guards';
+import { awaitedStep, type OverrideKind, type RefusalParams } from '@shared/domain/guards';
 import { correctedIso } from '@shared/domain/clock-offset';
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { RejectionCode, RoutingStep, TrayState } from '@shared/domain/vocabulary';
@@ -72,7 +72,7 @@ export function StationScreen({
   const [camera, setCamera] = useState(false);
   const [typed, setTyped] = useState('');
   /** a supervisor approved an early or wrong-station finish: the counts still come from the operator */
-  const [finishOverride, setFinishOverride] = useState<string | null>(null);
+  const [finishOverride, setFinishOverride] = useState<{ id: string; kind: OverrideKind } | null>(null);
   const serial = useRef(0);
   const photoInput = useRef<HTMLInputElement>(null);
   const guardStation = useMemo(() => ({ id: station.id, kind: station.kind, name: station.name }), [station]);
@@ -192,7 +192,7 @@ export function StationScreen({
 
   // --- actions ------------------------------------------------------------------------------
   const act = useCallback(
-    async (type: ScanEvent['type'], extra: Partial<ScanEvent> = {}, overrideId?: string) => {
+    async (type: ScanEvent['type'], extra: Partial<ScanEvent> = {}, override?: { id: string; kind: OverrideKind }) => {
       if (!current) return;
       const { card, state } = stateOf(current.number);
       const event: ScanEvent = {
@@ -203,10 +203,10 @@ export function StationScreen({
         occurredAt: correctedIso(Date.now(), engine.getStatus().offset),
         operatorId: operator.id,
         ...extra,
-        ...(overrideId ? { overrideId } : {}),
+        ...(override ? { overrideId: override.id } : {}),
       };
       if (card && state) {
-        const r = evaluateLocal({ card, state, station: guardStation, event, now: engine.now(), role: operator.role, overrideId, reasonCodes });
+        const r = evaluateLocal({ card, state, station: guardStation, event, now: engine.now(), role: operator.role, override, reasonCodes });
         if (!r.ok) {
           const m = describeRefusal(lang, r.code, r.params, time, reasonName);
           const retry = { type, ...extra };
@@ -234,7 +234,7 @@ export function StationScreen({
           if (!r.overridable && r.code !== 'bad_override') setPanel(null);
           return false;
         }
-        await engine.add(event, { trayNumber: current.number, local: { ok: true } });
+        await engine.add(event, { trayNumber: current.number, local: { ok: true }, overrideKind: override?.kind });
         const next = r.next;
         const nextStep = next.stepSeq != null ? card.routing.find((s) => s.seq === next.stepSeq) : undefined;
         const title = type === 'start' ? t('feedback.started') : type === 'finish' ? t('feedback.finished') : type === 'hold' ? t('feedback.held') : t('feedback.released');
@@ -247,7 +247,7 @@ export function StationScreen({
           next: status.online ? undefined : t('feedback.savedOffline'),
         });
       } else {
-        await engine.add(event, { trayNumber: current.number, local: null });
+        await engine.add(event, { trayNumber: current.number, local: null, overrideKind: override?.kind });
         say('warning', { title: `${t('feedback.savedOffline')}: ${current.number}`, detail: t('feedback.checkLater') });
       }
       setPanel(null);
@@ -372,9 +372,9 @@ export function StationScreen({
                   onApproved={(ov) => {
                     const { type, ...extra } = panel.retry;
                     if (type === 'finish') {
-                      setFinishOverride(ov.id);
+                      setFinishOverride({ id: ov.id, kind: panel.override });
                       setPanel('finish');
-                    } else void act(type, extra, ov.id);
+                    } else void act(type, extra, { id: ov.id, kind: panel.override });
                   }}
                 />
               )}

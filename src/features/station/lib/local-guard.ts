@@ -1,7 +1,7 @@
 // The tablet's own copy of the guards: the same pure state machine the server runs, fed with the
 // travellers cached from the station's list and the scans still on their way. The server stays
 // the authority; this gives the operator the right answer at once, also offline.
-import { evaluateScan, type GuardResult, type GuardStation, type TravellerVerdict } from '@shared/domain/guards';
+import { evaluateScan, type GuardResult, type GuardStation, type OverrideKind, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { Role, TrayState } from '@shared/domain/vocabulary';
 import type { ScanEvent, TrayCard } from '@shared/schemas/scans';
@@ -36,12 +36,17 @@ export function replayState(card: TrayCard, asOf: string, entries: readonly Outb
       event: e.event,
       now,
       mouldReady: card.mouldReady,
-      override: e.event.overrideId ? { id: e.event.overrideId, supervisorId: '', reason: '' } : null,
+      override: e.event.overrideId && e.overrideKind ? localOverride({ id: e.event.overrideId, kind: e.overrideKind }) : null,
       actorRole: role,
     });
     if (r.ok) state = r.next;
   }
   return state;
+}
+
+/** The tablet knows an override's id and guard; the server checks who gave it and why. */
+function localOverride(o: { id: string; kind: OverrideKind }): ValidOverride {
+  return { id: o.id, kind: o.kind, supervisorId: '', reason: '' };
 }
 
 export function evaluateLocal(input: {
@@ -51,7 +56,8 @@ export function evaluateLocal(input: {
   event: Pick<ScanEvent, 'type' | 'occurredAt' | 'goodQty' | 'scrapQty' | 'reworkQty' | 'scrapReason' | 'note' | 'code'>;
   now: number;
   role: Role | null;
-  overrideId?: string | null;
+  /** a supervisor's override given on this tablet: its id and the one guard it names */
+  override?: { id: string; kind: OverrideKind } | null;
   reasonCodes?: readonly string[] | null;
 }): GuardResult {
   return evaluateScan({
@@ -62,7 +68,7 @@ export function evaluateLocal(input: {
     event: input.event,
     now: input.now,
     mouldReady: input.card.mouldReady,
-    override: input.overrideId ? { id: input.overrideId, supervisorId: '', reason: '' } : null,
+    override: input.override ? localOverride(input.override) : null,
     actorRole: input.role,
     reasonCodes: input.reasonCodes,
   });

@@ -3,7 +3,7 @@
 // anything else happens, so closing the tab, losing the network or a crash never loses it.
 import Dexie, { type EntityTable } from 'dexie';
 import type { ScanEvent, ScanTray, TrayCard } from '@shared/schemas/scans';
-import type { RefusalParams } from '@shared/domain/guards';
+import type { OverrideKind, RefusalParams } from '@shared/domain/guards';
 import type { RejectionCode, Role } from '@shared/domain/vocabulary';
 
 export type OutboxStatus = 'pending' | 'accepted' | 'rejected';
@@ -17,6 +17,8 @@ export interface OutboxEntry {
   status: OutboxStatus;
   /** the tablet's own verdict when the scan was made (null: tray unknown to the tablet) */
   local: { ok: boolean; code?: RejectionCode } | null;
+  /** the guard the event's supervisor override names, so the tablet can replay it */
+  overrideKind?: OverrideKind;
   createdAt: number;
   attempts: number;
   /** server time of the answer */

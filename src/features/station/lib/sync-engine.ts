@@ -140,8 +140,17 @@ export class SyncEngine {
   }
 
   /** Write a scan to the outbox first; only then is it on its way. */
-  async add(event: ScanEvent, meta: { trayNumber: string; local: OutboxEntry['local'] }): Promise<void> {
-    await this.db.outbox.add({ id: event.id, event, trayNumber: meta.trayNumber, status: 'pending', local: meta.local, createdAt: this.clock(), attempts: 0 });
+  async add(event: ScanEvent, meta: { trayNumber: string; local: OutboxEntry['local']; overrideKind?: OutboxEntry['overrideKind'] }): Promise<void> {
+    await this.db.outbox.add({
+      id: event.id,
+      event,
+      trayNumber: meta.trayNumber,
+      status: 'pending',
+      local: meta.local,
+      ...(meta.overrideKind ? { overrideKind: meta.overrideKind } : {}),
+      createdAt: this.clock(),
+      attempts: 0,
+    });
     await this.refreshCounts();
     this.kick();
   }

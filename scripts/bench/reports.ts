@@ -116,6 +116,9 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
         printing,
         epoxy,
         backing: { type: 'butterfly_clutch', count: 1 },
+        plating: 'gold',
+        secondPlating: null,
+        sandblast: false,
       });
       routings.set(key, r);
     }

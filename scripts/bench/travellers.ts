@@ -37,6 +37,9 @@ export function benchCards(n = 100): TravellerCard[] {
     printing: true,
     epoxy: false,
     backing: { type: 'butterfly_clutch', count: 2 },
+    plating: 'gold',
+    secondPlating: null,
+    sandblast: false,
   });
   const art = artwork();
   const key = 'bench-key-0123456789abcdefghijklmn';

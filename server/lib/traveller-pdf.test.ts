@@ -55,6 +55,9 @@ function card(number: string, revision: number, over: Partial<TravellerCard> = {
       printing: true,
       epoxy: true,
       backing: { type: 'butterfly_clutch', count: 2 },
+      plating: 'gold',
+      secondPlating: null,
+      sandblast: false,
     }),
     ...over,
   };

@@ -14,6 +14,7 @@ export interface OpenTrayRow {
   orderNumber: string;
   title: string;
   customer: string;
+  /** the finish its current plating step plates: the second finish of a two-tone order at its second plating */
   plating: string;
   dueDate: string;
   phase: 'waiting' | 'in_process' | 'curing';
@@ -67,7 +68,10 @@ export const floorRepository = {
   openTrays(db: Db): OpenTrayRow[] {
     return client(db)
       .prepare(
-        `select s.tray_id as trayId, t.number, t.kind, t.order_id as orderId, o.number as orderNumber, o.title, c.name as customer, o.plating, o.due_date as dueDate,
+        `select s.tray_id as trayId, t.number, t.kind, t.order_id as orderId, o.number as orderNumber, o.title, c.name as customer,
+           case when o.second_plating is not null and cur.station_kind = 'plate' and exists (
+             select 1 from order_steps p where p.order_id = t.order_id and p.traveller_kind = t.kind and p.station_kind = 'plate' and p.seq < cur.seq
+           ) then o.second_plating else o.plating end as plating, o.due_date as dueDate,
            s.phase, s.step_seq as stepSeq, s.station_kind as stationKind, s.station_id as stationId, s.quantity,
            s.started_at as startedAt, s.waiting_since as waitingSince, s.cure_ready_at as cureReadyAt, s.on_hold as onHold, coalesce(hr.name, s.hold_reason) as holdReason,
            s.released_at as releasedAt,

@@ -71,6 +71,8 @@ export interface OrderPlan {
   backLogo: boolean;
   printing: boolean;
   epoxy: boolean;
+  secondPlating: Plating | null;
+  sandblast: boolean;
   packaging: Packaging;
   notes: string;
   designKey: string;
@@ -248,9 +250,13 @@ export function planOrders(rng: Rng, nowMs: number, historyDays: number): OrderP
       colours: spec.colours,
       plating: spec.plating,
       backing,
-      backLogo: rng.chance(0.2),
+      // a printed badge is cut from a printed sheet: no struck back logo (the draw stays, so the rest of the demo is unchanged)
+      backLogo: rng.chance(0.2) && process !== 'printed',
       printing: spec.printing,
       epoxy: spec.epoxy,
+      // some die-struck designs have a sandblasted field, a few a second tone (fixed by design number, not drawn)
+      sandblast: process === 'die_struck' && designNo % 3 === 0,
+      secondPlating: process === 'die_struck' && designNo % 4 === 0 ? 'black_nickel' : null,
       packaging: pickWeighted<Packaging>(rng, [['individual_bag', 5], ['bulk', 2], ['backing_card', 2], ['gift_box', 1]]),
       notes: rng.chance(0.25) ? rng.pick(['Ship in one consignment.', 'Check the colour order against the proof.', 'Customer collects at the gate.', 'Pack by house: one carton each.', 'Repeat customer: match last year’s shade.']) : '',
       designKey: `D-${String(designNo).padStart(4, '0')}`,
@@ -283,6 +289,8 @@ export function planOrders(rng: Rng, nowMs: number, historyDays: number): OrderP
       backLogo: original.backLogo,
       printing: original.printing,
       epoxy: original.epoxy,
+      sandblast: original.sandblast,
+      secondPlating: original.secondPlating,
       traySize: original.traySize,
       designKey: original.designKey,
       reorderOf: original,

@@ -230,6 +230,8 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
         backLogo: plan.backLogo,
         printing: plan.printing,
         epoxy: plan.epoxy,
+        sandblast: plan.sandblast,
+        secondPlating: plan.secondPlating,
         packaging: plan.packaging,
         dueDate: provisionalDue,
         notes: plan.target === 'packed' ? 'Customer collects at the gate with their next order.' : plan.notes,

@@ -33,6 +33,8 @@ import {
   DEFAULT_ROUTING_TEMPLATES,
   expandRouting,
   mouldRouting,
+  mouldStepsFor,
+  mouldTool,
   requiredMoulds,
   type MouldSide,
   type RoutingTemplate,
@@ -84,6 +86,36 @@ function refuseIfReleased(order: OrderRow, what: string) {
   if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled.`);
 }
 
+/** The columns an order spec fills (one mapping for entry and change). */
+function specColumns(spec: OrderSpec) {
+  return {
+    title: spec.title,
+    productType: spec.productType,
+    process: spec.process,
+    material: spec.material,
+    sizeMm: spec.sizeMm,
+    quantity: spec.quantity,
+    overrunPct: spec.overrunPct,
+    colours: spec.colours,
+    plating: spec.plating,
+    secondPlating: spec.secondPlating,
+    backingType: spec.backing.type,
+    backingCount: spec.backing.count,
+    backLogo: spec.backLogo,
+    printing: spec.printing,
+    epoxy: spec.epoxy,
+    sandblast: spec.sandblast,
+    packaging: spec.packaging,
+    dueDate: spec.dueDate,
+    notes: spec.notes,
+  };
+}
+
+/** The spec fields that shape the routing: a change to one of them makes the routing again. */
+function routingShape(spec: Omit<OrderSpec, 'customer' | 'customerId' | 'reorderOf'>): string {
+  return JSON.stringify([spec.process, spec.colours.length, spec.backLogo, spec.printing, spec.epoxy, spec.backing, spec.plating, spec.secondPlating, spec.sandblast]);
+}
+
 export function specOf(order: OrderRow): Omit<OrderSpec, 'customer' | 'customerId' | 'reorderOf'> {
   return {
     title: order.title,
@@ -95,10 +127,12 @@ export function specOf(order: OrderRow): Omit<OrderSpec, 'customer' | 'customerI
     overrunPct: order.overrunPct,
     colours: order.colours,
     plating: order.plating as OrderSpec['plating'],
+    secondPlating: (order.secondPlating ?? null) as OrderSpec['secondPlating'],
     backing: { type: order.backingType as BackingType, count: order.backingCount },
     backLogo: order.backLogo,
     printing: order.printing,
     epoxy: order.epoxy,
+    sandblast: order.sandblast,
     packaging: order.packaging as OrderSpec['packaging'],
     dueDate: order.dueDate,
     notes: order.notes,
@@ -324,11 +358,14 @@ export const ordersService = {
       .filter((t) => t.tray.kind === 'mould')
       .map((t) => {
         const mould = t.tray.mouldId ? mouldsRepository.byId(db, t.tray.mouldId) : undefined;
+        const side = (mould?.side ?? 'front') as MouldSide;
+        const tool = mouldTool(order.process as Process, side);
         return {
-          ...summariseTraveller(deps, t.tray, t.state, mouldSteps),
+          ...summariseTraveller(deps, t.tray, t.state, mouldStepsFor(mouldSteps, tool)),
           mouldId: mould?.id ?? '',
           mouldNumber: mould?.number ?? '',
-          side: (mould?.side ?? 'front') as MouldSide,
+          side,
+          tool,
           reused: mould ? mould.firstOrderId !== id : false,
           storageLocation: mould?.storageLocation ?? null,
         };
@@ -385,12 +422,13 @@ export const ordersService = {
         approvalNote: p.approvalNote,
       })),
       routing: routing.map((s) => ({ ...s, standardMinutes: Math.round((s.trayMinutes + s.pieceMinutes * traySize) * 10) / 10 })),
-      mouldRouting: mouldSteps.length ? mouldSteps : mouldRouting({ reuse: false }),
+      mouldRouting: mouldSteps.length ? mouldSteps : mouldRouting({ reuse: false, process: spec.process }),
       mouldPlan: requiredMoulds(spec).map((side) => {
+        const tool = mouldTool(spec.process, side);
         const linked = moulds.find((m) => m.side === side);
-        if (linked) return { side, reuse: linked.reused, mouldNumber: linked.mouldNumber };
+        if (linked) return { side, tool, reuse: linked.reused, mouldNumber: linked.mouldNumber };
         const stored = mouldsRepository.reusable(db, order.designKey, side);
-        return { side, reuse: !!stored, mouldNumber: stored?.number ?? null };
+        return { side, tool, reuse: !!stored, mouldNumber: stored?.number ?? null };
       }),
       trays,
       moulds,
@@ -420,23 +458,7 @@ export const ordersService = {
         id,
         number,
         customerId,
-        title: input.title,
-        productType: input.productType,
-        process: input.process,
-        material: input.material,
-        sizeMm: input.sizeMm,
-        quantity: input.quantity,
-        overrunPct: input.overrunPct,
-        colours: input.colours,
-        plating: input.plating,
-        backingType: input.backing.type,
-        backingCount: input.backing.count,
-        backLogo: input.backLogo,
-        printing: input.printing,
-        epoxy: input.epoxy,
-        packaging: input.packaging,
-        dueDate: input.dueDate,
-        notes: input.notes,
+        ...specColumns(input),
         status: 'awaiting_payment',
         designKey,
         createdBy: actorId,
@@ -470,28 +492,12 @@ export const ordersService = {
       const customerId = customerFor(tx, spec, now);
       ordersRepository.update(tx, id, {
         customerId,
-        title: spec.title,
-        productType: spec.productType,
-        process: spec.process,
-        material: spec.material,
-        sizeMm: spec.sizeMm,
-        quantity: spec.quantity,
-        overrunPct: spec.overrunPct,
-        colours: spec.colours,
-        plating: spec.plating,
-        backingType: spec.backing.type,
-        backingCount: spec.backing.count,
-        backLogo: spec.backLogo,
-        printing: spec.printing,
-        epoxy: spec.epoxy,
-        packaging: spec.packaging,
-        dueDate: spec.dueDate,
-        notes: spec.notes,
+        ...specColumns(spec),
         updatedAt: now,
       });
       // a change that shapes the routing makes it again from the template (the planner's edits go)
-      const before = JSON.stringify([current.process, current.colours.length, current.backLogo, current.printing, current.epoxy, current.backing]);
-      const after = JSON.stringify([spec.process, spec.colours.length, spec.backLogo, spec.printing, spec.epoxy, spec.backing]);
+      const before = routingShape(current);
+      const after = routingShape(spec);
       const changed = Object.keys(patch).join(', ');
       if (before !== after) {
         ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', expandRouting(templateFor(tx, spec.process), spec)));
@@ -667,7 +673,7 @@ export const ordersService = {
       // moulds: reuse the stored ones of this design, make the others
       const plan = requiredMoulds(spec).map((side) => ({ side, stored: mouldsRepository.reusable(tx, order.designKey, side) }));
       const anyNew = plan.some((p) => !p.stored);
-      const mouldSteps = mouldRouting({ reuse: !anyNew });
+      const mouldSteps = mouldRouting({ reuse: !anyNew, process: spec.process });
       ordersRepository.replaceSteps(tx, id, 'mould', stepRows(id, 'mould', mouldSteps));
       const checkSeq = mouldSteps.find((s) => s.stationKind === 'mould_check')!.seq;
       const mouldTravellers: ReleaseResult['moulds'] = [];

@@ -11,11 +11,12 @@ import { conflict, notFound, badInput } from '../errors';
 import { readThumbnail } from '../lib/file-store';
 import { renderTravellersPdf, humanise, type TravellerCard, type TravellerLayout } from '../lib/traveller-pdf';
 import { routingOf, specOf, summariseTraveller, travellerCode } from './orders.service';
+import { MOULD_TOOL_NAMES, mouldStepsFor, mouldTool } from '@shared/domain/routing';
 import { canMerge, childTrayNumber, normaliseTrayNumber, releasedQuantity, splitTray, TRAY_NUMBER_PATTERN } from '@shared/domain/trays';
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { MergeBody, MouldLibraryItem, MouldPatch, SplitBody, TrayLink, TrayView } from '@shared/schemas/trays';
 import type { TravellerSummary } from '@shared/schemas/orders';
-import type { RoutingStep, StationKind, TrayPhase, TrayState } from '@shared/domain/vocabulary';
+import type { Process, RoutingStep, StationKind, TrayPhase, TrayState } from '@shared/domain/vocabulary';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
@@ -91,12 +92,13 @@ export const traysService = {
     const state = traysRepository.state(db, tray.id) ?? null;
     const order = ordersRepository.byId(db, tray.orderId)!;
     const customer = ordersRepository.customerById(db, order.customerId)!;
-    const routing = routingOf(db, order.id, tray.kind);
+    const mould = tray.mouldId ? mouldsRepository.byId(db, tray.mouldId) : undefined;
+    const stored = routingOf(db, order.id, tray.kind);
+    const routing = tray.kind === 'mould' ? mouldStepsFor(stored, mouldTool(order.process as Process, mould?.side === 'back' ? 'back' : 'front')) : stored;
     const byId = new Map(routing.map((s) => [s.seq, s]));
     const related = traysRepository.related(db, tray);
     const stateOfRelated = (t: TrayRow) => traysRepository.state(db, t.id);
     const next = state?.stepSeq != null && state.phase !== 'merged' ? byId.get(state.stepSeq) : undefined;
-    const mould = tray.mouldId ? mouldsRepository.byId(db, tray.mouldId) : undefined;
     const phase = (state?.phase ?? 'waiting') as TrayPhase;
     return {
       id: tray.id,
@@ -292,9 +294,11 @@ export const traysService = {
     return chosen.map(({ tray, state }) => {
       const mould = tray.mouldId ? mouldsRepository.byId(db, tray.mouldId) : undefined;
       let caption: string;
-      if (tray.kind === 'mould') {
+      const tool = tray.kind === 'mould' ? mouldTool(spec.process, mould?.side === 'back' ? 'back' : 'front') : null;
+      if (tool) {
         const reused = mould && mould.firstOrderId !== order.id;
-        caption = `${mould?.side === 'back' ? 'Back' : 'Front'} mould · ${reused ? `stored${mould?.storageLocation ? ` at ${mould.storageLocation}` : ''}, check only` : 'new, engrave and check'}`;
+        const make = tool === 'cutting_die' ? 'make' : 'engrave';
+        caption = `${MOULD_TOOL_NAMES[tool]} · ${reused ? `stored${mould?.storageLocation ? ` at ${mould.storageLocation}` : ''}, check only` : `new, ${make} and check`}`;
       } else if (tray.parentTrayId) {
         caption = `Split from ${parents.get(tray.parentTrayId) ?? 'another tray'}`;
       } else {
@@ -314,11 +318,11 @@ export const traysService = {
         material: spec.material,
         sizeMm: spec.sizeMm,
         colours: spec.colours,
-        plating: spec.plating,
+        plating: spec.secondPlating ? `${spec.plating} and ${spec.secondPlating} (two-tone)` : spec.plating,
         fittings: fittingsText(spec.backing.type, spec.backing.count),
         packaging: spec.packaging,
         dueDate: spec.dueDate,
-        routing: tray.kind === 'mould' ? mouldRouting : trayRouting,
+        routing: tool ? mouldStepsFor(mouldRouting, tool) : trayRouting,
         artwork,
         artworkNote,
       };

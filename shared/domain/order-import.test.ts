@@ -8,7 +8,8 @@ import {
   previewOrderImport,
 } from './order-import';
 
-const header = IMPORT_COLUMNS.join(',');
+// files written before the second-finish and texture columns existed still import: those two are optional
+const header = IMPORT_COLUMNS.filter((c) => c !== 'secondPlating' && c !== 'sandblast').join(',');
 const good =
   'Harbour Rowing Club,Club crest,pin,hard_enamel,iron,25,500,5,"Navy (C-281) #1b2a4a; White #ffffff",gold,butterfly_clutch,1,no,no,no,individual_bag,2026-05-29,';
 
@@ -105,5 +106,34 @@ describe('CSV import preview', () => {
     // and survive CSV quoting done by an independent writer (papaparse unparse)
     const line = Papa.unparse([[formatColoursCell(colours)]]);
     expect(parseColoursCell(Papa.parse<string[]>(line, { delimiter: ',' }).data[0][0])).toEqual(colours);
+  });
+});
+
+describe('CSV import: second finish and sandblast columns', () => {
+  const full = IMPORT_COLUMNS.join(',');
+  const row = (secondPlating: string, sandblast: string, process = 'die_struck', colours = '') =>
+    `Harbour Rowing Club,Oars,pin,${process},brass,25,500,5,${colours},antique_gold,butterfly_clutch,1,no,no,no,individual_bag,2026-05-29,,${secondPlating},${sandblast}`;
+
+  it('reads a two-tone, sandblasted die-struck order', () => {
+    const p = previewOrderImport([full, row('black nickel', 'yes')].join('\n'));
+    expect(p.rows[0].errors).toEqual([]);
+    expect(p.rows[0].spec).toMatchObject({ plating: 'antique_gold', secondPlating: 'black_nickel', sandblast: true });
+  });
+
+  it('an empty second finish is one finish, an empty sandblast none', () => {
+    const p = previewOrderImport([full, row('', '')].join('\n'));
+    expect(p.rows[0].spec).toMatchObject({ secondPlating: null, sandblast: false });
+  });
+
+  it('names the cell of a contradictory spec: a second finish equal to the first, a die-struck badge with colours', () => {
+    const p = previewOrderImport([full, row('antique_gold', 'no'), row('', 'no', 'die_struck', 'Navy')].join('\n'));
+    expect(p.rows[0].errors.map((e) => e.column)).toEqual(['secondPlating']);
+    expect(p.rows[1].errors.map((e) => e.column)).toEqual(['colours']);
+    expect(p.validCount).toBe(0);
+  });
+
+  it('an unknown second finish is named', () => {
+    const p = previewOrderImport([full, row('glitter', 'no')].join('\n'));
+    expect(p.rows[0].errors.map((e) => e.column)).toEqual(['secondPlating']);
   });
 });

@@ -24,6 +24,8 @@ export const IMPORT_COLUMNS = [
   'packaging',
   'dueDate',
   'notes',
+  'secondPlating',
+  'sandblast',
 ] as const;
 export type ImportColumn = (typeof IMPORT_COLUMNS)[number];
 
@@ -45,7 +47,7 @@ export const MAX_IMPORT_BYTES = 1024 * 1024;
 
 export const IMPORT_EXAMPLE = [
   IMPORT_COLUMNS.join(','),
-  'Harbour Rowing Club,Club crest,pin,hard_enamel,iron,25,500,5,"Navy (C-281) #1b2a4a; White #ffffff",gold,butterfly_clutch,1,no,no,no,individual_bag,2026-05-29,',
+  'Harbour Rowing Club,Club crest,pin,hard_enamel,iron,25,500,5,"Navy (C-281) #1b2a4a; White #ffffff",gold,butterfly_clutch,1,no,no,no,individual_bag,2026-05-29,,,no',
 ].join('\n');
 
 export interface ImportCellError {
@@ -86,6 +88,9 @@ for (const [alias, col] of [
   ['fittingcount', 'backingCount'],
   ['due', 'dueDate'],
   ['product', 'productType'],
+  ['secondfinish', 'secondPlating'],
+  ['twotone', 'secondPlating'],
+  ['texture', 'sandblast'],
 ] as const) {
   COLUMN_BY_KEY.set(alias, col);
 }
@@ -160,6 +165,8 @@ function toSpecInput(raw: Record<string, string>): Record<string, unknown> {
     backLogo: booleanValue(get('backLogo')),
     printing: booleanValue(get('printing')),
     epoxy: booleanValue(get('epoxy')),
+    secondPlating: get('secondPlating').trim() === '' ? null : enumValue(get('secondPlating')),
+    sandblast: booleanValue(get('sandblast')),
     packaging: enumValue(get('packaging')),
     dueDate: get('dueDate').trim(),
     notes: get('notes'),

@@ -9,10 +9,13 @@ import {
   requiredMoulds,
   routingProblems,
   routingStandardMinutes,
+  MOULD_USING_KINDS,
+  mouldStepsFor,
+  mouldTool,
   type RoutingSpec,
   type RoutingTemplate,
 } from './routing';
-import { PROCESSES, STATION_KINDS, type Process, type RoutingStep, type StationKind } from './vocabulary';
+import { ANTIQUE_PLATINGS, PROCESSES, STATION_KINDS, type Process, type RoutingStep, type StationKind } from './vocabulary';
 
 function spec(process: Process, colours: number, extra: Partial<RoutingSpec> = {}): RoutingSpec {
   return {
@@ -22,6 +25,9 @@ function spec(process: Process, colours: number, extra: Partial<RoutingSpec> = {
     printing: false,
     epoxy: false,
     backing: { type: 'butterfly_clutch', count: 1 },
+    plating: 'gold',
+    secondPlating: null,
+    sandblast: false,
     ...extra,
   };
 }
@@ -49,8 +55,8 @@ describe('expandRouting: every process, 1, 4 and 8 colours, back logo on and off
             if (s.stationKind === 'cure') expect(s.cureMinutes).toBeGreaterThan(0);
             else expect(s.cureMinutes ?? null).toBeNull();
           }
-          // striking, or casting for 3D die-cast, comes first (common practice)
-          expect(steps[0].stationKind).toBe(process === 'die_cast_3d' ? 'cast' : 'strike');
+          // striking, or casting for 3D die-cast, comes first; printed blanks are plated first (common practice)
+          expect(steps[0].stationKind).toBe(process === 'die_cast_3d' ? 'cast' : process === 'printed' ? 'plate' : 'strike');
           expect(kinds(steps)).not.toContain(process === 'die_cast_3d' ? 'strike' : 'cast');
           // the tail is the same for every process: inspect, clutches, bag, pack, dispatch (common practice)
           expect(kinds(steps).slice(-5)).toEqual(['inspect', 'clutch', 'bag', 'pack', 'dispatch']);
@@ -84,7 +90,7 @@ describe('hard enamel: one fill and cure per colour, then stone, polish, plate (
       expect(lastIdx(steps, 'cure')).toBeLessThan(idx(steps, 'stone'));
       expect(idx(steps, 'stone')).toBeLessThan(idx(steps, 'polish'));
       expect(idx(steps, 'polish')).toBeLessThan(idx(steps, 'plate'));
-      expect(idx(steps, 'plate')).toBeLessThan(idx(steps, 'inspect'));
+      expect(idx(steps, 'plate')).toBeLessThan(lastIdx(steps, 'inspect'));
     });
   }
 
@@ -100,6 +106,7 @@ describe('hard enamel: one fill and cure per colour, then stone, polish, plate (
       'Colour 2 of 2: cure',
       'Stone flush',
       'Polish',
+      'Check before plating',
       'Plate',
       'Print',
       'Epoxy dome',
@@ -187,15 +194,18 @@ describe('other processes', () => {
       expect(idx(steps, 'polish')).toBeLessThan(idx(steps, 'plate'));
     });
 
-    it(`printed with ${n} colour(s): printed and domed even without the flags`, () => {
+    it(`printed with ${n} colour(s): printed even without the flag, domed only when asked`, () => {
       const steps = route(spec('printed', n));
       expect(kinds(steps)).toContain('print');
-      expect(kinds(steps)).toContain('epoxy');
+      expect(kinds(steps)).not.toContain('epoxy');
+      expect(kinds(steps)).not.toContain('cure');
       expect(kinds(steps)).not.toContain('fill');
       expect(idx(steps, 'plate')).toBeLessThan(idx(steps, 'print'));
-      expect(idx(steps, 'print')).toBeLessThan(idx(steps, 'epoxy'));
-      // asking again for printing or epoxy does not double the steps
-      expect(route(spec('printed', n, { printing: true, epoxy: true }))).toEqual(steps);
+      const domed = route(spec('printed', n, { epoxy: true }));
+      expect(idx(domed, 'print')).toBeLessThan(idx(domed, 'epoxy'));
+      expect(domed[idx(domed, 'epoxy') + 1].stationKind).toBe('cure');
+      // asking again for printing does not double the print step
+      expect(route(spec('printed', n, { printing: true }))).toEqual(steps);
     });
 
     it(`3D die-cast with ${n} colour(s): cast, never struck, one fill per colour`, () => {
@@ -227,19 +237,156 @@ describe('other processes', () => {
 });
 
 describe('mould travellers: engrave and check; a stored mould is only checked', () => {
-  it('a new mould is engraved, then checked', () => {
-    const steps = mouldRouting({ reuse: false, side: 'back' });
+  it('a new back mould is engraved, then checked, as the back mould', () => {
+    const steps = mouldRouting({ reuse: false, tool: 'back_mould' });
     expect(kinds(steps)).toEqual(['engrave', 'mould_check']);
     expect(steps.map((s) => s.seq)).toEqual([1, 2]);
-    expect(steps[0].name).toBe('Engrave back mould');
+    expect(steps.map((s) => s.name)).toEqual(['Engrave back mould', 'Check back mould']);
     expect(steps[0].trayMinutes).toBe(DEFAULT_MOULD_TEMPLATE.engrave.trayMinutes);
   });
 
   it('a reused mould skips engraving', () => {
-    const steps = mouldRouting({ reuse: true });
+    const steps = mouldRouting({ reuse: true, tool: 'front_mould' });
     expect(kinds(steps)).toEqual(['mould_check']);
     expect(steps[0].seq).toBe(1);
     expect(steps[0].name).toBe('Check front mould');
+  });
+
+  it('the routing an order stores names no side; each mould traveller shows it under its own tool', () => {
+    const stored = mouldRouting({ reuse: false, process: 'hard_enamel' });
+    expect(stored.map((s) => s.name)).toEqual(['Engrave mould', 'Check mould']);
+    expect(mouldStepsFor(stored, 'front_mould').map((s) => s.name)).toEqual(['Engrave front mould', 'Check front mould']);
+    expect(mouldStepsFor(stored, 'back_mould').map((s) => s.name)).toEqual(['Engrave back mould', 'Check back mould']);
+    // a routing stored before with the front mould's names reads right on the back mould's traveller
+    const old = stored.map((s) => ({ ...s, name: s.stationKind === 'engrave' ? 'Engrave front mould' : 'Check front mould' }));
+    expect(mouldStepsFor(old, 'back_mould').map((s) => s.name)).toEqual(['Engrave back mould', 'Check back mould']);
+  });
+
+  for (const process of PROCESSES) {
+    it(`${process}: ${process === 'printed' ? 'a cutting die, made quickly, no engraved front mould' : 'an engraved front mould, and a back mould for a back logo'}`, () => {
+      expect(mouldTool(process, 'front')).toBe(process === 'printed' ? 'cutting_die' : 'front_mould');
+      expect(mouldTool(process, 'back')).toBe('back_mould');
+      const steps = mouldRouting({ reuse: false, process });
+      if (process === 'printed') {
+        expect(steps.map((s) => s.name)).toEqual(['Make cutting die', 'Check cutting die']);
+        // a cutting die follows the outline only: far less than the 240 min of an engraved mould (common practice)
+        expect(steps[0].trayMinutes).toBe(DEFAULT_MOULD_TEMPLATE.cut.trayMinutes);
+        expect(steps[0].trayMinutes).toBeLessThan(DEFAULT_MOULD_TEMPLATE.engrave.trayMinutes);
+      } else {
+        expect(steps[0].trayMinutes).toBe(240);
+      }
+    });
+  }
+});
+
+// ---------------------------------------------------------------------------------------
+// One case per process and option: where each trade step goes (all common practice).
+
+const ENAMEL: readonly Process[] = ['hard_enamel', 'soft_enamel', 'die_cast_3d'];
+const coloursFor = (p: Process) => (p === 'die_struck' ? 0 : 2);
+const firstIdx = (steps: RoutingStep[], kind: StationKind) => idx(steps, kind);
+
+describe('safety pin: soldered on, no clutch fitting', () => {
+  for (const process of PROCESSES) {
+    it(`${process}: ${process === 'printed' ? 'soldered after cutting out' : 'soldered before plating'}, never a clutch or a post`, () => {
+      const steps = route(spec(process, coloursFor(process), { backing: { type: 'safety_pin', count: 1 } }));
+      expect(steps.filter((s) => s.stationKind === 'solder')).toHaveLength(1);
+      expect(kinds(steps)).not.toContain('clutch');
+      expect(kinds(steps)).not.toContain('post');
+      if (process === 'printed') {
+        // the printed sheet is plated whole before anything is cut: fittings go on the cut pieces
+        expect(idx(steps, 'solder')).toBeGreaterThan(idx(steps, 'strike'));
+      } else {
+        expect(idx(steps, 'solder')).toBeLessThan(firstIdx(steps, 'plate'));
+      }
+      const clutch = route(spec(process, coloursFor(process)));
+      expect(kinds(clutch)).not.toContain('solder');
+      expect(kinds(clutch)).toContain('clutch');
+    });
+  }
+});
+
+describe('antique finishes: oxidised and relief-polished after plating', () => {
+  for (const process of PROCESSES) {
+    for (const plating of ANTIQUE_PLATINGS) {
+      it(`${process}, ${plating}: one antique step right after the plating`, () => {
+        const steps = route(spec(process, coloursFor(process), { plating }));
+        expect(steps.filter((s) => s.stationKind === 'antique')).toHaveLength(1);
+        const a = idx(steps, 'antique');
+        expect(steps[a - 1].stationKind).toBe('plate');
+      });
+    }
+    it(`${process}, bright gold: no antique step`, () => {
+      expect(kinds(route(spec(process, coloursFor(process), { plating: 'gold' })))).not.toContain('antique');
+    });
+  }
+});
+
+describe('two-tone: a second plating', () => {
+  for (const process of PROCESSES.filter((p) => p !== 'printed')) {
+    it(`${process}: plated twice, the second tone straight after the first`, () => {
+      const steps = route(spec(process, coloursFor(process), { plating: 'gold', secondPlating: 'black_nickel' }));
+      const plates = steps.map((s, i) => (s.stationKind === 'plate' ? i : -1)).filter((i) => i >= 0);
+      expect(plates).toHaveLength(2);
+      expect(plates[1]).toBe(plates[0] + 1);
+      expect(steps[plates[1]].name).toBe('Plate second tone');
+      expect(route(spec(process, coloursFor(process))).filter((s) => s.stationKind === 'plate')).toHaveLength(1);
+    });
+
+    it(`${process}: antique with a second tone darkens after both platings`, () => {
+      const steps = route(spec(process, coloursFor(process), { plating: 'antique_silver', secondPlating: 'gold' }));
+      expect(idx(steps, 'antique')).toBe(lastIdx(steps, 'plate') + 1);
+    });
+  }
+});
+
+describe('sandblasted texture: blasted before plating', () => {
+  for (const process of PROCESSES.filter((p) => p !== 'printed')) {
+    it(`${process}: one sandblast step, after polishing and before plating`, () => {
+      const steps = route(spec(process, coloursFor(process), { sandblast: true }));
+      expect(steps.filter((s) => s.stationKind === 'sandblast')).toHaveLength(1);
+      expect(idx(steps, 'sandblast')).toBeGreaterThan(idx(steps, 'polish'));
+      expect(idx(steps, 'sandblast')).toBeLessThan(idx(steps, 'plate'));
+      expect(kinds(route(spec(process, coloursFor(process))))).not.toContain('sandblast');
+    });
+  }
+});
+
+describe('check before plating: enamel work is inspected before the bath', () => {
+  for (const process of PROCESSES) {
+    const enamel = ENAMEL.includes(process);
+    it(`${process}: ${enamel ? 'a check before plating' : 'no check before plating'}, a final inspection always`, () => {
+      const steps = route(spec(process, coloursFor(process)));
+      const check = steps.findIndex((s) => s.name === 'Check before plating');
+      if (enamel) {
+        expect(steps[check].stationKind).toBe('inspect');
+        expect(check).toBe(idx(steps, 'plate') - 1);
+      } else {
+        expect(check).toBe(-1);
+      }
+      expect(steps.filter((s) => s.stationKind === 'inspect')).toHaveLength(enamel ? 2 : 1);
+    });
+  }
+});
+
+describe('printed: cut from a plated, printed sheet with a cutting die', () => {
+  it('plated, printed, domed, cured, then cut, then fitted', () => {
+    const steps = route(spec('printed', 3, { epoxy: true, backing: { type: 'butterfly_clutch', count: 1 } }));
+    expect(steps.map((s) => s.name)).toEqual([
+      'Plate blanks',
+      'Print',
+      'Epoxy dome',
+      'Epoxy: cure',
+      'Cut out with the cutting die',
+      'Fit posts',
+      'Inspect',
+      'Fit clutches',
+      'Bag',
+      'Pack',
+      'Dispatch',
+    ]);
+    // the cut step runs on the press with the cutting die, so it waits for the die like striking waits for its mould
+    expect(MOULD_USING_KINDS).toContain(steps[4].stationKind);
   });
 });
 

@@ -1,10 +1,26 @@
 // Routing from the spec: a template per process expands into the order's steps.
 // Templates are data so admins can edit them; the defaults below are what a new
 // factory starts with. All standard minutes here are demo values, meant to be edited.
-import type { BackingType, Process, RoutingStep, StationKind } from './vocabulary';
+import { ANTIQUE_PLATINGS, type BackingType, type Plating, type Process, type RoutingStep, type StationKind } from './vocabulary';
 
-/** When a template step applies to an order. */
-export const STEP_CONDITIONS = ['always', 'back_logo', 'printing', 'epoxy', 'fittings', 'posts'] as const;
+/**
+ * When a template step applies to an order. `fittings`: a backing fitted after inspection
+ * (clutch, magnet); `posts`: a post soldered to the back for a clutch or nut; `safety_pin`: a
+ * safety pin soldered on; `antique`: an antique finish (oxidised and relief-polished after
+ * plating); `second_plating`: a two-tone finish; `sandblast`: a sandblasted texture.
+ */
+export const STEP_CONDITIONS = [
+  'always',
+  'back_logo',
+  'printing',
+  'epoxy',
+  'fittings',
+  'posts',
+  'safety_pin',
+  'antique',
+  'second_plating',
+  'sandblast',
+] as const;
 export type StepCondition = (typeof STEP_CONDITIONS)[number];
 
 export interface TemplateTimes {
@@ -52,10 +68,20 @@ export interface RoutingSpec {
   printing: boolean;
   epoxy: boolean;
   backing: { type: BackingType; count: number };
+  plating: Plating;
+  /** the second finish of a two-tone badge (null: one finish) */
+  secondPlating: Plating | null;
+  /** a sandblasted (matt) texture on the recessed metal */
+  sandblast: boolean;
 }
 
 /** Fittings that need a post soldered to the back (common practice). */
-const POST_FITTINGS: readonly BackingType[] = ['butterfly_clutch', 'rubber_clutch', 'locking_clutch', 'screw_nut'];
+export const POST_FITTINGS: readonly BackingType[] = ['butterfly_clutch', 'rubber_clutch', 'locking_clutch', 'screw_nut'];
+
+/** True when the order's finish (either tone) is an antique one. */
+export function isAntique(spec: Pick<RoutingSpec, 'plating' | 'secondPlating'>): boolean {
+  return ANTIQUE_PLATINGS.includes(spec.plating) || (spec.secondPlating != null && ANTIQUE_PLATINGS.includes(spec.secondPlating));
+}
 
 function applies(when: StepCondition | undefined, spec: RoutingSpec): boolean {
   switch (when ?? 'always') {
@@ -68,9 +94,18 @@ function applies(when: StepCondition | undefined, spec: RoutingSpec): boolean {
     case 'epoxy':
       return spec.epoxy;
     case 'fittings':
-      return spec.backing.type !== 'none' && spec.backing.count > 0;
+      // a safety pin is soldered on before plating and needs nothing fitted afterwards (common practice)
+      return spec.backing.type !== 'none' && spec.backing.type !== 'safety_pin' && spec.backing.count > 0;
     case 'posts':
       return POST_FITTINGS.includes(spec.backing.type) && spec.backing.count > 0;
+    case 'safety_pin':
+      return spec.backing.type === 'safety_pin' && spec.backing.count > 0;
+    case 'antique':
+      return isAntique(spec);
+    case 'second_plating':
+      return spec.secondPlating != null && spec.secondPlating !== spec.plating;
+    case 'sandblast':
+      return spec.sandblast;
   }
 }
 
@@ -154,9 +189,20 @@ const STRIKE = step('Strike', 'strike', t(15, 0.15));
 const CAST = step('Cast', 'cast', t(20, 0.2));
 const TRIM = step('Trim', 'trim', t(5, 0.05));
 const POSTS = step('Fit posts', 'post', t(5, 0.2), { when: 'posts' });
+// a safety pin is soldered to the back before plating, so the plating covers the joint (common practice)
+const SAFETY_PIN = step('Solder safety pin', 'solder', t(5, 0.25), { when: 'safety_pin' });
 const STONE = step('Stone flush', 'stone', t(10, 0.05));
 const POLISH = step('Polish', 'polish', t(10, 0.08));
+// sandblasting textures the bare metal, so it comes before plating (common practice)
+const SANDBLAST = step('Sandblast texture', 'sandblast', t(10, 0.04), { when: 'sandblast' });
+// enamel work is checked before the plating bath, the step that costs most to redo (common practice)
+const CHECK_BEFORE_PLATING = step('Check before plating', 'inspect', t(5, 0.03));
 const PLATE = step('Plate', 'plate', t(20, 0.02));
+// two-tone: the areas of the first finish are masked and the second finish plated (common practice)
+const SECOND_PLATE = step('Plate second tone', 'plate', t(25, 0.03), { when: 'second_plating' });
+// antique finishes: the plated piece is darkened, then the raised metal polished bright again (common practice)
+const ANTIQUE = step('Antique: oxidise and relief-polish', 'antique', t(15, 0.06), { when: 'antique' });
+const PLATING: TemplateSingleStep[] = [PLATE, SECOND_PLATE, ANTIQUE];
 const PRINT_OPTIONAL = step('Print', 'print', t(15, 0.1), { when: 'printing' });
 const EPOXY_OPTIONAL = step('Epoxy dome', 'epoxy', t(10, 0.1), { when: 'epoxy' });
 const EPOXY_CURE_OPTIONAL = step('Epoxy: cure', 'cure', t(5, 0), { when: 'epoxy', cureMinutes: EPOXY_WARM_CURE_MINUTES });
@@ -187,30 +233,32 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   hard_enamel: {
     process: 'hard_enamel',
     name: 'Hard enamel',
-    steps: [STRIKE, TRIM, POSTS, hardColours, STONE, POLISH, PLATE, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [STRIKE, TRIM, POSTS, SAFETY_PIN, hardColours, STONE, POLISH, SANDBLAST, CHECK_BEFORE_PLATING, ...PLATING, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
   },
   soft_enamel: {
     process: 'soft_enamel',
     name: 'Soft enamel',
-    steps: [STRIKE, TRIM, POSTS, POLISH, PLATE, softColours, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [STRIKE, TRIM, POSTS, SAFETY_PIN, POLISH, SANDBLAST, CHECK_BEFORE_PLATING, ...PLATING, softColours, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
   },
   die_struck: {
     process: 'die_struck',
     name: 'Die-struck, no colour',
-    steps: [STRIKE, TRIM, POSTS, POLISH, PLATE, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [STRIKE, TRIM, POSTS, SAFETY_PIN, POLISH, SANDBLAST, ...PLATING, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
   },
+  // Printed badges: a sheet is plated and printed whole, domed when the order asks for epoxy, and
+  // only then cut out with a cutting die; fittings go on after cutting (common practice).
   printed: {
     process: 'printed',
     name: 'Printed',
     steps: [
-      step('Stamp blanks', 'strike', t(10, 0.1)),
-      TRIM,
-      POSTS,
-      POLISH,
-      PLATE,
+      step('Plate blanks', 'plate', t(20, 0.02)),
+      ANTIQUE,
       step('Print', 'print', t(15, 0.1)),
-      step('Epoxy dome', 'epoxy', t(10, 0.1)),
-      step('Epoxy: cure', 'cure', t(5, 0), { cureMinutes: EPOXY_WARM_CURE_MINUTES }),
+      EPOXY_OPTIONAL,
+      EPOXY_CURE_OPTIONAL,
+      step('Cut out with the cutting die', 'strike', t(10, 0.1)),
+      POSTS,
+      SAFETY_PIN,
       ...FINISH,
     ],
   },
@@ -219,7 +267,7 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   die_cast_3d: {
     process: 'die_cast_3d',
     name: '3D die-cast',
-    steps: [CAST, TRIM, POSTS, POLISH, PLATE, softColours, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [CAST, TRIM, POSTS, SAFETY_PIN, POLISH, SANDBLAST, CHECK_BEFORE_PLATING, ...PLATING, softColours, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
   },
 };
 
@@ -229,7 +277,27 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
 export const MOULD_SIDES = ['front', 'back'] as const;
 export type MouldSide = (typeof MOULD_SIDES)[number];
 
-/** A front mould always; a back mould only when the design has a back logo. */
+/**
+ * The tool a mould traveller makes. Struck and cast badges need an engraved front mould (and a
+ * back mould for a back logo); printed badges are cut out of a plated, printed sheet with a
+ * cutting die, which takes the front mould's place (common practice).
+ */
+export const MOULD_TOOLS = ['front_mould', 'back_mould', 'cutting_die'] as const;
+export type MouldTool = (typeof MOULD_TOOLS)[number];
+
+export const MOULD_TOOL_NAMES: Record<MouldTool, string> = {
+  front_mould: 'Front mould',
+  back_mould: 'Back mould',
+  cutting_die: 'Cutting die',
+};
+
+/** Which tool the mould of a side is, for an order of this process. */
+export function mouldTool(process: Process, side: MouldSide): MouldTool {
+  if (side === 'back') return 'back_mould';
+  return process === 'printed' ? 'cutting_die' : 'front_mould';
+}
+
+/** A front mould (or cutting die) always; a back mould only when the design has a back logo. */
 export function requiredMoulds(spec: Pick<RoutingSpec, 'backLogo'>): MouldSide[] {
   return spec.backLogo ? ['front', 'back'] : ['front'];
 }
@@ -237,25 +305,46 @@ export function requiredMoulds(spec: Pick<RoutingSpec, 'backLogo'>): MouldSide[]
 export interface MouldTemplate {
   engrave: TemplateTimes;
   check: TemplateTimes;
+  /** making a cutting die for a printed badge's outline */
+  cut: TemplateTimes;
 }
 
-/** Engraving a front mould takes five or six cutters and is slow (common practice); minutes are demo values. */
+/** Engraving a front mould takes five or six cutters and is slow; a cutting die follows only the
+ * outline and is much quicker (common practice); minutes are demo values. */
 export const DEFAULT_MOULD_TEMPLATE: MouldTemplate = {
   engrave: t(240, 0),
   check: t(20, 0),
+  cut: t(60, 0),
 };
 
-/** The routing of a mould traveller: engrave then check; a reused mould only gets checked. */
-export function mouldRouting(opts: { reuse: boolean; side?: MouldSide; template?: MouldTemplate }): RoutingStep[] {
-  const side = opts.side ?? 'front';
+/** The names of the mould shop's steps for each tool. */
+export function mouldStepName(kind: 'engrave' | 'mould_check', tool: MouldTool | null): string {
+  if (tool === 'cutting_die') return kind === 'engrave' ? 'Make cutting die' : 'Check cutting die';
+  const what = tool === 'back_mould' ? 'back mould' : tool === 'front_mould' ? 'front mould' : 'mould';
+  return kind === 'engrave' ? `Engrave ${what}` : `Check ${what}`;
+}
+
+/**
+ * The routing of a mould traveller: make (engrave or cut) then check; a reused tool only gets
+ * checked. Without a tool the steps have the names every mould of the order shares; an order's
+ * mould travellers share one stored routing, and each shows it under its own tool's names
+ * (`mouldStepsFor`).
+ */
+export function mouldRouting(opts: { reuse: boolean; tool?: MouldTool | null; process?: Process; template?: MouldTemplate }): RoutingStep[] {
   const tpl = opts.template ?? DEFAULT_MOULD_TEMPLATE;
-  const label = side === 'front' ? 'front' : 'back';
+  const cutting = opts.tool === 'cutting_die' || (opts.tool == null && opts.process === 'printed');
+  const tool = opts.tool ?? (cutting ? 'cutting_die' : null);
   const steps: Omit<RoutingStep, 'seq'>[] = [];
   if (!opts.reuse) {
-    steps.push({ name: `Engrave ${label} mould`, stationKind: 'engrave', ...tpl.engrave, cureMinutes: null, colour: null });
+    steps.push({ name: mouldStepName('engrave', tool), stationKind: 'engrave', ...(cutting ? tpl.cut : tpl.engrave), cureMinutes: null, colour: null });
   }
-  steps.push({ name: `Check ${label} mould`, stationKind: 'mould_check', ...tpl.check, cureMinutes: null, colour: null });
+  steps.push({ name: mouldStepName('mould_check', tool), stationKind: 'mould_check', ...tpl.check, cureMinutes: null, colour: null });
   return steps.map((s, i) => ({ seq: i + 1, ...s }));
+}
+
+/** An order's stored mould routing as one tool's traveller shows it: the mould shop's steps under that tool's names. */
+export function mouldStepsFor<T extends Pick<RoutingStep, 'stationKind' | 'name'>>(steps: readonly T[], tool: MouldTool): T[] {
+  return steps.map((s) => (s.stationKind === 'engrave' || s.stationKind === 'mould_check' ? { ...s, name: mouldStepName(s.stationKind, tool) } : s));
 }
 
 /** Station kinds whose start needs the order's moulds to be ready. */

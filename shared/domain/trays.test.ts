@@ -145,6 +145,9 @@ describe('canMerge: same order, same next step', () => {
     printing: false,
     epoxy: false,
     backing: { type: 'butterfly_clutch', count: 1 },
+    plating: 'gold',
+    secondPlating: null,
+    sandblast: false,
   });
   const cand = (id: string, q: number, over: Partial<TrayState> = {}, orderId = 'o1'): MergeCandidate => ({
     orderId,

@@ -14,11 +14,14 @@ export const STATION_KINDS = [
   'cast',
   'trim',
   'post',
+  'solder',
   'fill',
   'cure',
   'stone',
   'polish',
+  'sandblast',
   'plate',
+  'antique',
   'print',
   'epoxy',
   'inspect',
@@ -37,14 +40,17 @@ export const STATION_KIND_NAMES: Record<StationKind, string> = {
   cast: 'zinc die casting',
   trim: 'trimming',
   post: 'post fitting',
+  solder: 'pin soldering',
   fill: 'colour fill',
   cure: 'curing oven',
   stone: 'stoning',
   polish: 'polishing',
+  sandblast: 'sandblasting',
   plate: 'plating',
+  antique: 'antique oxidising',
   print: 'screen printing',
   epoxy: 'epoxy',
-  inspect: 'final inspection',
+  inspect: 'inspection',
   clutch: 'clutch fitting',
   bag: 'bagging',
   pack: 'packing',
@@ -71,6 +77,9 @@ export const PLATINGS = [
   'rainbow',
 ] as const;
 export type Plating = (typeof PLATINGS)[number];
+
+/** Antique finishes: plated, darkened by oxidising, then relief-polished so the raised metal shines (common practice). */
+export const ANTIQUE_PLATINGS: readonly Plating[] = ['antique_gold', 'antique_silver', 'antique_copper', 'antique_bronze'];
 
 export const BACKING_TYPES = [
   'butterfly_clutch',

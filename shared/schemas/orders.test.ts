@@ -63,6 +63,48 @@ describe('order spec', () => {
     expect(orderSpecSchema.safeParse({ ...base, colours: [] }).success).toBe(false);
     expect(orderSpecSchema.safeParse({ ...base, process: 'die_struck', colours: [] }).success).toBe(true);
   });
+
+  it('one finish, no texture by default', () => {
+    expect(orderSpecSchema.parse(base)).toMatchObject({ secondPlating: null, sandblast: false });
+  });
+});
+
+describe('contradictory specs are refused on the field that contradicts (common practice)', () => {
+  const issues = (input: Partial<OrderSpecInput>) => {
+    const r = orderSpecSchema.safeParse({ ...base, ...input });
+    return r.success ? [] : r.error.issues.map((i) => i.path.join('.'));
+  };
+  it('die-struck (plain metal) with colours', () => {
+    expect(issues({ process: 'die_struck' })).toEqual(['colours']);
+  });
+  it('hard or soft enamel with no colour', () => {
+    expect(issues({ process: 'hard_enamel', colours: [] })).toEqual(['colours']);
+    expect(issues({ process: 'soft_enamel', colours: [] })).toEqual(['colours']);
+    // a 3D die-cast badge may be plain metal
+    expect(issues({ process: 'die_cast_3d', material: 'zinc_alloy', colours: [] })).toEqual([]);
+  });
+  it('a second finish equal to the first', () => {
+    expect(issues({ plating: 'gold', secondPlating: 'gold' })).toEqual(['secondPlating']);
+    expect(issues({ plating: 'gold', secondPlating: 'black_nickel' })).toEqual([]);
+  });
+  it('a printed badge with a back logo, a sandblasted face or a second finish', () => {
+    expect(issues({ process: 'printed', backLogo: true })).toEqual(['backLogo']);
+    expect(issues({ process: 'printed', sandblast: true })).toEqual(['sandblast']);
+    expect(issues({ process: 'printed', secondPlating: 'nickel' })).toEqual(['secondPlating']);
+    expect(issues({ process: 'printed', epoxy: false })).toEqual([]);
+  });
+  it('each contradiction on its own field, all at once', () => {
+    expect(issues({ process: 'printed', backLogo: true, sandblast: true, secondPlating: 'gold' }).sort()).toEqual(['backLogo', 'sandblast', 'secondPlating']);
+  });
+});
+
+describe('hard enamel with an epoxy dome: warned, allowed', () => {
+  it('warns on the epoxy field and still parses', () => {
+    expect(orderSpecSchema.safeParse({ ...base, epoxy: true }).success).toBe(true);
+    expect(specWarnings({ process: 'hard_enamel', epoxy: true })).toEqual([expect.objectContaining({ field: 'epoxy', code: 'epoxy_on_hard_enamel' })]);
+    expect(specWarnings({ process: 'soft_enamel', epoxy: true })).toEqual([]);
+    expect(specWarnings({ process: 'hard_enamel', epoxy: false })).toEqual([]);
+  });
 });
 
 describe('size warnings: pins 10–100 mm, coins 25–90 mm (trade defaults; warn, never block)', () => {

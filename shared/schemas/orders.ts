@@ -2,12 +2,14 @@
 // and the gentle checks that warn (never block) about unusual specs.
 import { z } from 'zod';
 import type { RoutingStep, TrayPhase, TravellerKind, OrderStatus } from '@shared/domain/vocabulary';
+import type { MouldTool } from '@shared/domain/routing';
 import {
   BACKING_TYPES,
   MATERIALS,
   PACKAGINGS,
   PLATINGS,
   PROCESSES,
+  type Plating,
   type Process,
 } from '@shared/domain/vocabulary';
 
@@ -53,10 +55,14 @@ const specFields = {
   overrunPct: z.number().min(0).max(OVERRUN_MAX_PCT).default(OVERRUN_DEFAULT_PCT),
   colours: z.array(colourSchema).max(MAX_COLOURS).default([]),
   plating: z.enum(PLATINGS),
+  /** a two-tone badge's second finish (null: one finish) */
+  secondPlating: z.enum(PLATINGS).nullable().default(null),
   backing: backingSchema,
   backLogo: z.boolean().default(false),
   printing: z.boolean().default(false),
   epoxy: z.boolean().default(false),
+  /** a sandblasted (matt) texture on the recessed metal */
+  sandblast: z.boolean().default(false),
   packaging: z.enum(PACKAGINGS),
   dueDate: isoDay,
   notes: z.string().trim().max(4000).default(''),
@@ -64,7 +70,42 @@ const specFields = {
   reorderOf: z.string().trim().min(1).max(64).optional(),
 };
 
-type SpecShape = { customer?: string; customerId?: string; process: Process; colours: unknown[] };
+type SpecShape = {
+  customer?: string;
+  customerId?: string;
+  process: Process;
+  colours: unknown[];
+  plating: Plating;
+  secondPlating: Plating | null;
+  backLogo: boolean;
+  sandblast: boolean;
+};
+
+/** Spec fields that contradict each other: each is refused on its own field, never silently ignored. */
+export function specContradictions(spec: Omit<SpecShape, 'customer' | 'customerId'>): { path: string; message: string }[] {
+  const out: { path: string; message: string }[] = [];
+  const { process } = spec;
+  if ((process === 'hard_enamel' || process === 'soft_enamel') && spec.colours.length === 0) {
+    out.push({ path: 'colours', message: 'An enamel order needs at least one colour' });
+  }
+  if (process === 'die_struck' && spec.colours.length > 0) {
+    out.push({ path: 'colours', message: 'A die-struck badge has no enamel colours: remove the colours, or choose hard or soft enamel' });
+  }
+  if (process === 'printed' && spec.backLogo) {
+    out.push({ path: 'backLogo', message: 'A printed badge is cut from a printed sheet and has no struck back logo: switch the back logo off, or choose a struck process' });
+  }
+  if (process === 'printed' && spec.sandblast) {
+    out.push({ path: 'sandblast', message: 'A printed badge’s face is covered by the print: it cannot be sandblasted' });
+  }
+  if (spec.secondPlating != null) {
+    if (spec.secondPlating === spec.plating) {
+      out.push({ path: 'secondPlating', message: 'The second finish is the same as the first: choose another finish, or none' });
+    } else if (process === 'printed') {
+      out.push({ path: 'secondPlating', message: 'A printed badge’s face is covered by the print: it cannot have a two-tone finish' });
+    }
+  }
+  return out;
+}
 
 function checkSpec(spec: SpecShape, ctx: z.RefinementCtx) {
   if (!spec.customer && !spec.customerId) {
@@ -73,9 +114,7 @@ function checkSpec(spec: SpecShape, ctx: z.RefinementCtx) {
   if (spec.customer && spec.customerId) {
     ctx.addIssue({ code: 'custom', path: ['customer'], message: 'Give either customer or customerId, not both' });
   }
-  if (ENAMEL_PROCESSES.includes(spec.process) && spec.process !== 'die_cast_3d' && spec.colours.length === 0) {
-    ctx.addIssue({ code: 'custom', path: ['colours'], message: 'An enamel order needs at least one colour' });
-  }
+  for (const c of specContradictions(spec)) ctx.addIssue({ code: 'custom', path: [c.path], message: c.message });
 }
 
 /** The order spec as entered (POST /api/orders). Unknown fields are refused. */
@@ -93,6 +132,8 @@ export const orderSpecPatchSchema = z
     backLogo: z.boolean(),
     printing: z.boolean(),
     epoxy: z.boolean(),
+    secondPlating: z.enum(PLATINGS).nullable(),
+    sandblast: z.boolean(),
     notes: z.string().trim().max(4000),
   })
   .partial();
@@ -152,8 +193,8 @@ export type ProofApprovalBody = z.infer<typeof proofApprovalBodySchema>;
 // Warnings: unusual but allowed. The planner sees them and may go on.
 
 export interface SpecWarning {
-  field: 'sizeMm' | 'quantity' | 'material' | 'overrunPct';
-  code: 'size_unusual' | 'quantity_small' | 'material_unusual';
+  field: 'sizeMm' | 'quantity' | 'material' | 'overrunPct' | 'epoxy';
+  code: 'size_unusual' | 'quantity_small' | 'material_unusual' | 'epoxy_on_hard_enamel';
   message: string;
 }
 
@@ -172,6 +213,7 @@ export function specWarnings(spec: {
   quantity?: number;
   process?: Process;
   material?: string;
+  epoxy?: boolean;
 }): SpecWarning[] {
   const warnings: SpecWarning[] = [];
   const bounds = SIZE_BOUNDS_MM[spec.productType ?? 'pin'];
@@ -194,6 +236,14 @@ export function specWarnings(spec: {
       field: 'material',
       code: 'material_unusual',
       message: '3D die-cast badges are usually zinc alloy',
+    });
+  }
+  if (spec.process === 'hard_enamel' && spec.epoxy) {
+    warnings.push({
+      field: 'epoxy',
+      code: 'epoxy_on_hard_enamel',
+      // common practice: hard enamel is stoned flush and polished, so it needs no protective dome
+      message: 'Hard enamel is stoned flush and polished and is usually left without an epoxy dome; check that the customer wants one',
     });
   }
   return warnings;
@@ -272,6 +322,8 @@ export interface OrderMouldView extends TravellerSummary {
   mouldId: string;
   mouldNumber: string;
   side: 'front' | 'back';
+  /** what the traveller makes: a front or back mould, or a printed badge's cutting die */
+  tool: MouldTool;
   reused: boolean;
   storageLocation: string | null;
 }
@@ -306,8 +358,8 @@ export interface OrderDetail {
   proofs: ProofView[];
   routing: OrderRoutingStep[];
   mouldRouting: RoutingStep[];
-  /** a new design needs front (and back) moulds engraved; a reorder reuses stored ones */
-  mouldPlan: { side: 'front' | 'back'; reuse: boolean; mouldNumber: string | null }[];
+  /** a new design needs front (and back) moulds engraved, or a cutting die made; a reorder reuses stored ones */
+  mouldPlan: { side: 'front' | 'back'; tool: MouldTool; reuse: boolean; mouldNumber: string | null }[];
   trays: TravellerSummary[];
   moulds: OrderMouldView[];
   history: HistoryEntry[];

@@ -132,6 +132,74 @@ describe('orders: entry', () => {
     expect((await planner.get('/api/orders')).body.length).toBe(before);
   });
 
+  it('refuses contradictory specs with 400 and an issue on the field that contradicts, creating and changing nothing', async () => {
+    const before = (await planner.get('/api/orders')).body.length;
+    const cases: [Partial<OrderSpecInput>, string][] = [
+      [{ process: 'die_struck', material: 'brass' }, 'colours'],
+      [{ process: 'hard_enamel', colours: [] }, 'colours'],
+      [{ process: 'soft_enamel', colours: [] }, 'colours'],
+      [{ plating: 'gold', secondPlating: 'gold' }, 'secondPlating'],
+      [{ process: 'printed', backLogo: true }, 'backLogo'],
+      [{ process: 'printed', sandblast: true }, 'sandblast'],
+      [{ process: 'printed', secondPlating: 'nickel' }, 'secondPlating'],
+    ];
+    for (const [over, field] of cases) {
+      const res = await planner.post('/api/orders').send(spec(over));
+      expect(res.status, JSON.stringify(over)).toBe(400);
+      expect(res.body.error.issues.map((i: { path: string[] }) => i.path.join('.'))).toEqual([field]);
+      expect(res.body.error.issues[0].message.length).toBeGreaterThan(10);
+    }
+    expect((await planner.get('/api/orders')).body.length).toBe(before);
+    // a change that makes an entered order contradictory is refused the same way and leaves it as it was
+    const order = await createOrder();
+    const res = await planner.patch(`/api/orders/${order.id}`).send({ process: 'die_struck' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues.map((i: { path: string[] }) => i.path.join('.'))).toEqual(['colours']);
+    expect((await detail(order.id)).spec.process).toBe('hard_enamel');
+  });
+
+  it('a hard enamel order with an epoxy dome is entered with a warning on the epoxy field', async () => {
+    const order = await createOrder({ epoxy: true });
+    const d = await detail(order.id);
+    expect(d.warnings).toEqual([expect.objectContaining({ field: 'epoxy', code: 'epoxy_on_hard_enamel' })]);
+    expect(d.routing.map((s: { stationKind: string }) => s.stationKind)).toContain('epoxy');
+  });
+
+  it('the routing follows the finish, the texture and the backing; a printed order gets a cutting die', async () => {
+    const d = await detail(
+      (await createOrder({ process: 'die_struck', material: 'brass', colours: [], plating: 'antique_bronze', secondPlating: 'black_nickel', sandblast: true, backing: { type: 'safety_pin', count: 1 } })).id,
+    );
+    expect(d.spec).toMatchObject({ plating: 'antique_bronze', secondPlating: 'black_nickel', sandblast: true });
+    const kinds = d.routing.map((s: { stationKind: string }) => s.stationKind);
+    expect(kinds).toEqual(['strike', 'trim', 'solder', 'polish', 'sandblast', 'plate', 'plate', 'antique', 'inspect', 'bag', 'pack', 'dispatch']);
+    // a change to the finish makes the routing again
+    const changed = await planner.patch(`/api/orders/${d.id}`).send({ secondPlating: null, plating: 'gold' });
+    expect(changed.status).toBe(200);
+    expect(changed.body.routing.map((s: { stationKind: string }) => s.stationKind)).toEqual(['strike', 'trim', 'solder', 'polish', 'sandblast', 'plate', 'inspect', 'bag', 'pack', 'dispatch']);
+
+    const printed = await readyOrder({ process: 'printed', colours: [{ name: 'Navy' }], epoxy: false });
+    const pd = await detail(printed.id);
+    expect(pd.routing.map((s: { stationKind: string }) => s.stationKind)).not.toContain('epoxy');
+    expect(pd.mouldPlan).toEqual([{ side: 'front', tool: 'cutting_die', reuse: false, mouldNumber: null }]);
+    expect((await planner.post(`/api/orders/${printed.id}/release`).send({ traySize: 500 })).status).toBe(201);
+    const after = await detail(printed.id);
+    expect(after.mouldRouting.map((s: { name: string }) => s.name)).toEqual(['Make cutting die', 'Check cutting die']);
+    expect(after.moulds[0]).toMatchObject({ tool: 'cutting_die', stepName: 'Make cutting die' });
+  });
+
+  it('the back mould\'s traveller is engraved and checked as the back mould', async () => {
+    const order = await readyOrder({ backLogo: true, quantity: 100, title: 'Two-sided crest' });
+    expect((await planner.post(`/api/orders/${order.id}/release`).send({ traySize: 100 })).status).toBe(201);
+    const d = await detail(order.id);
+    const back = d.moulds.find((m: { side: string }) => m.side === 'back');
+    const front = d.moulds.find((m: { side: string }) => m.side === 'front');
+    expect(back).toMatchObject({ tool: 'back_mould', stepName: 'Engrave back mould' });
+    expect(front).toMatchObject({ tool: 'front_mould', stepName: 'Engrave front mould' });
+    const tray = (await planner.get(`/api/trays/${back.id}`)).body;
+    expect(tray.routing.map((s: { name: string }) => s.name)).toEqual(['Engrave back mould', 'Check back mould']);
+    expect(tray.nextStep.name).toBe('Engrave back mould');
+  });
+
   it('an unknown order is 404', async () => {
     for (const res of [
       await planner.get('/api/orders/no-such-order'),
@@ -391,8 +459,8 @@ describe('release: trays, moulds, codes', () => {
     const repeat = await readyOrder({ backLogo: true, quantity: 400, title: 'Anniversary badge (repeat)', reorderOf: first.id });
     const plan = (await detail(repeat.id)).mouldPlan;
     expect(plan).toEqual([
-      { side: 'front', reuse: true, mouldNumber: `${first.number}-MF` },
-      { side: 'back', reuse: true, mouldNumber: `${first.number}-MB` },
+      { side: 'front', tool: 'front_mould', reuse: true, mouldNumber: `${first.number}-MF` },
+      { side: 'back', tool: 'back_mould', reuse: true, mouldNumber: `${first.number}-MB` },
     ]);
     const res = await planner.post(`/api/orders/${repeat.id}/release`).send({ traySize: 200 });
     expect(res.status).toBe(201);

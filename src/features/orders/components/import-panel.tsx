@@ -91,7 +91,7 @@ export function ImportPanel() {
         <h2 className="mb-2 text-xl font-bold text-harbour-900">1. The file</h2>
         <p className="mb-4 text-harbour-700">
           One order per row, with a header row. Columns: {IMPORT_COLUMNS.join(', ')}. Colours are written like <code>Navy (C-281) #1b2a4a; White</code>; yes/no for back logo,
-          printing and epoxy; dates as YYYY-MM-DD. Up to 1 MB and 1000 orders.
+          printing, epoxy and sandblast; secondPlating names a two-tone badge&rsquo;s second finish (empty for one finish); dates as YYYY-MM-DD. Up to 1 MB and 1000 orders.
         </p>
         <div className="flex flex-col gap-4">
           <label className="flex flex-col gap-1 text-sm font-bold">

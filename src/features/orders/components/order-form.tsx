@@ -30,10 +30,12 @@ const blank: OrderSpecInput = {
   overrunPct: OVERRUN_DEFAULT_PCT,
   colours: [{ name: '', hex: '#1b2a4a' }],
   plating: 'gold',
+  secondPlating: null,
   backing: { type: 'butterfly_clutch', count: 1 },
   backLogo: false,
   printing: false,
   epoxy: false,
+  sandblast: false,
   packaging: 'individual_bag',
   dueDate: new Date(Date.now() + 28 * 86_400_000).toISOString().slice(0, 10),
   notes: '',
@@ -72,6 +74,7 @@ export function OrderForm({
     quantity: Number(watched.quantity),
     process: watched.process,
     material: watched.material,
+    epoxy: watched.epoxy,
   });
   const warningFor = (field: string) => warnings.find((w) => w.field === field)?.message;
   const qty = Number(watched.quantity);
@@ -215,6 +218,18 @@ export function OrderForm({
             </option>
           ))}
         </SelectField>
+        <SelectField
+          label="Second finish (two-tone)"
+          {...register('secondPlating', { setValueAs: (v: unknown) => (v === '' || v == null ? null : v) })}
+          error={e.secondPlating?.message}
+        >
+          <option value="">None: one finish</option>
+          {PLATINGS.map((p) => (
+            <option key={p} value={p}>
+              {humanise(p)}
+            </option>
+          ))}
+        </SelectField>
         <SelectField label="Back fitting" {...register('backing.type')} error={e.backing?.type?.message}>
           {BACKING_TYPES.map((b) => (
             <option key={b} value={b}>
@@ -233,8 +248,12 @@ export function OrderForm({
         <TextField label="Due date" type="date" {...register('dueDate')} error={e.dueDate?.message} />
         <div className="flex flex-col justify-end gap-1">
           <CheckboxField label="Back logo (needs a back mould)" {...register('backLogo')} />
+          {e.backLogo?.message && <FieldProblem>{e.backLogo.message}</FieldProblem>}
           <CheckboxField label="Printed areas" {...register('printing')} />
           <CheckboxField label="Epoxy dome" {...register('epoxy')} />
+          {warningFor('epoxy') && <Warn>{warningFor('epoxy')}</Warn>}
+          <CheckboxField label="Sandblasted texture" {...register('sandblast')} />
+          {e.sandblast?.message && <FieldProblem>{e.sandblast.message}</FieldProblem>}
         </div>
         <div className="md:col-span-3">
           <TextAreaField label="Notes" rows={3} {...register('notes')} error={e.notes?.message} />
@@ -262,5 +281,13 @@ function Warn({ children }: { children: ReactNode }) {
       <AlertTriangle className="mt-0.5 h-4 w-4 shrink-0" aria-hidden />
       {children}
     </span>
+  );
+}
+
+function FieldProblem({ children }: { children: ReactNode }) {
+  return (
+    <p role="alert" className="text-sm font-bold text-stop-700">
+      {children}
+    </p>
   );
 }

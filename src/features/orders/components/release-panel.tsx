@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Lock, Rocket } from 'lucide-react';
 import type { OrderDetail, OrderGate } from '@shared/schemas/orders';
 import { MAX_TRAYS_PER_RELEASE, splitIntoTrays } from '@shared/domain/trays';
+import { MOULD_TOOL_NAMES } from '@shared/domain/routing';
 import { Card, ErrorPanel } from '@/components/ui/panels';
 import { Button } from '@/components/ui/button';
 import { CheckboxField, TextField } from '@/components/ui/field';
@@ -28,7 +29,9 @@ export function ReleasePanel({ order }: { order: OrderDetail }) {
   const sizeOk = Number.isInteger(traySize) && traySize >= 1;
   const tooMany = sizeOk && Math.ceil(order.releasedQuantity / traySize) > MAX_TRAYS_PER_RELEASE;
   const blocked = order.openGates.length > 0;
-  const moulds = order.mouldPlan.map((m) => `${m.side} mould ${m.reuse ? `(stored ${m.mouldNumber}: check only)` : '(new: engrave and check)'}`).join(', ');
+  const moulds = order.mouldPlan
+    .map((m) => `${MOULD_TOOL_NAMES[m.tool].toLowerCase()} ${m.reuse ? `(stored ${m.mouldNumber}: check only)` : `(new: ${m.tool === 'cutting_die' ? 'make' : 'engrave'} and check)`}`)
+    .join(', ');
 
   return (
     <Card>

@@ -17,6 +17,10 @@ const CONDITION_LABELS: Record<StepCondition, string> = {
   epoxy: 'When epoxy dome',
   fittings: 'When there are fittings',
   posts: 'When fittings need posts',
+  safety_pin: 'When the backing is a safety pin',
+  antique: 'When the finish is antique',
+  second_plating: 'When the finish is two-tone',
+  sandblast: 'When sandblasted',
 };
 
 /** A small captioned control; the aria-label keeps each row's controls apart for screen readers. */
@@ -41,7 +45,7 @@ function NumberCell({ label, caption, value, onChange, step = '0.5' }: { label: 
 export function TemplateEditor({ template }: { template: RoutingTemplate }) {
   const [draft, setDraft] = useState<RoutingTemplate>(template);
   const [colours, setColours] = useState(3);
-  const [flags, setFlags] = useState({ backLogo: false, printing: false, epoxy: false });
+  const [flags, setFlags] = useState({ backLogo: false, printing: false, epoxy: false, sandblast: false, antique: false, twoTone: false, safetyPin: false });
   const save = useSaveTemplate();
   const parsed = routingTemplateSchema.safeParse(draft);
   const setEntry = (i: number, e: TemplateEntry) => setDraft({ ...draft, steps: draft.steps.map((x, j) => (j === i ? e : x)) });
@@ -55,8 +59,13 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
     ? expandRouting(parsed.data, {
         process: draft.process,
         colours: Array.from({ length: colours }),
-        ...flags,
-        backing: { type: 'butterfly_clutch', count: 1 },
+        backLogo: flags.backLogo,
+        printing: flags.printing,
+        epoxy: flags.epoxy,
+        sandblast: flags.sandblast,
+        backing: { type: flags.safetyPin ? 'safety_pin' : 'butterfly_clutch', count: 1 },
+        plating: flags.antique ? 'antique_gold' : 'gold',
+        secondPlating: flags.twoTone ? 'nickel' : null,
       })
     : [];
 
@@ -182,6 +191,10 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
           <CheckboxField label="Back logo" checked={flags.backLogo} onChange={(e) => setFlags({ ...flags, backLogo: e.target.checked })} />
           <CheckboxField label="Printing" checked={flags.printing} onChange={(e) => setFlags({ ...flags, printing: e.target.checked })} />
           <CheckboxField label="Epoxy" checked={flags.epoxy} onChange={(e) => setFlags({ ...flags, epoxy: e.target.checked })} />
+          <CheckboxField label="Sandblast" checked={flags.sandblast} onChange={(e) => setFlags({ ...flags, sandblast: e.target.checked })} />
+          <CheckboxField label="Antique finish" checked={flags.antique} onChange={(e) => setFlags({ ...flags, antique: e.target.checked })} />
+          <CheckboxField label="Two-tone" checked={flags.twoTone} onChange={(e) => setFlags({ ...flags, twoTone: e.target.checked })} />
+          <CheckboxField label="Safety pin" checked={flags.safetyPin} onChange={(e) => setFlags({ ...flags, safetyPin: e.target.checked })} />
         </div>
         <ol className="flex flex-col gap-1 text-sm">
           {preview.map((s) => (

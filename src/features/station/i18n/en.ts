@@ -1,4 +1,8 @@
-// Every word the station tablet shows, in English. zh-CN.ts has the same keys.
+// Every word the station tablet shows, in English. zh-CN.ts has the same keys: the station kinds,
+// processes, finishes and backings are checked against the shared lists, so a kind missing here or
+// in zh-CN.ts fails the typecheck.
+import type { BackingType, Plating, Process, StationKind } from '@shared/domain/vocabulary';
+
 export const en = {
   app: {
     name: 'Trayce station',
@@ -200,26 +204,29 @@ export const en = {
     cast: 'Zinc die casting',
     trim: 'Trimming',
     post: 'Post fitting',
+    solder: 'Pin soldering',
     fill: 'Colour fill',
     cure: 'Curing oven',
     stone: 'Stoning',
     polish: 'Polishing',
+    sandblast: 'Sandblasting',
     plate: 'Plating',
+    antique: 'Antique oxidising',
     print: 'Screen printing',
     epoxy: 'Epoxy',
-    inspect: 'Final inspection',
+    inspect: 'Inspection',
     clutch: 'Clutch fitting',
     bag: 'Bagging',
     pack: 'Packing',
     dispatch: 'Dispatch',
-  },
+  } satisfies Record<StationKind, string>,
   process: {
     hard_enamel: 'Hard enamel',
     soft_enamel: 'Soft enamel',
     die_struck: 'Die struck',
     printed: 'Printed',
     die_cast_3d: '3D die cast',
-  },
+  } satisfies Record<Process, string>,
   plating: {
     gold: 'Gold',
     silver: 'Silver',
@@ -232,7 +239,7 @@ export const en = {
     antique_bronze: 'Antique bronze',
     dyed: 'Dyed',
     rainbow: 'Rainbow',
-  },
+  } satisfies Record<Plating, string>,
   backing: {
     butterfly_clutch: 'Butterfly clutch',
     rubber_clutch: 'Rubber clutch',
@@ -241,7 +248,7 @@ export const en = {
     safety_pin: 'Safety pin',
     screw_nut: 'Screw and nut',
     none: 'None',
-  },
+  } satisfies Record<BackingType, string>,
   packaging: {
     bulk: 'Bulk',
     individual_bag: 'Each in a bag',

@@ -2,6 +2,7 @@ import type { Db } from './db/client';
 import type { Env } from './env';
 import type { Logger } from 'pino';
 import type { SendMailOptions } from 'nodemailer';
+import type Stripe from 'stripe';
 
 /** What every route handler and service can reach. Features add optional members here. */
 export interface AppDeps {
@@ -20,4 +21,6 @@ export interface AppDeps {
   loginAttemptsPerWindow: number;
   /** outgoing mail (set by startMail); without it, messages stay queued */
   mail?: { send: (message: SendMailOptions) => Promise<unknown>; from: string };
+  /** hosted checkout (set by startPayments): the real service, or the local fake; without it, checkout answers 503 */
+  payments?: { stripe: Stripe; webhookSecret: string; mode: 'service' | 'local' };
 }

@@ -25,6 +25,8 @@ import { registerLiveRoutes } from './routes/live.routes';
 import { registerReportRoutes } from './routes/reports.routes';
 import { registerCalendarRoutes } from './routes/calendar.routes';
 import { registerLoadRoutes } from './routes/loads.routes';
+import { registerPaymentRoutes } from './routes/payments.routes';
+import { registerPortalRoutes } from './routes/portal.routes';
 
 const clientDist = path.join(PROJECT_ROOT, 'dist');
 
@@ -77,8 +79,12 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   registerReportRoutes(api);
   registerCalendarRoutes(api);
   registerLoadRoutes(api);
+  registerPaymentRoutes(api);
+  registerPortalRoutes(api);
 
-  app.use('/api', sameOrigin(deps.env), express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
+  // The payment webhook's signature is made over the exact bytes sent: keep them raw for it alone.
+  app.use('/api/payments/webhook', express.raw({ type: () => true, limit: '256kb' }));
+  app.use('/api', sameOrigin(deps.env, api.signedRoutes), express.json({ limit: '1mb' }), authenticate(deps), api.router, notFoundApi);
 
   if (options.serveClient !== false && fs.existsSync(path.join(clientDist, 'index.html'))) {
     app.use(express.static(clientDist, { index: false, maxAge: '1h' }));

@@ -11,6 +11,8 @@ const envSchema = z.object({
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().min(3).optional(),
   TRAYCE_PUBLIC_URL: z.string().url().optional(),
+  STRIPE_SECRET_KEY: z.string().trim().min(8).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().trim().min(8).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -25,6 +27,10 @@ export interface Env {
   /** sender of outgoing mail ("Name <address>"); default: the factory name at the public host */
   mailFrom?: string;
   publicUrl: string;
+  /** the payment service's secret key; unset: the local checkout fake starts with the app */
+  stripeSecretKey?: string;
+  /** signing secret of the payment service's webhook endpoint (needed with the secret key) */
+  stripeWebhookSecret?: string;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
 }
 
@@ -36,6 +42,9 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Trayce cannot start: the environment has errors\n${lines}`);
   }
   const e = parsed.data;
+  if (e.STRIPE_SECRET_KEY && !e.STRIPE_WEBHOOK_SECRET) {
+    throw new Error('Trayce cannot start: STRIPE_SECRET_KEY is set but STRIPE_WEBHOOK_SECRET is not (the signing secret of the webhook endpoint, whsec_…)');
+  }
   return {
     nodeEnv: e.NODE_ENV,
     port: e.PORT,
@@ -46,6 +55,8 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     publicUrl: e.TRAYCE_PUBLIC_URL ?? `http://localhost:${e.PORT}`,
+    stripeSecretKey: e.STRIPE_SECRET_KEY,
+    stripeWebhookSecret: e.STRIPE_WEBHOOK_SECRET,
     logLevel: e.LOG_LEVEL,
   };
 }

@@ -2,6 +2,7 @@ import { loadEnv } from './env';
 import { boot } from './boot';
 import { createApp } from './app';
 import { startMail } from './services/mail.service';
+import { startPayments } from './services/payments.service';
 
 // A failure nobody awaited (a library's late callback, a stream error) is logged and survived:
 // nothing a user sends may end the process. Uploads are decoded in full before they are kept
@@ -17,6 +18,9 @@ const env = loadEnv();
 const deps = await boot(env);
 // Outgoing mail: SMTP_URL, or the local catcher on a loopback port; the queue worker runs here.
 const mail = await startMail(deps);
+// Hosted checkout: the real service with STRIPE_SECRET_KEY, else the local fake on a loopback
+// port, which posts its signed events to this server's webhook.
+const payments = await startPayments(deps, () => `http://127.0.0.1:${env.port}/api/payments/webhook`);
 const { app } = createApp(deps);
 const server = app.listen(env.port, () => {
   deps.log.info(`Trayce is serving on http://localhost:${env.port}`);
@@ -25,6 +29,7 @@ const server = app.listen(env.port, () => {
 function shutdown(signal: string) {
   deps.log.info(`${signal}: closing`);
   void mail.stop();
+  void payments.stop();
   server.close(() => {
     deps.db.$client.close();
     process.exit(0);

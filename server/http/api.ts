@@ -62,6 +62,11 @@ export interface RouteSpec<P, Q, B> {
   status?: number;
   /** what a write carries: JSON (default), a file (multipart/form-data), or either */
   bodyKind?: BodyKind;
+  /**
+   * `signed`: a server-to-server POST that proves itself by a signature over its raw body (the
+   * payment webhook). Only such a route is let through the same-origin rule; see decision 0011.
+   */
+  origin?: 'signed';
   /** extra middleware run after the access check (uploads, rate limits) */
   before?: RequestHandler[];
   handler: (ctx: HandlerContext<P, Q, B>) => unknown | Promise<unknown>;
@@ -73,6 +78,8 @@ export interface RegisteredRoute {
   access: Access;
   /** what a write to this route must carry (see server/middleware/same-origin.ts) */
   bodyKind: BodyKind;
+  /** checked by its own signature instead of the same-origin rule */
+  signed: boolean;
 }
 
 function toIssues(error: z.ZodError): ErrorIssue[] {
@@ -107,12 +114,19 @@ export function checkAccess(access: Access, auth: AuthState | undefined): void {
 export class Api {
   readonly router = Router();
   readonly routes: RegisteredRoute[] = [];
+  /** `METHOD /path` of the routes exempt from the same-origin rule by their signature check */
+  readonly signedRoutes = new Set<string>();
 
   constructor(private readonly deps: AppDeps) {}
 
   route<P = Record<string, string>, Q = unknown, B = unknown>(spec: RouteSpec<P, Q, B>): void {
     const bodyKind: BodyKind = spec.bodyKind ?? 'json';
-    this.routes.push({ method: spec.method, path: spec.path, access: spec.access, bodyKind });
+    const signed = spec.origin === 'signed';
+    if (signed) {
+      if (spec.method !== 'post' || spec.access !== 'public' || spec.path.includes(':')) throw new Error(`A signed route is a public POST to a fixed path: ${spec.path}`);
+      this.signedRoutes.add(`POST ${spec.path}`);
+    }
+    this.routes.push({ method: spec.method, path: spec.path, access: spec.access, bodyKind, signed });
     const guard: RequestHandler = (req, _res, next) => {
       checkBodyKind(bodyKind, req);
       checkAccess(spec.access, req.auth);

@@ -131,3 +131,16 @@ export function proofReadyMail(input: { factory: string; orderNumber: string; ti
   const html = page(subject, `<p>${escapeHtml(greeting)}</p><p>${escapeHtml(body)}</p>`, input.factory);
   return { subject, text, html };
 }
+
+/** To the planners: the customer sent a proof back from her order page. */
+export function proofChangesMail(input: { factory: string; orderNumber: string; title: string; customer: string; revision: number; comment: string; orderUrl: string }): RenderedMail {
+  const subject = `Changes asked for proof ${input.revision} of order ${input.orderNumber}`;
+  const body = `${input.customer} asked for changes to proof revision ${input.revision} of "${input.title}" (${input.orderNumber}) on the order page. The proof gate stays shut until a new revision is approved.`;
+  const text = [body, '', 'Their comment:', input.comment, '', `Open the order: ${input.orderUrl}`, '', input.factory].join('\n');
+  const html = page(
+    subject,
+    `<p>${escapeHtml(body)}</p><p><strong>Their comment:</strong></p><blockquote>${escapeHtml(input.comment)}</blockquote><p><a href="${escapeHtml(input.orderUrl)}">Open the order</a></p>`,
+    input.factory,
+  );
+  return { subject, text, html };
+}

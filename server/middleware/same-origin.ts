@@ -24,10 +24,14 @@ function originOf(url: string): string | null {
  * header is not from a browser page (curl, tests, scripts) and passes. Header checks only: no
  * database access, so the scan path pays a few string compares.
  */
-export function sameOrigin(env: Env): RequestHandler {
+export function sameOrigin(env: Env, signedRoutes: ReadonlySet<string> = new Set()): RequestHandler {
   const configured = originOf(env.publicUrl);
   return (req, _res, next) => {
     if (!isWrite(req.method)) return next();
+    // The one exemption: a route declared `origin: 'signed'` (the payment webhook, posted by the
+    // payment service's servers) is authenticated by the signature over its body instead, which
+    // its handler verifies before anything changes. Exact method and path only.
+    if (signedRoutes.has(`${req.method.toUpperCase()} ${req.path}`)) return next();
     const origin = req.get('origin');
     if (origin !== undefined) {
       const given = origin.trim().toLowerCase();

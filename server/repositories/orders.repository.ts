@@ -103,7 +103,9 @@ export const ordersRepository = {
       .where(and(eq(proofs.orderId, orderId), eq(proofs.revision, revision)))
       .get(),
   insertProof: (db: Db, row: typeof proofs.$inferInsert) => db.insert(proofs).values(row).run(),
-  approveProof: (db: Db, id: string, patch: Pick<typeof proofs.$inferInsert, 'approvedAt' | 'approvedBy' | 'approvalNote'>) =>
+  approveProof: (db: Db, id: string, patch: Pick<typeof proofs.$inferInsert, 'approvedAt' | 'approvedBy' | 'approvedByName' | 'approvalNote'>) =>
+    db.update(proofs).set(patch).where(eq(proofs.id, id)).run(),
+  requestProofChanges: (db: Db, id: string, patch: Pick<typeof proofs.$inferInsert, 'changesRequestedAt' | 'changesComment'>) =>
     db.update(proofs).set(patch).where(eq(proofs.id, id)).run(),
 
   userNames: (db: Db, ids: string[]) =>

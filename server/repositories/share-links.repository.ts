@@ -7,7 +7,7 @@ export type ShareLinkRow = typeof shareLinks.$inferSelect;
 
 export const shareLinksRepository = {
   insert: (db: Db, row: typeof shareLinks.$inferInsert) => db.insert(shareLinks).values(row).run(),
-  /** the live link with this token hash */
+  /** the live link with this token hash (it may have expired: the caller checks `expiresAt`) */
   activeByHash: (db: Db, tokenHash: string) =>
     db
       .select()

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Api } from '../http/api';
-import { FLOOR_LEADS, OFFICE, PLANNING, ADMIN_ONLY } from '@shared/domain/access';
+import { FLOOR_LEADS, GATE_RECORDERS, OFFICE, PLANNING, ADMIN_ONLY } from '@shared/domain/access';
 import { PROCESSES } from '@shared/domain/vocabulary';
 import {
   importBodySchema,
@@ -97,7 +97,7 @@ export function registerOrderRoutes(api: Api) {
   api.route({
     method: 'post',
     path: '/orders/:id/payment',
-    access: { roles: PLANNING },
+    access: { roles: GATE_RECORDERS },
     params: idParams,
     body: paymentBodySchema,
     status: 201,
@@ -132,7 +132,7 @@ export function registerOrderRoutes(api: Api) {
   api.route({
     method: 'post',
     path: '/orders/:id/proofs/:revision/approve',
-    access: { roles: PLANNING },
+    access: { roles: GATE_RECORDERS },
     params: proofParams,
     body: proofApprovalBodySchema,
     handler: ({ deps, params, body, user }) => ordersService.approveProof(deps, params.id, params.revision, body, user!.id),

@@ -3,7 +3,7 @@ import { rateLimit } from 'express-rate-limit';
 import type { RequestHandler } from 'express';
 import type { Api } from '../http/api';
 import { SALES_VIEW, SHARE_LINKS } from '@shared/domain/access';
-import { orderContactSchema, proofRevisionParamsSchema, salesSearchQuerySchema } from '@shared/schemas/shipping';
+import { orderContactSchema, shareLinkBodySchema, proofRevisionParamsSchema, salesSearchQuerySchema } from '@shared/schemas/shipping';
 import { salesService } from '../services/sales.service';
 import { shareLinksService } from '../services/share-links.service';
 import { queueProofReady } from '../services/mail.service';
@@ -64,8 +64,9 @@ export function registerSalesRoutes(api: Api) {
     path: '/orders/:id/share',
     access: { roles: SHARE_LINKS },
     params: orderParams,
+    body: shareLinkBodySchema,
     status: 201,
-    handler: ({ deps, params, user }) => shareLinksService.create(deps, params.id, user!.id),
+    handler: ({ deps, params, body, user }) => shareLinksService.create(deps, params.id, user!.id, body),
   });
   api.route({
     method: 'delete',

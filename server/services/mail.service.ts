@@ -32,7 +32,7 @@ export interface QueuedAttachment {
 }
 
 export interface NewMail {
-  kind: 'order_shipped' | 'late_digest' | 'proof_ready';
+  kind: 'order_shipped' | 'late_digest' | 'proof_ready' | 'proof_changes';
   to: string;
   subject: string;
   text: string;

@@ -43,6 +43,7 @@ import { MAX_TRAYS_PER_RELEASE, mouldNumber, releasedQuantity, splitIntoTrays, t
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { previewOrderImport } from '@shared/domain/order-import';
 import { loadProgress } from './order-progress.service';
+import { approveProofIn, openGates, paymentSummaryOf, PRE_RELEASE_STATUSES, preReleaseStatus, recordPaymentIn, refreshStatus } from './order-gates';
 import { shipDateService } from './ship-date.service';
 import {
   initialTrayState,
@@ -56,7 +57,6 @@ import {
   type TravellerKind,
 } from '@shared/domain/vocabulary';
 
-export const PRE_RELEASE_STATUSES: readonly OrderStatus[] = ['draft', 'awaiting_payment', 'awaiting_proof'];
 /** Roles that may record a payment exception (release without payment). */
 export const EXCEPTION_ROLES: readonly Role[] = ['manager', 'admin'];
 export const FIRST_ORDER_NUMBER = 1001;
@@ -108,6 +108,8 @@ function specColumns(spec: OrderSpec) {
     packaging: spec.packaging,
     dueDate: spec.dueDate,
     notes: spec.notes,
+    priceTotal: spec.priceTotal ?? null,
+    currency: spec.currency ?? null,
   };
 }
 
@@ -136,6 +138,8 @@ export function specOf(order: OrderRow): Omit<OrderSpec, 'customer' | 'customerI
     packaging: order.packaging as OrderSpec['packaging'],
     dueDate: order.dueDate,
     notes: order.notes,
+    ...(order.priceTotal != null ? { priceTotal: order.priceTotal } : {}),
+    ...(order.currency ? { currency: order.currency } : {}),
   };
 }
 
@@ -171,32 +175,6 @@ export function routingOf(db: DbLike, orderId: string, kind: TravellerKind): Rou
     cureMinutes: s.cureMinutes,
     colour: s.colour,
   }));
-}
-
-/** The gates still open before release, in the order a planner deals with them. */
-export function openGates(db: DbLike, orderId: string): OrderGate[] {
-  const gates: OrderGate[] = [];
-  if (ordersRepository.payments(db, orderId).length === 0) gates.push('payment_missing');
-  const proofs = ordersRepository.proofs(db, orderId);
-  const latest = proofs[proofs.length - 1];
-  if (!latest || latest.approvedAt == null) gates.push('proof_not_approved');
-  return gates;
-}
-
-/**
- * Status before release follows the gates: awaiting payment, then awaiting proof approval;
- * with both gates closed the order is a draft ready to release (not on the floor yet).
- */
-function preReleaseStatus(gates: OrderGate[]): OrderStatus {
-  if (gates.includes('payment_missing')) return 'awaiting_payment';
-  if (gates.includes('proof_not_approved')) return 'awaiting_proof';
-  return 'draft';
-}
-
-function refreshStatus(db: DbLike, order: OrderRow, now: number) {
-  if (!PRE_RELEASE_STATUSES.includes(order.status as OrderStatus)) return;
-  const status = preReleaseStatus(openGates(db, order.id));
-  if (status !== order.status) ordersRepository.update(db, order.id, { status, updatedAt: now });
 }
 
 const GATE_MESSAGES: Record<OrderGate, string> = {
@@ -313,11 +291,9 @@ export const ordersService = {
   list(deps: AppDeps): OrderListItem[] {
     const rows = ordersRepository.list(deps.db);
     const progress = progressOf(deps, rows);
-    return rows.map(({ order, customer, trays, paid, latestProofApproved }) => {
+    return rows.map(({ order, customer, trays }) => {
       const p = progress.get(order.id);
-      const gates: OrderGate[] = isReleased(order)
-        ? []
-        : [...(paid ? [] : ['payment_missing' as const]), ...(latestProofApproved ? [] : ['proof_not_approved' as const])];
+      const gates: OrderGate[] = isReleased(order) || order.status === 'cancelled' ? [] : openGates(deps.db, order.id);
       return {
         id: order.id,
         number: order.number,
@@ -346,6 +322,7 @@ export const ordersService = {
     const mouldSteps = routingOf(db, id, 'mould');
     const traySize = order.traySize ?? Math.min(DEFAULT_TRAY_SIZE, releasedQuantity(order.quantity, order.overrunPct));
     const payments = ordersRepository.payments(db, id);
+    const summary = paymentSummaryOf(db, order);
     const proofs = ordersRepository.proofs(db, id);
     const names = new Map(
       ordersRepository
@@ -404,12 +381,17 @@ export const ordersService = {
       payments: payments.map(({ payment: p, by }) => ({
         id: p.id,
         amount: p.amount,
+        currency: p.currency ?? (p.isException ? null : summary.currency),
         reference: p.reference,
+        source: p.source,
+        at: iso(p.recordedAt)!,
         isException: p.isException,
         note: p.note,
-        recordedBy: by ?? '',
+        recordedBy: p.source === 'checkout' ? 'Online checkout' : (by ?? ''),
         recordedAt: iso(p.recordedAt)!,
       })),
+      paidTotal: summary.paidTotal,
+      payment: summary,
       proofs: proofs.map((p) => ({
         revision: p.revision,
         mime: p.mime,
@@ -418,8 +400,10 @@ export const ordersService = {
         uploadedBy: names.get(p.uploadedBy) ?? '',
         uploadedAt: iso(p.uploadedAt)!,
         approvedAt: iso(p.approvedAt),
-        approvedBy: p.approvedBy ? (names.get(p.approvedBy) ?? null) : null,
+        approvedBy: p.approvedBy ? (names.get(p.approvedBy) ?? null) : p.approvedByName ? `${p.approvedByName} (on the order page)` : null,
         approvalNote: p.approvalNote,
+        changesRequestedAt: iso(p.changesRequestedAt),
+        changesComment: p.changesComment,
       })),
       routing: routing.map((s) => ({ ...s, standardMinutes: Math.round((s.trayMinutes + s.pieceMinutes * traySize) * 10) / 10 })),
       mouldRouting: mouldSteps.length ? mouldSteps : mouldRouting({ reuse: false, process: spec.process }),
@@ -524,8 +508,8 @@ export const ordersService = {
         audit(tx, now, actor.id, 'order.payment_exception', id, `Release without payment allowed: ${body.reason}`);
       } else {
         const note = body.paidOn ? `paid on ${body.paidOn}` : '';
-        ordersRepository.insertPayment(tx, { id: paymentId, orderId: id, amount: body.amount, reference: body.reference, isException: false, note, recordedBy: actor.id, recordedAt: now });
-        audit(tx, now, actor.id, 'order.payment', id, `Payment of ${body.amount.toFixed(2)} recorded (${body.reference})`);
+        recordPaymentIn(tx, now, { orderId: id, amount: body.amount, currency: body.currency, reference: body.reference, source: 'manual', recordedBy: actor.id, note });
+        return;
       }
       refreshStatus(tx, order, now);
     });
@@ -585,27 +569,12 @@ export const ordersService = {
   },
 
   approveProof(deps: AppDeps, id: string, revision: number, body: ProofApprovalBody, actorId: string) {
-    const { db } = deps;
     const now = deps.now();
-    db.transaction((tx) => {
-      const order = getOrder(tx, id);
-      refuseIfReleased(order, 'its proof approval');
-      const proof = ordersRepository.proof(tx, id, revision);
-      if (!proof) throw notFound(`Proof revision ${revision}`);
-      if (proof.approvedAt != null) throw conflict('already_approved', `Proof revision ${revision} is approved already.`);
-      const all = ordersRepository.proofs(tx, id);
-      const latest = all[all.length - 1];
-      if (latest.revision !== revision) {
-        throw conflict('not_latest_proof', `Revision ${latest.revision} is the latest proof; approve that one (revision ${revision} was replaced).`);
-      }
-      if (body.approvedOn && body.approvedOn > today(now)) {
-        throw badInput('The approval date cannot be in the future.', [{ path: ['approvedOn'], message: 'In the future' }]);
-      }
-      const approvedAt = body.approvedOn ? Math.min(Date.parse(`${body.approvedOn}T12:00:00Z`), now) : now;
-      ordersRepository.approveProof(tx, proof.id, { approvedAt, approvedBy: actorId, approvalNote: body.note ?? null });
-      audit(tx, now, actorId, 'order.proof_approve', id, `Customer approved proof revision ${revision} on ${today(approvedAt)}${body.note ? `: ${body.note}` : ''}`);
-      refreshStatus(tx, order, now);
-    });
+    if (body.approvedOn && body.approvedOn > today(now)) {
+      throw badInput('The approval date cannot be in the future.', [{ path: ['approvedOn'], message: 'In the future' }]);
+    }
+    const approvedAt = body.approvedOn ? Math.min(Date.parse(`${body.approvedOn}T12:00:00Z`), now) : now;
+    deps.db.transaction((tx) => approveProofIn(tx, now, { orderId: id, revision, approvedAt, userId: actorId, customerName: null, note: body.note ?? null }));
     return ordersService.get(deps, id);
   },
 

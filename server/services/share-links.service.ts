@@ -11,6 +11,12 @@ import { AppError, notFound } from '../errors';
 import { loadProgress } from './order-progress.service';
 import { measuredShipDates } from './ship-date.service';
 import { CUSTOMER_STAGE_NAMES } from '@shared/domain/stages';
+import { productionStory, type StepTimes } from '@shared/domain/production-story';
+import type { Process, StationKind } from '@shared/domain/vocabulary';
+import { ordersRepository } from '../repositories/orders.repository';
+import { portalRepository } from '../repositories/portal.repository';
+import type { ShareLinkRow } from '../repositories/share-links.repository';
+import type { ShippingOrder } from '../repositories/shipping.repository';
 import { publicStatusSchema, statusTokenSchema, type PublicStatus, type ShareLink, type ShareLinkInfo } from '@shared/schemas/shipping';
 
 /** Random bytes in a token: 256 bits, well over the 128 the product asks for. */
@@ -31,23 +37,88 @@ export function statusUrl(deps: AppDeps, token: string): string {
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
 /** Makes a link inside the caller's transaction (the shipped mail makes one too). */
-export function createLinkIn(tx: DbLike, deps: AppDeps, orderId: string, userId: string | null, purpose: 'manual' | 'shipped_mail'): ShareLink {
+export function createLinkIn(tx: DbLike, deps: AppDeps, orderId: string, userId: string | null, purpose: 'manual' | 'shipped_mail', options: { validDays?: number } = {}): ShareLink {
   const token = newToken();
   const now = deps.now();
   const id = crypto.randomUUID();
-  shareLinksRepository.insert(tx, { id, orderId, tokenHash: hashToken(token), purpose, createdBy: userId, createdAt: now });
+  const expiresAt = options.validDays ? now + options.validDays * 86_400_000 : null;
+  shareLinksRepository.insert(tx, { id, orderId, tokenHash: hashToken(token), purpose, createdBy: userId, createdAt: now, expiresAt });
   auditRepository.record(tx, now, { userId, action: 'share_link.create', entity: 'order', entityId: orderId, detail: { linkId: id, purpose } });
   return { token, url: statusUrl(deps, token) };
 }
 
 const notFoundLink = () => new AppError(404, 'not_found', 'This status link does not exist or has been withdrawn.');
 
+/** A token's live link and its order: 404 when unknown or withdrawn, 410 when past its end date. */
+export function resolveLink(deps: AppDeps, token: string): { link: ShareLinkRow; order: ShippingOrder } {
+  if (!statusTokenSchema.safeParse(token).success) throw notFoundLink();
+  const link = shareLinksRepository.activeByHash(deps.db, hashToken(token));
+  if (!link) throw notFoundLink();
+  if (link.expiresAt != null && link.expiresAt <= deps.now()) {
+    throw new AppError(410, 'link_expired', `This order link ended on ${new Date(link.expiresAt).toISOString().slice(0, 10)}. Ask your contact at the factory for a new one.`);
+  }
+  const order = shippingRepository.order(deps.db, link.orderId);
+  if (!order) throw notFoundLink();
+  return { link, order };
+}
+
+/** The public status of one order: its stages with dates, its story, the ship date and tracking. */
+export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow, order: ShippingOrder): PublicStatus {
+  const now = deps.now();
+  const factory = shippingRepository.factory(deps.db);
+  const p = loadProgress(deps.db, [order], now, factory.timeZone, { shipDates: measuredShipDates(deps, [order.id]) }).get(order.id)!;
+  const last = p.shipments.at(-1);
+  const row = ordersRepository.byId(deps.db, order.id)!;
+  const done = new Set(p.stage.stages.filter((s) => s.done).map((s) => s.key));
+  const story = productionStory({
+    process: row.process as Process,
+    releasedAt: row.releasedAt,
+    shippedAt: p.shippedAt,
+    done,
+    steps: portalRepository.stepTimes(deps.db, order.id).filter((s) => s.stationKind) as StepTimes[],
+    photos: portalRepository.sharedPhotos(deps.db, order.id).map((ph) => ({ id: ph.id, stationKind: (ph.stationKind as StationKind | null) ?? null, takenAt: ph.createdAt })),
+  });
+  const doneAt = new Map(story.filter((s) => s.doneAt != null).map((s) => [s.stage, s.doneAt!]));
+  const base = `/api/public/status/${encodeURIComponent(token)}`;
+  const body: PublicStatus = {
+    factory: factory.name,
+    number: row.number,
+    title: order.title,
+    customer: order.customer,
+    quantity: row.quantity,
+    process: row.process,
+    stage: p.stage.stage ? CUSTOMER_STAGE_NAMES[p.stage.stage] : 'Cancelled',
+    stages: p.stage.stages.map((s) => ({ key: s.key, name: s.name, done: s.done, ...(s.done && doneAt.has(s.key) ? { at: iso(doneAt.get(s.key))! } : {}) })),
+    projectedShipAt: p.status === 'shipped' || p.status === 'cancelled' ? null : iso(p.projection.expectedAt),
+    updatedAt: iso(Math.max(row.updatedAt, ...story.map((s) => s.doneAt ?? s.startedAt)))!,
+  };
+  if (story.length) {
+    body.story = story.map((s) => ({
+      stage: s.stage,
+      name: CUSTOMER_STAGE_NAMES[s.stage],
+      at: iso(s.startedAt)!,
+      ...(s.doneAt != null ? { doneAt: iso(s.doneAt)! } : {}),
+      text: s.text,
+      textZh: s.textZh,
+      photos: s.photoIds.map((id) => `${base}/photos/${id}`),
+    }));
+  }
+  if (p.shippedAt != null) body.shippedAt = iso(p.shippedAt)!;
+  if (last) {
+    body.carrier = last.carrier;
+    body.trackingNumber = last.trackingNumber;
+  }
+  // Opening the page is recorded (sales sees that the customer looked), at most once a minute.
+  if (link.lastOpenedAt == null || now - link.lastOpenedAt > 60_000) shareLinksRepository.touchOpened(deps.db, link.id, now);
+  return publicStatusSchema.parse(body);
+}
+
 export const shareLinksService = {
-  create(deps: AppDeps, orderId: string, userId: string): ShareLink {
+  create(deps: AppDeps, orderId: string, userId: string, options: { validDays?: number } = {}): ShareLink {
     const order = shippingRepository.order(deps.db, orderId);
     if (!order) throw notFound('That order');
     if (order.status === 'cancelled') throw new AppError(409, 'order_cancelled', 'A cancelled order gets no status link.');
-    return deps.db.transaction((tx) => createLinkIn(tx, deps, orderId, userId, 'manual'));
+    return deps.db.transaction((tx) => createLinkIn(tx, deps, orderId, userId, 'manual', options));
   },
 
   /** Withdraws every live link of the order (the one sent with a shipped mail too). */
@@ -74,28 +145,7 @@ export const shareLinksService = {
 
   /** The public page's data: exactly the documented fields, checked against the strict schema. */
   publicStatus(deps: AppDeps, token: string): PublicStatus {
-    if (!statusTokenSchema.safeParse(token).success) throw notFoundLink();
-    const link = shareLinksRepository.activeByHash(deps.db, hashToken(token));
-    if (!link) throw notFoundLink();
-    const order = shippingRepository.order(deps.db, link.orderId);
-    if (!order) throw notFoundLink();
-    const now = deps.now();
-    const p = loadProgress(deps.db, [order], now, shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, [order.id]) }).get(order.id)!;
-    const last = p.shipments.at(-1);
-    const body: PublicStatus = {
-      title: order.title,
-      customer: order.customer,
-      stage: p.stage.stage ? CUSTOMER_STAGE_NAMES[p.stage.stage] : 'Cancelled',
-      stages: p.stage.stages.map((s) => ({ name: s.name, done: s.done })),
-      projectedShipAt: p.status === 'shipped' || p.status === 'cancelled' ? null : iso(p.projection.expectedAt),
-    };
-    if (p.shippedAt != null) body.shippedAt = iso(p.shippedAt)!;
-    if (last) {
-      body.carrier = last.carrier;
-      body.trackingNumber = last.trackingNumber;
-    }
-    // Opening the page is recorded (sales sees that the customer looked), at most once a minute.
-    if (link.lastOpenedAt == null || now - link.lastOpenedAt > 60_000) shareLinksRepository.touchOpened(deps.db, link.id, now);
-    return publicStatusSchema.parse(body);
+    const { link, order } = resolveLink(deps, token);
+    return publicStatusOf(deps, token, link, order);
   },
 };

@@ -16,3 +16,6 @@ export function mayUse(role: Role | null | undefined, allowed: readonly Role[]):
 export const SHIPPING: readonly Role[] = ['planner', 'supervisor', 'sales', 'admin'];
 export const SALES_VIEW: readonly Role[] = ['sales', 'manager', 'planner', 'admin'];
 export const SHARE_LINKS: readonly Role[] = ['sales', 'planner', 'admin'];
+
+/** Record a payment or a proof approval given by e-mail or phone: the office that talks to the customer. */
+export const GATE_RECORDERS: readonly Role[] = ['planner', 'manager', 'sales', 'admin'];

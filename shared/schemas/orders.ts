@@ -3,6 +3,7 @@
 import { z } from 'zod';
 import type { RoutingStep, TrayPhase, TravellerKind, OrderStatus } from '@shared/domain/vocabulary';
 import type { MouldTool } from '@shared/domain/routing';
+import { currencySchema, type OrderPayment, type OrderPaymentSummary } from './payments';
 import {
   BACKING_TYPES,
   MATERIALS,
@@ -66,6 +67,10 @@ const specFields = {
   packaging: z.enum(PACKAGINGS),
   dueDate: isoDay,
   notes: z.string().trim().max(4000).default(''),
+  /** the agreed price of the whole order (from the accepted quote, or typed in) */
+  priceTotal: z.number().positive('The price must be above 0').max(100_000_000).optional(),
+  /** ISO 4217 code of the price; the payment setting's currency when not given */
+  currency: currencySchema.optional(),
   /** id of an earlier order with the same artwork: the reorder reuses its stored moulds */
   reorderOf: z.string().trim().min(1).max(64).optional(),
 };
@@ -165,6 +170,8 @@ export function checkReleasedAt(releasedAt: string, now: Date): string | null {
 export const paymentBodySchema = z.union([
   z.strictObject({
     amount: z.number().positive('Amount must be above 0').max(100_000_000),
+    /** defaults to the order's currency; a payment in another currency is refused */
+    currency: currencySchema.optional(),
     reference: z.string().trim().min(1, 'Give the payment reference').max(120),
     paidOn: isoDay.optional(),
   }),
@@ -279,15 +286,7 @@ export interface OrderRoutingStep extends RoutingStep {
   standardMinutes: number;
 }
 
-export interface PaymentView {
-  id: string;
-  amount: number | null;
-  reference: string;
-  isException: boolean;
-  note: string;
-  recordedBy: string;
-  recordedAt: string;
-}
+export type PaymentView = OrderPayment;
 
 export interface ProofView {
   revision: number;
@@ -299,6 +298,9 @@ export interface ProofView {
   approvedAt: string | null;
   approvedBy: string | null;
   approvalNote: string | null;
+  /** the customer sent this revision back from her page */
+  changesRequestedAt: string | null;
+  changesComment: string | null;
 }
 
 export interface TravellerSummary {
@@ -355,6 +357,10 @@ export interface OrderDetail {
   warnings: SpecWarning[];
   openGates: OrderGate[];
   payments: PaymentView[];
+  /** the sum of the payments recorded, in the order's currency */
+  paidTotal: number;
+  /** the price, the deposit share and what is still due before release */
+  payment: OrderPaymentSummary;
   proofs: ProofView[];
   routing: OrderRoutingStep[];
   mouldRouting: RoutingStep[];

@@ -158,20 +158,75 @@ export const shareLinkSchema = z.object({
 export type ShareLink = z.infer<typeof shareLinkSchema>;
 
 /** A status token as it appears in a URL: base64url of at least 16 random bytes. */
+/** `POST /api/orders/:id/share`: optionally a link that stops working after some days */
+export const shareLinkBodySchema = z.strictObject({
+  validDays: z.number().int().min(1).max(730).optional(),
+});
+
 export const statusTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{22,128}$/);
 
 /** `GET /api/public/status/:token`: exactly these fields and nothing else. */
 export const publicStatusSchema = z.strictObject({
+  /** the factory's name */
+  factory: z.string(),
+  number: z.string(),
   title: z.string(),
   customer: z.string(),
+  quantity: z.number(),
+  /** the process, for the page's plain-words story */
+  process: z.string(),
   stage: z.string(),
-  stages: z.array(z.strictObject({ name: z.string(), done: z.boolean() })),
+  /** `key` names the stage for translation; `at` is when it was finished */
+  stages: z.array(z.strictObject({ key: z.string(), name: z.string(), done: z.boolean(), at: z.string().optional() })),
+  /** the customer's production story: stages begun, how each is done for her process, shared photos */
+  story: z
+    .array(
+      z.strictObject({
+        stage: z.string(),
+        name: z.string(),
+        at: z.string(),
+        doneAt: z.string().optional(),
+        text: z.string(),
+        textZh: z.string(),
+        photos: z.array(z.string()),
+      }),
+    )
+    .optional(),
   projectedShipAt: z.string().nullable(),
+  updatedAt: z.string(),
   shippedAt: z.string().optional(),
   carrier: z.string().optional(),
   trackingNumber: z.string().optional(),
 });
 export type PublicStatus = z.infer<typeof publicStatusSchema>;
+
+/** `GET /api/public/orders/:token`: the public status, what is due and the proofs; nothing else. */
+export const publicOrderSchema = publicStatusSchema.extend({
+  /** where the order stands before release: payment, then proof approval */
+  status: z.enum(['awaiting_payment', 'awaiting_proof', 'ready', 'in_production', 'shipped', 'on_hold', 'cancelled']),
+  priceTotal: z.number().nullable(),
+  currency: z.string(),
+  depositPct: z.number(),
+  paidTotal: z.number(),
+  /** still to pay before production; null while no price is agreed */
+  amountDue: z.number().nullable(),
+  canPay: z.boolean(),
+  proofs: z.array(
+    z.strictObject({
+      revision: z.number(),
+      fileUrl: z.string(),
+      thumbnailUrl: z.string().optional(),
+      mime: z.string(),
+      uploadedAt: z.string(),
+      approvedAt: z.string().optional(),
+      approvedByName: z.string().optional(),
+      changesRequestedAt: z.string().optional(),
+      changesComment: z.string().optional(),
+      latest: z.boolean(),
+    }),
+  ),
+});
+export type PublicOrder = z.infer<typeof publicOrderSchema>;
 
 /** `PUT /api/orders/:id/contact`: who hears about the order */
 export const orderContactSchema = z.object({

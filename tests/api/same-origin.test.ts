@@ -19,6 +19,9 @@ afterAll(() => t.close());
 
 const concrete = (path: string) => `/api${path.replace(/:[A-Za-z]+/g, 'no-such-id')}`;
 const writes = () => t.api.routes.filter((r) => r.method !== 'get');
+// The payment webhook is the one route exempt from the origin rule (decision 0011): it is posted by
+// the payment service's servers and proves itself by its signature (tests/api/payments.test.ts).
+const browserWrites = () => writes().filter((r) => !r.signed);
 
 /** A digest of every row of every table: proves a refused request changed nothing at all. */
 function dbDigest(): string {
@@ -49,9 +52,13 @@ describe('every registered write route', () => {
     expect(fileRoutes).toEqual(expect.arrayContaining(['post /orders/:id/proofs', 'post /scans/photos', 'post /orders/import/preview']));
   });
 
+  it('exempts exactly one signed route from the origin rule', () => {
+    expect(writes().filter((r) => r.signed).map((r) => `${r.method} ${r.path}`)).toEqual(['post /payments/webhook']);
+  });
+
   it('refuses a foreign Origin with 403 cross_origin and changes nothing', async () => {
     const before = dbDigest();
-    for (const route of writes()) {
+    for (const route of browserWrites()) {
       const label = `${route.method.toUpperCase()} ${route.path}`;
       for (const origin of ['http://127.0.0.1:5999', 'https://evil.example', 'null']) {
         const res = await callerFor(route)[route.method](concrete(route.path)).set('Origin', origin).send({});

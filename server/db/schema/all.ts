@@ -11,3 +11,4 @@ export * from './reference-data';
 export * from './shipping';
 export * from './reports';
 export * from './loads';
+export * from './payments';

@@ -49,6 +49,10 @@ export const orders = sqliteTable(
     shippedAt: ms('shipped_at'),
     cancelledAt: ms('cancelled_at'),
     holdReason: text('hold_reason'),
+    /** the agreed price of the whole order (the accepted quote line's total), in `currency`; null when none was agreed here */
+    priceTotal: real('price_total'),
+    /** ISO 4217 code, upper case */
+    currency: text('currency'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -92,13 +96,18 @@ export const payments = sqliteTable(
       .notNull()
       .references(() => orders.id),
     amount: real('amount'),
+    /** ISO 4217 code, upper case; null on an exception */
+    currency: text('currency'),
     reference: text('reference').notNull(),
+    /** typed in by staff (a bank transfer) or paid through the hosted checkout */
+    source: text('source', { enum: ['manual', 'checkout'] }).notNull().default('manual'),
+    /** the payment service's event id: the same event delivered twice records one payment */
+    eventId: text('event_id').unique(),
     /** a manager's recorded exception: released without payment */
     isException: flag('is_exception').notNull().default(false),
     note: text('note').notNull().default(''),
-    recordedBy: text('recorded_by')
-      .notNull()
-      .references(() => users.id),
+    /** the person who typed it in; null when the payment service reported it */
+    recordedBy: text('recorded_by').references(() => users.id),
     recordedAt: ms('recorded_at').notNull(),
   },
   (t) => [index('payments_order_idx').on(t.orderId)],
@@ -123,7 +132,12 @@ export const proofs = sqliteTable(
     uploadedAt: ms('uploaded_at').notNull(),
     approvedAt: ms('approved_at'),
     approvedBy: text('approved_by').references(() => users.id),
+    /** the name the customer typed when she approved it herself on her page */
+    approvedByName: text('approved_by_name'),
     approvalNote: text('approval_note'),
+    /** the customer asked for changes instead of approving */
+    changesRequestedAt: ms('changes_requested_at'),
+    changesComment: text('changes_comment'),
   },
   (t) => [uniqueIndex('proofs_revision_uq').on(t.orderId, t.revision)],
 );

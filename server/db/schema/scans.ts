@@ -1,5 +1,5 @@
 import { sqliteTable, text, integer, index } from 'drizzle-orm/sqlite-core';
-import { id, ms } from './columns';
+import { id, ms, flag } from './columns';
 import { trays } from './trays';
 import { users } from './users';
 
@@ -86,4 +86,8 @@ export const attachments = sqliteTable('attachments', {
   sizeBytes: integer('size_bytes').notNull(),
   createdBy: text('created_by'),
   createdAt: ms('created_at').notNull(),
+  /** a supervisor chose to show this photo to the customer on her order page */
+  shareable: flag('shareable').notNull().default(false),
+  sharedBy: text('shared_by'),
+  sharedAt: ms('shared_at'),
 });

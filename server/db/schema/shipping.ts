@@ -60,6 +60,8 @@ export const shareLinks = sqliteTable(
     createdAt: ms('created_at').notNull(),
     revokedAt: ms('revoked_at'),
     revokedBy: text('revoked_by'),
+    /** after this instant the link stops working; null: until revoked */
+    expiresAt: ms('expires_at'),
     lastOpenedAt: ms('last_opened_at'),
   },
   (t) => [index('share_links_order_idx').on(t.orderId)],

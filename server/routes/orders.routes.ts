@@ -44,11 +44,11 @@ export function registerOrderRoutes(api: Api) {
     bodyKind: 'json-or-file',
     before: [singleFile(CSV_MAX_BYTES)],
     body: importPreviewBody,
-    handler: ({ req, body }) => {
+    handler: ({ req, body, deps }) => {
       const text = req.file ? csvText(req.file.buffer) : body.csv;
       if (text === undefined) throw badInput('Upload a CSV file (field "file") or paste its text (field "csv").', undefined, 'file_missing');
       if (text.trim() === '') throw badInput('The file is empty.', undefined, 'empty_file');
-      return ordersService.previewImport(text);
+      return ordersService.previewImport(deps, text);
     },
   });
   api.route({

@@ -42,6 +42,7 @@ import {
 import { MAX_TRAYS_PER_RELEASE, mouldNumber, releasedQuantity, splitIntoTrays, trayNumber } from '@shared/domain/trays';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { previewOrderImport } from '@shared/domain/order-import';
+import { localDate } from '@shared/domain/calendar';
 import { loadProgress } from './order-progress.service';
 import { approveProofIn, openGates, paymentSummaryOf, PRE_RELEASE_STATUSES, preReleaseStatus, recordPaymentIn, refreshStatus } from './order-gates';
 import { shipDateService } from './ship-date.service';
@@ -284,6 +285,11 @@ function progressOf(deps: AppDeps, rows: { order: OrderRow; customer: string }[]
 }
 
 // ---------------------------------------------------------------------------------------
+
+/** Today's date where the factory is. */
+function factoryToday(deps: AppDeps): string {
+  return localDate(shipDateService.timeZone(deps), deps.now());
+}
 
 export const ordersService = {
   customers: (deps: AppDeps) => ordersRepository.customers(deps.db),
@@ -741,10 +747,10 @@ export const ordersService = {
     return ordersService.get(deps, id);
   },
 
-  previewImport: (csv: string) => previewOrderImport(csv),
+  previewImport: (deps: AppDeps, csv: string) => previewOrderImport(csv, factoryToday(deps)),
 
   importOrders(deps: AppDeps, csv: string, actorId: string) {
-    const preview = previewOrderImport(csv);
+    const preview = previewOrderImport(csv, factoryToday(deps));
     if (preview.validCount === 0) {
       throw badInput(
         preview.fileErrors.join(' ') || 'No row can be imported.',

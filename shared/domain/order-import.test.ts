@@ -107,6 +107,32 @@ describe('CSV import preview', () => {
     const line = Papa.unparse([[formatColoursCell(colours)]]);
     expect(parseColoursCell(Papa.parse<string[]>(line, { delimiter: ',' }).data[0][0])).toEqual(colours);
   });
+
+  it('says what is wrong with a cell as a planner would, with a code and values for other languages', () => {
+    const csv = [
+      header,
+      good.replace('hard_enamel', 'glass'),
+      good.replace(',no,no,no,', ',maybe,no,no,'),
+      good.replace(',25,500,', ',25,lots,'),
+      good.replace('2026-05-29', '29/05/2026'),
+    ].join('\n');
+    const [process, yesNo, qty, date] = previewOrderImport(csv).rows.map((r) => r.errors[0]);
+    expect(process).toMatchObject({ column: 'process', code: 'not_a_choice', params: { value: 'glass' } });
+    expect(process.message).toMatch(/^"glass" is not a process we make; write one of: hard_enamel, soft_enamel/);
+    expect(yesNo).toMatchObject({ column: 'backLogo', code: 'not_yes_no' });
+    expect(yesNo.message).toBe('Write yes or no for back logo (the file has "maybe").');
+    expect(qty).toMatchObject({ column: 'quantity', code: 'not_a_number' });
+    expect(date).toMatchObject({ column: 'dueDate', code: 'not_a_date' });
+    // no programmer's words: no "expected", no "received", no "Invalid option"
+    for (const e of [process, yesNo, qty, date]) expect(e.message).not.toMatch(/expected|received|invalid/i);
+  });
+
+  it('warns about a due date already past, and still imports the row', () => {
+    const p = previewOrderImport([header, good.replace('2026-05-29', '2020-01-01'), good].join('\n'), '2026-05-01');
+    expect(p.validCount).toBe(2);
+    expect(p.rows[0].warnings).toEqual([expect.objectContaining({ code: 'due_in_past', params: { due: '2020-01-01' } })]);
+    expect(p.rows[1].warnings).toEqual([]);
+  });
 });
 
 describe('CSV import: second finish and sandblast columns', () => {

@@ -203,6 +203,8 @@ export interface SpecWarning {
   field: 'sizeMm' | 'quantity' | 'material' | 'overrunPct' | 'epoxy';
   code: 'size_unusual' | 'quantity_small' | 'material_unusual' | 'epoxy_on_hard_enamel';
   message: string;
+  /** the numbers in the message, for saying it in another language */
+  params?: Record<string, string | number>;
 }
 
 /** Size bounds per product, longest side in mm (trade defaults: pins 10–100, coins 25–90). */
@@ -229,6 +231,7 @@ export function specWarnings(spec: {
       field: 'sizeMm',
       code: 'size_unusual',
       message: `${spec.sizeMm} mm is outside the usual ${bounds.min}–${bounds.max} mm for a ${(spec.productType ?? 'pin').replace('_', ' ')}; check the artwork`,
+      params: { size: spec.sizeMm, min: bounds.min, max: bounds.max, product: spec.productType ?? 'pin' },
     });
   }
   if (typeof spec.quantity === 'number' && spec.quantity < USUAL_MINIMUM_QUANTITY) {
@@ -236,6 +239,7 @@ export function specWarnings(spec: {
       field: 'quantity',
       code: 'quantity_small',
       message: `${spec.quantity} pieces is below the usual minimum of ${USUAL_MINIMUM_QUANTITY}`,
+      params: { quantity: spec.quantity, minimum: USUAL_MINIMUM_QUANTITY },
     });
   }
   if (spec.process === 'die_cast_3d' && spec.material && spec.material !== 'zinc_alloy') {

@@ -22,6 +22,9 @@ export function DataTable<T>({
   initialSorting = [],
   toolbar,
   caption,
+  search,
+  onSearchChange,
+  searchHint,
 }: {
   data: T[];
   columns: ColumnDef<T, any>[];
@@ -31,6 +34,10 @@ export function DataTable<T>({
   initialSorting?: SortingState;
   toolbar?: ReactNode;
   caption?: string;
+  /** a search kept by the caller (in the URL, say), who also filters the rows: then the table does not filter again */
+  search?: string;
+  onSearchChange?: (value: string) => void;
+  searchHint?: string;
 }) {
   const { t } = useTranslation();
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
@@ -38,7 +45,7 @@ export function DataTable<T>({
   const table = useReactTable({
     data,
     columns,
-    state: { sorting, globalFilter: filter },
+    state: { sorting, globalFilter: onSearchChange ? '' : filter },
     onSortingChange: setSorting,
     onGlobalFilterChange: setFilter,
     getCoreRowModel: getCoreRowModel(),
@@ -55,9 +62,10 @@ export function DataTable<T>({
               {filterLabel}
               <input
                 type="search"
-                value={filter}
-                onChange={(e) => setFilter(e.target.value)}
-                className="min-h-11 w-72 rounded-lg border-2 border-harbour-100 bg-white px-3 text-base font-normal"
+                value={onSearchChange ? (search ?? '') : filter}
+                placeholder={searchHint}
+                onChange={(e) => (onSearchChange ? onSearchChange(e.target.value) : setFilter(e.target.value))}
+                className="min-h-11 w-80 rounded-lg border-2 border-harbour-100 bg-white px-3 text-base font-normal"
               />
             </label>
           )}

@@ -3,6 +3,7 @@
 // choice remembered in this browser, else the browser's own language.
 import i18next from 'i18next';
 import { initReactI18next } from 'react-i18next';
+import { z } from 'zod';
 import { LOCALES, type Locale } from '@shared/domain/vocabulary';
 import { resources } from './resources';
 
@@ -43,6 +44,8 @@ void i18n.use(initReactI18next).init({
 
 function markDocument(locale: Locale) {
   if (typeof document !== 'undefined') document.documentElement.lang = locale;
+  // zod's own messages (those our schemas do not word themselves) in the same language
+  z.config(locale === 'zh-CN' ? z.locales.zhCN() : z.locales.en());
 }
 markDocument(i18n.language as Locale);
 

@@ -4,10 +4,12 @@ import { en as common } from './common/en';
 import { zhCN as commonZh } from './common/zh-CN';
 import { en as station } from '@/features/station/i18n/en';
 import { zhCN as stationZh } from '@/features/station/i18n/zh-CN';
+import { en as orders } from '@/features/orders/i18n/en';
+import { zhCN as ordersZh } from '@/features/orders/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station },
-  'zh-CN': { common: commonZh, station: stationZh },
+  en: { common, station, orders },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { PLANNING } from '@shared/domain/access';
 import { ImportPanel } from '@/features/orders/components/import-panel';
 import { PageHeader } from '@/components/ui/panels';
@@ -5,9 +6,10 @@ import { PageHeader } from '@/components/ui/panels';
 export const handle = { roles: PLANNING };
 
 export function Component() {
+  const { t } = useTranslation('orders');
   return (
     <>
-      <PageHeader title="Import orders" subtitle="Check a CSV file row by row; only the rows without errors are imported, and only when you confirm." />
+      <PageHeader title={t('import.title')} subtitle={t('import.subtitle')} />
       <ImportPanel />
     </>
   );

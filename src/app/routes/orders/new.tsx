@@ -1,5 +1,7 @@
 import { useNavigate, useSearchParams } from 'react-router';
+import { useTranslation } from 'react-i18next';
 import { PLANNING } from '@shared/domain/access';
+import { errorText } from '@/lib/error-text';
 import type { OrderSpecInput } from '@shared/schemas/orders';
 import { useCreateOrder } from '@/features/orders/api/save-order';
 import { useQuery } from '@tanstack/react-query';
@@ -12,6 +14,7 @@ export const handle = { roles: PLANNING };
 
 /** A new order; with ?repeat=<order id> the form starts from that order's spec and reuses its moulds. */
 export function Component() {
+  const { t } = useTranslation('orders');
   const navigate = useNavigate();
   const [search] = useSearchParams();
   const repeatOf = search.get('repeat');
@@ -25,15 +28,15 @@ export function Component() {
   return (
     <>
       <PageHeader
-        title={initial ? `Repeat order ${earlier.data!.number}` : 'New order'}
-        subtitle={initial ? 'Same artwork: the stored moulds are reused and engraving is skipped.' : 'The spec the floor will work from. Unusual sizes warn but do not block.'}
+        title={initial ? t('form.repeatTitle', { number: earlier.data!.number }) : t('form.newTitle')}
+        subtitle={initial ? t('form.repeatSubtitle') : t('form.newSubtitle')}
       />
       <Card>
         <OrderForm
           initial={initial}
-          submitLabel="Save order"
+          submitLabel={t('form.save')}
           pending={create.isPending}
-          error={create.error?.message}
+          error={create.error && errorText(create.error)}
           onSubmit={(spec) => create.mutate(spec, { onSuccess: (order) => navigate(paths.order(order.id)) })}
           onCancel={() => navigate(paths.orders)}
         />

@@ -16,7 +16,7 @@ import { releasedQuantity } from '@shared/domain/trays';
 import { CheckboxField, SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorPanel } from '@/components/ui/panels';
-import { humanise } from '@/lib/labels';
+import { useTranslation } from 'react-i18next';
 import { useCustomers } from '../api/get-customers';
 
 const blank: OrderSpecInput = {
@@ -59,6 +59,7 @@ export function OrderForm({
   onSubmit: (spec: OrderSpec) => void;
   onCancel?: () => void;
 }) {
+  const { t } = useTranslation(['orders', 'common']);
   const customers = useCustomers();
   const form = useForm<OrderSpecInput, unknown, OrderSpec>({
     resolver: zodResolver(orderSpecSchema),
@@ -76,7 +77,10 @@ export function OrderForm({
     material: watched.material,
     epoxy: watched.epoxy,
   });
-  const warningFor = (field: string) => warnings.find((w) => w.field === field)?.message;
+  const warningFor = (field: string) => {
+    const w = warnings.find((x) => x.field === field);
+    return w && t(`form.warn.${w.code}`, w.params ?? {});
+  };
   const qty = Number(watched.quantity);
   const overrun = Number(watched.overrunPct);
   const released = Number.isInteger(qty) && qty > 0 && overrun >= 0 ? releasedQuantity(qty, overrun) : null;
@@ -84,14 +88,14 @@ export function OrderForm({
   return (
     <form noValidate onSubmit={handleSubmit(onSubmit)} className="flex flex-col gap-6">
       <fieldset className="grid gap-4 md:grid-cols-3">
-        <legend className="mb-2 text-lg font-bold text-harbour-900">Customer and design</legend>
+        <legend className="mb-2 text-lg font-bold text-harbour-900">{t('form.customerDesign')}</legend>
         <TextField
-          label="Customer"
+          label={t('form.customer')}
           list="customer-names"
           autoComplete="off"
           {...register('customer', { setValueAs: emptyToUndefined })}
           error={e.customer?.message}
-          hint="Pick an existing customer or type a new name."
+          hint={t('form.customerHint')}
         />
         <datalist id="customer-names">
           {customers.data?.map((c) => (
@@ -99,45 +103,45 @@ export function OrderForm({
           ))}
         </datalist>
         <div className="md:col-span-2">
-          <TextField label="Title" {...register('title')} error={e.title?.message} />
+          <TextField label={t('form.title')} {...register('title')} error={e.title?.message} />
         </div>
-        <SelectField label="Product" {...register('productType')} error={e.productType?.message}>
+        <SelectField label={t('form.product')} {...register('productType')} error={e.productType?.message}>
           {PRODUCT_TYPES.map((p) => (
             <option key={p} value={p}>
-              {humanise(p)}
+              {t(`product.${p}`)}
             </option>
           ))}
         </SelectField>
-        <SelectField label="Process" {...register('process')} error={e.process?.message}>
+        <SelectField label={t('form.process')} {...register('process')} error={e.process?.message}>
           {PROCESSES.map((p) => (
             <option key={p} value={p}>
-              {humanise(p)}
+              {t(`common:process.${p}`)}
             </option>
           ))}
         </SelectField>
         <SelectField
-          label="Material"
+          label={t('form.material')}
           {...register('material')}
           error={e.material?.message}
           hint={warningFor('material') && <Warn>{warningFor('material')}</Warn>}
         >
           {MATERIALS.map((m) => (
             <option key={m} value={m}>
-              {humanise(m)}
+              {t(`common:material.${m}`)}
             </option>
           ))}
         </SelectField>
         <TextField
-          label="Size, longest side (mm)"
+          label={t('form.size')}
           type="number"
           step="0.1"
           inputMode="decimal"
           {...register('sizeMm', { valueAsNumber: true })}
           error={e.sizeMm?.message}
-          hint={warningFor('sizeMm') ? <Warn>{warningFor('sizeMm')}</Warn> : 'Pins are usually 10–100 mm, coins 25–90 mm.'}
+          hint={warningFor('sizeMm') ? <Warn>{warningFor('sizeMm')}</Warn> : t('form.sizeHint')}
         />
         <TextField
-          label="Quantity ordered"
+          label={t('form.quantity')}
           type="number"
           inputMode="numeric"
           {...register('quantity', { valueAsNumber: true })}
@@ -145,18 +149,18 @@ export function OrderForm({
           hint={warningFor('quantity') ? <Warn>{warningFor('quantity')}</Warn> : undefined}
         />
         <TextField
-          label="Overrun allowance (%)"
+          label={t('form.overrun')}
           type="number"
           step="0.5"
           inputMode="decimal"
           {...register('overrunPct', { valueAsNumber: true })}
           error={e.overrunPct?.message}
-          hint={released ? `0–10 %. ${released} pieces will be released.` : '0–10 %, usually 5 %.'}
+          hint={released ? t('form.overrunReleased', { count: released }) : t('form.overrunHint')}
         />
       </fieldset>
 
       <fieldset className="flex flex-col gap-3">
-        <legend className="mb-2 text-lg font-bold text-harbour-900">Colours</legend>
+        <legend className="mb-2 text-lg font-bold text-harbour-900">{t('form.colours')}</legend>
         {e.colours?.message && (
           <p role="alert" className="text-sm font-bold text-stop-700">
             {e.colours.message}
@@ -171,31 +175,31 @@ export function OrderForm({
           {colours.fields.map((f, i) => {
             const hex = watched.colours?.[i]?.hex;
             return (
-              <li key={f.id} className="grid items-end gap-3 rounded-lg border border-harbour-100 p-3 md:grid-cols-[3rem_1fr_1fr_1fr_auto]">
-                <span className="self-center text-lg font-bold text-harbour-700">{i + 1}</span>
-                <TextField label={`Colour ${i + 1} name`} {...register(`colours.${i}.name`)} error={e.colours?.[i]?.name?.message} />
+              <li key={f.id} className="grid items-start gap-3 rounded-lg border border-harbour-100 p-3 md:grid-cols-[3rem_1fr_1fr_1fr_auto]">
+                <span className="text-lg font-bold text-harbour-700 md:mt-8">{i + 1}</span>
+                <TextField label={t('form.colourName', { n: i + 1 })} {...register(`colours.${i}.name`)} error={e.colours?.[i]?.name?.message} />
                 <TextField
-                  label={`Colour ${i + 1} reference code`}
+                  label={t('form.colourRef', { n: i + 1 })}
                   {...register(`colours.${i}.ref`, { setValueAs: emptyToUndefined })}
                   error={e.colours?.[i]?.ref?.message}
-                  hint="The customer's code, if any."
+                  hint={t('form.colourRefHint')}
                 />
-                <div className="flex items-end gap-2">
+                <div className="flex items-start gap-2">
                   <TextField
-                    label={`Colour ${i + 1} swatch`}
+                    label={t('form.colourSwatch', { n: i + 1 })}
                     placeholder="#RRGGBB"
                     {...register(`colours.${i}.hex`, { setValueAs: emptyToUndefined })}
                     error={e.colours?.[i]?.hex?.message}
                   />
                   <input
                     type="color"
-                    aria-label={`Pick colour ${i + 1}`}
+                    aria-label={t('form.pickColour', { n: i + 1 })}
                     value={hex && /^#[0-9a-fA-F]{6}$/.test(hex) ? hex : '#ffffff'}
                     onChange={(ev) => setValue(`colours.${i}.hex`, ev.target.value, { shouldValidate: true })}
-                    className="h-11 w-14 shrink-0 cursor-pointer rounded-lg border-2 border-harbour-100"
+                    className="mt-6 h-11 w-14 shrink-0 cursor-pointer rounded-lg border-2 border-harbour-100"
                   />
                 </div>
-                <Button variant="ghost" aria-label={`Remove colour ${i + 1}`} onClick={() => colours.remove(i)}>
+                <Button variant="ghost" className="md:mt-6" aria-label={t('form.removeColour', { n: i + 1 })} onClick={() => colours.remove(i)}>
                   <Trash2 className="h-5 w-5" aria-hidden />
                 </Button>
               </li>
@@ -204,70 +208,70 @@ export function OrderForm({
         </ol>
         <div>
           <Button variant="secondary" disabled={colours.fields.length >= MAX_COLOURS} onClick={() => colours.append({ name: '' })}>
-            <Plus className="h-5 w-5" aria-hidden /> Add a colour
+            <Plus className="h-5 w-5" aria-hidden /> {t('form.addColour')}
           </Button>
         </div>
       </fieldset>
 
       <fieldset className="grid gap-4 md:grid-cols-3">
-        <legend className="mb-2 text-lg font-bold text-harbour-900">Finish, fittings and packing</legend>
-        <SelectField label="Plating" {...register('plating')} error={e.plating?.message}>
+        <legend className="mb-2 text-lg font-bold text-harbour-900">{t('form.finish')}</legend>
+        <SelectField label={t('form.plating')} {...register('plating')} error={e.plating?.message}>
           {PLATINGS.map((p) => (
             <option key={p} value={p}>
-              {humanise(p)}
+              {t(`common:plating.${p}`)}
             </option>
           ))}
         </SelectField>
         <SelectField
-          label="Second finish (two-tone)"
+          label={t('form.secondPlating')}
           {...register('secondPlating', { setValueAs: (v: unknown) => (v === '' || v == null ? null : v) })}
           error={e.secondPlating?.message}
         >
-          <option value="">None: one finish</option>
+          <option value="">{t('form.secondPlatingNone')}</option>
           {PLATINGS.map((p) => (
             <option key={p} value={p}>
-              {humanise(p)}
+              {t(`common:plating.${p}`)}
             </option>
           ))}
         </SelectField>
-        <SelectField label="Back fitting" {...register('backing.type')} error={e.backing?.type?.message}>
+        <SelectField label={t('form.backing')} {...register('backing.type')} error={e.backing?.type?.message}>
           {BACKING_TYPES.map((b) => (
             <option key={b} value={b}>
-              {humanise(b)}
+              {t(`common:backing.${b}`)}
             </option>
           ))}
         </SelectField>
-        <TextField label="Fittings per piece" type="number" inputMode="numeric" {...register('backing.count', { valueAsNumber: true })} error={e.backing?.count?.message} />
-        <SelectField label="Packaging" {...register('packaging')} error={e.packaging?.message}>
+        <TextField label={t('form.backingCount')} type="number" inputMode="numeric" {...register('backing.count', { valueAsNumber: true })} error={e.backing?.count?.message} />
+        <SelectField label={t('form.packaging')} {...register('packaging')} error={e.packaging?.message}>
           {PACKAGINGS.map((p) => (
             <option key={p} value={p}>
-              {humanise(p)}
+              {t(`common:packaging.${p}`)}
             </option>
           ))}
         </SelectField>
-        <TextField label="Due date" type="date" {...register('dueDate')} error={e.dueDate?.message} />
+        <TextField label={t('form.dueDate')} type="date" {...register('dueDate')} error={e.dueDate?.message} />
         <div className="flex flex-col justify-end gap-1">
-          <CheckboxField label="Back logo (needs a back mould)" {...register('backLogo')} />
+          <CheckboxField label={t('form.backLogo')} {...register('backLogo')} />
           {e.backLogo?.message && <FieldProblem>{e.backLogo.message}</FieldProblem>}
-          <CheckboxField label="Printed areas" {...register('printing')} />
-          <CheckboxField label="Epoxy dome" {...register('epoxy')} />
+          <CheckboxField label={t('form.printing')} {...register('printing')} />
+          <CheckboxField label={t('form.epoxy')} {...register('epoxy')} />
           {warningFor('epoxy') && <Warn>{warningFor('epoxy')}</Warn>}
-          <CheckboxField label="Sandblasted texture" {...register('sandblast')} />
+          <CheckboxField label={t('form.sandblast')} {...register('sandblast')} />
           {e.sandblast?.message && <FieldProblem>{e.sandblast.message}</FieldProblem>}
         </div>
         <div className="md:col-span-3">
-          <TextAreaField label="Notes" rows={3} {...register('notes')} error={e.notes?.message} />
+          <TextAreaField label={t('form.notes')} rows={3} {...register('notes')} error={e.notes?.message} />
         </div>
       </fieldset>
 
-      {error && <ErrorPanel title="Not saved" message={error} />}
+      {error && <ErrorPanel title={t('form.notSaved')} message={error} />}
       <div className="flex flex-wrap gap-3">
         <Button type="submit" size="lg" disabled={pending}>
           {submitLabel}
         </Button>
         {onCancel && (
           <Button variant="secondary" size="lg" onClick={onCancel}>
-            Cancel
+            {t('form.cancel')}
           </Button>
         )}
       </div>

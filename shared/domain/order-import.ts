@@ -237,6 +237,8 @@ const COLUMN_WORDS: Record<ImportColumn, string> = {
   packaging: 'packaging',
   dueDate: 'due date',
   notes: 'notes',
+  secondPlating: 'second finish',
+  sandblast: 'sandblast',
 };
 
 const quote = (v: unknown) => `"${String(v ?? '').slice(0, 40)}"`;

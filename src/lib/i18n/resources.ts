@@ -6,10 +6,12 @@ import { en as station } from '@/features/station/i18n/en';
 import { zhCN as stationZh } from '@/features/station/i18n/zh-CN';
 import { en as orders } from '@/features/orders/i18n/en';
 import { zhCN as ordersZh } from '@/features/orders/i18n/zh-CN';
+import { en as users } from '@/features/users/i18n/en';
+import { zhCN as usersZh } from '@/features/users/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh },
+  en: { common, station, orders, users },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -43,6 +43,11 @@ export function ShareLinkPanel({ orderId, links, disabled }: { orderId: string; 
       {revoke.error && <ErrorPanel message={revoke.error.message} />}
       {url && (
         <div className="rounded-lg border-2 border-brass-400 bg-brass-300/20 p-3">
+          {/^https?:\/\/(localhost|127\.|\[::1\])/i.test(url) && (
+            <p role="alert" className="mb-2 font-bold text-stop-700">
+              This link points at localhost: the customer cannot open it. Ask an administrator to set TRAYCE_PUBLIC_URL to the factory&rsquo;s public address, then make a new link.
+            </p>
+          )}
           <label className="flex flex-col gap-1 text-sm font-bold">
             New status link (copy it now; it is not shown again)
             <input readOnly value={url} onFocus={(e) => e.currentTarget.select()} className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2 font-mono text-sm font-normal" aria-label="Status link" />

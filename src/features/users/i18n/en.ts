@@ -1,0 +1,48 @@
+// The admin's words for people and their roles, in English. zh-CN.ts has the same keys.
+export const en = {
+  title: 'People',
+  subtitle: 'Who can sign in, with which role and language. Operators also get a badge and PIN for the station tablets.',
+  add: 'Add a person',
+  close: 'Close',
+  find: 'Find a person',
+  caption: 'People',
+  col: {
+    name: 'Name',
+    email: 'E-mail',
+    role: 'Role',
+    language: 'Language',
+    badge: 'Badge',
+    state: 'State',
+    lastSignIn: 'Last sign-in',
+    actions: 'Actions',
+  },
+  roleOf: 'Role of {{name}}',
+  languageOf: 'Language of {{name}}',
+  confirmRole: 'Make {{name}} {{role}}? Their sessions end and they sign in again.',
+  confirm: 'Change role',
+  cancel: 'Keep {{role}}',
+  active: 'Active',
+  off: 'Switched off',
+  never: 'never',
+  switchOff: 'Switch off',
+  switchOn: 'Switch on',
+  newPinFor: 'New PIN for {{name}}',
+  newPin: 'New PIN',
+  resetPin: 'Reset PIN',
+  form: {
+    name: 'Name',
+    email: 'E-mail',
+    role: 'Role',
+    language: 'Language',
+    password: 'Password',
+    passwordHint: '8 or more characters.',
+    badge: 'Badge (operators, supervisors)',
+    pin: 'PIN',
+    pinHint: '4 to 8 digits.',
+    notSaved: 'Not saved',
+    submit: 'Add person',
+  },
+};
+
+type Strings<T> = { [K in keyof T]: T[K] extends string ? string : Strings<T[K]> };
+export type UsersStrings = Strings<typeof en>;

@@ -161,8 +161,8 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
   for (const locale of TABLET_LOCALES) {
     it(`the station tablet in ${locale}: paired, signed in, a tray open, a refusal, offline`, async () => {
       const t = locale === 'en'
-        ? { badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in', finish: 'Finish', notStarted: /not started/i }
-        : { badge: '工牌', confirm: '确认', pin: '密码', signIn: '登录', finish: '完成', notStarted: /尚未开始/ };
+        ? { pairCode: 'Pairing code', pairSubmit: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in', finish: 'Finish', notStarted: /not started/i }
+        : { pairCode: '配对码', pairSubmit: '配对', paired: '已配对为', badge: '工牌', confirm: '确认', pin: '密码', signIn: '登录', finish: '完成', notStarted: /尚未开始/ };
       const admin = await browser.newContext({ bypassCSP: true });
       await apiAs(admin, 'admin@tallowmere.test');
       const stations = (await (await admin.request.get(`${base()}/api/stations`)).json()) as { id: string; code: string }[];
@@ -182,11 +182,12 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
       };
 
       await page.goto(`${base()}${paths.pair}`);
-      await page.getByLabel('Pairing code').waitFor();
+      // before pairing the screen follows the browser's language
+      await page.getByLabel(t.pairCode).waitFor();
       await check('pairing');
-      await page.getByLabel('Pairing code').fill(pairingCode);
-      await page.getByRole('button', { name: 'Pair tablet' }).click();
-      await page.getByText('Paired as').waitFor();
+      await page.getByLabel(t.pairCode).fill(pairingCode);
+      await page.getByRole('button', { name: t.pairSubmit, exact: true }).click();
+      await page.getByText(t.paired).waitFor();
       await page.goto(`${base()}${paths.station}`);
       await page.getByLabel(t.badge, { exact: true }).waitFor();
       await check('badge sign-in');

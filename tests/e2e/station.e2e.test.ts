@@ -65,7 +65,7 @@ async function pairAndSignIn(context: BrowserContext, baseUrl: string, code: str
   const page = await context.newPage();
   await page.goto(`${baseUrl}/pair`);
   await page.getByLabel(labels.pair).fill(code);
-  await page.getByRole('button', { name: labels.pairButton }).click();
+  await page.getByRole('button', { name: labels.pairButton, exact: true }).click();
   await page.getByText(labels.paired).waitFor();
   await page.goto(`${baseUrl}/station`);
   await page.getByLabel(labels.badge, { exact: true }).fill(badge);
@@ -193,9 +193,10 @@ describe('station tablet', () => {
     const { trays } = insertFloorOrder(s.deps, { trays: 3, quantity: 60, releasedAt: Date.now() - 5 * 24 * 3600_000, stepSeq: 4 });
     const context = await browser.newContext({ viewport: TABLET, locale: 'zh-CN' });
     const page = await pairAndSignIn(context, base, s.pairingCode('FIL-2', 'zh-CN'), 'B-202', '2580', {
-      pair: 'Pairing code',
-      pairButton: 'Pair tablet',
-      paired: 'Paired as',
+      // before pairing the screen follows the browser's language (zh-CN here)
+      pair: '配对码',
+      pairButton: '配对',
+      paired: '已配对为',
       badge: '工牌',
       confirm: '确认',
       pin: '密码',

@@ -9,6 +9,7 @@ import { PROJECT_ROOT } from './lib/project-root';
 import { Api } from './http/api';
 import { authenticate } from './middleware/authenticate';
 import { sameOrigin } from './middleware/same-origin';
+import { makeSignInLimits } from './middleware/sign-in-limits';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { registerAuthRoutes } from './routes/auth.routes';
 import { registerUserRoutes } from './routes/users.routes';
@@ -64,11 +65,12 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   app.use(cookieParser());
 
   const api = new Api(deps);
-  registerAuthRoutes(api, deps);
+  const limits = makeSignInLimits(deps);
+  registerAuthRoutes(api, limits);
   registerUserRoutes(api);
   registerStationRoutes(api);
   registerDeviceRoutes(api, deps);
-  registerScanRoutes(api);
+  registerScanRoutes(api, limits);
   registerShippingRoutes(api);
   registerSalesRoutes(api);
   registerMailRoutes(api);

@@ -1,11 +1,10 @@
 import type { Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import type { Api } from '../http/api';
 import type { AppDeps } from '../app-deps';
 import { loginBody, badgeBody, localeBody } from '@shared/schemas/auth';
-import { authService, SESSION_COOKIE } from '../services/auth.service';
+import { authService, KNOWN_CLIENT_COOKIE, SESSION_COOKIE } from '../services/auth.service';
+import type { SignInLimits } from '../middleware/sign-in-limits';
 import { ALL_ROLES } from '@shared/domain/access';
-import { throttled } from '../errors';
 
 function setSessionCookie(res: Response, deps: AppDeps, token: string, expiresAt: number) {
   res.cookie(SESSION_COOKIE, token, {
@@ -17,28 +16,26 @@ function setSessionCookie(res: Response, deps: AppDeps, token: string, expiresAt
   });
 }
 
-export function registerAuthRoutes(api: Api, deps: AppDeps) {
-  // Per-address throttle of failed attempts (OWASP): successful sign-ins do not count.
-  const perAddress = rateLimit({
-    windowMs: 15 * 60_000,
-    limit: deps.loginAttemptsPerWindow,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) => next(throttled('Too many sign-in attempts from this address. Wait a few minutes.', 60)),
-  });
-
+export function registerAuthRoutes(api: Api, limits: SignInLimits) {
   api.route({ method: 'get', path: '/health', access: 'public', handler: () => ({ ok: true }) });
 
   api.route({
     method: 'post',
     path: '/auth/login',
     access: 'public',
-    before: [perAddress],
+    before: [limits.password],
     body: loginBody,
-    handler: async ({ body, res, deps }) => {
-      const session = await authService.login(deps, body.email, body.password);
+    handler: async ({ body, req, res, deps }) => {
+      const session = await authService.login(deps, body.email, body.password, { address: req.ip ?? 'unknown', knownToken: req.cookies?.[KNOWN_CLIENT_COOKIE] });
       setSessionCookie(res, deps, session.token, session.expiresAt);
+      // marks this browser as one that signed in to the account (its own failure counter)
+      res.cookie(KNOWN_CLIENT_COOKIE, session.knownToken, {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: deps.env.publicUrl.startsWith('https://'),
+        path: '/api/auth',
+        maxAge: 365 * 24 * 3600_000,
+      });
       return { user: session.user };
     },
   });
@@ -47,7 +44,7 @@ export function registerAuthRoutes(api: Api, deps: AppDeps) {
     method: 'post',
     path: '/auth/badge',
     access: { roles: [], devices: ['tablet'] },
-    before: [perAddress],
+    before: [limits.badge],
     body: badgeBody,
     handler: async ({ body, res, deps, device }) => {
       const session = await authService.badgeLogin(deps, device!, body.badge, body.pin);

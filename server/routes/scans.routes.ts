@@ -6,6 +6,7 @@ import type { Role } from '@shared/domain/vocabulary';
 import { exceptionsQuery, MAX_SCAN_BATCH, overrideBody, resolveExceptionBody, scanBatchEnvelopeSchema } from '@shared/schemas/scans';
 import { scansService } from '../services/scans.service';
 import { badInput, tooLarge } from '../errors';
+import type { SignInLimits } from '../middleware/sign-in-limits';
 
 /** People who scan at a station (a supervisor may work a tablet too); the tablet itself may send its outbox. */
 export const SCANNING: readonly Role[] = ['operator', 'supervisor', 'admin'];
@@ -26,7 +27,7 @@ const batchBody = z.object({ events: z.array(z.unknown()) }).transform((b, ctx) 
   return r.data as { events: unknown[] };
 });
 
-export function registerScanRoutes(api: Api) {
+export function registerScanRoutes(api: Api, limits: SignInLimits) {
   api.route({
     method: 'post',
     path: '/scans',
@@ -49,9 +50,10 @@ export function registerScanRoutes(api: Api) {
     method: 'post',
     path: '/scans/overrides',
     access: { roles: SCANNING, devices: ['tablet'] },
+    before: [limits.badge],
     body: overrideBody,
     status: 201,
-    handler: ({ deps, body }) => scansService.createOverride(deps, body),
+    handler: ({ deps, body, user, device }) => scansService.createOverride(deps, body, { device, userId: user?.id ?? null }),
   });
 
   api.route({

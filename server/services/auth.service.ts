@@ -1,14 +1,26 @@
 import bcrypt from 'bcryptjs';
 import crypto from 'node:crypto';
 import { SignJWT, jwtVerify } from 'jose';
-import type { Db } from '../db/client';
 import type { AppDeps } from '../app-deps';
 import { usersRepository, type UserRow } from '../repositories/users.repository';
 import { devicesRepository } from '../repositories/devices.repository';
 import { AppError, badInput, throttled } from '../errors';
 import { sha256Hex } from '../lib/keys';
 import { PASSWORD_MAX_BYTES } from '@shared/schemas/auth';
-import { signInDelaySeconds, SESSION_ABSOLUTE_HOURS, OFFICE_IDLE_MINUTES } from '@shared/domain/sign-in-throttle';
+import {
+  BADGE_PER_BADGE,
+  BADGE_PER_DEVICE,
+  OFFICE_IDLE_MINUTES,
+  PASSWORD_PER_ACCOUNT_UNKNOWN_CLIENTS,
+  PASSWORD_PER_CLIENT,
+  SESSION_ABSOLUTE_HOURS,
+  worthReporting,
+} from '@shared/domain/sign-in-throttle';
+import { RELEASE_ROLES } from '@shared/domain/guards';
+import { refusalText } from '@shared/domain/scan-messages';
+import { failureStore, type ThrottleKey } from '../lib/failure-store';
+import { scansRepository } from '../repositories/scans.repository';
+import { notifyFloorChanged } from './live-bus';
 import type { DeviceAuth, SessionUser } from '../http/api';
 import type { Locale, Role } from '@shared/domain/vocabulary';
 
@@ -28,35 +40,103 @@ export function hashSecret(secret: string): string {
 }
 
 const invalid = () => new AppError(401, 'invalid_credentials', 'That sign-in is not right. Check it and try again.');
+/** The one answer to a wrong badge, a wrong PIN and a badge that may not approve: nothing tells them apart. */
+const badgeInvalid = () => new AppError(401, 'invalid_credentials', 'That badge and PIN are not right for this. Check them and try again.');
 
-function checkThrottle(user: UserRow, now: number) {
-  if (user.throttledUntil && user.throttledUntil > now) {
-    const wait = Math.ceil((user.throttledUntil - now) / 1000);
-    throw throttled(`Too many failed attempts. Wait ${wait} s and try again.`, wait);
-  }
+function throttledFor(waitMs: number) {
+  const wait = Math.max(1, Math.ceil(waitMs / 1000));
+  return throttled(`Too many failed attempts. Wait ${wait} s and try again.`, wait);
 }
 
-function recordFailure(db: Db, user: UserRow, now: number) {
-  const failures = user.failedLogins + 1;
-  const delay = signInDelaySeconds(failures);
-  usersRepository.update(db, user.id, { failedLogins: failures, throttledUntil: delay ? now + delay * 1000 : null });
+/** The cookie a browser gets when it signs in: it marks the browser as known to that account. */
+export const KNOWN_CLIENT_COOKIE = 'trayce_known';
+
+function knownSignature(deps: AppDeps, userId: string, nonce: string): string {
+  return crypto.createHmac('sha256', deps.keys.session).update(`known-client:${userId}:${nonce}`).digest('base64url');
 }
 
-/** Badge and PIN, with the same throttle and the same answer for an unknown badge as a wrong PIN. */
-function checkBadge(deps: AppDeps, badge: string, pin: string, inactiveMessage: string): UserRow {
+/** A new known-client token for this account (`user.nonce.signature`). */
+function knownClientToken(deps: AppDeps, userId: string): string {
+  const nonce = crypto.randomBytes(16).toString('base64url');
+  return `${userId}.${nonce}.${knownSignature(deps, userId, nonce)}`;
+}
+
+/** The nonce of a known-client token, when it is genuine and for this account. */
+function knownClientNonce(deps: AppDeps, token: string | undefined, userId: string | undefined): string | null {
+  if (!token || !userId) return null;
+  const [id, nonce, sig] = token.split('.');
+  if (id !== userId || !nonce || !sig) return null;
+  const expected = Buffer.from(knownSignature(deps, userId, nonce));
+  const given = Buffer.from(sig);
+  return expected.length === given.length && crypto.timingSafeEqual(expected, given) ? nonce : null;
+}
+
+/** Who is making a sign-in attempt, as far as the server can tell. */
+export interface SignInClient {
+  /** the address the request came from */
+  address: string;
+  /** the browser's known-client cookie, if any */
+  knownToken?: string;
+}
+
+/** Who is checking a badge and PIN: the tablet, or the signed-in person on a computer without one. */
+export interface BadgeClient {
+  device: DeviceAuth | null;
+  userId: string | null;
+  purpose: 'sign_in' | 'override';
+}
+
+/**
+ * Badge and PIN, throttled per badge typed (on this tablet) and per tablet, whether the badge
+ * exists or not, so throttling tells nothing about which badges are real. `accept` decides
+ * whether the right PIN is enough (an override needs a supervisor too); every refusal gets the
+ * same answer and counts the same.
+ */
+function checkBadge(deps: AppDeps, badge: string, pin: string, client: BadgeClient, accept: (user: UserRow) => boolean): UserRow {
   const now = deps.now();
+  const clientKey = client.device ? `device:${client.device.id}` : `user:${client.userId ?? 'none'}`;
+  const badgeKey = `badge:${badge}:${clientKey}`;
+  const keys: ThrottleKey[] = [
+    { key: badgeKey, rule: BADGE_PER_BADGE },
+    { key: `badge-client:${clientKey}`, rule: BADGE_PER_DEVICE },
+  ];
+  const wait = failureStore.wait(deps.db, keys, now);
+  if (wait > 0) throw throttledFor(wait);
   const user = usersRepository.byBadge(deps.db, badge);
-  if (!user || !user.pinHash) {
-    bcrypt.compareSync(pin, DUMMY_HASH);
-    throw invalid();
+  const pinRight = user?.pinHash ? bcrypt.compareSync(pin, user.pinHash) : (bcrypt.compareSync(pin, DUMMY_HASH), false);
+  if (!user || !pinRight || !accept(user)) {
+    const after = failureStore.fail(deps.db, keys, now);
+    const report = after.find((k) => worthReporting(k.record, k.rule));
+    if (report) recordBadgeFailures(deps, badge, client, report.key === badgeKey ? 'badge' : 'tablet', report.record.failures, now);
+    throw badgeInvalid();
   }
-  checkThrottle(user, now);
-  if (!bcrypt.compareSync(pin, user.pinHash)) {
-    recordFailure(deps.db, user, now);
-    throw invalid();
-  }
-  if (!user.active) throw new AppError(403, 'account_inactive', inactiveMessage);
+  failureStore.clear(deps.db, [badgeKey]);
   return user;
+}
+
+/** A run of wrong badge + PIN checks, listed for supervisors with the refused scans. */
+function recordBadgeFailures(deps: AppDeps, badge: string, client: BadgeClient, scope: 'badge' | 'tablet', failures: number, now: number) {
+  const params = { badge, failures, scope, purpose: client.purpose, device: client.device?.name ?? null };
+  try {
+    scansRepository.insertRejections(deps.db, [
+      {
+        id: crypto.randomUUID(),
+        eventId: crypto.randomUUID(),
+        trayId: null,
+        stationId: client.device?.stationId ?? null,
+        deviceId: client.device?.id ?? null,
+        userId: client.device ? null : client.userId,
+        code: 'badge_failures',
+        message: refusalText('badge_failures', params),
+        payload: { params },
+        occurredAt: now,
+        receivedAt: now,
+      },
+    ]);
+    notifyFloorChanged(deps);
+  } catch (error) {
+    deps.log.error({ err: error }, 'could not record failed badge checks');
+  }
 }
 
 async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, deviceId: string | null) {
@@ -72,7 +152,7 @@ async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, d
     expiresAt,
     idleMinutes,
   });
-  usersRepository.update(deps.db, user.id, { failedLogins: 0, throttledUntil: null, lastLoginAt: now });
+  usersRepository.update(deps.db, user.id, { lastLoginAt: now });
   const token = await new SignJWT({ sid: sessionId, role: user.role })
     .setProtectedHeader({ alg: 'HS256' })
     .setSubject(user.id)
@@ -83,35 +163,56 @@ async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, d
 }
 
 export const authService = {
-  async login(deps: AppDeps, email: string, password: string) {
+  /**
+   * E-mail and password. Failures are counted for the account together with the client (a
+   * browser that signed in to the account before, else the address): one guesser's failures
+   * delay only that guesser, so the owner with the right password gets in. Clients that never
+   * signed in to the account also share one budget per account. An unknown e-mail is counted
+   * the same way as a real one.
+   */
+  async login(deps: AppDeps, email: string, password: string, client: SignInClient) {
     const now = deps.now();
     const user = usersRepository.byEmail(deps.db, email);
-    if (!user) {
-      bcrypt.compareSync(password, DUMMY_HASH);
-      throw invalid();
-    }
-    checkThrottle(user, now);
-    const ok = new TextEncoder().encode(password).length <= PASSWORD_MAX_BYTES && bcrypt.compareSync(password, user.passwordHash);
-    if (!ok) {
-      recordFailure(deps.db, user, now);
+    const account = user?.id ?? `unknown:${email.toLowerCase()}`;
+    const nonce = knownClientNonce(deps, client.knownToken, user?.id);
+    const clientKey = `pw:${account}:${nonce ? `known:${nonce}` : `address:${client.address}`}`;
+    const keys: ThrottleKey[] = [{ key: clientKey, rule: PASSWORD_PER_CLIENT }];
+    if (!nonce) keys.push({ key: `pw-account:${account}`, rule: PASSWORD_PER_ACCOUNT_UNKNOWN_CLIENTS });
+    const wait = failureStore.wait(deps.db, keys, now);
+    if (wait > 0) throw throttledFor(wait);
+    const fits = new TextEncoder().encode(password).length <= PASSWORD_MAX_BYTES;
+    const ok = user ? fits && bcrypt.compareSync(password, user.passwordHash) : (bcrypt.compareSync(password, DUMMY_HASH), false);
+    if (!user || !ok) {
+      failureStore.fail(deps.db, keys, now);
       throw invalid();
     }
     if (!user.active) throw new AppError(403, 'account_inactive', 'This account is switched off. Ask an administrator.');
-    return startSession(deps, user, OFFICE_IDLE_MINUTES, null);
+    failureStore.clear(deps.db, [clientKey]);
+    const session = await startSession(deps, user, OFFICE_IDLE_MINUTES, null);
+    return { ...session, knownToken: knownClientToken(deps, user.id) };
   },
 
   /** Operators (and supervisors) on a registered tablet: badge plus PIN. */
   async badgeLogin(deps: AppDeps, device: DeviceAuth, badge: string, pin: string) {
-    const user = checkBadge(deps, badge, pin, 'This badge is switched off. Ask a supervisor.');
+    const user = checkBadge(deps, badge, pin, { device, userId: null, purpose: 'sign_in' }, () => true);
+    if (!user.active) throw new AppError(403, 'account_inactive', 'This badge is switched off. Ask a supervisor.');
     const row = devicesRepository.byId(deps.db, device.id);
     return startSession(deps, user, row?.idleMinutes ?? 10, device.id);
   },
 
-  /** Checks a badge and PIN without starting a session (a supervisor approving an override). */
-  verifyBadge(deps: AppDeps, badge: string, pin: string): UserRow {
-    const user = checkBadge(deps, badge, pin, 'This badge is switched off.');
-    usersRepository.update(deps.db, user.id, { failedLogins: 0, throttledUntil: null });
-    return user;
+  /**
+   * Checks a supervisor's badge and PIN without starting a session (approving an override). A
+   * wrong badge, a wrong PIN, a switched-off badge and a person who is not a supervisor all get
+   * the same 401 and count the same.
+   */
+  verifySupervisorBadge(deps: AppDeps, badge: string, pin: string, client: Omit<BadgeClient, 'purpose'>): UserRow {
+    return checkBadge(deps, badge, pin, { ...client, purpose: 'override' }, (u) => u.active && RELEASE_ROLES.includes(u.role as Role));
+  },
+
+  /** Forgets an account's failed sign-ins (its password was just set). */
+  forgetFailures(deps: AppDeps, userId: string) {
+    failureStore.clearPrefix(deps.db, `pw:${userId}:`);
+    failureStore.clear(deps.db, [`pw-account:${userId}`]);
   },
 
   /** Resolves a session cookie; null when absent, expired, idle too long, revoked or tampered. */

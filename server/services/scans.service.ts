@@ -11,7 +11,7 @@ import { putFile, readFile } from '../lib/file-store';
 import { decodeUpload } from '../lib/upload-decode';
 import { usersRepository } from '../repositories/users.repository';
 import { checkUploadName } from '../lib/uploads';
-import { evaluateScan, lastEventTime, type GuardResult, type RefusalParams, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
+import { evaluateScan, lastEventTime, type GuardResult, type OverrideKind, type RefusalParams, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
 import { refusalText } from '@shared/domain/scan-messages';
 import { parseTravellerCode, verifyTravellerCode } from '@shared/domain/traveller-code';
 import {
@@ -218,6 +218,8 @@ interface PreparedEvent {
   event: ScanEvent;
   operator: Operator | null;
   operatorProblem: string | null;
+  /** the sending tablet's own station: it may record scans there only (null: not sent by a tablet) */
+  tabletStation?: string | null;
 }
 
 /** Decides one event against the batch's current view of its tray (no writes). */
@@ -228,6 +230,18 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
     return { result: invalid('unknown_station'), tray: null, before: null, override: null, stationKind: null };
   }
   if (!p.operator) return { result: invalid(p.operatorProblem ?? 'operator_unknown'), tray: null, before: null, override: null, stationKind: station.kind };
+  if (p.tabletStation !== undefined && p.tabletStation !== null && p.tabletStation !== station.id) {
+    const own = data.stations.get(p.tabletStation);
+    const number = parseTravellerCode(event.code)?.number;
+    const tray = number ? (data.traysByNumber.get(number) ?? null) : null;
+    return {
+      result: { ok: false, code: 'station_not_allowed', params: { stationId: station.id, stationName: station.name, tabletStationId: p.tabletStation, tabletStationName: own?.name ?? null }, overridable: false },
+      tray,
+      before: tray ? (data.states.get(tray.id) ?? null) : null,
+      override: null,
+      stationKind: station.kind,
+    };
+  }
 
   const parsed = parseTravellerCode(event.code);
   const tray = parsed ? (data.traysByNumber.get(parsed.number) ?? null) : null;
@@ -475,10 +489,10 @@ export const scansService = {
   },
 
   /** A supervisor's badge and PIN on the tablet, and a reason: lets one scan of one tray through. */
-  createOverride(deps: AppDeps, input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: 'wrong_station' | 'curing' | 'release' }) {
-    const supervisor = authService.verifyBadge(deps, input.badge, input.pin);
-    if (supervisor.role !== 'supervisor' && supervisor.role !== 'admin') {
-      throw new AppError(403, 'not_supervisor', 'Only a supervisor can approve this. Ask a supervisor to use their badge and PIN.');
+  createOverride(deps: AppDeps, input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: OverrideKind }, caller: { device: DeviceAuth | null; userId: string | null }) {
+    const supervisor = authService.verifySupervisorBadge(deps, input.badge, input.pin, caller);
+    if (caller.device && caller.device.stationId !== input.stationId) {
+      throw conflict('station_not_allowed', 'This tablet can approve scans only at its own station. Approve it on the tablet at that station.');
     }
     const parsed = parseTravellerCode(input.code);
     const tray = parsed ? scansRepository.traysByNumbers(deps.db, [parsed.number])[0] : undefined;
@@ -672,6 +686,9 @@ function flushGroup(deps: AppDeps) {
 /** One batch inside a transaction: read what it needs in a few queries, decide each event, write. */
 function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: ScanCaller, now: number): { results: ScanResult[]; accepted: AcceptedScan[] } {
   const deviceId = caller.device?.id ?? null;
+  // A tablet records scans at its own station only. (A tablet always has a station; a device
+  // without one is a wall, which may not post scans at all.)
+  const tabletStation = caller.device?.kind === 'tablet' ? (caller.device.stationId ?? '') : null;
   const accepted: AcceptedScan[] = [];
   const data = new BatchData(tx, deps.keys.traveller);
   const valid = parsed.filter((p) => p.event).map((p) => p.event!);
@@ -720,7 +737,7 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
     }
     seen.add(event.id);
     const op = operators.get(event)!;
-    const prepared: PreparedEvent = { event, operator: op.operator, operatorProblem: op.problem };
+    const prepared: PreparedEvent = { event, operator: op.operator, operatorProblem: op.problem, tabletStation };
     const e = evaluate(data, prepared, now);
     if (e.result.ok) {
       const ok = e.result;

@@ -68,7 +68,7 @@ export const usersService = {
         ...(patch.active !== undefined && { active: patch.active }),
         ...(patch.badge !== undefined && { badge: patch.badge }),
         ...(patch.pin !== undefined && { pinHash: hashSecret(patch.pin) }),
-        ...(patch.password !== undefined && { passwordHash: hashSecret(patch.password), failedLogins: 0, throttledUntil: null }),
+        ...(patch.password !== undefined && { passwordHash: hashSecret(patch.password) }),
         updatedAt: now,
       });
       // A role change or a switch-off takes effect at once: end the person's sessions.

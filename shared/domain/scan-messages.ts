@@ -184,6 +184,20 @@ export function refusalMessage(
         detail: 'The scan was sent with missing or wrong details.',
         next: 'Scan the tray again. If it keeps happening, tell a supervisor.',
       };
+    case 'station_not_allowed':
+      return {
+        title: 'Not this tablet’s station',
+        detail: p.tabletStationName
+          ? `This tablet is set up for ${p.tabletStationName}; the scan was for ${p.stationName ?? 'another station'}.`
+          : `This tablet may record scans only at its own station; the scan was for ${p.stationName ?? 'another station'}.`,
+        next: 'Scan the tray on the tablet at that station, or ask an administrator to move this tablet there.',
+      };
+    case 'badge_failures':
+      return {
+        title: 'Repeated wrong badge or PIN',
+        detail: `${typeof p.failures === 'number' ? p.failures : 'Several'} wrong ${p.purpose === 'override' ? 'supervisor approvals' : 'sign-ins'} in a row${p.scope === 'badge' && p.badge ? ` for badge ${p.badge}` : ''}${p.device ? ` on ${p.device}` : ''}; that tablet must now wait before the next try.`,
+        next: 'Check who is at the tablet. If nobody there forgot their PIN, switch the tablet off under Admin → Tablets and walls.',
+      };
   }
 }
 

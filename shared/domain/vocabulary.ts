@@ -136,6 +136,10 @@ export const REJECTION_CODES = [
   'bad_override',
   /** the event itself is malformed (fails the wire schema); the rest of its batch still goes through */
   'invalid_event',
+  /** the tablet may record scans only at its own station */
+  'station_not_allowed',
+  /** not a scan: a run of wrong badge + PIN checks on a tablet, for supervisors to look into */
+  'badge_failures',
 ] as const;
 export type RejectionCode = (typeof REJECTION_CODES)[number];
 

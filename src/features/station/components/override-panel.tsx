@@ -40,7 +40,9 @@ export function OverridePanel({
           onApproved(await createOverride({ badge: badge.trim(), pin, reason: reason.trim(), code, stationId, kind }));
         } catch (err) {
           if (err instanceof ApiError && err.status === 0) setError(t('override.needsNetwork'));
-          else if (err instanceof ApiError && err.status === 403) setError(t('override.notSupervisor'));
+          // a wrong badge, a wrong PIN and a badge that may not approve get one answer from the server
+          else if (err instanceof ApiError && err.status === 401) setError(t('override.notSupervisor'));
+          else if (err instanceof ApiError && err.status === 409 && err.code === 'station_not_allowed') setError(t('override.otherStation'));
           else if (err instanceof ApiError && err.status === 429) setError(t('signIn.throttled'));
           else setError(t('signIn.wrong'));
           setPin('');

@@ -147,7 +147,8 @@ export const en = {
     reasonHint: 'Why is this right?',
     confirm: 'Approve',
     needsNetwork: 'An override needs the network. Wait until the tablet is online.',
-    notSupervisor: 'Only a supervisor can approve this.',
+    notSupervisor: 'Not accepted. Only a supervisor’s badge and PIN can approve this; check them and try again.',
+    otherStation: 'This tablet can approve scans only at its own station.',
     approved: 'Approved by {{name}}',
   },
   photo: {

@@ -145,7 +145,8 @@ export const zhCN: StationStrings = {
     reasonHint: '为什么可以放行？',
     confirm: '批准',
     needsNetwork: '放行需要联网，请等平板联网后再试。',
-    notSupervisor: '只有主管可以批准。',
+    notSupervisor: '未通过。只有主管的工牌和密码可以批准，请核对后重试。',
+    otherStation: '本平板只能批准它自己工位的扫描。',
     approved: '已由 {{name}} 批准',
   },
   photo: {

@@ -96,6 +96,10 @@ function refusalZh(code: RejectionCode, p: RefusalParams, time: (iso: unknown) =
         : { title: '放行无效', detail: '本次扫描的主管放行缺失、已用过，或属于别的托盘。', next: '请主管用工牌和密码重新确认。' };
     case 'invalid_event':
       return { title: '扫描无法识别', detail: '扫描发送时缺少信息或信息有误。', next: '请重新扫描托盘。如反复出现，请告诉主管。' };
+    case 'station_not_allowed':
+      return { title: '不是本平板的工位', detail: '本平板只能记录它自己工位的扫描。', next: '请在该工位的平板上扫描托盘，或请管理员把本平板调到那个工位。' };
+    case 'badge_failures':
+      return { title: '工牌或密码多次错误', detail: '这台平板上连续多次输错工牌或密码，现在需要等待后才能再试。', next: '请查看是谁在使用平板。如果不是有人忘了密码，请在管理页面关闭这台平板。' };
   }
 }
 

@@ -184,7 +184,7 @@ describe('POST /api/scans: every rejection code', () => {
     const { trays: [tray] } = floor();
     const striking = pairTablet(t, 'STR-1');
     const agent = await tabletAgent(t, striking.token, insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '7531'));
-    const r = await expectRefused(scan(tray.code, ST['POL-1'], 'start', now()), 'station_not_allowed', agent);
+    const r = await expectRefused(scan(tray.code, ST['POL-1'], 'start', now()), 'station_not_allowed', agent as typeof operator);
     expect(r.params).toMatchObject({ stationId: ST['POL-1'], tabletStationId: ST['STR-1'] });
     expect(r.message).toMatch(/set up for .*ask an administrator/);
     expect(stateOf(tray.id)).toMatchObject({ phase: 'waiting', stepSeq: 1 });

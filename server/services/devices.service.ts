@@ -104,6 +104,6 @@ export const devicesService = {
     const now = deps.now();
     if (!row.lastSeenAt || now - row.lastSeenAt > 60_000) devicesRepository.update(deps.db, id, { lastSeenAt: now });
     const station = row.stationId ? stationsRepository.byId(deps.db, row.stationId) : undefined;
-    return { ...toDeviceView(row), station: station ? { id: station.id, code: station.code, name: station.name, kind: station.kind } : null };
+    return { ...toDeviceView(row), station: station ? { id: station.id, code: station.code, name: station.name, nameZh: station.nameZh, kind: station.kind } : null };
   },
 };

@@ -38,7 +38,8 @@ function groups(kind: 'cure' | 'plate', placements: Placement[], taken: Set<stri
   const by = new Map<string, Placement[]>();
   for (const p of placements) {
     const key = groupKey(kind, p);
-    if (key === null || taken.has(p.row.trayId)) continue;
+    // a held tray is not ready for a load: it is never offered, and create() refuses it
+    if (key === null || taken.has(p.row.trayId) || p.row.onHold) continue;
     by.set(key, [...(by.get(key) ?? []), p]);
   }
   return [...by.entries()]

@@ -11,11 +11,14 @@ export function toStationView(s: StationRow): StationView {
     id: s.id,
     code: s.code,
     name: s.name,
+    nameZh: s.nameZh,
     kind: s.kind as StationKind,
     capacityTrays: s.capacityTrays,
     continuous: s.continuous,
     instructions: s.instructions,
     safetyNotes: s.safetyNotes,
+    instructionsZh: s.instructionsZh,
+    safetyNotesZh: s.safetyNotesZh,
     active: s.active,
   };
 }

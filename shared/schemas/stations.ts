@@ -9,11 +9,14 @@ export const stationBody = z.strictObject({
     .trim()
     .regex(/^[A-Z0-9-]{2,16}$/, 'Use 2 to 16 capital letters, digits or dashes.'),
   name: z.string().trim().min(1).max(80),
+  nameZh: z.string().trim().max(80).default(''),
   kind: stationKindSchema,
   capacityTrays: z.number().int().min(1).max(500).default(1),
   continuous: z.boolean().default(false),
   instructions: z.string().max(4000).default(''),
   safetyNotes: z.string().max(4000).default(''),
+  instructionsZh: z.string().max(4000).default(''),
+  safetyNotesZh: z.string().max(4000).default(''),
   active: z.boolean().default(true),
 });
 export type StationBody = z.infer<typeof stationBody>;
@@ -23,11 +26,14 @@ export const stationView = z.object({
   id: z.string(),
   code: z.string(),
   name: z.string(),
+  nameZh: z.string(),
   kind: stationKindSchema,
   capacityTrays: z.number(),
   continuous: z.boolean(),
   instructions: z.string(),
   safetyNotes: z.string(),
+  instructionsZh: z.string(),
+  safetyNotesZh: z.string(),
   active: z.boolean(),
 });
 export type StationView = z.infer<typeof stationView>;

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import path from 'node:path';
 import { makeTestApp, type TestApp } from '../support/test-app';
+import { scansService } from '../../server/services/scans.service';
 
 let t: TestApp;
 let admin: Awaited<ReturnType<TestApp['agentAs']>>;
@@ -25,6 +26,28 @@ describe('reason codes', () => {
     expect((await admin.post('/api/admin/reason-codes').send({ code: 'scratch', name: 'x', nameZh: 'x', kind: 'scrap' })).status).toBe(409);
     expect((await admin.post('/api/admin/reason-codes').send({ code: '../Bad Code', name: 'x', nameZh: 'x', kind: 'scrap' })).status).toBe(400);
     expect((await admin.get('/api/admin/reason-codes')).body.length).toBe(before);
+  });
+});
+
+describe('stations in two languages', () => {
+  it('lists the seeded stations with their Chinese name, instructions and safety notes', async () => {
+    const list = (await admin.get('/api/stations')).body as { code: string; name: string; nameZh: string; instructionsZh: string; safetyNotesZh: string }[];
+    const oven = list.find((s) => s.code === 'OVN-1')!;
+    expect(oven.nameZh).toBe('烤炉');
+    expect(oven.instructionsZh).toMatch(/托盘/);
+    // the general line about local rules is kept in Chinese too
+    expect(oven.safetyNotesZh).toMatch(/当地法规/);
+    expect(list.every((s) => s.nameZh.length > 0)).toBe(true);
+  });
+  it('an admin edits the Chinese texts; the tablet queue returns them; too long a text changes nothing', async () => {
+    const id = (await admin.get('/api/stations')).body.find((s: { code: string }) => s.code === 'FIL-2').id;
+    const saved = await admin.patch(`/api/stations/${id}`).send({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
+    expect(saved.status).toBe(200);
+    expect(saved.body).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
+    expect(scansService.stationQueue(t.deps, id).station).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
+    const bad = await admin.patch(`/api/stations/${id}`).send({ nameZh: '长'.repeat(81) });
+    expect(bad.status).toBe(400);
+    expect((await admin.get('/api/stations')).body.find((s: { id: string }) => s.id === id).nameZh).toBe('填色二号台');
   });
 });
 

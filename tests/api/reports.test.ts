@@ -5,6 +5,7 @@ import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertFloorOrder, scan, stationId } from '../support/scan-fixtures';
 import { orders } from '../../server/db/schema/orders';
 import { customers } from '../../server/db/schema/customers';
+import { trayStates } from '../../server/db/schema/trays';
 import Papa from 'papaparse';
 import type { RoutingStep, StationKind } from '@shared/domain/vocabulary';
 import type { CycleTimeReport, FlowReport, LeadTimeReport, WipResponse, YieldReport } from '@shared/schemas/reports';
@@ -327,6 +328,19 @@ describe('oven and plating loads', () => {
     const g = res.body.oven.find((x: { key: string }) => x.key === '120');
     expect(g.label).toBe('120 min cure');
     expect(g.trays.map((x: { number: string }) => x.number)).toEqual(expect.arrayContaining(c.trays.map((x) => x.number)));
+  });
+
+  it('never offers a held tray for a load, and refuses one sent anyway', async () => {
+    const c = insertFloorOrder(t.deps, { trays: 2, quantity: 25, releasedAt: T0 - 60 * MIN, routing: ROUTING, stepSeq: 3 });
+    const [held, free] = c.trays;
+    t.deps.db.update(trayStates).set({ onHold: true, holdReason: 'hold_quality' }).where(eq(trayStates.trayId, held.id)).run();
+    const res = await manager.get('/api/loads');
+    const offered = (res.body.oven as { trays: { number: string }[] }[]).flatMap((g) => g.trays.map((x) => x.number));
+    expect(offered).toContain(free.number);
+    expect(offered).not.toContain(held.number);
+    const refused = await manager.post('/api/loads').send({ kind: 'cure', trayIds: [held.id] });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('on_hold');
   });
 });
 

@@ -5,9 +5,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import path from 'node:path';
 import fs from 'node:fs';
 import crypto from 'node:crypto';
-import { inArray } from 'drizzle-orm';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshot, TABLET } from '../support/browser';
+import { eq, inArray } from 'drizzle-orm';
+import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
+import { launchBrowser, PORTRAIT, screenshot, TABLET } from '../support/browser';
 import { startServer, type ServerProcess } from '../support/server-process';
 import { PROJECT_ROOT } from '../support/paths';
 import { insertFloorOrder, type FloorTray } from '../support/scan-fixtures';
@@ -20,6 +20,7 @@ import { devicesService } from '../../server/services/devices.service';
 import { usersService } from '../../server/services/users.service';
 import type { AppDeps } from '../../server/app-deps';
 import { en } from '../../src/features/station/i18n/en';
+import { zhCN } from '../../src/features/station/i18n/zh-CN';
 
 // One server of our own (base seed, our people and travellers), in a folder of its own so other
 // test runs that clear the shared e2e folder cannot pull it away; it is also the one restarted.
@@ -217,7 +218,10 @@ describe('station tablet', () => {
 
     // Everything on screen, minus the factory's own data (names, numbers, titles, station texts).
     const queue = await page.evaluate(async (id) => (await fetch(`/api/stations/${id}/queue`)).json(), s.station('FIL-2').id);
-    const data: string[] = [queue.station.name, queue.station.instructions, queue.station.safetyNotes, await page.getByTestId('operator-name').innerText()];
+    // the station's own texts show in Chinese (seeded with the base stations)
+    expect(await page.getByTestId('station-name').innerText()).toBe(queue.station.nameZh);
+    await page.getByText(queue.station.safetyNotesZh).waitFor();
+    const data: string[] = [queue.station.nameZh, queue.station.instructionsZh, queue.station.safetyNotesZh, await page.getByTestId('operator-name').innerText()];
     for (const c of queue.trays) {
       data.push(c.tray.number);
       if (c.order) data.push(c.order.number, c.order.title, c.order.customer, ...c.order.colours.flatMap((x: { name: string; ref?: string }) => [x.name, x.ref ?? '']));
@@ -233,4 +237,134 @@ describe('station tablet', () => {
     for (const phrase of english.filter((e) => e.length > 4 && !e.includes('{{') && e !== 'English' && e !== '简体中文')) expect(text.includes(phrase), phrase).toBe(false);
     await context.close();
   });
+
+  for (const size of [TABLET, PORTRAIT]) {
+    for (const lang of ['en', 'zh-CN'] as const) {
+      it(`at ${size.width} x ${size.height} in ${lang}: every scan's result and the tray's actions stay in view; a held tray is listed last, as held`, async () => {
+        const w = lang === 'en' ? en : zhCN;
+        const name = (s: string) => new RegExp(`^${s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`);
+        // three trays waiting for post fitting; the oldest is put on hold, so by age it would head the list
+        const { trays } = insertFloorOrder(s.deps, { trays: 3, quantity: 40, releasedAt: Date.now() - 9 * 24 * 3600_000, stepSeq: 3 });
+        const [held, first, second] = trays;
+        s.db.update(trayStates).set({ onHold: true, holdReason: 'hold_customer' }).where(eq(trayStates.trayId, held.id)).run();
+        // and one for trimming, scanned here by mistake
+        const { trays: [elsewhere] } = insertFloorOrder(s.deps, { trays: 1, quantity: 10, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
+
+        const context = await browser.newContext({ viewport: size });
+        const page = await context.newPage();
+        await page.goto(`${server.url}/pair`);
+        await page.getByLabel('Pairing code').fill(s.pairingCode('PST-1', 'en'));
+        await page.getByRole('button', { name: 'Pair tablet' }).click();
+        await page.getByText('Paired as').waitFor();
+        await page.goto(`${server.url}/station`);
+        // the badge screen offers the other language; the tablet itself is set to English
+        if (lang === 'zh-CN') await page.getByRole('button', { name: /简体中文/ }).click();
+        await page.getByLabel(w.signIn.badge, { exact: true }).fill('B-202');
+        await page.getByRole('button', { name: w.action.confirm }).click();
+        await page.getByRole('textbox', { name: w.signIn.pin }).fill('2580');
+        if (lang === 'zh-CN') await screenshot(page, `station-pin-${size.width}x${size.height}-${lang}`);
+        await page.getByRole('button', { name: w.signIn.submit, exact: true }).click();
+        await page.getByTestId('station-name').waitFor();
+        expect(await page.getByTestId('station-name').innerText()).toBe(lang === 'en' ? 'Post fitting' : '焊针');
+
+        // the held tray: in the list, marked held, after every tray that is ready
+        const rows = page.getByTestId('queue-row');
+        await rows.filter({ hasText: second.number }).waitFor();
+        const waiting = page.locator('section[aria-labelledby="list-waiting"]').getByTestId('queue-row');
+        const numbers = (await waiting.locator('span.font-mono').allInnerTexts()).map((x) => x.trim());
+        expect(numbers.indexOf(held.number)).toBe(numbers.length - 1);
+        const heldRow = waiting.filter({ hasText: held.number });
+        expect(await heldRow.getAttribute('data-held')).toBe('yes');
+        expect(await heldRow.innerText()).toContain(lang === 'en' ? 'on hold' : '已暂停');
+        expect(await heldRow.innerText()).not.toContain(w.lists.readyNow);
+        for (const n of [first.number, second.number]) expect(await waiting.filter({ hasText: n }).getAttribute('data-held')).toBe('no');
+
+        // header: the station name whole, the language and sign-out controls each on one line
+        for (const label of [lang === 'en' ? w.app.chinese : w.app.english, w.top.signOut]) {
+          const box = (await page.getByRole('button', { name: new RegExp(label) }).first().boundingBox())!;
+          expect(box.height, `${label} on one line`).toBeLessThan(60);
+        }
+        const nameBox = await page.getByTestId('station-name').evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth }));
+        expect(nameBox.scroll).toBeLessThanOrEqual(nameBox.client);
+
+        const seen = async (what: string, l: Locator) => {
+          await l.first().waitFor();
+          const box = (await l.first().boundingBox())!;
+          expect(box, what).toBeTruthy();
+          expect(box.y, `${what}: top in view`).toBeGreaterThanOrEqual(0);
+          expect(box.y + box.height, `${what}: bottom in view (${size.height})`).toBeLessThanOrEqual(size.height);
+          expect(box.x + box.width, `${what}: right edge in view`).toBeLessThanOrEqual(size.width);
+        };
+        const feedback = (text: string) => page.getByTestId('feedback').filter({ hasText: text });
+        const trayActions = async (number: string) => {
+          await seen('tray number', page.getByTestId('bar-tray-number').filter({ hasText: number }));
+          for (const b of [w.action.start, w.action.finish, w.action.hold]) await seen(b, page.getByRole('button', { name: name(b) }));
+        };
+        // the result sits in a live region, so a screen reader says it
+        const announced = async (text: string) => {
+          const region = await feedback(text).evaluate((el) => el.closest('[aria-live]')?.getAttribute('aria-live') ?? null);
+          expect(region, `${text} in an aria-live region`).toMatch(/polite|assertive/);
+        };
+
+        // opens a tray by its typed number (the scanner's own path is covered above)
+        const open = async (tray: FloorTray) => {
+          const close = page.getByRole('button', { name: w.card.close, exact: true });
+          if (await close.count()) await close.click();
+          await page.getByLabel(w.scan.type).fill(tray.number);
+          await page.getByRole('button', { name: w.scan.typeSubmit }).click();
+        };
+        // the whole loop on the first tray, from the top of the list and after the screen was scrolled
+        await open(first);
+        await page.getByRole('heading', { name: first.number }).waitFor();
+        await trayActions(first.number);
+        await page.getByRole('button', { name: name(w.action.start) }).click();
+        const started = `${w.feedback.started}: ${first.number}`;
+        await seen('started', feedback(started));
+        await announced(started);
+        await trayActions(first.number);
+        await page.locator('main').evaluate((el) => el.scrollTo({ top: el.scrollHeight }));
+        await page.getByRole('button', { name: name(w.action.finish) }).click();
+        await page.getByRole('heading', { name: w.finish.title }).waitFor();
+        await seen('tray number while counting', page.getByTestId('bar-tray-number').filter({ hasText: first.number }));
+        await seen('confirm', page.getByRole('button', { name: name(w.action.confirm) }));
+        await seen('counting panel', page.getByRole('heading', { name: w.finish.title }));
+        await screenshot(page, `station-finish-${size.width}x${size.height}-${lang}`);
+        await page.getByRole('button', { name: name(w.action.confirm) }).click();
+        const finished = `${w.feedback.finished}: ${first.number}`;
+        await seen('finished', feedback(finished));
+        await announced(finished);
+        await screenshot(page, `station-finished-${size.width}x${size.height}-${lang}`);
+
+        // a hold, then a tray scanned at the wrong station: refused, in view, said at once
+        await open(second);
+        await page.getByRole('heading', { name: second.number }).waitFor();
+        await page.getByRole('button', { name: name(w.action.hold) }).click();
+        await seen('hold confirm', page.getByRole('button', { name: name(w.hold.confirm) }));
+        await page.getByRole('button', { name: name(w.hold.confirm) }).click();
+        await seen('held', feedback(`${w.feedback.held}: ${second.number}`));
+        // a held tray offers Release where Hold was
+        await seen('tray number', page.getByTestId('bar-tray-number').filter({ hasText: second.number }));
+        for (const b of [w.action.start, w.action.finish, w.action.release]) await seen(b, page.getByRole('button', { name: name(b) }));
+        await open(elsewhere);
+        await page.getByRole('heading', { name: elsewhere.number }).waitFor();
+        await page.getByRole('button', { name: name(w.action.start) }).click();
+        const refusal = page.getByTestId('feedback').and(page.locator('[data-kind="refused"]'));
+        await seen('wrong-station refusal', refusal);
+        expect(await refusal.evaluate((el) => el.closest('[aria-live]')?.getAttribute('aria-live'))).toBe('assertive');
+        await seen('override', page.getByRole('button', { name: name(w.action.override) }));
+        await trayActions(elsewhere.number);
+        await screenshot(page, `station-refused-${size.width}x${size.height}-${lang}`);
+
+        // the person's language is remembered for them: signed out, the badge screen is the tablet's
+        // English again, and the same person signing in gets their language back
+        await page.getByRole('button', { name: name(w.top.signOut) }).click();
+        await page.getByLabel('Badge', { exact: true }).fill('B-202');
+        await page.getByRole('button', { name: 'Confirm' }).click();
+        await page.getByRole('textbox', { name: 'PIN' }).fill('2580');
+        await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+        await page.getByRole('button', { name: name(w.top.signOut) }).waitFor();
+        await context.close();
+      });
+    }
+  }
 });

@@ -7,6 +7,8 @@ export const CHROMIUM = process.env.TRAYCE_CHROMIUM ?? '/usr/bin/chromium';
 export const SCREENSHOTS = path.join(PROJECT_ROOT, 'test-results', 'screenshots');
 
 export const TABLET = { width: 1024, height: 768 };
+/** a tablet held upright */
+export const PORTRAIT = { width: 800, height: 1280 };
 export const DESKTOP = { width: 1440, height: 900 };
 export const PHONE = { width: 390, height: 844 };
 export const WALL = { width: 1920, height: 1080 };

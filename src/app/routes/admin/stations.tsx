@@ -19,7 +19,7 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
   const save = useSaveStation();
   const form = useForm({
     resolver: zodResolver(stationBody),
-    defaultValues: station ?? { code: '', name: '', kind: 'fill', capacityTrays: 1, continuous: false, instructions: '', safetyNotes: '', active: true },
+    defaultValues: station ?? { code: '', name: '', nameZh: '', kind: 'fill', capacityTrays: 1, continuous: false, instructions: '', safetyNotes: '', instructionsZh: '', safetyNotesZh: '', active: true },
   });
   const e = form.formState.errors;
   return (
@@ -38,11 +38,18 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
         ))}
       </SelectField>
       <TextField label="Trays at once" type="number" min={1} {...form.register('capacityTrays', { valueAsNumber: true })} error={e.capacityTrays?.message} />
+      <TextField label="Name in Chinese" lang="zh-CN" {...form.register('nameZh')} error={e.nameZh?.message} hint="Shown on Chinese screens; empty shows the name above." />
       <div className="md:col-span-2">
         <TextAreaField label="Instructions shown on the tablet" rows={3} {...form.register('instructions')} />
       </div>
       <div className="md:col-span-2">
         <TextAreaField label="Safety notes shown on the tablet" rows={3} {...form.register('safetyNotes')} hint="Keep the line that local regulations and the factory’s procedures take precedence." />
+      </div>
+      <div className="md:col-span-2">
+        <TextAreaField label="Instructions in Chinese" lang="zh-CN" rows={3} {...form.register('instructionsZh')} error={e.instructionsZh?.message} />
+      </div>
+      <div className="md:col-span-2">
+        <TextAreaField label="Safety notes in Chinese" lang="zh-CN" rows={3} {...form.register('safetyNotesZh')} error={e.safetyNotesZh?.message} hint="Keep the line that local regulations and the factory’s procedures take precedence." />
       </div>
       <CheckboxField label="Works outside shifts (ovens keep curing)" {...form.register('continuous')} />
       <CheckboxField label="In use" {...form.register('active')} />

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { CheckCircle2, AlertTriangle, XOctagon } from 'lucide-react';
 import type { ReactNode } from 'react';
 import type { FeedbackKind } from '../lib/feedback';
@@ -22,14 +23,34 @@ const STYLE: Record<FeedbackKind, string> = {
 export function FeedbackBanner({ feedback }: { feedback: FeedbackView }) {
   const Icon = feedback.kind === 'accepted' ? CheckCircle2 : feedback.kind === 'warning' ? AlertTriangle : XOctagon;
   return (
-    <div key={feedback.serial} role={feedback.kind === 'refused' ? 'alert' : 'status'} data-testid="feedback" data-kind={feedback.kind} className={`flex gap-4 rounded-2xl border-4 p-4 ${STYLE[feedback.kind]}`}>
-      <Icon className="h-14 w-14 shrink-0" aria-hidden />
-      <div className="flex-1">
-        <p className="text-3xl font-bold">{feedback.title}</p>
-        {feedback.detail && <p className="mt-1 text-xl text-ink">{feedback.detail}</p>}
-        {feedback.next && <p className="mt-1 text-xl font-bold text-ink">{feedback.next}</p>}
-        {feedback.actions && <div className="mt-3 flex flex-wrap gap-3">{feedback.actions}</div>}
+    <div key={feedback.serial} data-testid="feedback" data-kind={feedback.kind} className={`flex gap-3 rounded-2xl border-4 px-4 py-2 ${STYLE[feedback.kind]}`}>
+      <Icon className="mt-1 h-10 w-10 shrink-0" aria-hidden />
+      <div className="min-w-0 flex-1">
+        <p className="text-2xl font-bold">{feedback.title}</p>
+        {feedback.detail && <p className="text-xl text-ink">{feedback.detail}</p>}
+        {feedback.next && <p className="text-xl font-bold text-ink">{feedback.next}</p>}
       </div>
     </div>
+  );
+}
+
+/**
+ * The result of every scan, in a fixed place above the scrolling part of the screen. The two live
+ * regions are always on the page, so screen readers announce each new result: accepted and
+ * warnings politely, refusals at once.
+ */
+export function FeedbackZone({ feedback }: { feedback: FeedbackView | null }) {
+  const { t } = useTranslation('station');
+  const refused = feedback?.kind === 'refused';
+  return (
+    <section aria-label={t('feedback.region')} className={`shrink-0 px-4 ${feedback ? 'pt-3' : ''}`}>
+      <div role="status" aria-live="polite" aria-atomic="true">
+        {feedback && !refused && <FeedbackBanner feedback={feedback} />}
+      </div>
+      <div role="alert" aria-live="assertive" aria-atomic="true">
+        {feedback && refused && <FeedbackBanner feedback={feedback} />}
+      </div>
+      {feedback?.actions && <div className="mt-2 flex flex-wrap gap-3">{feedback.actions}</div>}
+    </section>
   );
 }

@@ -3,6 +3,7 @@ import { useTranslation } from 'react-i18next';
 import type { ReasonCodeView } from '@shared/schemas/stations';
 import type { StationLang } from '../lib/refusal-text';
 import { Stepper } from './stepper';
+import { InActionBar, barButton } from './action-bar';
 
 export interface FinishCounts {
   goodQty: number;
@@ -24,6 +25,7 @@ export function FinishPanel({ quantity, reasons, lang, onConfirm, onCancel }: { 
   const scrapReasons = reasons.filter((r) => r.kind === 'scrap' || r.kind === 'rework');
   return (
     <form
+      id="finish-form"
       aria-labelledby="finish-title"
       className="flex flex-col gap-4 rounded-2xl border-2 border-harbour-800 bg-white p-5"
       onSubmit={(e) => {
@@ -69,14 +71,14 @@ export function FinishPanel({ quantity, reasons, lang, onConfirm, onCancel }: { 
           {!reasonOk && <p className="font-bold text-stop-700">{t('finish.needReason')}</p>}
         </div>
       )}
-      <div className="flex gap-3">
-        <button type="submit" disabled={!addsUp || !reasonOk} className="min-h-20 flex-1 rounded-xl bg-harbour-800 text-2xl font-bold text-white disabled:opacity-50">
+      <InActionBar>
+        <button type="submit" form="finish-form" disabled={!addsUp || !reasonOk} className={`${barButton('primary')} grow-[2]`}>
           {t('action.confirm')}
         </button>
-        <button type="button" onClick={onCancel} className="min-h-20 rounded-xl bg-white px-6 text-xl font-bold text-harbour-800 ring-2 ring-harbour-100">
+        <button type="button" onClick={onCancel} className={barButton('plain')}>
           {t('action.cancel')}
         </button>
-      </div>
+      </InActionBar>
     </form>
   );
 }

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { ReasonCodeView } from '@shared/schemas/stations';
 import type { StationLang } from '../lib/refusal-text';
+import { InActionBar, barButton } from './action-bar';
 
 export function HoldPanel({ reasons, lang, onConfirm, onCancel }: { reasons: ReasonCodeView[]; lang: StationLang; onConfirm: (r: { scrapReason: string; note?: string }) => void; onCancel: () => void }) {
   const { t } = useTranslation('station');
@@ -10,6 +11,7 @@ export function HoldPanel({ reasons, lang, onConfirm, onCancel }: { reasons: Rea
   const [note, setNote] = useState('');
   return (
     <form
+      id="hold-form"
       aria-labelledby="hold-title"
       className="flex flex-col gap-4 rounded-2xl border-2 border-warn-700 bg-white p-5"
       onSubmit={(e) => {
@@ -33,14 +35,14 @@ export function HoldPanel({ reasons, lang, onConfirm, onCancel }: { reasons: Rea
         {t('hold.note')}
       </label>
       <input id="hold-note" value={note} onChange={(e) => setNote(e.target.value)} className="min-h-14 rounded-xl border-2 border-harbour-800 px-3 text-xl" />
-      <div className="flex gap-3">
-        <button type="submit" disabled={!reason} className="min-h-20 flex-1 rounded-xl bg-warn-700 text-2xl font-bold text-white disabled:opacity-50">
+      <InActionBar>
+        <button type="submit" form="hold-form" disabled={!reason} className={`${barButton('warn')} grow-[2]`}>
           {t('hold.confirm')}
         </button>
-        <button type="button" onClick={onCancel} className="min-h-20 rounded-xl bg-white px-6 text-xl font-bold text-harbour-800 ring-2 ring-harbour-100">
+        <button type="button" onClick={onCancel} className={barButton('plain')}>
           {t('action.cancel')}
         </button>
-      </div>
+      </InActionBar>
     </form>
   );
 }

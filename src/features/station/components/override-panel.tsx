@@ -5,6 +5,7 @@ import { ApiError } from '@/lib/api-client';
 import type { OverrideView } from '@shared/schemas/scans';
 import { createOverride } from '../api/create-override';
 import { PinPad } from './pin-pad';
+import { InActionBar, barButton } from './action-bar';
 
 /** A supervisor approves one scan on this tablet with badge, PIN and a reason; the server records it. */
 export function OverridePanel({
@@ -30,6 +31,7 @@ export function OverridePanel({
   const [busy, setBusy] = useState(false);
   return (
     <form
+      id="override-form"
       aria-labelledby="override-title"
       className="flex flex-col gap-4 rounded-2xl border-2 border-brass-700 bg-white p-5"
       onSubmit={async (e) => {
@@ -70,14 +72,14 @@ export function OverridePanel({
           {error}
         </p>
       )}
-      <div className="flex gap-3">
-        <button type="submit" disabled={busy || !badge.trim() || pin.length < 4 || reason.trim().length < 3} className="min-h-20 flex-1 rounded-xl bg-brass-700 text-2xl font-bold text-white disabled:opacity-50">
+      <InActionBar>
+        <button type="submit" form="override-form" disabled={busy || !badge.trim() || pin.length < 4 || reason.trim().length < 3} className={`${barButton('brass')} grow-[2]`}>
           {t('override.confirm')}
         </button>
-        <button type="button" onClick={onCancel} className="min-h-20 rounded-xl bg-white px-6 text-xl font-bold text-harbour-800 ring-2 ring-harbour-100">
+        <button type="button" onClick={onCancel} className={barButton('plain')}>
           {t('action.cancel')}
         </button>
-      </div>
+      </InActionBar>
     </form>
   );
 }

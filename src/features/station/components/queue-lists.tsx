@@ -1,5 +1,5 @@
 import { useTranslation } from 'react-i18next';
-import { Flame, Hourglass, Wrench } from 'lucide-react';
+import { Flame, Hand, Hourglass, Wrench } from 'lucide-react';
 import type { TrayCard } from '@shared/schemas/scans';
 import type { TrayState } from '@shared/domain/vocabulary';
 import { formatDuration } from '../lib/format';
@@ -12,15 +12,17 @@ export interface QueueItem {
   minutes: number;
 }
 
-function Row({ item, onOpen, detail, tone }: { item: QueueItem; onOpen: (n: string) => void; detail: string; tone?: 'ok' | 'warn' }) {
+function Row({ item, onOpen, detail, tone, reasonName }: { item: QueueItem; onOpen: (n: string) => void; detail: string; tone?: 'ok' | 'warn'; reasonName: (code: string) => string }) {
   const { t } = useTranslation('station');
+  const held = item.state.onHold;
   return (
     <li>
       <button
         type="button"
         onClick={() => onOpen(item.number)}
         data-testid="queue-row"
-        className="flex min-h-16 w-full items-center justify-between gap-3 rounded-xl bg-white px-3 py-2 text-left shadow-sm ring-1 ring-harbour-100 hover:ring-harbour-600"
+        data-held={held ? 'yes' : 'no'}
+        className={`flex min-h-16 w-full items-center justify-between gap-3 rounded-xl px-3 py-2 text-left shadow-sm hover:ring-harbour-600 ${held ? 'border-2 border-dashed border-warn-700 bg-warn-50' : 'bg-white ring-1 ring-harbour-100'}`}
       >
         <span className="flex flex-col">
           <span className="font-mono text-xl font-bold">{item.number}</span>
@@ -30,7 +32,13 @@ function Row({ item, onOpen, detail, tone }: { item: QueueItem; onOpen: (n: stri
         </span>
         <span className="flex flex-col items-end">
           <span className="font-bold">{t('lists.pieces', { count: item.state.quantity })}</span>
-          <span className={`text-sm font-bold ${tone === 'ok' ? 'text-ok-700' : tone === 'warn' ? 'text-warn-700' : 'text-harbour-700'}`}>{detail}</span>
+          {held ? (
+            <span className="flex items-center gap-1 text-sm font-bold text-warn-700" data-testid="queue-held">
+              <Hand className="h-4 w-4" aria-hidden /> {item.state.holdReason ? t('lists.heldFor', { reason: reasonName(item.state.holdReason) }) : t('lists.held')}
+            </span>
+          ) : (
+            <span className={`text-sm font-bold ${tone === 'ok' ? 'text-ok-700' : tone === 'warn' ? 'text-warn-700' : 'text-harbour-700'}`}>{detail}</span>
+          )}
         </span>
       </button>
     </li>
@@ -38,7 +46,21 @@ function Row({ item, onOpen, detail, tone }: { item: QueueItem; onOpen: (n: stri
 }
 
 /** The station's travellers: in process here, in the oven (cure stations), waiting for this station. */
-export function QueueLists({ inProcess, curing, waiting, onOpen, isOven }: { inProcess: QueueItem[]; curing: QueueItem[]; waiting: QueueItem[]; onOpen: (n: string) => void; isOven: boolean }) {
+export function QueueLists({
+  inProcess,
+  curing,
+  waiting,
+  onOpen,
+  isOven,
+  reasonName,
+}: {
+  inProcess: QueueItem[];
+  curing: QueueItem[];
+  waiting: QueueItem[];
+  onOpen: (n: string) => void;
+  isOven: boolean;
+  reasonName: (code: string) => string;
+}) {
   const { t } = useTranslation('station');
   const cureDetail = (i: QueueItem) => (i.minutes <= 0 ? t('lists.readyNow') : t('lists.readyIn', { duration: formatDuration(t, i.minutes) }));
   const section = (id: string, title: string, icon: React.ReactNode, items: QueueItem[], detail: (i: QueueItem) => string, tone?: (i: QueueItem) => 'ok' | 'warn' | undefined) => (
@@ -51,7 +73,7 @@ export function QueueLists({ inProcess, curing, waiting, onOpen, isOven }: { inP
       ) : (
         <ul className="flex flex-col gap-2">
           {items.slice(0, 60).map((i) => (
-            <Row key={i.number} item={i} onOpen={onOpen} detail={detail(i)} tone={tone?.(i)} />
+            <Row key={i.number} item={i} onOpen={onOpen} detail={detail(i)} tone={tone?.(i)} reasonName={reasonName} />
           ))}
         </ul>
       )}

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useTranslation } from 'react-i18next';
-import { LogIn, UserRound } from 'lucide-react';
+import { Languages, LogIn, UserRound } from 'lucide-react';
 import { ApiError } from '@/lib/api-client';
 import type { Role } from '@shared/domain/vocabulary';
 import { badgeSignIn } from '../api/badge-sign-in';
@@ -9,6 +9,7 @@ import { checkPin, makePinVerifier, OFFLINE_SIGN_IN_HOURS } from '../lib/pin-ver
 import { useLive, useWedgeScanner } from '../lib/hooks';
 import { playFeedback, unlockAudio } from '../lib/feedback';
 import { PinPad } from './pin-pad';
+import type { StationLang } from '../lib/refusal-text';
 
 export interface Operator {
   id: string;
@@ -20,7 +21,7 @@ export interface Operator {
 }
 
 /** Badge, then PIN. Online the server checks them; offline, people who signed in here this shift can. */
-export function SignInPanel({ onSignedIn, stationName }: { onSignedIn: (op: Operator) => void; stationName: string }) {
+export function SignInPanel({ onSignedIn, stationName, lang, onToggleLang }: { onSignedIn: (op: Operator) => void; stationName: string; lang: StationLang; onToggleLang: () => void }) {
   const { t } = useTranslation('station');
   const db = stationDb();
   const [badge, setBadge] = useState('');
@@ -72,8 +73,21 @@ export function SignInPanel({ onSignedIn, stationName }: { onSignedIn: (op: Oper
 
   return (
     <div className="mx-auto grid max-w-4xl gap-8 p-6 md:grid-cols-2">
+      <div className="flex flex-wrap items-center justify-between gap-3 md:col-span-2">
+        <p className="text-2xl font-bold text-harbour-900" data-testid="station-name-sign-in">
+          {stationName}
+        </p>
+        <button
+          type="button"
+          onClick={onToggleLang}
+          lang={lang === 'en' ? 'zh-CN' : 'en'}
+          className="flex min-h-14 shrink-0 items-center gap-2 whitespace-nowrap rounded-xl bg-white px-4 text-xl font-bold text-harbour-800 ring-2 ring-harbour-800"
+          aria-label={`${t('app.language')}: ${lang === 'en' ? t('app.chinese') : t('app.english')}`}
+        >
+          <Languages className="h-6 w-6" aria-hidden /> {lang === 'en' ? t('app.chinese') : t('app.english')}
+        </button>
+      </div>
       <section aria-labelledby="sign-in-title" className="rounded-2xl bg-white p-6 shadow-sm">
-        <p className="text-lg text-harbour-700">{stationName}</p>
         <h1 id="sign-in-title" className="mb-4 text-3xl font-bold text-harbour-900">
           {step === 'badge' ? t('signIn.badgePrompt') : t('signIn.pinPrompt')}
         </h1>

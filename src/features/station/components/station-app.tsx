@@ -8,7 +8,7 @@ import type { StationQueue } from '@shared/schemas/scans';
 import { useCurrentDevice } from '../api/get-current-device';
 import { useStationQueue } from '../api/get-station-queue';
 import { useReasonCodes } from '../api/get-reason-codes';
-import { signOutSession } from '../api/badge-sign-in';
+import { fetchMyLocale, saveMyLocale, signOutSession } from '../api/badge-sign-in';
 import { httpTransport } from '../api/scan-transport';
 import { stationKeys } from '../api/station-keys';
 import { stationDb } from '../lib/station-db';
@@ -16,12 +16,12 @@ import { SyncEngine } from '../lib/sync-engine';
 import { useLive } from '../lib/hooks';
 import { setStationLang } from '../i18n/station-i18n';
 import type { StationLang } from '../lib/refusal-text';
+import { isStationLang, langMetaKey, personLang, stationTexts } from '../lib/station-lang';
 import { SignInPanel, type Operator } from './sign-in-panel';
 import { StationScreen } from './station-screen';
 import type { StationInfo } from './tray-panel';
 
 const OPERATOR_KEY = 'operator';
-const LANG_KEY = 'lang';
 const SESSION_HOURS = 12;
 
 let sharedEngine: SyncEngine | null = null;
@@ -43,10 +43,14 @@ export function StationApp() {
   const device = useCurrentDevice();
   const engine = useMemo(engineOnce, []);
   const [operator, setOperator] = useState<Operator | null | undefined>(undefined);
-  const storedLang = useLive(() => db.getMeta<StationLang>(LANG_KEY), [], undefined);
   const paired = device.data?.state === 'paired' ? device.data.device : null;
   const station = paired?.station ?? null;
-  const lang: StationLang = storedLang ?? (paired?.locale === 'zh-CN' ? 'zh-CN' : 'en');
+  // The tablet's own language is the default; a person's choice is kept for that person.
+  const tabletLang: StationLang = paired?.locale === 'zh-CN' ? 'zh-CN' : 'en';
+  const [screenLang, setScreenLang] = useState<StationLang | null>(null);
+  /** what the signed-in person chose (kept on the tablet per person, and with their account) */
+  const [personChoice, setPersonChoice] = useState<StationLang | null>(null);
+  const lang: StationLang = operator ? personLang({ remembered: personChoice, tablet: tabletLang }) : (screenLang ?? tabletLang);
   const queue = useStationQueue(station?.id ?? '');
   const reasons = useReasonCodes();
   const cachedInfo = useLive(() => db.getMeta<StationQueue['station']>('stationInfo'), [], undefined);
@@ -64,17 +68,45 @@ export function StationApp() {
   }, [engine, qc, station]);
 
   useEffect(() => {
-    void db.getMeta<Operator | null>(OPERATOR_KEY).then((op) => setOperator(op && op.since > Date.now() - SESSION_HOURS * 3600_000 ? op : null));
+    void db.getMeta<Operator | null>(OPERATOR_KEY).then(async (op) => {
+      const current = op && op.since > Date.now() - SESSION_HOURS * 3600_000 ? op : null;
+      if (current) setPersonChoice((await db.getMeta<StationLang>(langMetaKey(current.id))) ?? null);
+      setOperator(current);
+    });
   }, [db]);
 
   const signIn = useCallback(
-    (op: Operator) => {
+    async (op: Operator) => {
+      // A language picked on the sign-in screen is this person's choice; otherwise the one saved
+      // with their account, else the one this tablet remembers for them.
+      let chosen: StationLang | null = screenLang;
+      if (chosen) {
+        if (!op.offline) void saveMyLocale(chosen).catch(() => undefined);
+      } else {
+        const saved = op.offline ? undefined : await fetchMyLocale().catch(() => undefined);
+        chosen = isStationLang(saved) ? saved : ((await db.getMeta<StationLang>(langMetaKey(op.id))) ?? null);
+      }
+      if (chosen) await db.setMeta(langMetaKey(op.id), chosen);
+      setPersonChoice(chosen);
+      setScreenLang(null);
       setOperator(op);
       void db.setMeta(OPERATOR_KEY, op);
     },
-    [db],
+    [db, screenLang],
   );
+  const toggleLang = useCallback(() => {
+    const next: StationLang = lang === 'en' ? 'zh-CN' : 'en';
+    if (!operator) {
+      setScreenLang(next);
+      return;
+    }
+    setPersonChoice(next);
+    void db.setMeta(langMetaKey(operator.id), next);
+    void saveMyLocale(next).catch(() => undefined);
+  }, [db, lang, operator]);
   const signOut = useCallback(() => {
+    setScreenLang(null);
+    setPersonChoice(null);
     setOperator(null);
     void db.setMeta(OPERATOR_KEY, null);
     // the server session ends too when the server can be reached; scans already made keep their operator
@@ -108,7 +140,7 @@ export function StationApp() {
     );
   }
   const info: StationInfo = queue.data?.station ?? (cachedInfo?.id === station.id ? cachedInfo : null) ?? { ...station, instructions: '', safetyNotes: '' };
-  if (!operator) return <SignInPanel stationName={info.name} onSignedIn={signIn} />;
+  if (!operator) return <SignInPanel stationName={stationTexts(info, lang).name} lang={lang} onToggleLang={toggleLang} onSignedIn={(op) => void signIn(op)} />;
   return (
     <StationScreen
       station={info}
@@ -119,7 +151,7 @@ export function StationApp() {
       reasons={reasons.data ?? []}
       onSignOut={signOut}
       onSwitch={signOut}
-      onToggleLang={() => void db.setMeta(LANG_KEY, lang === 'en' ? 'zh-CN' : 'en')}
+      onToggleLang={toggleLang}
     />
   );
 }

@@ -19,7 +19,9 @@ import { formatClock, stepLabel } from '../lib/format';
 import { resizePhoto } from '../lib/photo';
 import { newId } from '../lib/ids';
 import { NetStatus } from './net-status';
-import { FeedbackBanner, type FeedbackView } from './feedback-banner';
+import { FeedbackZone, type FeedbackView } from './feedback-banner';
+import { ActionBarSlot } from './action-bar';
+import { stationTexts } from '../lib/station-lang';
 import { CameraScanner } from './camera-scanner';
 import { TrayPanel, type StationInfo, type TrayAction } from './tray-panel';
 import { FinishPanel, type FinishCounts } from './finish-panel';
@@ -116,12 +118,14 @@ export function StationScreen({
       if (state.phase === 'in_process' && state.stationId === station.id) inProcess.push({ number: c.number, card: c.card, state, minutes: min(state.startedAt) });
       else if (state.phase === 'curing' && state.stationId === station.id) curing.push({ number: c.number, card: c.card, state, minutes: left });
       else if (state.phase === 'curing' && awaitedStep(state, c.card.routing)?.stationKind === station.kind) waiting.push({ number: c.number, card: c.card, state, minutes: left });
-      else if (state.phase === 'waiting' && awaitedStep(state, c.card.routing)?.stationKind === station.kind && !state.onHold) waiting.push({ number: c.number, card: c.card, state, minutes: min(state.waitingSince) });
+      else if (state.phase === 'waiting' && awaitedStep(state, c.card.routing)?.stationKind === station.kind) waiting.push({ number: c.number, card: c.card, state, minutes: min(state.waitingSince) });
     }
     const waitKey = (i: QueueItem) => Date.parse((i.state.phase === 'curing' ? i.state.cureReadyAt : i.state.waitingSince) ?? i.state.releasedAt);
-    inProcess.sort((a, b) => b.minutes - a.minutes);
-    curing.sort((a, b) => a.minutes - b.minutes);
-    waiting.sort((a, b) => waitKey(a) - waitKey(b));
+    // held trays are not ready for anyone: they go last, whatever they waited
+    const heldLast = (a: QueueItem, b: QueueItem) => Number(a.state.onHold) - Number(b.state.onHold);
+    inProcess.sort((a, b) => heldLast(a, b) || b.minutes - a.minutes);
+    curing.sort((a, b) => heldLast(a, b) || a.minutes - b.minutes);
+    waiting.sort((a, b) => heldLast(a, b) || waitKey(a) - waitKey(b));
     return { inProcess, curing, waiting };
   }, [cards, stateOf, now, station.id, station.kind]);
 
@@ -130,7 +134,7 @@ export function StationScreen({
   useEffect(() => {
     if (station.kind !== 'cure') return;
     for (const i of lists.curing) {
-      if (i.minutes <= 0 && !announced.current.has(i.number)) {
+      if (i.minutes <= 0 && !i.state.onHold && !announced.current.has(i.number)) {
         announced.current.add(i.number);
         if (i.minutes > -1) say('accepted', { title: `${i.number} · ${t('card.ready')}` });
       }
@@ -308,16 +312,25 @@ export function StationScreen({
   };
 
   const shown = current ? stateOf(current.number) : null;
+  const texts = stationTexts(station, lang);
+  const [barSlot, setBarSlot] = useState<HTMLElement | null>(null);
+  const scroller = useRef<HTMLElement>(null);
+  // a tray opened from the list or a scan shows from its top
+  useEffect(() => {
+    // (newer browsers return a promise from scrollTo: never hand it to React as a cleanup)
+    void scroller.current?.scrollTo?.({ top: 0 });
+  }, [current?.number]);
 
   return (
-    <div className="flex min-h-full flex-col">
-      <header className="flex items-center gap-2 bg-harbour-800 px-3 py-2 text-white">
-        <div className="mr-auto min-w-0">
-          <p className="text-sm">{t(`kind.${station.kind}`)}</p>
-          <p className="truncate text-2xl font-bold" data-testid="station-name">
-            {station.name}
+    <div className="flex h-dvh flex-col overflow-hidden">
+      <header className="flex shrink-0 flex-wrap items-center gap-x-3 gap-y-1 bg-harbour-800 px-3 py-2 text-white">
+        <div className="min-w-0 flex-[1_1_14rem]">
+          {t(`kind.${station.kind}`) !== texts.name && <p className="text-sm">{t(`kind.${station.kind}`)}</p>}
+          <p className="text-2xl font-bold leading-tight break-words" data-testid="station-name">
+            {texts.name}
           </p>
         </div>
+        <div className="ml-auto flex shrink-0 items-center gap-2">
         <NetStatus status={status} lang={lang} />
         <button type="button" onClick={onSwitch} className="flex min-h-12 items-center gap-2 rounded-xl px-2 text-left hover:bg-harbour-700" aria-label={`${t('top.switch')}: ${operator.name}`}>
           <Users className="h-6 w-6 shrink-0" aria-hidden />
@@ -328,12 +341,13 @@ export function StationScreen({
             </span>
           </span>
         </button>
-        <button type="button" onClick={onToggleLang} className="flex min-h-12 items-center gap-1 rounded-xl px-2 font-bold hover:bg-harbour-700" aria-label={t('app.language')}>
-          <Languages className="h-6 w-6" aria-hidden /> {lang === 'en' ? t('app.chinese') : t('app.english')}
+        <button type="button" onClick={onToggleLang} lang={lang === 'en' ? 'zh-CN' : 'en'} className="flex min-h-12 items-center gap-1 whitespace-nowrap rounded-xl px-2 font-bold hover:bg-harbour-700" aria-label={`${t('app.language')}: ${lang === 'en' ? t('app.chinese') : t('app.english')}`}>
+          <Languages className="h-6 w-6 shrink-0" aria-hidden /> {lang === 'en' ? t('app.chinese') : t('app.english')}
         </button>
-        <button type="button" onClick={onSignOut} className="flex min-h-12 items-center gap-1 rounded-xl px-2 font-bold hover:bg-harbour-700">
-          <LogOut className="h-6 w-6" aria-hidden /> {t('top.signOut')}
+        <button type="button" onClick={onSignOut} className="flex min-h-12 items-center gap-1 whitespace-nowrap rounded-xl px-2 font-bold hover:bg-harbour-700">
+          <LogOut className="h-6 w-6 shrink-0" aria-hidden /> {t('top.signOut')}
         </button>
+        </div>
       </header>
       {idle.secondsLeft != null && (
         <div role="alert" className="flex items-center justify-between gap-3 bg-warn-50 px-4 py-3 text-xl font-bold text-warn-700">
@@ -343,14 +357,15 @@ export function StationScreen({
           </button>
         </div>
       )}
-      {!status.online && <p className="bg-warn-50 px-4 py-2 text-lg text-warn-700">{t('net.offlineNote')}</p>}
-      {status.unpaired && <p role="alert" className="bg-stop-50 px-4 py-2 text-lg font-bold text-stop-700">{t('net.unpaired')}</p>}
-      <main className="grid flex-1 gap-4 p-4 lg:grid-cols-[3fr_2fr]">
+      {!status.online && <p className="shrink-0 bg-warn-50 px-4 py-1 text-lg text-warn-700">{t('net.offlineNote')}</p>}
+      {status.unpaired && <p role="alert" className="shrink-0 bg-stop-50 px-4 py-2 text-lg font-bold text-stop-700">{t('net.unpaired')}</p>}
+      <FeedbackZone feedback={feedback} />
+      <ActionBarSlot.Provider value={barSlot}>
+      <main ref={scroller} className="grid min-h-0 flex-1 content-start gap-4 overflow-y-auto p-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
-          {feedback && <FeedbackBanner feedback={feedback} />}
           {refusedUnseen.length > 0 && <RefusedPanel entries={refusedUnseen} lang={lang} reasonName={reasonName} onSeen={(id) => void engine.markSeen(id)} />}
           {current && shown ? (
-            <TrayPanel number={current.number} card={shown.card} state={shown.state} station={station} lang={lang} reasonName={reasonName} now={now} onAction={onAction} onClose={() => (setCurrent(null), setPanel(null))}>
+            <TrayPanel number={current.number} card={shown.card} state={shown.state} station={station} lang={lang} reasonName={reasonName} now={now} onAction={onAction} onClose={() => (setCurrent(null), setPanel(null))} panelOpen={panel !== null}>
               {panel === 'finish' && (
                 <FinishPanel
                   key={current.number}
@@ -414,9 +429,18 @@ export function StationScreen({
           )}
         </div>
         <aside className="flex flex-col gap-4">
-          <QueueLists inProcess={lists.inProcess} curing={lists.curing} waiting={lists.waiting} onOpen={(n) => void openCode(n)} isOven={station.kind === 'cure'} />
+          <QueueLists inProcess={lists.inProcess} curing={lists.curing} waiting={lists.waiting} onOpen={(n) => void openCode(n)} isOven={station.kind === 'cure'} reasonName={reasonName} />
         </aside>
       </main>
+      </ActionBarSlot.Provider>
+      {current && (
+        <footer aria-label={t('action.bar', { number: current.number })} data-testid="action-bar" className="flex shrink-0 flex-wrap items-center gap-3 border-t-4 border-harbour-800 bg-harbour-50 px-4 py-3">
+          <p className="shrink-0 font-mono text-3xl font-bold text-harbour-900" data-testid="bar-tray-number">
+            {current.number}
+          </p>
+          <div ref={setBarSlot} className="flex min-w-0 flex-[1_1_32rem] flex-wrap gap-3" />
+        </footer>
+      )}
       <input ref={photoInput} type="file" accept="image/*" capture="environment" className="hidden" aria-hidden tabIndex={-1} onChange={(e) => void takePhoto(e.target.files?.[0]).finally(() => (e.target.value = ''))} />
     </div>
   );

@@ -1,18 +1,24 @@
 import { useTranslation } from 'react-i18next';
 import { Camera, Hand, Play, Square, Unlock, X, AlertTriangle } from 'lucide-react';
-import type { ReactNode } from 'react';
+import { useEffect, useRef, type ReactNode } from 'react';
 import type { TrayCard } from '@shared/schemas/scans';
 import type { StationKind, TrayState } from '@shared/domain/vocabulary';
 import { awaitedStep } from '@shared/domain/guards';
 import { formatClock, formatNumber, stepLabel } from '../lib/format';
 import type { StationLang } from '../lib/refusal-text';
+import { stationTexts } from '../lib/station-lang';
+import { formatDate } from '../lib/format';
+import { InActionBar, barButton } from './action-bar';
 
 export interface StationInfo {
   id: string;
   name: string;
+  nameZh?: string;
   kind: StationKind;
   instructions: string;
   safetyNotes: string;
+  instructionsZh?: string;
+  safetyNotesZh?: string;
 }
 
 export type TrayAction = 'start' | 'finish' | 'hold' | 'release' | 'photo';
@@ -50,6 +56,7 @@ export function TrayPanel({
   now,
   onAction,
   onClose,
+  panelOpen = false,
   children,
 }: {
   number: string;
@@ -62,9 +69,16 @@ export function TrayPanel({
   now: number;
   onAction: (a: TrayAction) => void;
   onClose: () => void;
+  /** a counting, hold or override panel is open: it brings its own buttons to the action bar */
+  panelOpen?: boolean;
   children?: ReactNode;
 }) {
   const { t } = useTranslation('station');
+  const texts = stationTexts(station, lang);
+  const panelRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (panelOpen) panelRef.current?.scrollIntoView?.({ block: 'nearest' });
+  }, [panelOpen]);
   const standing = trayStanding(state, card, station, now);
   const routing = card?.routing ?? [];
   const current = state?.stepSeq != null ? routing.find((s) => s.seq === state.stepSeq) : undefined;
@@ -106,11 +120,7 @@ export function TrayPanel({
   })();
 
   const btn = (action: TrayAction, label: string, icon: ReactNode, primary: boolean) => (
-    <button
-      type="button"
-      onClick={() => onAction(action)}
-      className={`flex min-h-20 flex-1 items-center justify-center gap-3 rounded-2xl px-4 text-2xl font-bold ${primary ? 'bg-harbour-800 text-white' : 'bg-white text-harbour-800 ring-2 ring-harbour-800'}`}
-    >
+    <button type="button" onClick={() => onAction(action)} className={barButton(primary ? 'primary' : 'plain')}>
       {icon}
       {label}
     </button>
@@ -139,6 +149,9 @@ export function TrayPanel({
       </header>
       {status}
       {!card && <p className="text-lg">{t('card.unknownNext')}</p>}
+      <div ref={panelRef} className="scroll-mt-2 empty:hidden">
+        {children}
+      </div>
       {card && state && (
         <dl className="grid grid-cols-2 gap-x-6 gap-y-3 md:grid-cols-3">
           {shownStep && (
@@ -174,7 +187,7 @@ export function TrayPanel({
           )}
           {order && <Fact label={t('card.size')}>{t('card.sizeValue', { mm: formatNumber(lang, order.sizeMm) })}</Fact>}
           {order && <Fact label={t('card.packaging')}>{t(`packaging.${order.packaging}`, { defaultValue: order.packaging })}</Fact>}
-          {order && <Fact label={t('card.due')}>{new Intl.DateTimeFormat(lang, { dateStyle: 'medium' }).format(new Date(`${order.dueDate}T12:00:00Z`))}</Fact>}
+          {order && <Fact label={t('card.due')}>{formatDate(lang, order.dueDate)}</Fact>}
           {!card.mouldReady && card.tray.kind === 'tray' && <Fact label={t('card.mould')}>{t('card.mouldNotReady')}</Fact>}
         </dl>
       )}
@@ -190,32 +203,31 @@ export function TrayPanel({
           {order.notes}
         </p>
       )}
-      <div className="flex flex-wrap gap-3">
-        {btn('start', t('action.start'), <Play className="h-8 w-8" aria-hidden />, standing.primary === 'start')}
-        {btn('finish', t('action.finish'), <Square className="h-7 w-7" aria-hidden />, standing.primary === 'finish')}
-      </div>
-      <div className="flex flex-wrap gap-3">
-        {state?.onHold
-          ? btn('release', t('action.release'), <Unlock className="h-7 w-7" aria-hidden />, false)
-          : btn('hold', t('action.hold'), <Hand className="h-7 w-7" aria-hidden />, false)}
-        {btn('photo', t('action.photo'), <Camera className="h-7 w-7" aria-hidden />, false)}
-      </div>
-      {children}
-      {(station.instructions || station.safetyNotes) && (
+      {!panelOpen && (
+        <InActionBar>
+          {btn('start', t('action.start'), <Play className="h-7 w-7" aria-hidden />, standing.primary === 'start')}
+          {btn('finish', t('action.finish'), <Square className="h-6 w-6" aria-hidden />, standing.primary === 'finish')}
+          {state?.onHold
+            ? btn('release', t('action.release'), <Unlock className="h-6 w-6" aria-hidden />, false)
+            : btn('hold', t('action.hold'), <Hand className="h-6 w-6" aria-hidden />, false)}
+          {btn('photo', t('action.photo'), <Camera className="h-6 w-6" aria-hidden />, false)}
+        </InActionBar>
+      )}
+      {(texts.instructions || texts.safetyNotes) && (
         <div className="grid gap-3 md:grid-cols-2">
-          {station.instructions && (
+          {texts.instructions && (
             <div className="rounded-xl bg-harbour-50 p-3">
               <p className="font-bold">{t('card.instructions')}</p>
-              <p>{station.instructions}</p>
+              <p>{texts.instructions}</p>
             </div>
           )}
-          {station.safetyNotes && (
+          {texts.safetyNotes && (
             <div className="rounded-xl border-2 border-warn-700 bg-warn-50 p-3">
               <p className="flex items-center gap-2 font-bold text-warn-700">
                 <AlertTriangle className="h-5 w-5" aria-hidden /> {t('card.safety')}
               </p>
-              <p>{station.safetyNotes}</p>
-              {!/regulation|法规/i.test(station.safetyNotes) && <p className="mt-1 text-sm font-bold">{t('card.safetyFooter')}</p>}
+              <p>{texts.safetyNotes}</p>
+              {!/regulation|法规/i.test(texts.safetyNotes) && <p className="mt-1 text-sm font-bold">{t('card.safetyFooter')}</p>}
             </div>
           )}
         </div>

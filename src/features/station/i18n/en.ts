@@ -118,6 +118,7 @@ export const en = {
     cancel: 'Cancel',
     confirm: 'Confirm',
     next: 'Next tray',
+    bar: 'Actions for tray {{number}}',
   },
   finish: {
     title: 'Finish: count the pieces',
@@ -169,6 +170,7 @@ export const en = {
     serverAccepted: 'The server accepted the scan of tray {{number}}',
     nextTo: 'Next: {{step}}',
     goodScrap: '{{good}} good, {{scrap}} scrap',
+    region: 'Result of the last scan',
   },
   lists: {
     inProcess: 'In process here',
@@ -179,6 +181,8 @@ export const en = {
     waited: 'waiting {{duration}}',
     readyIn: 'ready in {{duration}}',
     readyNow: 'ready',
+    held: 'on hold',
+    heldFor: 'on hold: {{reason}}',
     pieces_one: '{{count}} piece',
     pieces_other: '{{count}} pieces',
     open: 'Open',

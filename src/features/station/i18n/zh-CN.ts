@@ -116,6 +116,7 @@ export const zhCN: StationStrings = {
     cancel: '取消',
     confirm: '确认',
     next: '下一个托盘',
+    bar: '托盘 {{number}} 的操作',
   },
   finish: {
     title: '完成：清点数量',
@@ -167,6 +168,7 @@ export const zhCN: StationStrings = {
     serverAccepted: '服务器已接受托盘 {{number}} 的扫描',
     nextTo: '下一步：{{step}}',
     goodScrap: '良品 {{good}}，报废 {{scrap}}',
+    region: '上一次扫描的结果',
   },
   lists: {
     inProcess: '本工位加工中',
@@ -177,6 +179,8 @@ export const zhCN: StationStrings = {
     waited: '已等 {{duration}}',
     readyIn: '{{duration}} 后可取',
     readyNow: '可以取出',
+    held: '已暂停',
+    heldFor: '已暂停：{{reason}}',
     pieces_one: '{{count}} 件',
     pieces_other: '{{count}} 件',
     open: '打开',

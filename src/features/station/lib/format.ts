@@ -24,6 +24,11 @@ export function formatDateTime(lang: StationLang, iso: unknown): string {
   return new Intl.DateTimeFormat(lang, { month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' }).format(d);
 }
 
+/** A calendar day ("2026-12-14") as the tablet shows it. */
+export function formatDate(lang: StationLang, day: string): string {
+  return new Intl.DateTimeFormat(lang, { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${day}T12:00:00Z`));
+}
+
 export function formatNumber(lang: StationLang, n: number): string {
   return new Intl.NumberFormat(lang).format(n);
 }

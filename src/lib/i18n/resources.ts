@@ -8,10 +8,12 @@ import { en as orders } from '@/features/orders/i18n/en';
 import { zhCN as ordersZh } from '@/features/orders/i18n/zh-CN';
 import { en as users } from '@/features/users/i18n/en';
 import { zhCN as usersZh } from '@/features/users/i18n/zh-CN';
+import { en as portal } from '@/features/customer-status/i18n/en';
+import { zhCN as portalZh } from '@/features/customer-status/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders, users },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh },
+  en: { common, station, orders, users, portal },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

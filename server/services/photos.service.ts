@@ -6,16 +6,8 @@ import { auditRepository } from '../repositories/audit.repository';
 import { traysRepository } from '../repositories/trays.repository';
 import { notFound } from '../errors';
 import { readFile } from '../lib/file-store';
+import type { TrayPhotoView } from '@shared/schemas/payments';
 
-export interface TrayPhotoView {
-  id: string;
-  url: string;
-  mime: string;
-  stationKind: string | null;
-  takenAt: string;
-  shareable: boolean;
-  sharedAt: string | null;
-}
 
 export const photosService = {
   ofTray(deps: AppDeps, trayId: string): TrayPhotoView[] {

@@ -70,3 +70,14 @@ export interface CheckoutAnswer {
 
 /** `PATCH /api/photos/:id` (supervisor): show a QC photo to the customer or not */
 export const photoShareBodySchema = z.strictObject({ shareable: z.boolean() });
+
+/** `GET /api/trays/:id/photos`: a tray's QC photos on the supervisor's view */
+export interface TrayPhotoView {
+  id: string;
+  url: string;
+  mime: string;
+  stationKind: string | null;
+  takenAt: string;
+  shareable: boolean;
+  sharedAt: string | null;
+}

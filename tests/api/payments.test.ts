@@ -7,6 +7,9 @@ import Stripe from 'stripe';
 import { PNG } from 'pngjs';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { startPayments, type StartedPayments } from '../../server/services/payments.service';
+import { insertShippingOrder, SEQ } from '../support/shipping-fixtures';
+import { attachments } from '../../server/db/schema/scans';
+import { putFile } from '../../server/lib/file-store';
 import type { OrderSpecInput } from '@shared/schemas/orders';
 
 // The path from an order awaiting payment to release, as far as payments and the customer's page
@@ -350,5 +353,48 @@ describe('changes asked for on the customer page', () => {
     const empty = await pubPost(`/api/public/orders/${o.token}/proofs/1/changes`).send({ comment: '' });
     expect(empty.status).toBe(400);
     expect(dbDigest()).toBe(before);
+  });
+});
+
+describe('QC photos on the customer page', () => {
+  it('shows only the photos a supervisor shared, of her own order only', async () => {
+    const supervisor = await t.agentAs('supervisor');
+    const mine = insertShippingOrder(t.deps, { customer: 'Invented Quay Rowers', title: 'Quay regatta pin', trays: [{ quantity: 100, at: SEQ.polish }] });
+    const other = insertShippingOrder(t.deps, { customer: 'Invented Moor Walkers', title: 'Moor walk pin', trays: [{ quantity: 100, at: SEQ.polish }] });
+    const photoOf = (trayId: string) => {
+      const { hash, sizeBytes } = putFile(t.dataDir, png());
+      const id = crypto.randomUUID();
+      t.deps.db.insert(attachments).values({ id, trayId, fileHash: hash, mime: 'image/png', sizeBytes, createdAt: Date.now() }).run();
+      return id;
+    };
+    const p1 = photoOf(mine.trays[0]!.id);
+    const p2 = photoOf(mine.trays[0]!.id);
+    const foreign = photoOf(other.trays[0]!.id);
+    const token = (await sales.post(`/api/orders/${mine.orderId}/share`).send({})).body.token as string;
+    const photosOnPage = async () => ((await pubGet(`/api/public/status/${token}`)).body.story ?? []).flatMap((s: { photos: string[] }) => s.photos);
+
+    // none is shown until a supervisor says so
+    expect(await photosOnPage()).toEqual([]);
+    expect((await pubGet(`/api/public/status/${token}/photos/${p1}`)).status).toBe(404);
+    const list = await supervisor.get(`/api/trays/${mine.trays[0]!.id}/photos`);
+    expect(list.body.map((p: { id: string; shareable: boolean }) => [p.id, p.shareable]).sort()).toEqual([[p1, false], [p2, false]].sort());
+
+    // sales may not decide it; the supervisor may
+    expect((await sales.patch(`/api/photos/${p1}`).send({ shareable: true })).status).toBe(403);
+    const shared = await supervisor.patch(`/api/photos/${p1}`).send({ shareable: true });
+    expect(shared.status).toBe(200);
+    expect(shared.body).toMatchObject({ id: p1, shareable: true, sharedAt: expect.any(String) });
+    await supervisor.patch(`/api/photos/${foreign}`).send({ shareable: true });
+
+    expect(await photosOnPage()).toEqual([`/api/public/status/${token}/photos/${p1}`]);
+    const img = await pubGet(`/api/public/status/${token}/photos/${p1}`);
+    expect(img.status).toBe(200);
+    expect(img.headers['content-type']).toBe('image/png');
+    // another order's photo, even shared, is not reachable with her link; nor is an unshared one of hers
+    expect((await pubGet(`/api/public/status/${token}/photos/${foreign}`)).status).toBe(404);
+    expect((await pubGet(`/api/public/status/${token}/photos/${p2}`)).status).toBe(404);
+
+    await supervisor.patch(`/api/photos/${p1}`).send({ shareable: false });
+    expect(await photosOnPage()).toEqual([]);
   });
 });

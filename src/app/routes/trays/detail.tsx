@@ -6,6 +6,7 @@ import { queryClient } from '@/lib/query-client';
 import { trayPdfUrl, trayQueryOptions, useTray } from '@/features/trays/api/get-tray';
 import { useReprint } from '@/features/trays/api/tray-actions';
 import { EventsTable, Genealogy, MergeForm, RoutingProgress, SplitForm } from '@/features/trays/components/tray-panels';
+import { PhotosPanel } from '@/features/trays/components/photos-panel';
 import { orderQueryOptions } from '@/features/orders/api/get-order';
 import { ordersKeys } from '@/features/orders/api/orders-keys';
 import { useMe } from '@/features/auth/api/get-me';
@@ -109,6 +110,7 @@ export function Component() {
           <MergeForm tray={t} candidates={candidates} onChanged={refresh} />
         </div>
       )}
+      {mayAct && <PhotosPanel trayId={t.id} mayShare={me.data?.user.role === 'supervisor' || me.data?.user.role === 'admin'} />}
       <EventsTable tray={t} />
     </div>
   );

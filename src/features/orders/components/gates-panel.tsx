@@ -39,6 +39,12 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
   const ok = !order.openGates.includes('payment_missing');
   return (
     <Gate ok={ok || order.releasedAt != null} title="Payment">
+      {order.payment.required != null && (
+        <p data-testid="payment-due">
+          Price {order.payment.priceTotal?.toFixed(2)} {order.payment.currency} · due before release ({order.payment.depositPct} %) {order.payment.required.toFixed(2)} · paid {order.paidTotal.toFixed(2)} ·{' '}
+          <strong>still due {(order.payment.amountDue ?? 0).toFixed(2)}</strong>
+        </p>
+      )}
       {order.payments.length > 0 && (
         <ul className="flex flex-col gap-1">
           {order.payments.map((p) => (
@@ -49,7 +55,10 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
                 </>
               ) : (
                 <>
-                  <strong>{p.amount?.toFixed(2)}</strong> · {p.reference} {p.note && `· ${p.note}`}
+                  <strong>
+                    {p.amount?.toFixed(2)} {p.currency ?? ''}
+                  </strong>{' '}
+                  · {p.source === 'checkout' ? 'paid online' : `by ${p.recordedBy}`} · {p.reference} {p.note && `· ${p.note}`}
                 </>
               )}{' '}
               <span className="text-sm text-harbour-700">({formatDateTime(p.recordedAt)})</span>
@@ -121,8 +130,13 @@ function ProofGate({ order }: { order: OrderDetail }) {
               {p.approvedAt ? (
                 <Pill tone="ok">
                   Approved {formatDate(p.approvedAt)}
+                  {p.approvedBy ? ` by ${p.approvedBy}` : ''}
                   {p.approvalNote ? ` · ${p.approvalNote}` : ''}
                 </Pill>
+              ) : p.changesRequestedAt ? (
+                <p role="status" className="w-full rounded bg-warn-50 p-2 text-ink">
+                  <strong>Changes asked for</strong> on the order page ({formatDateTime(p.changesRequestedAt)}): “{p.changesComment}”. Upload a new revision for the customer to approve.
+                </p>
               ) : p.revision === latest?.revision ? (
                 <Pill tone="warn">Waiting for the customer</Pill>
               ) : (

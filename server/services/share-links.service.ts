@@ -4,7 +4,7 @@
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import type { DbLike } from '../db/client';
-import { shareLinksRepository } from '../repositories/share-links.repository';
+import { shareLinksRepository, type QuoteLinkRow } from '../repositories/share-links.repository';
 import { shippingRepository } from '../repositories/shipping.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { AppError, notFound } from '../errors';
@@ -37,7 +37,7 @@ export function statusUrl(deps: AppDeps, token: string): string {
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
 /** Makes a link inside the caller's transaction (the shipped mail makes one too). */
-export function createLinkIn(tx: DbLike, deps: AppDeps, orderId: string, userId: string | null, purpose: 'manual' | 'shipped_mail', options: { validDays?: number } = {}): ShareLink {
+export function createLinkIn(tx: DbLike, deps: AppDeps, orderId: string, userId: string | null, purpose: 'manual' | 'shipped_mail' | 'quote_accepted', options: { validDays?: number } = {}): ShareLink {
   const token = newToken();
   const now = deps.now();
   const id = crypto.randomUUID();
@@ -111,6 +111,46 @@ export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow,
   // Opening the page is recorded (sales sees that the customer looked), at most once a minute.
   if (link.lastOpenedAt == null || now - link.lastOpenedAt > 60_000) shareLinksRepository.touchOpened(deps.db, link.id, now);
   return publicStatusSchema.parse(body);
+}
+
+// ---------------------------------------------------------------------------------------
+// Quote links: the same tokens (random, only their hash stored, revocable) opening one quote.
+
+export function quoteUrl(deps: AppDeps, token: string): string {
+  return `${deps.env.publicUrl.replace(/\/$/, '')}/quote/${token}`;
+}
+
+/** Makes a quote link inside the caller's transaction (sending a quote makes one). */
+export function createQuoteLinkIn(tx: DbLike, deps: AppDeps, quoteId: string, userId: string | null): ShareLink {
+  const token = newToken();
+  const now = deps.now();
+  const id = crypto.randomUUID();
+  shareLinksRepository.insert(tx, { id, quoteId, tokenHash: hashToken(token), purpose: 'quote', createdBy: userId, createdAt: now });
+  auditRepository.record(tx, now, { userId, action: 'share_link.create', entity: 'quote', entityId: quoteId, detail: { linkId: id, purpose: 'quote' } });
+  return { token, url: quoteUrl(deps, token) };
+}
+
+const notFoundQuoteLink = () => new AppError(404, 'not_found', 'This quote link does not exist or has been withdrawn.');
+
+/** The live quote link of a token, or 404 (malformed, unknown and withdrawn tokens look the same). */
+export function quoteLinkOf(db: DbLike, token: string): QuoteLinkRow {
+  if (!statusTokenSchema.safeParse(token).success) throw notFoundQuoteLink();
+  const link = shareLinksRepository.activeQuoteLinkByHash(db, hashToken(token));
+  if (!link) throw notFoundQuoteLink();
+  return link;
+}
+
+/** Opening a quote is recorded (sales sees that the customer looked), at most once a minute. */
+export function touchQuoteLink(deps: AppDeps, link: QuoteLinkRow): void {
+  const now = deps.now();
+  if (link.lastOpenedAt == null || now - link.lastOpenedAt > 60_000) shareLinksRepository.touchOpened(deps.db, link.id, now);
+}
+
+export function revokeQuoteLinksIn(tx: DbLike, deps: AppDeps, quoteId: string, userId: string): number {
+  const now = deps.now();
+  const n = shareLinksRepository.revokeAllForQuote(tx, quoteId, now, userId);
+  auditRepository.record(tx, now, { userId, action: 'share_link.revoke', entity: 'quote', entityId: quoteId, detail: { revoked: n } });
+  return n;
 }
 
 export const shareLinksService = {

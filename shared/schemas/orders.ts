@@ -43,7 +43,8 @@ export const backingSchema = z.strictObject({
   count: z.number().int().min(0).max(6),
 });
 
-const specFields = {
+/** The fields of an order spec; quotes build their spec from the same fields. */
+export const orderSpecFields = {
   customer: z.string().trim().min(1).max(120).optional(),
   customerId: z.string().trim().min(1).max(64).optional(),
   title: z.string().trim().min(1, 'Give the order a title').max(160),
@@ -112,25 +113,35 @@ export function specContradictions(spec: Omit<SpecShape, 'customer' | 'customerI
   return out;
 }
 
-function checkSpec(spec: SpecShape, ctx: z.RefinementCtx) {
+/** Exactly one of customer (a name) and customerId. */
+export function checkCustomer(spec: Pick<SpecShape, 'customer' | 'customerId'>, ctx: z.RefinementCtx) {
   if (!spec.customer && !spec.customerId) {
     ctx.addIssue({ code: 'custom', path: ['customer'], message: 'Pick or name a customer' });
   }
   if (spec.customer && spec.customerId) {
     ctx.addIssue({ code: 'custom', path: ['customer'], message: 'Give either customer or customerId, not both' });
   }
+}
+
+/** Spec fields that contradict each other, each refused on its own field. */
+export function checkContradictions(spec: Omit<SpecShape, 'customer' | 'customerId'>, ctx: z.RefinementCtx) {
   for (const c of specContradictions(spec)) ctx.addIssue({ code: 'custom', path: [c.path], message: c.message });
 }
 
+function checkSpec(spec: SpecShape, ctx: z.RefinementCtx) {
+  checkCustomer(spec, ctx);
+  checkContradictions(spec, ctx);
+}
+
 /** The order spec as entered (POST /api/orders). Unknown fields are refused. */
-export const orderSpecSchema = z.strictObject(specFields).superRefine(checkSpec);
+export const orderSpecSchema = z.strictObject(orderSpecFields).superRefine(checkSpec);
 export type OrderSpecInput = z.input<typeof orderSpecSchema>;
 export type OrderSpec = z.output<typeof orderSpecSchema>;
 
 /** A change to an order's spec before release: any field of the spec. */
 export const orderSpecPatchSchema = z
   .strictObject({
-    ...specFields,
+    ...orderSpecFields,
     productType: z.enum(PRODUCT_TYPES),
     overrunPct: z.number().min(0).max(OVERRUN_MAX_PCT),
     colours: z.array(colourSchema).max(MAX_COLOURS),

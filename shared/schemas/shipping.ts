@@ -269,9 +269,12 @@ export interface HistoryEntry {
   who: string | null;
 }
 
+/** Why a customer link was made: by a person, for the shipped mail, sent with a quote, or when a quote was accepted. */
+export type ShareLinkPurpose = 'manual' | 'shipped_mail' | 'quote' | 'quote_accepted';
+
 export interface ShareLinkInfo {
   id: string;
-  purpose: 'manual' | 'shipped_mail';
+  purpose: ShareLinkPurpose;
   createdAt: string;
   createdBy: string | null;
   revokedAt: string | null;

@@ -12,3 +12,4 @@ export * from './shipping';
 export * from './reports';
 export * from './loads';
 export * from './payments';
+export * from './quotes';

@@ -1,6 +1,7 @@
 import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { id, ms, flag } from './columns';
 import { orders } from './orders';
+import { quotes } from './quotes';
 
 export const shipments = sqliteTable(
   'shipments',
@@ -45,17 +46,19 @@ export const cartons = sqliteTable(
   (t) => [index('cartons_order_idx').on(t.orderId)],
 );
 
-/** Read-only customer status links; only the token's hash is stored. */
+/**
+ * Customer links (no sign-in); only the token's hash is stored. A link opens one order's status
+ * page, or one quote (quote_id set, order_id empty).
+ */
 export const shareLinks = sqliteTable(
   'share_links',
   {
     id: id(),
-    orderId: text('order_id')
-      .notNull()
-      .references(() => orders.id),
+    orderId: text('order_id').references(() => orders.id),
+    quoteId: text('quote_id').references(() => quotes.id),
     tokenHash: text('token_hash').notNull().unique(),
-    /** why it was made: by a person, or for the shipped mail */
-    purpose: text('purpose', { enum: ['manual', 'shipped_mail'] }).notNull().default('manual'),
+    /** why it was made: by a person, for the shipped mail, sent with a quote, or made when a quote was accepted */
+    purpose: text('purpose', { enum: ['manual', 'shipped_mail', 'quote', 'quote_accepted'] }).notNull().default('manual'),
     createdBy: text('created_by'),
     createdAt: ms('created_at').notNull(),
     revokedAt: ms('revoked_at'),
@@ -64,7 +67,7 @@ export const shareLinks = sqliteTable(
     expiresAt: ms('expires_at'),
     lastOpenedAt: ms('last_opened_at'),
   },
-  (t) => [index('share_links_order_idx').on(t.orderId)],
+  (t) => [index('share_links_order_idx').on(t.orderId), index('share_links_quote_idx').on(t.quoteId)],
 );
 
 /** Outgoing mail, queued so a send never blocks a scan or a release. */

@@ -88,7 +88,7 @@ export function ShareLinkPanel({ orderId, links, disabled }: { orderId: string; 
                   {when(l.createdAt)}
                   {l.createdBy ? ` · ${l.createdBy}` : ''}
                 </td>
-                <td className="py-1 pr-2">{l.purpose === 'shipped_mail' ? 'Shipped mail' : 'Customer'}</td>
+                <td className="py-1 pr-2">{l.purpose === 'shipped_mail' ? 'Shipped mail' : l.purpose === 'quote_accepted' ? 'Accepted quote' : 'Customer'}</td>
                 <td className="py-1 pr-2">{when(l.lastOpenedAt)}</td>
                 <td className="py-1 font-bold">{l.revokedAt ? `Withdrawn ${when(l.revokedAt)}` : 'Live'}</td>
               </tr>

@@ -28,6 +28,7 @@ import { registerCalendarRoutes } from './routes/calendar.routes';
 import { registerLoadRoutes } from './routes/loads.routes';
 import { registerPaymentRoutes } from './routes/payments.routes';
 import { registerPortalRoutes } from './routes/portal.routes';
+import { registerQuoteRoutes } from './routes/quotes.routes';
 
 const clientDist = path.join(PROJECT_ROOT, 'dist');
 
@@ -83,6 +84,7 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   registerLoadRoutes(api);
   registerPaymentRoutes(api);
   registerPortalRoutes(api);
+  registerQuoteRoutes(api);
 
   // The payment webhook's signature is made over the exact bytes sent: keep them raw for it alone.
   app.use('/api/payments/webhook', express.raw({ type: () => true, limit: '256kb' }));
@@ -91,7 +93,7 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   if (options.serveClient !== false && fs.existsSync(path.join(clientDist, 'index.html'))) {
     app.use(express.static(clientDist, { index: false, maxAge: '1h' }));
     // A customer's status page is private: search engines must not index it.
-    app.use('/status', (_req, res, next) => {
+    app.use(['/status', '/quote'], (_req, res, next) => {
       res.set('X-Robots-Tag', 'noindex, nofollow, noarchive');
       res.set('Referrer-Policy', 'no-referrer');
       next();

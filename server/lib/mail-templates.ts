@@ -144,3 +144,39 @@ export function proofChangesMail(input: { factory: string; orderNumber: string; 
   );
   return { subject, text, html };
 }
+
+export interface QuoteSentMailInput {
+  factory: string;
+  number: string;
+  title: string;
+  contactName: string | null;
+  validUntil: string;
+  url: string;
+}
+
+/** The quote to the customer: the link to read and accept it, the PDF attached. */
+export function quoteSentMail(m: QuoteSentMailInput): RenderedMail {
+  const hello = m.contactName ? `Dear ${m.contactName},` : 'Hello,';
+  const subject = `Quote ${m.number}: ${m.title}`;
+  const text = [
+    hello,
+    '',
+    `Here is our quote ${m.number} for ${m.title}. It is valid until ${m.validUntil}.`,
+    'Read it and accept the quantity you want here (no sign-in needed):',
+    m.url,
+    '',
+    'The quote is also attached as a PDF. 报价单已附上 (PDF)。',
+    '',
+    m.factory,
+  ].join('\n');
+  const html = page(
+    subject,
+    `<p>${escapeHtml(hello)}</p>
+<p>Here is our quote <b>${escapeHtml(m.number)}</b> for ${escapeHtml(m.title)}. It is valid until <b>${escapeHtml(m.validUntil)}</b>.</p>
+<p><a href="${escapeHtml(m.url)}" style="display:inline-block;background:#14323a;color:#ffffff;padding:10px 16px;border-radius:6px;text-decoration:none;font-weight:bold">Read and accept the quote</a></p>
+<p style="font-size:13px;color:#555">Or copy this address: ${escapeHtml(m.url)}</p>
+<p style="font-size:13px;color:#555">The quote is also attached as a PDF. 报价单已附上 (PDF)。</p>`,
+    m.factory,
+  );
+  return { subject, text, html };
+}

@@ -32,7 +32,7 @@ export interface QueuedAttachment {
 }
 
 export interface NewMail {
-  kind: 'order_shipped' | 'late_digest' | 'proof_ready' | 'proof_changes';
+  kind: 'order_shipped' | 'late_digest' | 'proof_ready' | 'proof_changes' | 'quote_sent';
   to: string;
   subject: string;
   text: string;

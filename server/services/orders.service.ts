@@ -189,7 +189,7 @@ function isLate(order: OrderRow, now: number): boolean {
   return today(now) > order.dueDate;
 }
 
-function customerFor(db: DbLike, spec: { customer?: string; customerId?: string }, now: number): string {
+export function customerFor(db: DbLike, spec: { customer?: string; customerId?: string }, now: number): string {
   if (spec.customerId) {
     const c = ordersRepository.customerById(db, spec.customerId);
     if (!c) throw badInput('There is no customer with that id.', [{ path: ['customerId'], message: 'Unknown customer' }], 'unknown_customer');

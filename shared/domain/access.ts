@@ -19,3 +19,6 @@ export const SHARE_LINKS: readonly Role[] = ['sales', 'planner', 'admin'];
 
 /** Record a payment or a proof approval given by e-mail or phone: the office that talks to the customer. */
 export const GATE_RECORDERS: readonly Role[] = ['planner', 'manager', 'sales', 'admin'];
+
+/** Who writes quotes. */
+export const QUOTING: readonly Role[] = ['sales', 'planner', 'admin'];

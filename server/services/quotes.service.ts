@@ -388,7 +388,13 @@ export const quotesService = {
       const due = p85.p85At ? p85.p85At.slice(0, 10) : localDate(calendarService.timeZone(deps), now + 21 * DAY);
       // eslint-disable-next-line @typescript-eslint/no-unused-vars
       const { heightMm, thicknessMm, outlineFactor, ...orderSpec } = spec;
-      const orderId = ordersService.createInTx(deps, tx, { ...orderSpec, customerId: q.customerId, quantity: body.quantity, dueDate: due }, null);
+      const line = (v.pricing as QuotePricing).lines.find((l) => l.quantity === body.quantity)!;
+      const orderId = ordersService.createInTx(
+        deps,
+        tx,
+        { ...orderSpec, customerId: q.customerId, quantity: body.quantity, dueDate: due, priceTotal: line.total, currency: v.currency },
+        null,
+      );
       const order = ordersRepository.byId(tx, orderId)!;
       if (!quotesRepository.markAccepted(tx, q.id, { orderId, acceptedVersion: v.version, acceptedQuantity: body.quantity, acceptedName: body.name, acceptedAt: now, updatedAt: now })) {
         throw conflict('quote_accepted', `Quote ${q.number} was already accepted.`);

@@ -10,7 +10,7 @@ export const MAX_QUANTITY_BREAKS = 6;
 const isoDay = z.iso.date({ error: 'Use a date written YYYY-MM-DD' });
 
 // eslint-disable-next-line @typescript-eslint/no-unused-vars
-const { quantity, dueDate, customer, customerId, ...quoteSpecFields } = orderSpecFields;
+const { quantity, dueDate, customer, customerId, priceTotal, currency, ...quoteSpecFields } = orderSpecFields;
 
 export const quoteSpecSchema = z
   .strictObject({

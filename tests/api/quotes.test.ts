@@ -183,12 +183,17 @@ describe('quotes', () => {
     expect(Object.keys(acc.body).sort()).toEqual(['number', 'orderId', 'statusToken']);
     const order = (await manager.get(`/api/orders/${acc.body.orderId}`)).body;
     expect(order.status).toBe('awaiting_payment');
+    // the price agreed is what the order's payment gate asks for
+    expect(order.spec.priceTotal).toBe(q.lines[2].total);
     expect(order.spec).toMatchObject({ title: 'Lantern walk pin', process: 'hard_enamel', quantity: 500, plating: 'gold', colours: body().spec.colours });
     expect(order.routing.filter((s: { stationKind: string }) => s.stationKind === 'fill')).toHaveLength(3);
     // the status token is an ordinary customer link of the order
     const status = await pubGet(`/api/public/status/${acc.body.statusToken}`);
     expect(status.status).toBe(200);
     expect(status.body.title).toBe('Lantern walk pin');
+    const portal = await pubGet(`/api/public/orders/${acc.body.statusToken}`);
+    expect(portal.status).toBe(200);
+    expect(portal.body).toMatchObject({ amountDue: q.lines[2].total, currency: 'USD' });
     const after = (await sales.get(`/api/quotes/${q.id}`)).body;
     expect(after.status).toBe('accepted');
     expect(after.accepted).toMatchObject({ quantity: 500, name: 'Ida Marlow', orderNumber: acc.body.number });

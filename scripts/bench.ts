@@ -22,6 +22,7 @@ const sections: Section[] = [
     },
   },
   { name: 'Scans', module: './bench/scans.ts', run: (m) => m.benchScans() },
+  { name: 'Ship-date projection (200 open orders)', module: './bench/projection.ts', run: (m) => m.benchProjection() },
   { name: 'Reports, WIP and the wall at a year of history', module: './bench/reports.ts', run: (m) => m.benchReports() },
 ];
 

@@ -38,7 +38,67 @@ export interface StepRow {
   cureMinutes: number | null;
 }
 
+export interface RunRow {
+  orderId: string;
+  trayId: string;
+  travellerKind: 'tray' | 'mould';
+  stepSeq: number;
+  stationKind: string;
+  stationId: string | null;
+  readyAt: number;
+  startedAt: number;
+  finishedAt: number;
+  qtyIn: number;
+  implicit: number;
+  trayMinutes: number | null;
+  pieceMinutes: number | null;
+  cureMinutes: number | null;
+}
+
+const OPEN = `o.released_at is not null and o.shipped_at is null and o.cancelled_at is null and o.status not in ('shipped', 'cancelled')`;
+
 export const projectionRepository = {
+  /** every traveller of every open order */
+  openTrays(db: Db): TrayStateRow[] {
+    return client(db)
+      .prepare(
+        `select s.tray_id as trayId, t.order_id as orderId, t.kind, s.phase, s.step_seq as stepSeq, s.quantity, s.started_at as startedAt,
+           s.waiting_since as waitingSince, s.cure_ready_at as cureReadyAt, s.on_hold as onHold, s.last_event_at as lastEventAt, s.released_at as releasedAt
+         from orders o join trays t on t.order_id = o.id join tray_states s on s.tray_id = t.id where ${OPEN}`,
+      )
+      .all() as TrayStateRow[];
+  },
+  /** the routing of every open order */
+  openSteps(db: Db): (StepRow & { name: string; colour: number | null })[] {
+    return client(db)
+      .prepare(
+        `select st.order_id as orderId, st.traveller_kind as kind, st.seq, st.name, st.station_kind as stationKind, st.tray_minutes as trayMinutes,
+           st.piece_minutes as pieceMinutes, st.cure_minutes as cureMinutes, st.colour
+         from orders o join order_steps st on st.order_id = o.id where ${OPEN} order by st.order_id, st.traveller_kind, st.seq`,
+      )
+      .all() as (StepRow & { name: string; colour: number | null })[];
+  },
+  /** step runs started since `since`, with the standard minutes of their step */
+  runsSince(db: Db, since: number): RunRow[] {
+    return client(db)
+      .prepare(
+        `select r.order_id as orderId, r.tray_id as trayId, r.traveller_kind as travellerKind, r.step_seq as stepSeq, r.station_kind as stationKind,
+           r.station_id as stationId, r.ready_at as readyAt, r.started_at as startedAt, r.finished_at as finishedAt, r.qty_in as qtyIn, r.implicit,
+           st.tray_minutes as trayMinutes, st.piece_minutes as pieceMinutes, st.cure_minutes as cureMinutes
+         from step_runs r left join order_steps st on st.order_id = r.order_id and st.traveller_kind = r.traveller_kind and st.seq = r.step_seq
+         where r.started_at is not null and r.finished_at >= ?`,
+      )
+      .all(since) as RunRow[];
+  },
+  /** hold and release scans since `since`, per traveller in time order */
+  holdsSince(db: Db, since: number): { trayId: string; type: 'hold' | 'release'; occurredAt: number }[] {
+    return client(db)
+      .prepare(`select tray_id as trayId, type, occurred_at as occurredAt from scan_events where type in ('hold', 'release') and occurred_at >= ? order by tray_id, occurred_at`)
+      .all(since) as { trayId: string; type: 'hold' | 'release'; occurredAt: number }[];
+  },
+  stations(db: Db): { id: string; kind: string; capacityTrays: number; active: number }[] {
+    return client(db).prepare('select id, kind, capacity_trays as capacityTrays, active from stations').all() as { id: string; kind: string; capacityTrays: number; active: number }[];
+  },
   /** released, not shipped, not cancelled */
   openOrders(db: Db): OpenOrderRow[] {
     return client(db)

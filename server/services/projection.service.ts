@@ -1,12 +1,11 @@
 import type { AppDeps } from '../app-deps';
-import { projectionRepository as repo, type OpenOrderRow, type StepRow, type TrayStateRow } from '../repositories/projection.repository';
-import { reportsRepository } from '../repositories/reports.repository';
+import { projectionRepository as repo, type OpenOrderRow, type TrayStateRow } from '../repositories/projection.repository';
 import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
-import { projectTrays, queueTimesOf, type ProjectedStep, type QueueSamples, type QueueTimes, type TrayOutlook } from '@shared/domain/projection';
+import { measureFloor, projectFloor, type OrderOutlook } from '@shared/domain/floor-projection';
+import { measuredFromRuns, type FloorSnapshot } from '@shared/domain/floor-history';
 import { DAY, dayNumberOfDate, dateOfDayNumber, startOfLocalDate, type WorkingCalendar } from '@shared/domain/calendar';
-import { seedOf } from '@shared/domain/stats';
-import { STATION_KINDS } from '@shared/domain/vocabulary';
+import { STATION_KIND_NAMES, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
 import type { LateRiskOrder, OrderProjection } from '@shared/schemas/reports';
 
 // Projected ship dates for open orders. Other features call:
@@ -16,62 +15,78 @@ import type { LateRiskOrder, OrderProjection } from '@shared/schemas/reports';
 // expectedAt is the projected ship date to show; p85At the date it ships by with 85 % confidence.
 
 const HISTORY_DAYS = 90;
-const SAMPLES_PER_KIND = 400;
-const RUNS = 200;
+/** runs of the floor per projection */
+export const PROJECTION_RUNS = 100;
 const CACHE_MS = 60_000;
-const MOULD_KINDS = new Set(['strike', 'cast']);
 
 interface Cache {
   key: string;
   at: number;
   byOrder: Map<string, OrderProjection>;
+  outlooks: Map<string, OrderOutlook>;
   orders: OpenOrderRow[];
 }
 const caches = new WeakMap<object, Cache>();
 
-function queueSamples(deps: AppDeps, cal: WorkingCalendar, now: number): QueueSamples {
-  const out: Record<string, number[]> = {};
-  for (const kind of STATION_KINDS) {
-    const rows = reportsRepository.recentQueues(deps.db, kind, now - HISTORY_DAYS * DAY, SAMPLES_PER_KIND);
-    if (rows.length) out[kind] = rows.map((r) => Math.max(0, cal.forStation(r.stationId, kind).workingMinutesBetween(r.readyAt, r.startedAt)));
-  }
-  return out;
+const iso = (x: number | null) => (x == null ? null : new Date(x).toISOString());
+
+function stateOf(r: TrayStateRow): TrayState {
+  return {
+    trayId: r.trayId,
+    kind: r.kind,
+    phase: r.phase as TrayState['phase'],
+    stepSeq: r.stepSeq,
+    quantity: r.quantity,
+    stationId: null,
+    startedAt: iso(r.startedAt),
+    waitingSince: iso(r.waitingSince),
+    cureReadyAt: iso(r.cureReadyAt),
+    onHold: !!r.onHold,
+    holdReason: null,
+    releasedAt: iso(r.releasedAt)!,
+    lastEventAt: iso(r.lastEventAt),
+  };
 }
 
-function outlook(tray: TrayStateRow, steps: StepRow[], now: number, notBefore: number | null): TrayOutlook {
-  const own = steps.filter((s) => s.kind === tray.kind);
-  const std = (s: StepRow, qty: number): ProjectedStep => ({
-    seq: s.seq,
-    stationKind: s.stationKind,
-    standardMinutes: s.trayMinutes + s.pieceMinutes * (tray.kind === 'mould' ? 1 : qty),
-    cureMinutes: s.cureMinutes,
-  });
-  if (tray.phase === 'done' || tray.phase === 'scrapped' || tray.phase === 'merged') {
-    return { trayId: tray.trayId, phase: tray.phase, steps: [], finishedAt: tray.lastEventAt ?? now };
+/** The open floor now, as the domain's as-of projection takes it: stored tray states and measured step runs. */
+export function floorSnapshot(deps: AppDeps, now: number): { snapshot: FloorSnapshot; orders: OpenOrderRow[] } {
+  const db = deps.db;
+  const orders = repo.openOrders(db);
+  const trays = repo.openTrays(db);
+  const steps = repo.openSteps(db);
+  const traysOf = new Map<string, TrayStateRow[]>();
+  for (const t of trays) (traysOf.get(t.orderId) ?? traysOf.set(t.orderId, []).get(t.orderId)!).push(t);
+  const routingOf = new Map<string, { tray: RoutingStep[]; mould: RoutingStep[] }>();
+  for (const st of steps) {
+    const r = routingOf.get(st.orderId) ?? routingOf.set(st.orderId, { tray: [], mould: [] }).get(st.orderId)!;
+    r[st.kind].push({ seq: st.seq, name: st.name, stationKind: st.stationKind as StationKind, trayMinutes: st.trayMinutes, pieceMinutes: st.pieceMinutes, cureMinutes: st.cureMinutes, colour: st.colour });
   }
-  let phase = tray.phase as TrayOutlook['phase'];
-  let from = tray.stepSeq ?? 1;
-  let waitingSince = tray.waitingSince;
-  // a cure that has run out: the tray waits for the next step since the cure ended
-  if (phase === 'curing' && tray.cureReadyAt != null && tray.cureReadyAt <= now) {
-    phase = 'waiting';
-    from += 1;
-    waitingSince = tray.cureReadyAt;
-  }
-  const remaining = own.filter((s) => s.seq >= from).map((s) => std(s, tray.quantity));
-  const first = remaining[0];
-  const blockedByMould = phase === 'waiting' && first && MOULD_KINDS.has(first.stationKind) && notBefore != null;
-  const cureReady = phase === 'waiting' ? tray.cureReadyAt : null;
-  const limit = Math.max(cureReady ?? -Infinity, blockedByMould ? (notBefore as number) : -Infinity);
-  return {
-    trayId: tray.trayId,
-    phase,
-    steps: remaining,
-    startedAt: tray.startedAt,
-    waitingSince,
-    cureReadyAt: Number.isFinite(limit) ? limit : null,
-    onHold: !!tray.onHold,
+  const since = now - HISTORY_DAYS * DAY;
+  const runs = repo.runsSince(db, since).map((r) => ({
+    ...r,
+    implicit: !!r.implicit,
+    standardMinutes: r.trayMinutes == null ? null : r.trayMinutes + (r.pieceMinutes ?? 0) * (r.travellerKind === 'mould' ? 1 : r.qtyIn),
+    cure: (r.cureMinutes ?? 0) > 0,
+  }));
+  const snapshot: FloorSnapshot = {
+    now,
+    orders: orders.map((o) => ({
+      id: o.id,
+      number: o.number,
+      dueDate: o.dueDate,
+      releasedAt: o.releasedAt ?? now,
+      travellers: (traysOf.get(o.id) ?? []).map((t) => ({ id: t.trayId, kind: t.kind, state: stateOf(t) })),
+      routing: routingOf.get(o.id) ?? { tray: [], mould: [] },
+    })),
+    measured: measuredFromRuns(runs, repo.holdsSince(db, since)),
   };
+  return { snapshot, orders };
+}
+
+/** The measured model of the floor now (cached with the projections). */
+function modelOf(deps: AppDeps, snapshot: FloorSnapshot, cal: WorkingCalendar) {
+  const stations = repo.stations(deps.db).map((s) => ({ kind: s.kind, capacityTrays: s.capacityTrays, active: !!s.active }));
+  return measureFloor(snapshot.measured, cal, stations);
 }
 
 const formatters = new Map<string, Intl.DateTimeFormat>();
@@ -86,54 +101,51 @@ function hours(min: number): string {
   return h < 10 ? `${Math.round(h * 10) / 10} h` : `${Math.round(h)} h`;
 }
 
-function projectOrder(deps: AppDeps, order: OpenOrderRow, cal: WorkingCalendar, samples: QueueSamples, queueTimes: QueueTimes, now: number): OrderProjection {
-  const trays = repo.traysOf(deps.db, order.id);
-  const steps = repo.stepsOf(deps.db, order.id);
-  const opts = { now, calendar: cal, queueSamples: samples, queueTimes, runs: RUNS, seed: seedOf(order.id) };
-  const moulds = trays.filter((t) => t.kind === 'mould');
-  const mouldsOpen = moulds.filter((t) => !['done', 'scrapped', 'merged'].includes(t.phase));
-  const mouldReady = mouldsOpen.length ? projectTrays(mouldsOpen.map((m) => outlook(m, steps, now, null)), opts).expectedAt : null;
-  const pieces = trays.filter((t) => t.kind === 'tray');
-  const p = projectTrays(
-    pieces.map((t) => outlook(t, steps, now, mouldReady)),
-    opts,
+function explain(tz: string, p: OrderOutlook): string {
+  if (p.expectedAt === null) return 'No trays on the floor yet, so there is nothing to project.';
+  if (p.traysOpen === 0) return 'Every tray has finished its steps.';
+  const waits = p.drivingKind ? ` The longest waiting is at ${STATION_KIND_NAMES[p.drivingKind as StationKind] ?? p.drivingKind} (about ${hours(p.drivingWaitMinutes)} a run).` : '';
+  return (
+    `Expected ${fmt(tz, p.expectedAt)}, and by ${fmt(tz, p.p85At ?? p.expectedAt)} in 85 of ${p.runs} simulated runs of the whole floor: ` +
+    `every open tray competes for the stations' places, with handover, hold and process times measured over the last ${HISTORY_DAYS} days, on the working calendar. ` +
+    `The tray with the most work has ${p.remainingSteps} step${p.remainingSteps === 1 ? '' : 's'} left: ${hours(p.standardMinutes)} of standard work.` +
+    waits +
+    (p.traysOnHold ? ` ${p.traysOnHold} tray${p.traysOnHold === 1 ? ' is' : 's are'} on hold.` : '')
   );
-  const dueEnd = startOfLocalDate(cal.timeZone, dateOfDayNumber(dayNumberOfDate(order.dueDate) + 1));
-  const tz = cal.timeZone;
-  let explanation: string;
-  if (p.expectedAt === null) explanation = 'No trays on the floor yet, so there is nothing to project.';
-  else if (p.remainingSteps === 0) explanation = 'Every tray has finished its steps.';
-  else {
-    explanation =
-      `Expected ${fmt(tz, p.expectedAt)}, and by ${fmt(tz, p.p85At ?? p.expectedAt)} in 85 of 100 simulated runs. ` +
-      `The slowest tray has ${p.remainingSteps} step${p.remainingSteps === 1 ? '' : 's'} left: ${hours(p.standardMinutes)} of standard work, ` +
-      `${hours(p.queueMinutes)} of typical waiting (measured over the last ${HISTORY_DAYS} days)` +
-      (p.cureMinutes > 0 ? ` and ${hours(p.cureMinutes)} of curing` : '') +
-      `, laid on the working calendar${p.traysOnHold ? `; ${p.traysOnHold} tray${p.traysOnHold === 1 ? ' is' : 's are'} on hold` : ''}.`;
-  }
+}
+
+function toProjection(o: { id: string; dueDate: string }, p: OrderOutlook, tz: string): OrderProjection {
+  const dueEnd = startOfLocalDate(tz, dateOfDayNumber(dayNumberOfDate(o.dueDate) + 1));
   return {
-    orderId: order.id,
-    expectedAt: p.expectedAt === null ? null : new Date(p.expectedAt).toISOString(),
-    p85At: p.p85At === null ? null : new Date(p.p85At).toISOString(),
-    dueDate: order.dueDate,
+    orderId: o.id,
+    expectedAt: iso(p.expectedAt),
+    p85At: iso(p.p85At),
+    dueDate: o.dueDate,
     late: p.expectedAt !== null && p.expectedAt > dueEnd,
-    explanation,
+    explanation: explain(tz, p),
   };
+}
+
+/** Projects a floor snapshot with the server's settings. */
+export function projectSnapshot(deps: AppDeps, snapshot: FloorSnapshot, cal: WorkingCalendar): Map<string, OrderOutlook> {
+  return projectFloor(snapshot, { calendar: cal, model: modelOf(deps, snapshot, cal), runs: PROJECTION_RUNS });
 }
 
 function compute(deps: AppDeps): Cache {
   const key = repo.fingerprint(deps.db);
   const hit = caches.get(deps.db);
   const now = deps.now();
-  if (hit && hit.key === key && now - hit.at < CACHE_MS) return hit;
+  if (hit && hit.key === key && now - hit.at < CACHE_MS && now >= hit.at) return hit;
   reportFactsService.catchUp(deps);
   const cal = calendarService.calendar(deps);
-  const samples = queueSamples(deps, cal, now);
-  const orders = repo.openOrders(deps.db);
+  const { snapshot, orders } = floorSnapshot(deps, now);
+  const outlooks = projectSnapshot(deps, snapshot, cal);
   const byOrder = new Map<string, OrderProjection>();
-  const queueTimes = queueTimesOf({ queueSamples: samples });
-  for (const o of orders) byOrder.set(o.id, projectOrder(deps, o, cal, samples, queueTimes, now));
-  const fresh = { key, at: now, byOrder, orders };
+  for (const o of orders) {
+    const p = outlooks.get(o.id);
+    if (p) byOrder.set(o.id, toProjection(o, p, cal.timeZone));
+  }
+  const fresh = { key, at: now, byOrder, outlooks, orders };
   caches.set(deps.db, fresh);
   return fresh;
 }

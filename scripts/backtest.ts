@@ -1,0 +1,25 @@
+// `npm run backtest [floors]`: projected ship dates against what happened, on invented floors
+// made by the demo simulator. Prints the table and writes .tmp/backtest.json.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { formatTable, runBacktest } from '../server/backtest/backtest';
+import { productProjector } from '../server/backtest/projector';
+import { PROJECTION_RUNS } from '../server/services/projection.service';
+
+const floors = Number(process.argv[2] ?? 12);
+if (!Number.isInteger(floors) || floors < 1) {
+  console.error('usage: npm run backtest [number of floors, default 12]');
+  process.exit(2);
+}
+const started = Date.now();
+console.log(`Backtest · ${floors} floors of 70 days · ${PROJECTION_RUNS} runs a projection · ${os.cpus().length} cores`);
+const result = runBacktest(productProjector(PROJECTION_RUNS), {
+  floors,
+  onFloor: (i) => process.stdout.write(`  floor ${i + 1} of ${floors} (${((Date.now() - started) / 1000).toFixed(0)} s)\n`),
+});
+console.log(`\n${formatTable(result)}\n`);
+const out = path.join(import.meta.dirname, '..', '.tmp', 'backtest.json');
+fs.mkdirSync(path.dirname(out), { recursive: true });
+fs.writeFileSync(out, JSON.stringify(result, null, 2));
+console.log(`${((Date.now() - started) / 1000).toFixed(1)} s · written to ${path.relative(process.cwd(), out)}`);

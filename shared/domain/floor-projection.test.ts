@@ -1,0 +1,116 @@
+import { describe, expect, it } from 'vitest';
+import { compileCalendar, type Shift } from './calendar';
+import type { FloorSnapshot, MeasuredHistory, SnapshotOrder } from './floor-history';
+import { measureFloor, projectFloor, WaitDistribution } from './floor-projection';
+import { seededRandom } from './stats';
+import { initialTrayState, type RoutingStep } from './vocabulary';
+
+const MIN = 60_000;
+const T0 = Date.parse('2025-06-09T00:00:00Z'); // a Monday
+// every kind used here works around the clock, so working minutes are plain minutes
+const calendar = compileCalendar({
+  timeZone: 'UTC',
+  week: { mon: [], tue: [], wed: [], thu: [], fri: [], sat: [], sun: [] },
+  daysOff: [],
+  stations: { trim: { continuous: true }, pack: { continuous: true }, dispatch: { continuous: true } },
+});
+const day: Shift[] = [{ start: '08:00', end: '16:00' }];
+const shifts = compileCalendar({ timeZone: 'UTC', week: { mon: day, tue: day, wed: day, thu: day, fri: day, sat: [], sun: [] }, daysOff: [], stations: {} });
+const none: MeasuredHistory = { queues: [], processes: [], dispatches: [], holds: [] };
+const step = (seq: number, stationKind: RoutingStep['stationKind'], minutes: number): RoutingStep => ({ seq, name: stationKind, stationKind, trayMinutes: minutes, pieceMinutes: 0, cureMinutes: null });
+
+function order(id: string, trays: number, routing: RoutingStep[], arrivals?: number[], dueDate = '2025-07-01'): SnapshotOrder {
+  return {
+    id,
+    number: id,
+    dueDate,
+    releasedAt: T0,
+    routing: { tray: routing, mould: [] },
+    travellers: Array.from({ length: trays }, (_, i) => {
+      const st = initialTrayState({ trayId: `${id}-${i}`, kind: 'tray', quantity: 10, releasedAt: new Date(T0).toISOString() });
+      // a tray that reaches the station later: it may not start before its arrival
+      return { id: `${id}-${i}`, kind: 'tray' as const, state: arrivals ? { ...st, cureReadyAt: new Date(arrivals[i]).toISOString() } : st };
+    }),
+  };
+}
+
+describe('finite-capacity runs against known answers', () => {
+  it('one station of capacity 1, fixed 30 min, 10 trays at once: the last finishes after 300 min', () => {
+    // references.md, "Known answers for a floor simulation" (computed): 10 × 30 = 300 working minutes
+    const snap: FloorSnapshot = { now: T0, orders: [order('A', 10, [step(1, 'trim', 30)])], measured: none };
+    const model = measureFloor(none, calendar, [{ kind: 'trim', capacityTrays: 1 }]);
+    const p = projectFloor(snap, { calendar, model, runs: 20 }).get('A')!;
+    expect(p.expectedAt).toBe(T0 + 300 * MIN);
+    expect(p.p85At).toBe(T0 + 300 * MIN);
+    // with two places the same work takes half as long; without capacity, one tray's time
+    expect(projectFloor(snap, { calendar, model: measureFloor(none, calendar, [{ kind: 'trim', capacityTrays: 2 }]), runs: 5 }).get('A')!.expectedAt).toBe(T0 + 150 * MIN);
+    expect(projectFloor(snap, { calendar, model, runs: 5, capacity: false }).get('A')!.expectedAt).toBe(T0 + 30 * MIN);
+  });
+
+  it('lays the work on the shifts: 10 × 60 min from Monday 08:00 ends Tuesday 10:00', () => {
+    // hand-worked: 8 h on Monday (08:00–16:00), the last 2 h on Tuesday from 08:00
+    const snap: FloorSnapshot = { now: T0 + 8 * 60 * MIN, orders: [order('B', 10, [step(1, 'trim', 60)])], measured: none };
+    const model = measureFloor(none, shifts, [{ kind: 'trim', capacityTrays: 1 }]);
+    expect(projectFloor(snap, { calendar: shifts, model, runs: 3 }).get('B')!.expectedAt).toBe(Date.parse('2025-06-10T10:00:00Z'));
+  });
+
+  it('an M/M/1 queue: mean wait Wq = ρ/(μ − λ) = 32 min for arrivals every 10 min and service 8 min', () => {
+    // Kingman (1961) / references.md (computed): λ = 0.1/min, μ = 0.125/min, ρ = 0.8 → Wq = 32 min,
+    // time in the system W = Wq + 1/μ = 40 min; Little (1961): L = λW = 4 trays on average.
+    const rnd = seededRandom(2025);
+    const n = 40_000;
+    const arrivals: number[] = [];
+    let t = T0;
+    for (let i = 0; i < n; i++) {
+      t += -Math.log(1 - rnd()) * 10 * MIN;
+      arrivals.push(Math.round(t));
+    }
+    // exponential service with mean 8 min: measured process times of 8-minute standard steps,
+    // given as the ratio measured ÷ standard at 4,000 evenly spaced exponential quantiles
+    const processes = Array.from({ length: 4000 }, (_, i) => {
+      const minutes = -Math.log(1 - (i + 0.5) / 4000) * 8;
+      return { stationKind: 'trim', stationId: null, startedAt: T0 - 10 * 86_400_000 + i * 1000, finishedAt: T0 - 10 * 86_400_000 + i * 1000 + minutes * MIN, standardMinutes: 8 };
+    });
+    const model = measureFloor({ ...none, processes }, calendar, [{ kind: 'trim', capacityTrays: 1 }], { perKind: 4000 });
+    // one tray per order, all due the same day: a freed place goes to the one that asked first
+    const orders = arrivals.map((a, i) => order(`q${i}`, 1, [step(1, 'trim', 8)], [a]));
+    const out = projectFloor({ now: T0, orders, measured: none }, { calendar, model, runs: 1 });
+    let sum = 0;
+    orders.forEach((o, i) => (sum += out.get(o.id)!.expectedAt! - arrivals[i]));
+    const W = sum / n / MIN;
+    const Wq = W - 8;
+    expect(Math.abs(Wq - 32) / 32).toBeLessThan(0.05);
+  });
+});
+
+describe('waits drawn from history', () => {
+  it('gives a tray that has waited past every sample a tail, not zero', () => {
+    const d = new WaitDistribution(Array.from({ length: 20 }, (_, i) => i + 1));
+    // mean excess of the 10 longest (11..20, mean 15.5) over the 10th longest below them (10) = 5.5
+    expect(d.tailMean).toBeCloseTo(5.5, 10);
+    expect(d.meanRemaining(100)).toBeCloseTo(5.5, 10);
+    expect(d.drawRemaining(100, 0.5)).toBeGreaterThan(0);
+    // below the tail: the measured waits longer than what was waited, minus it (mean of 6..20 − 5 = 8)
+    expect(d.meanRemaining(5)).toBeCloseTo(8, 10);
+  });
+
+  it('counts the dispatch wait once per order, from its last packed tray', () => {
+    // two trays pack 30 min each on one packer (finish 30 and 60); dispatch waits 120 min measured
+    // once per order → ship at 60 + 120 + 5 = 185 min, however many trays the order has
+    const dispatches = Array.from({ length: 12 }, (_, i) => ({ orderId: `old${i}`, lastPackedAt: T0 - 86_400_000 + i * 1000, startedAt: T0 - 86_400_000 + i * 1000 + 120 * MIN }));
+    const model = measureFloor({ ...none, dispatches }, calendar, [{ kind: 'pack', capacityTrays: 1 }]);
+    const snap: FloorSnapshot = { now: T0, orders: [order('D', 2, [step(1, 'pack', 30), step(2, 'dispatch', 5)])], measured: none };
+    expect(projectFloor(snap, { calendar, model, runs: 10 }).get('D')!.expectedAt).toBe(T0 + 185 * MIN);
+  });
+
+  it('is repeatable, and a second order competing for the places moves the first no earlier', () => {
+    const model = measureFloor(none, calendar, [{ kind: 'trim', capacityTrays: 1 }]);
+    const a = order('A', 4, [step(1, 'trim', 30)], undefined, '2025-06-20');
+    const alone = projectFloor({ now: T0, orders: [a], measured: none }, { calendar, model, runs: 10 });
+    expect(projectFloor({ now: T0, orders: [a], measured: none }, { calendar, model, runs: 10 })).toEqual(alone);
+    // the newcomer is due earlier, so it goes first and A waits behind its 5 trays
+    const both = projectFloor({ now: T0, orders: [a, order('N', 5, [step(1, 'trim', 30)], undefined, '2025-06-12')], measured: none }, { calendar, model, runs: 10 });
+    expect(both.get('A')!.expectedAt).toBe(T0 + 270 * MIN);
+    expect(both.get('A')!.p85At!).toBeGreaterThanOrEqual(alone.get('A')!.p85At!);
+  });
+});

@@ -1,0 +1,640 @@
+// Projected ship dates of every open order: a finite-capacity Monte Carlo of the open floor.
+//
+// Each run plays the floor forward from `now`. Every open traveller walks its remaining
+// steps; at each step it first waits a handover time drawn from history, then asks for a
+// place at a station of the step's kind. A kind has as many places as its stations'
+// `capacityTrays` together; when all are taken the traveller queues, and a freed place goes to
+// the waiting traveller whose order is due first, then to the one that asked first. Work is
+// laid on the working calendar of the kind (shifts, days off); an oven holds its place for the
+// cure on its own calendar, through nights and weekends. Process times are the standard
+// minutes times a ratio drawn from measured steps. Strikes and casts wait for the order's
+// moulds. An order's trays are gathered before dispatch: the dispatch wait is drawn once per
+// order, from the measured wait between an order's last packed tray and its dispatch.
+//
+// Queue theory behind the checks: Little (1961), L = λW, and Kingman (1961) for the mean wait
+// of a single queue (M/M/1: Wq = ρ/(μ − λ)); the unit tests check the simulation against both.
+// The handover times are the measured waits of travellers that found a free place on arrival,
+// so that the wait for capacity is simulated, not counted twice. Expected date: the mean of
+// the runs; 85th percentile: type 7 over the runs (Hyndman & Fan 1996). Calibration is
+// measured by the backtest (Gneiting & Raftery 2007).
+//
+// Each traveller draws from its own random stream (seeded by its id and the run), so the same
+// floor gives the same dates, and adding an order changes others' dates only through capacity.
+import type { Timeline, WorkingCalendar } from './calendar';
+import { countAtMost, quantileSorted, seedOf } from './stats';
+import { ORDER_LEVEL_KINDS, type DispatchRecord, type FloorSnapshot, type MeasuredHistory, type ProcessRecord, type QueueRecord } from './floor-history';
+import type { RoutingStep, TrayState } from './vocabulary';
+import { MOULD_USING_KINDS } from './routing';
+
+const MINUTE = 60_000;
+const MOULD_STEP_KINDS = new Set(['engrave', 'mould_check']);
+
+// ---- measured history ----------------------------------------------------------------------
+
+/** Fewer samples above a wait than this: the rest of the wait comes from the tail estimate. */
+export const TAIL_SAMPLES = 10;
+
+/**
+ * A measured waiting time (working minutes). `remaining(waited)` draws what is left of a wait
+ * that has already lasted `waited`: from the measured waits longer than that when there are
+ * enough of them, otherwise from an exponential tail whose mean is the mean excess of the
+ * longest waits over the threshold below them (mean residual life of the top `TAIL_SAMPLES`;
+ * a memoryless tail, the simplest peaks-over-threshold estimate — from memory, Balkema & de
+ * Haan 1974 / Pickands 1975 for the general theory). A tray that has waited longer than every
+ * sample is given that tail, never zero.
+ */
+export class WaitDistribution {
+  readonly sorted: Float64Array;
+  private readonly suffix: Float64Array;
+  readonly tailMean: number;
+  constructor(samples: readonly number[]) {
+    this.sorted = Float64Array.from(samples.filter((x) => Number.isFinite(x) && x >= 0)).sort();
+    const n = this.sorted.length;
+    this.suffix = new Float64Array(n + 1);
+    for (let i = n - 1; i >= 0; i--) this.suffix[i] = this.suffix[i + 1] + this.sorted[i];
+    const k = Math.min(TAIL_SAMPLES, n);
+    if (k === 0) this.tailMean = 0;
+    else {
+      const threshold = n > k ? this.sorted[n - k - 1] : 0;
+      this.tailMean = Math.max(1, this.suffix[n - k] / k - threshold);
+    }
+  }
+  get n() {
+    return this.sorted.length;
+  }
+  /** the mean of what is left after `waited` */
+  meanRemaining(waited: number): number {
+    const n = this.sorted.length;
+    if (n === 0) return 0;
+    const i = waited > 0 ? countAtMost(this.sorted, waited) : 0;
+    if (n - i >= TAIL_SAMPLES || (i === 0 && n > 0)) return this.suffix[i] / (n - i) - Math.max(0, waited);
+    return this.tailMean;
+  }
+  /** a draw of what is left after `waited`; `u` uniform in [0, 1) */
+  drawRemaining(waited: number, u: number): number {
+    const n = this.sorted.length;
+    if (n === 0) return 0;
+    const i = waited > 0 ? countAtMost(this.sorted, waited) : 0;
+    if (n - i >= TAIL_SAMPLES || i === 0) return this.sorted[i + Math.floor(u * (n - i))] - Math.max(0, waited);
+    return -Math.log(1 - u) * this.tailMean;
+  }
+}
+
+export interface FloorModel {
+  /** handover waits per kind: measured waits of travellers that found a free place on arrival */
+  handover: Map<string, WaitDistribution>;
+  /** every measured wait per kind (the model without capacity uses these) */
+  queue: Map<string, WaitDistribution>;
+  /** the order-level wait before dispatch: last packed tray → dispatch start */
+  dispatch: WaitDistribution;
+  /** measured process time ÷ standard time, per kind (sorted) */
+  ratio: Map<string, Float64Array>;
+  /** chance that a tray is put on hold while it waits for a step, and how long holds last */
+  holdRate: number;
+  hold: WaitDistribution;
+  /** places per kind (sum of stations' capacityTrays) */
+  places: Map<string, number>;
+  /** measured samples, for the explanation */
+  counts: { queues: number; processes: number; dispatches: number };
+}
+
+export interface MeasureOptions {
+  /** most recent samples kept per kind (default 400) */
+  perKind?: number;
+  /** fewer samples than this for a kind: pooled samples of its traveller kind (default 5) */
+  minSamples?: number;
+}
+
+export interface StationPlaces {
+  id?: string;
+  kind: string;
+  capacityTrays: number;
+  active?: boolean;
+}
+
+function latest<T>(rows: readonly T[], at: (r: T) => number, n: number): T[] {
+  return [...rows].sort((a, b) => at(b) - at(a)).slice(0, n);
+}
+
+/** Builds the model's distributions from what the floor measured. */
+export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalendar, stations: readonly StationPlaces[], o: MeasureOptions = {}): FloorModel {
+  const perKind = o.perKind ?? 400;
+  const minSamples = o.minSamples ?? 5;
+  const places = new Map<string, number>();
+  for (const s of stations) if (s.active !== false) places.set(s.kind, (places.get(s.kind) ?? 0) + Math.max(1, s.capacityTrays));
+
+  // occupancy per kind at a moment, from measured steps: starts ≤ t minus finishes ≤ t
+  const busyStarts = new Map<string, number[]>();
+  const busyEnds = new Map<string, number[]>();
+  for (const p of measured.processes) {
+    (busyStarts.get(p.stationKind) ?? busyStarts.set(p.stationKind, []).get(p.stationKind)!).push(p.startedAt);
+    (busyEnds.get(p.stationKind) ?? busyEnds.set(p.stationKind, []).get(p.stationKind)!).push(p.finishedAt);
+  }
+  const starts = new Map([...busyStarts].map(([k, v]) => [k, Float64Array.from(v).sort()]));
+  const ends = new Map([...busyEnds].map(([k, v]) => [k, Float64Array.from(v).sort()]));
+  const busyAt = (kind: string, t: number) => countAtMost(starts.get(kind) ?? new Float64Array(), t) - countAtMost(ends.get(kind) ?? new Float64Array(), t);
+
+  // the places a kind really works at once: its stations' capacity, or fewer when the crew
+  // limits it (the most steps of that kind measured under way at one moment)
+  for (const [kind, st] of starts) {
+    let peak = 0;
+    for (let i = 0; i < st.length; i++) peak = Math.max(peak, busyAt(kind, st[i]));
+    const cap = places.get(kind);
+    if (cap != null && peak > 0 && st.length >= minSamples) places.set(kind, Math.min(cap, peak));
+  }
+
+  const own = (q: QueueRecord) => (MOULD_STEP_KINDS.has(q.stationKind) ? q.travellerKind === 'mould' : q.travellerKind === 'tray');
+  const byKind = new Map<string, QueueRecord[]>();
+  for (const q of measured.queues) {
+    if (!own(q) || ORDER_LEVEL_KINDS.includes(q.stationKind)) continue;
+    (byKind.get(q.stationKind) ?? byKind.set(q.stationKind, []).get(q.stationKind)!).push(q);
+  }
+  const wm = (q: { stationKind: string; stationId: string | null; readyAt: number; startedAt: number }) =>
+    Math.max(0, calendar.forStation(q.stationId, q.stationKind).workingMinutesBetween(q.readyAt, q.startedAt));
+  const queue = new Map<string, WaitDistribution>();
+  const handover = new Map<string, WaitDistribution>();
+  const pooled: Record<'tray' | 'mould', { all: number[]; free: number[] }> = { tray: { all: [], free: [] }, mould: { all: [], free: [] } };
+  const raw = new Map<string, { all: number[]; free: number[] }>();
+  for (const [kind, rows] of byKind) {
+    const recent = latest(rows, (r) => r.startedAt, perKind);
+    const all: number[] = [];
+    const free: number[] = [];
+    const cap = places.get(kind) ?? Infinity;
+    for (const r of recent) {
+      const w = wm(r);
+      all.push(w);
+      if (r.lead ?? busyAt(kind, r.readyAt) < cap) free.push(w);
+    }
+    raw.set(kind, { all, free });
+    const pool = pooled[MOULD_STEP_KINDS.has(kind) ? 'mould' : 'tray'];
+    pool.all.push(...all);
+    pool.free.push(...free);
+  }
+  const kinds = new Set([...places.keys(), ...raw.keys()]);
+  for (const kind of kinds) {
+    if (ORDER_LEVEL_KINDS.includes(kind)) continue;
+    const r = raw.get(kind);
+    const pool = pooled[MOULD_STEP_KINDS.has(kind) ? 'mould' : 'tray'];
+    queue.set(kind, new WaitDistribution(r && r.all.length >= minSamples ? r.all : pool.all));
+    handover.set(kind, new WaitDistribution(r && r.free.length >= minSamples ? r.free : r && r.all.length >= minSamples ? r.all : pool.free));
+  }
+  const dispatchWaits = latest(measured.dispatches, (d: DispatchRecord) => d.startedAt, perKind).map((d) =>
+    Math.max(0, calendar.forStation(ORDER_LEVEL_KINDS[0]).workingMinutesBetween(d.lastPackedAt, d.startedAt)),
+  );
+
+  const ratioRaw = new Map<string, number[]>();
+  for (const p of latest(measured.processes.filter((x) => !x.cure && x.standardMinutes > 0), (x: ProcessRecord) => x.finishedAt, perKind * 20)) {
+    const list = ratioRaw.get(p.stationKind) ?? ratioRaw.set(p.stationKind, []).get(p.stationKind)!;
+    if (list.length >= perKind) continue;
+    const worked = calendar.forStation(p.stationId, p.stationKind).workingMinutesBetween(p.startedAt, p.finishedAt);
+    if (worked >= 0) list.push(worked / p.standardMinutes);
+  }
+  const ratio = new Map<string, Float64Array>();
+  for (const [k, v] of ratioRaw) if (v.length >= minSamples) ratio.set(k, Float64Array.from(v).sort());
+  const trayWaits = measured.queues.filter((q) => q.travellerKind === 'tray').length;
+  return {
+    holdRate: trayWaits ? Math.min(1, measured.holds.length / trayWaits) : 0,
+    hold: new WaitDistribution(measured.holds.map((h) => Math.max(0, calendar.factory.workingMinutesBetween(h.heldAt, h.releasedAt)))),
+    handover,
+    queue,
+    dispatch: new WaitDistribution(dispatchWaits),
+    ratio,
+    places,
+    counts: { queues: measured.queues.length, processes: measured.processes.length, dispatches: dispatchWaits.length },
+  };
+}
+
+// ---- the simulation ------------------------------------------------------------------------
+
+export interface ProjectFloorOptions {
+  calendar: WorkingCalendar;
+  model: FloorModel;
+  /** runs of the floor (default 100) */
+  runs?: number;
+  seed?: number;
+  /** false: every kind has unlimited places and the full measured waits are drawn */
+  capacity?: boolean;
+  /** how a freed place picks the next traveller (default earliest due date, then first to ask) */
+  rule?: 'due_date' | 'first_come';
+}
+
+export interface OrderOutlook {
+  orderId: string;
+  expectedAt: number | null;
+  p85At: number | null;
+  runs: number;
+  /** the station kind where the order's travellers spend the longest waiting, on average */
+  drivingKind: string | null;
+  /** mean minutes of waiting per run at that kind */
+  drivingWaitMinutes: number;
+  traysOpen: number;
+  traysOnHold: number;
+  /** the tray with the most standard work left: its steps and standard minutes */
+  remainingSteps: number;
+  standardMinutes: number;
+}
+
+interface Sim {
+  order: number;
+  kind: 'tray' | 'mould';
+  /** the remaining steps in order */
+  steps: RoutingStep[];
+  qty: number;
+  idx: number;
+  /** working minutes already waited for the first step */
+  waited: number;
+  notBefore: number;
+  /** in process at `now`: the step under way finishes at/after this */
+  startedAt: number | null;
+  seed: number;
+  rnd: number;
+  requestAt: number;
+  /** waiting since (for a tray already gathered before dispatch: when it was packed) */
+  since: number;
+  /** on hold now: working minutes held so far (−1: not held) */
+  heldFor: number;
+}
+
+const ms = (x: string | null | undefined) => (x ? Date.parse(x) : null);
+
+/** The heap of pending events: time, then insertion order (deterministic). */
+class EventHeap {
+  private t: number[] = [];
+  private n: number[] = [];
+  private who: number[] = [];
+  private what: number[] = [];
+  private c = 0;
+  get size() {
+    return this.t.length;
+  }
+  push(time: number, who: number, what: number) {
+    const { t, n, who: w, what: k } = this;
+    t.push(time);
+    n.push(this.c++);
+    w.push(who);
+    k.push(what);
+    let i = t.length - 1;
+    while (i > 0) {
+      const p = (i - 1) >> 1;
+      if (t[p] < t[i] || (t[p] === t[i] && n[p] < n[i])) break;
+      this.swap(i, p);
+      i = p;
+    }
+  }
+  private swap(a: number, b: number) {
+    const t = this.t;
+    const n = this.n;
+    const w = this.who;
+    const k = this.what;
+    let x = t[a];
+    t[a] = t[b];
+    t[b] = x;
+    x = n[a];
+    n[a] = n[b];
+    n[b] = x;
+    x = w[a];
+    w[a] = w[b];
+    w[b] = x;
+    x = k[a];
+    k[a] = k[b];
+    k[b] = x;
+  }
+  /** pops the top; returns [time, who, what] via out */
+  pop(out: [number, number, number]) {
+    const { t, n, who, what } = this;
+    out[0] = t[0];
+    out[1] = who[0];
+    out[2] = what[0];
+    const last = t.length - 1;
+    if (last > 0) this.swap(0, last);
+    t.pop();
+    n.pop();
+    who.pop();
+    what.pop();
+    let i = 0;
+    for (;;) {
+      const l = 2 * i + 1;
+      const r = l + 1;
+      let m = i;
+      if (l < t.length && (t[l] < t[m] || (t[l] === t[m] && n[l] < n[m]))) m = l;
+      if (r < t.length && (t[r] < t[m] || (t[r] === t[m] && n[r] < n[m]))) m = r;
+      if (m === i) break;
+      this.swap(i, m);
+      i = m;
+    }
+  }
+}
+
+/** Travellers waiting for a place at one kind: the best first (earliest due, then first to ask). */
+class WaitingLine {
+  private items: number[] = [];
+  constructor(private readonly before: (a: number, b: number) => boolean) {}
+  get size() {
+    return this.items.length;
+  }
+  push(x: number) {
+    const a = this.items;
+    a.push(x);
+    let i = a.length - 1;
+    while (i > 0) {
+      const p = (i - 1) >> 1;
+      if (!this.before(a[i], a[p])) break;
+      const tmp = a[p];
+      a[p] = a[i];
+      a[i] = tmp;
+      i = p;
+    }
+  }
+  pop(): number {
+    const a = this.items;
+    const top = a[0];
+    const last = a.pop()!;
+    if (a.length) {
+      a[0] = last;
+      let i = 0;
+      for (;;) {
+        const l = 2 * i + 1;
+        const r = l + 1;
+        let m = i;
+        if (l < a.length && this.before(a[l], a[m])) m = l;
+        if (r < a.length && this.before(a[r], a[m])) m = r;
+        if (m === i) break;
+        const tmp = a[m];
+        a[m] = a[i];
+        a[i] = tmp;
+        i = m;
+      }
+    }
+    return top;
+  }
+}
+
+// event kinds
+const REQUEST = 0;
+const FINISH = 1;
+
+/** mulberry32 step on a traveller's own stream */
+function nextU(s: Sim): number {
+  s.rnd = (s.rnd + 0x6d2b79f5) >>> 0;
+  let t = s.rnd;
+  t = Math.imul(t ^ (t >>> 15), t | 1);
+  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+}
+
+/** a uniform in [0, 1) from three numbers (one mulberry32 round on their mix): the same inputs, the same draw */
+function hashU(a: number, b: number, c: number): number {
+  let t = (a ^ Math.imul(b + 1, 0x85ebca6b) ^ Math.imul(c + 1, 0xc2b2ae35)) >>> 0;
+  t = (t + 0x6d2b79f5) >>> 0;
+  t = Math.imul(t ^ (t >>> 15), t | 1);
+  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+}
+
+function stepsFrom(state: TrayState, routing: readonly RoutingStep[], now: number): { steps: RoutingStep[]; waitingSince: number | null; notBefore: number; startedAt: number | null } {
+  let from = state.stepSeq ?? 1;
+  let waitingSince = ms(state.waitingSince);
+  let startedAt = state.phase === 'in_process' || state.phase === 'curing' ? ms(state.startedAt) : null;
+  const cureReady = ms(state.cureReadyAt);
+  let notBefore = -Infinity;
+  if (state.phase === 'curing' && cureReady != null && cureReady <= now) {
+    // a cure that has run out: waiting for the next step since it ended
+    from += 1;
+    waitingSince = cureReady;
+    startedAt = null;
+  } else if (state.phase === 'waiting' && cureReady != null) notBefore = cureReady;
+  return { steps: routing.filter((s) => s.seq >= from), waitingSince, notBefore, startedAt };
+}
+
+/** Projects every open order of the snapshot. */
+export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): Map<string, OrderOutlook> {
+  const now = snapshot.now;
+  const runs = Math.max(1, o.runs ?? 100);
+  const seed = o.seed ?? 1;
+  const capacity = o.capacity !== false;
+  const firstCome = o.rule === 'first_come';
+  const { calendar, model } = o;
+  const orders = snapshot.orders;
+  const orderSeed = orders.map((x) => (seedOf(x.id) ^ seed) >>> 0);
+  const dueOf = orders.map((x) => Date.parse(`${x.dueDate}T00:00:00Z`) || Infinity);
+  const kindsIndex = new Map<string, number>();
+  const kindNames: string[] = [];
+  const kindIdx = (k: string) => {
+    let i = kindsIndex.get(k);
+    if (i == null) {
+      i = kindNames.length;
+      kindsIndex.set(k, i);
+      kindNames.push(k);
+    }
+    return i;
+  };
+
+  // the travellers still on the floor
+  const sims: Sim[] = [];
+  const closedLatest = orders.map(() => -Infinity);
+  const living = orders.map(() => 0);
+  const mouldsOpen = orders.map(() => 0);
+  const onHold = orders.map(() => 0);
+  orders.forEach((ord, oi) => {
+    for (const t of ord.travellers) {
+      const st = t.state;
+      if (st.phase === 'done' || st.phase === 'scrapped' || st.phase === 'merged') {
+        if (st.phase === 'done' && t.kind === 'tray') closedLatest[oi] = Math.max(closedLatest[oi], ms(st.lastEventAt) ?? now);
+        continue;
+      }
+      const routing = t.kind === 'mould' ? ord.routing.mould : ord.routing.tray;
+      const f = stepsFrom(st, routing, now);
+      if (f.steps.length === 0) continue;
+      if (st.onHold) onHold[oi]++;
+      const first = f.steps[0];
+      const line = calendar.forStation(first.stationKind);
+      const waited = f.startedAt == null && f.waitingSince != null ? Math.max(0, line.workingMinutesBetween(f.waitingSince, now)) : 0;
+      for (const s of f.steps) kindIdx(s.stationKind);
+      sims.push({ order: oi, kind: t.kind, steps: f.steps, qty: t.kind === 'mould' ? 1 : st.quantity, idx: 0, waited, notBefore: f.notBefore, startedAt: f.startedAt, seed: seedOf(t.id) ^ seed, rnd: 0, requestAt: 0, since: f.waitingSince ?? now, heldFor: st.onHold ? Math.max(0, calendar.factory.workingMinutesBetween(ms(st.lastEventAt) ?? now, now)) : -1 });
+      if (t.kind === 'tray') living[oi]++;
+      else mouldsOpen[oi]++;
+    }
+  });
+  const nK = kindNames.length;
+  const lines: Timeline[] = kindNames.map((k) => calendar.forStation(k));
+  const ovens: Timeline[] = kindNames.map((k) => calendar.forStation('cure', k));
+  const placesOf = kindNames.map((k) => (capacity ? (model.places.get(k) ?? Infinity) : Infinity));
+  const waitDist = kindNames.map((k) => (capacity ? model.handover.get(k) : model.queue.get(k)) ?? model.queue.get(k) ?? new WaitDistribution([]));
+  const ratios = kindNames.map((k) => model.ratio.get(k) ?? null);
+  const orderLevel = kindNames.map((k) => ORDER_LEVEL_KINDS.includes(k));
+  const mouldGated = kindNames.map((k) => (MOULD_USING_KINDS as readonly string[]).includes(k));
+  const kindOfStep = sims.map((s) => s.steps.map((st) => kindsIndex.get(st.stationKind)!));
+
+  const finishes = orders.map(() => new Float64Array(runs));
+  const waitSum = orders.map(() => new Float64Array(nK));
+  const heap = new EventHeap();
+  const before = (x: number, y: number) => {
+    const a = sims[x];
+    const b = sims[y];
+    const da = firstCome ? 0 : dueOf[a.order];
+    const db = firstCome ? 0 : dueOf[b.order];
+    return da < db || (da === db && (a.requestAt < b.requestAt || (a.requestAt === b.requestAt && x < y)));
+  };
+  const out: [number, number, number] = [0, 0, 0];
+
+  for (let r = 0; r < runs; r++) {
+    const busy = new Int32Array(nK);
+    const waiting = kindNames.map(() => new WaitingLine(before));
+    const gathered = orders.map(() => 0);
+    const lastPacked = orders.map(() => -Infinity);
+    const mouldsLeft = [...mouldsOpen];
+    const mouldsReadyAt = orders.map((_, oi) => (mouldsOpen[oi] === 0 ? now : Infinity));
+    const parked: number[][] = orders.map(() => []);
+    const ship = orders.map(() => -Infinity);
+
+    const start = (si: number, at: number) => {
+      const s = sims[si];
+      const k = kindOfStep[si][s.idx];
+      const step = s.steps[s.idx];
+      busy[k]++;
+      waitSum[s.order][k] += Math.max(0, (at - s.requestAt) / MINUTE);
+      const std = step.trayMinutes + step.pieceMinutes * s.qty;
+      const rs = ratios[k];
+      const minutes = rs ? std * rs[Math.floor(nextU(s) * rs.length)] : std;
+      let end = lines[k].addWorkingMinutes(at, minutes);
+      if (step.cureMinutes != null && step.cureMinutes > 0) end = Math.max(lines[k].addWorkingMinutes(at, std), ovens[k].addWorkingMinutes(at, step.cureMinutes));
+      heap.push(end, si, FINISH);
+    };
+    const request = (si: number, at: number) => {
+      const s = sims[si];
+      const k = kindOfStep[si][s.idx];
+      s.requestAt = at;
+      if (busy[k] < placesOf[k]) start(si, at);
+      else waiting[k].push(si);
+    };
+    /** the traveller is ready for its step at `at`: draw its handover, then ask for a place */
+    const ready = (si: number, at: number, waited: number) => {
+      const s = sims[si];
+      const k = kindOfStep[si][s.idx];
+      const oi = s.order;
+      if (orderLevel[k]) {
+        // gathered with the rest of the order; the order leaves once, after its last packed tray
+        lastPacked[oi] = Math.max(lastPacked[oi], at);
+        gathered[oi]++;
+        if (gathered[oi] === living[oi]) {
+          const from = lastPacked[oi];
+          const line = lines[k];
+          const already = from < now ? Math.max(0, line.workingMinutesBetween(from, now)) : 0;
+          const q = model.dispatch.n ? model.dispatch.drawRemaining(already, nextU(s)) : waitDist[k].drawRemaining(already, nextU(s));
+          const step = s.steps[s.idx];
+          const t0 = Math.max(from, now);
+          const end = line.addWorkingMinutes(line.addWorkingMinutes(t0, q), step.trayMinutes + step.pieceMinutes * s.qty);
+          waitSum[oi][k] += q;
+          let last = end;
+          for (let j = s.idx + 1; j < s.steps.length; j++) last = lines[kindOfStep[si][j]].addWorkingMinutes(last, s.steps[j].trayMinutes + s.steps[j].pieceMinutes * s.qty);
+          ship[oi] = Math.max(ship[oi], last);
+        }
+        return;
+      }
+      // the handover is the order's: its trays reach a step together and share the draw
+      // the handover is the order's: its trays reach a step together and share the draw
+      const q0 = waitDist[k].drawRemaining(waited, capacity ? hashU(orderSeed[oi], s.steps[s.idx].seq, r) : nextU(s));
+      let q = q0;
+      // a tray now and then waits on hold for a decision (measured rate and length)
+      if (s.kind === 'tray') {
+        if (s.idx === 0 && s.heldFor >= 0) q += model.hold.drawRemaining(s.heldFor, nextU(s));
+        else if (model.holdRate > 0 && nextU(s) < model.holdRate) q += model.hold.drawRemaining(0, nextU(s));
+      }
+      let t = q > 0 ? lines[k].addWorkingMinutes(at, q) : at;
+      if (s.idx === 0 && t < s.notBefore) t = s.notBefore;
+      if (mouldGated[k] && s.kind === 'tray' && mouldsReadyAt[oi] > t) {
+        if (mouldsReadyAt[oi] === Infinity) {
+          parked[oi].push(si);
+          return;
+        }
+        t = mouldsReadyAt[oi];
+      }
+      heap.push(t, si, REQUEST);
+    };
+
+    for (let si = 0; si < sims.length; si++) {
+      const s = sims[si];
+      s.idx = 0;
+      s.rnd = (s.seed + Math.imul(r + 1, 0x9e3779b9)) >>> 0;
+      if (s.startedAt != null) {
+        // the step under way: the rest of its drawn time from now, holding its place
+        const k = kindOfStep[si][0];
+        const step = s.steps[0];
+        busy[k]++;
+        const std = step.trayMinutes + step.pieceMinutes * s.qty;
+        const rs = ratios[k];
+        const minutes = rs ? std * rs[Math.floor(nextU(s) * rs.length)] : std;
+        const done = Math.max(0, lines[k].workingMinutesBetween(s.startedAt, now));
+        let end = lines[k].addWorkingMinutes(now, Math.max(0, minutes - done));
+        if (step.cureMinutes != null && step.cureMinutes > 0) end = Math.max(end, ovens[k].addWorkingMinutes(s.startedAt, step.cureMinutes));
+        heap.push(Math.max(end, now), si, FINISH);
+      } else ready(si, orderLevel[kindOfStep[si][0]] ? Math.min(s.since, now) : now, s.waited);
+    }
+
+    while (heap.size) {
+      heap.pop(out);
+      const [t, si, what] = out;
+      const s = sims[si];
+      if (what === REQUEST) {
+        request(si, t);
+        continue;
+      }
+      // FINISH: free the place, hand it on, move the traveller on
+      const k = kindOfStep[si][s.idx];
+      busy[k]--;
+      const queue = waiting[k];
+      if (queue.size) start(queue.pop(), t);
+      s.idx++;
+      const oi = s.order;
+      if (s.idx >= s.steps.length) {
+        if (s.kind === 'mould') {
+          mouldsLeft[oi]--;
+          if (mouldsLeft[oi] === 0) {
+            mouldsReadyAt[oi] = t;
+            for (const p of parked[oi]) heap.push(t, p, REQUEST);
+            parked[oi] = [];
+          }
+        } else ship[oi] = Math.max(ship[oi], t);
+        continue;
+      }
+      ready(si, t, 0);
+    }
+    for (let oi = 0; oi < orders.length; oi++) finishes[oi][r] = Math.max(ship[oi], closedLatest[oi], now);
+  }
+
+  const mostWork = orders.map(() => ({ steps: 0, minutes: 0 }));
+  for (const sm of sims) {
+    if (sm.kind !== 'tray') continue;
+    let minutes = 0;
+    for (const st of sm.steps) minutes += st.trayMinutes + st.pieceMinutes * sm.qty;
+    const m = mostWork[sm.order];
+    if (minutes > m.minutes) {
+      m.minutes = minutes;
+      m.steps = sm.steps.length;
+    }
+  }
+  const result = new Map<string, OrderOutlook>();
+  orders.forEach((ord, oi) => {
+    const f = finishes[oi].sort();
+    let sum = 0;
+    for (let i = 0; i < runs; i++) sum += f[i];
+    const open = living[oi] > 0;
+    const expected = open ? Math.round(sum / runs) : Number.isFinite(closedLatest[oi]) ? closedLatest[oi] : null;
+    const p85 = open ? Math.round(quantileSorted(f, 0.85)) : expected;
+    let drive = -1;
+    for (let k = 0; k < nK; k++) if (drive < 0 || waitSum[oi][k] > waitSum[oi][drive]) drive = k;
+    result.set(ord.id, {
+      orderId: ord.id,
+      expectedAt: expected,
+      p85At: p85 == null || expected == null ? p85 : Math.max(p85, expected),
+      runs,
+      drivingKind: drive >= 0 && waitSum[oi][drive] > 0 ? kindNames[drive] : null,
+      drivingWaitMinutes: drive >= 0 ? Math.round(waitSum[oi][drive] / runs) : 0,
+      traysOpen: living[oi],
+      traysOnHold: onHold[oi],
+      remainingSteps: mostWork[oi].steps,
+      standardMinutes: Math.round(mostWork[oi].minutes * 10) / 10,
+    });
+  });
+  return result;
+}

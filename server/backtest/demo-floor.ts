@@ -90,7 +90,7 @@ export function makeDemoFloor(seed: string, end: number, historyDays = 70): Demo
     travellers: simTravellers,
     reasonCodes: DEFAULT_REASON_CODES.map((r) => ({ code: r.code, kind: r.kind, stationKind: r.stationKind ?? null })),
   });
-  const overrides = new Map(sim.overrides.map((o) => [o.id, { id: o.id, supervisorId: o.supervisorId, reason: o.reason }]));
+  const overrides = new Map(sim.overrides.map((o) => [o.id, { id: o.id, supervisorId: o.supervisorId, reason: o.reason, kind: o.kind }]));
   const history: FloorHistory = {
     orders,
     travellers,

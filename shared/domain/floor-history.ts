@@ -198,7 +198,7 @@ export class FloorReplay {
         now: ev.occurredAt,
         // accepted scans only reach the history; the mould gate was open when a strike started
         mouldReady: true,
-        override: ev.overrideId ? (this.history.overrides?.get(ev.overrideId) ?? { id: ev.overrideId, supervisorId: ev.userId, reason: 'replayed' }) : null,
+        override: ev.overrideId ? (this.history.overrides?.get(ev.overrideId) ?? null) : null,
         actorRole: this.history.roleOf?.get(ev.userId) ?? null,
         reasonCodes,
       });

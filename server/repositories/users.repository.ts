@@ -26,6 +26,12 @@ export const usersRepository = {
     db.update(sessions).set({ lastSeenAt: at }).where(eq(sessions.id, id)).run(),
   revokeSession: (db: Db, id: string, at: number) =>
     db.update(sessions).set({ revokedAt: at }).where(eq(sessions.id, id)).run(),
+  revokeDeviceSessions: (db: Db, deviceId: string, at: number) =>
+    db
+      .update(sessions)
+      .set({ revokedAt: at })
+      .where(and(eq(sessions.deviceId, deviceId), isNull(sessions.revokedAt)))
+      .run(),
   revokeUserSessions: (db: Db, userId: string, at: number) =>
     db
       .update(sessions)

@@ -1,4 +1,5 @@
-import type { Api } from '../http/api';
+import { checkAccess, type Api } from '../http/api';
+import { readAuth } from '../middleware/authenticate';
 import { ALL_ROLES, OFFICE } from '@shared/domain/access';
 import { wipService } from '../services/wip.service';
 import { wallService } from '../services/wall.service';
@@ -22,9 +23,18 @@ export function registerLiveRoutes(api: Api) {
     method: 'get',
     path: '/stream',
     access: { roles: ALL_ROLES, devices: ['wall', 'tablet'] },
-    handler: ({ deps, res }) => {
+    handler: ({ deps, req, res }) => {
       reportFactsService.follow(deps);
-      streamService.open(deps, res);
+      // checked again while the stream is open: it closes when the session ends or the person or device is switched off
+      const access = { roles: ALL_ROLES, devices: ['wall', 'tablet'] as const };
+      streamService.open(deps, res, async () => {
+        try {
+          checkAccess(access, await readAuth(deps, req));
+          return true;
+        } catch {
+          return false;
+        }
+      });
     },
   });
 }

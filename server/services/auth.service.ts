@@ -234,6 +234,8 @@ export const authService = {
     if (session.lastSeenAt + session.idleMinutes * 60_000 <= now) return null;
     const user = usersRepository.byId(deps.db, session.userId);
     if (!user || !user.active) return null;
+    // A badge sign-in lives only as long as its tablet is switched on.
+    if (session.deviceId && !devicesRepository.byId(deps.db, session.deviceId)?.active) return null;
     // Write the idle clock at most every 30 s: reads stay cheap.
     if (now - session.lastSeenAt > 30_000) usersRepository.touchSession(deps.db, sid, now);
     return { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, sessionId: sid };

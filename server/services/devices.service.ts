@@ -2,6 +2,7 @@ import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import { devicesRepository, type DeviceRow } from '../repositories/devices.repository';
 import { stationsRepository } from '../repositories/stations.repository';
+import { usersRepository } from '../repositories/users.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { AppError, badInput, notFound } from '../errors';
 import { randomToken, sha256Hex } from '../lib/keys';
@@ -66,6 +67,8 @@ export const devicesService = {
     if (patch.stationId && !stationsRepository.byId(deps.db, patch.stationId)) throw badInput('That station does not exist.');
     const now = deps.now();
     devicesRepository.update(deps.db, id, { ...patch, updatedAt: now });
+    // Switched off or moved to another station: the badge sign-ins on it end.
+    if (patch.active === false || (patch.stationId !== undefined && patch.stationId !== current.stationId)) usersRepository.revokeDeviceSessions(deps.db, id, now);
     auditRepository.record(deps.db, now, { userId: actorId, action: 'device.update', entity: 'device', entityId: id, detail: patch });
     return toDeviceView(devicesRepository.byId(deps.db, id)!);
   },
@@ -78,6 +81,7 @@ export const devicesService = {
     const token = randomToken(24);
     const code = pairingCode();
     devicesRepository.update(deps.db, id, { tokenHash: sha256Hex(token), pairingCode: code, pairingExpiresAt: now + PAIRING_MINUTES * 60_000, updatedAt: now });
+    usersRepository.revokeDeviceSessions(deps.db, id, now);
     auditRepository.record(deps.db, now, { userId: actorId, action: 'device.repair', entity: 'device', entityId: id });
     return { id, token, pairingCode: code };
   },

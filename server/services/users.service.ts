@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import { usersRepository, type UserRow } from '../repositories/users.repository';
 import { auditRepository } from '../repositories/audit.repository';
-import { hashSecret } from './auth.service';
+import { authService, hashSecret } from './auth.service';
 import { conflict, notFound } from '../errors';
 import type { CreateUserBody, UpdateUserBody, UserView } from '@shared/schemas/users';
 import type { Role } from '@shared/domain/vocabulary';
@@ -72,7 +72,8 @@ export const usersService = {
         updatedAt: now,
       });
       // A role change or a switch-off takes effect at once: end the person's sessions.
-      if (patch.active === false || (patch.role && patch.role !== user.role)) usersRepository.revokeUserSessions(tx, id, now);
+      // So does a new password: whoever held the old one is signed out everywhere.
+      if (patch.active === false || (patch.role && patch.role !== user.role) || patch.password !== undefined) usersRepository.revokeUserSessions(tx, id, now);
       const { password: _p, pin: _q, ...visible } = patch;
       auditRepository.record(tx, now, {
         userId: actorId,
@@ -82,6 +83,7 @@ export const usersService = {
         detail: { ...visible, pinReset: patch.pin !== undefined, passwordReset: patch.password !== undefined },
       });
     });
+    if (patch.password !== undefined) authService.forgetFailures(deps, id);
     return toUserView(usersRepository.byId(db, id)!);
   },
 };

@@ -12,9 +12,9 @@ describe('backtest of projected ship dates (one floor)', () => {
     const r = runBacktest(productProjector(PROJECTION_RUNS), { floors: 1 });
     expect(r).toEqual({
       floors: 1,
-      atRelease: { n: 26, p85Coverage: 0.7692, biasHours: -0.13, maeHours: 19.09 },
-      halfway: { n: 26, p85Coverage: 0.7692, biasHours: -6.66, maeHours: 17.64 },
-      snapshots: { n: 100, p85Coverage: 0.75, biasHours: 0.97, maeHours: 18.06 },
+      atRelease: { n: 25, p85Coverage: 0.88, biasHours: -2.89, maeHours: 12.24 },
+      halfway: { n: 25, p85Coverage: 0.84, biasHours: -7.45, maeHours: 11.12 },
+      snapshots: { n: 92, p85Coverage: 0.8261, biasHours: -5.18, maeHours: 12.04 },
     });
     // the same floor with the projection made before (every tray sampling the dispatch wait,
     // moulds on pooled queues, no capacity) measured 37.2 / 28.8 / 30.5 h mean absolute error

@@ -10,7 +10,7 @@ export const en = {
     tabAll: 'All orders ({{count}})',
     actionNone: 'Nothing waits for you: no open gates, nothing to release, no late risk, no holds.',
     search: 'Search orders',
-    searchHint: 'Order, customer, title or tray (1066-03)',
+    searchHint: 'Order, customer or tray 1066-03',
     caption: 'Orders',
     noMatch: 'No order matches',
     status: 'Status',

@@ -12,7 +12,7 @@ export const zhCN: OrdersStrings = {
     tabAll: '全部订单（{{count}}）',
     actionNone: '目前没有待您处理的订单：没有未过关卡、没有待投产、没有延期风险、没有暂停。',
     search: '搜索订单',
-    searchHint: '订单号、客户、名称或托盘号（1066-03）',
+    searchHint: '订单号、客户或托盘号 1066-03',
     caption: '订单',
     noMatch: '没有符合条件的订单',
     status: '状态',

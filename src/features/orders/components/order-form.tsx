@@ -187,7 +187,7 @@ export function OrderForm({
                 <div className="flex items-start gap-2">
                   <TextField
                     label={t('form.colourSwatch', { n: i + 1 })}
-                    placeholder="#RRGGBB"
+                    placeholder="#1b2a4a"
                     {...register(`colours.${i}.hex`, { setValueAs: emptyToUndefined })}
                     error={e.colours?.[i]?.hex?.message}
                   />

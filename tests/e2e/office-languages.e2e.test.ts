@@ -26,8 +26,8 @@ const TRANSLATED: Partial<Record<OfficeRole, string[]>> = {
 };
 
 // Words that stay in Chinese text: the product's name, the language switch's "English", the
-// trade's abbreviations and units.
-const KEEP = new Set(['Trayce', 'English', 'FPY', 'WIP', 'CSV', 'QR', 'PDF', 'PIN', 'min', 'pcs']);
+// trade's abbreviations and units, and the yes a CSV cell takes.
+const KEEP = new Set(['Trayce', 'English', 'FPY', 'WIP', 'CSV', 'QR', 'PDF', 'PIN', 'min', 'pcs', 'yes']);
 
 async function signIn(context: BrowserContext, role: OfficeRole, locale: Locale) {
   const login = await context.request.post(`${base()}/api/auth/login`, { data: { email: `${role}@tallowmere.test`, password: DEMO_PASSWORD } });
@@ -61,7 +61,8 @@ async function englishWords(page: Page, data: string[]): Promise<string[]> {
       parts.push(n.textContent ?? '');
     }
     for (const el of document.querySelectorAll<HTMLElement>('[aria-label], [placeholder], [title]'))
-      parts.push(el.getAttribute('aria-label') ?? '', el.getAttribute('placeholder') ?? '', el.getAttribute('title') ?? '');
+      // a textarea's placeholder is an example file, in the file's own column names and values
+      parts.push(el.getAttribute('aria-label') ?? '', el.tagName === 'TEXTAREA' ? '' : (el.getAttribute('placeholder') ?? ''), el.getAttribute('title') ?? '');
     return parts.join('\n');
   });
   let rest = text;

@@ -3,6 +3,7 @@ import { floorRepository } from '../repositories/floor.repository';
 import { wipService } from './wip.service';
 import { projectionService } from './projection.service';
 import { calendarService } from './calendar.service';
+import { stationsRepository } from '../repositories/stations.repository';
 import type { WallView } from '@shared/schemas/live';
 
 const MIN = 60_000;
@@ -25,9 +26,11 @@ export const wallService = {
         stepName: p.row.stepName,
       }))
       .sort((a, b) => a.readyAt.localeCompare(b.readyAt));
+    // hold reasons by their names, never their codes
+    const reasonName = new Map(stationsRepository.reasonCodes(deps.db).map((r) => [r.code, r.name]));
     const holds = snap.placements
       .filter((p) => p.row.onHold)
-      .map((p) => ({ trayId: p.row.trayId, number: p.row.number, orderNumber: p.row.orderNumber, stationKind: p.kind, reason: p.row.holdReason, pieces: p.row.quantity }));
+      .map((p) => ({ trayId: p.row.trayId, number: p.row.number, orderNumber: p.row.orderNumber, stationKind: p.kind, reason: p.row.holdReason ? (reasonName.get(p.row.holdReason) ?? p.row.holdReason) : null, pieces: p.row.quantity }));
     const oldestByKind = new Map<string, { stationKind: string; trayNumber: string; orderNumber: string; minutes: number }>();
     for (const p of snap.placements) {
       if (p.phase !== 'waiting' || p.waitingSince == null) continue;

@@ -103,6 +103,51 @@ describe('the floor wall', () => {
     await page.context().close();
   });
 
+  it('at 1920 x 1080 no text is under 28 px, the bottleneck tile names its station, and "+N more" opens the whole list on the floor page', async () => {
+    const page = await openPairedWall(base());
+    await page.getByTestId('stream-status').filter({ hasText: 'Live' }).waitFor();
+    // every element that draws text of its own, measured as the browser lays it out
+    const sizes = await page.evaluate(() => {
+      const out: { text: string; px: number }[] = [];
+      const walker = document.createTreeWalker(document.body, NodeFilter.SHOW_TEXT);
+      for (let n = walker.nextNode(); n; n = walker.nextNode()) {
+        const text = n.textContent?.trim() ?? '';
+        const el = n.parentElement;
+        if (!text || !el) continue;
+        const r = el.getBoundingClientRect();
+        if (r.width === 0 || r.height === 0 || r.bottom < 0 || r.top > innerHeight) continue;
+        out.push({ text: text.slice(0, 30), px: parseFloat(getComputedStyle(el).fontSize) });
+      }
+      return out;
+    });
+    expect(sizes.length).toBeGreaterThan(20);
+    const small = sizes.filter((x) => x.px < 28);
+    expect(small, JSON.stringify(small.slice(0, 10))).toEqual([]);
+    // the bottleneck tile: its station's name in view beside the badge
+    const hot = page.locator('section[data-kind]').filter({ has: page.getByTestId('bottleneck-badge') });
+    expect(await hot.count(), 'the demo floor has a bottleneck').toBe(1);
+    {
+      const kind = await hot.getAttribute('data-kind');
+      const name = hot.getByTestId('tile-name');
+      const box = (await name.boundingBox())!;
+      expect(box.height, `${kind}: the name is drawn`).toBeGreaterThan(20);
+      expect((await name.innerText()).trim().length).toBeGreaterThan(2);
+      const note = await page.getByTestId('bottleneck-note').innerText();
+      expect(note).toContain((await name.innerText()).trim());
+    }
+    // countdowns read as durations, not clock times
+    for (const left of await page.getByTestId('cure-left').allInnerTexts()) expect(left).toMatch(/^(Ready|\d+ h \d+ min left|\d+ min \d+ s left)$/);
+    await screenshot(page, 'wall-1920x1080-sizes');
+    const more = page.getByTestId('more');
+    expect(await more.count(), 'the demo floor has more to decide than the wall lists').toBeGreaterThan(0);
+    {
+      const first = more.first();
+      const href = (await first.getAttribute('href'))!;
+      expect(href).toMatch(/^\/floor#(needs-supervisor|at-risk)$/);
+    }
+    await page.context().close();
+  });
+
   it('shows the same picture on the supervisor’s floor page', async () => {
     const context = await browser.newContext({ viewport: DESKTOP });
     const page = await signInAs(context, base(), 'supervisor@tallowmere.test', DEMO_PASSWORD);

@@ -1,4 +1,5 @@
-import { Link } from 'react-router';
+import { useEffect } from 'react';
+import { Link, useLocation } from 'react-router';
 import { Flame, MonitorPlay, Radio, WifiOff } from 'lucide-react';
 import { FLOOR_LEADS } from '@shared/domain/access';
 import { queryClient } from '@/lib/query-client';
@@ -15,6 +16,12 @@ export const loader = () => queryClient.ensureQueryData(wallQueryOptions());
 export function Component() {
   const wall = useWall();
   const status = useLiveWall();
+  // the wall's "+N more" opens a list here (#needs-supervisor, #at-risk)
+  const { hash } = useLocation();
+  const ready = !!wall.data;
+  useEffect(() => {
+    if (ready && hash) document.getElementById(decodeURIComponent(hash.slice(1)))?.scrollIntoView({ block: 'start' });
+  }, [ready, hash]);
   return (
     <>
       <PageHeader

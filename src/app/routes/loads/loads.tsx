@@ -61,7 +61,7 @@ function GroupCard({ kind, group }: { kind: 'cure' | 'plate'; group: LoadGroup }
       </table>
       <div className="mt-3 flex flex-wrap items-center gap-3">
         <Button disabled={chosen.size === 0 || create.isPending} onClick={() => create.mutate({ kind, trayIds: [...chosen] }, { onSuccess: () => setChosen(new Set()) })}>
-          <Layers className="h-5 w-5" aria-hidden /> Make a {kind === 'cure' ? 'oven' : 'plating'} load of {chosen.size} trays ({pieces.toLocaleString('en-GB')} pieces)
+          <Layers className="h-5 w-5" aria-hidden /> Make {kind === 'cure' ? 'an oven' : 'a plating'} load of {chosen.size} trays ({pieces.toLocaleString('en-GB')} pieces)
         </Button>
         {create.error && <span className="font-bold text-stop-700">{create.error.message}</span>}
       </div>

@@ -62,11 +62,11 @@ function LiveWall({ view, theme, setTheme }: { view: WallView; theme: WallTheme;
         <span className="text-4xl font-bold tabular-nums" aria-label="Time at the factory">
           {factoryTime(new Date(now).toISOString(), view.timeZone, false)}
         </span>
-        <span className="text-2xl">
+        <span className="text-3xl">
           <strong>{totals.trays.toLocaleString('en-GB')}</strong> trays · <strong>{totals.pieces.toLocaleString('en-GB')}</strong> pieces ·{' '}
           <strong>{totals.moulds}</strong> moulds on the floor
         </span>
-        <span role="status" className="ml-auto flex items-center gap-2 text-2xl font-bold" data-testid="stream-status">
+        <span role="status" className="ml-auto flex items-center gap-2 text-3xl font-bold" data-testid="stream-status">
           {status === 'live' ? (
             <>
               <Radio className="h-7 w-7" aria-hidden /> Live
@@ -80,7 +80,7 @@ function LiveWall({ view, theme, setTheme }: { view: WallView; theme: WallTheme;
         <button
           type="button"
           onClick={() => setTheme(dark ? 'light' : 'dark')}
-          className={`flex min-h-14 items-center gap-2 rounded-xl border-2 px-4 text-xl font-bold ${dark ? 'border-[#2b4a52]' : 'border-harbour-100'}`}
+          className={`flex min-h-14 items-center gap-2 rounded-xl border-2 px-4 text-3xl font-bold ${dark ? 'border-[#2b4a52]' : 'border-harbour-100'}`}
         >
           {dark ? <Sun className="h-6 w-6" aria-hidden /> : <Moon className="h-6 w-6" aria-hidden />}
           {dark ? 'Light screen' : 'Dark screen'}

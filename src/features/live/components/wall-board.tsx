@@ -1,10 +1,12 @@
 import { useEffect, useState, type ReactNode } from 'react';
+import { Link } from 'react-router';
 import { AlertOctagon, CircleDashed, Clock, Flame, Hand, Hourglass, PackageCheck, PauseCircle, ShieldAlert, Timer, TrendingUp, Wrench } from 'lucide-react';
 import type { WallView } from '@shared/schemas/live';
 import type { WipKind } from '@shared/schemas/reports';
 import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
 import type { StationKind } from '@shared/domain/vocabulary';
 import { factoryTime, minutesText } from '@/lib/duration';
+import { paths } from '@/config/paths';
 
 export type WallTheme = 'dark' | 'light';
 
@@ -54,21 +56,26 @@ export function useNow() {
   return now;
 }
 
+/** "17 min 26 s left": a countdown never reads as a clock time. */
+export function leftText(ms: number): string {
+  const s = Math.max(0, Math.floor(ms / 1000));
+  const h = Math.floor(s / 3600);
+  const m = Math.floor((s % 3600) / 60);
+  return h > 0 ? `${h} h ${m} min left` : `${m} min ${s % 60} s left`;
+}
+
+// Everything on the wall is read from about 3 m: no text under 28 px (text-3xl is 30 px).
 function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme; testId: string; quiet: boolean }) {
   const t = THEMES[theme];
   return (
-    <div className="flex min-w-0 flex-col">
-      <span className={`flex items-center gap-1 text-xl ${t.muted}`}>
+    <div className="flex min-w-0 items-baseline justify-between gap-2" title={`${fmt(pieces)} pieces`}>
+      <span className={`flex min-w-0 items-center gap-1 truncate text-3xl ${t.muted}`}>
         {icon}
         {label}
       </span>
-      <span className="flex items-baseline gap-1">
-        <span className={`${quiet ? 'text-3xl' : 'text-5xl'} leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`}>
-          {fmt(trays)}
-        </span>
-        <span className={`text-lg ${t.muted}`}>{trays === 1 ? 'tray' : 'trays'}</span>
+      <span className={`${quiet ? 'text-3xl' : 'text-4xl'} leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`} aria-label={`${fmt(trays)} ${trays === 1 ? 'tray' : 'trays'}, ${fmt(pieces)} pieces`}>
+        {fmt(trays)}
       </span>
-      <span className={`text-lg tabular-nums ${t.muted}`}>{fmt(pieces)} pcs</span>
     </div>
   );
 }
@@ -86,32 +93,32 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
       className={`flex min-h-0 flex-col gap-1 rounded-2xl border-4 px-3 py-2 ${bottleneck ? t.tileHot : idle ? t.tileIdle : t.tile}`}
       data-idle={idle ? 'yes' : 'no'}
     >
-      <h2 className={`truncate text-2xl font-bold ${t.strong}`}>{kindName(kind.stationKind)}</h2>
+      <h2 className={`text-3xl leading-tight font-bold break-words ${t.strong}`} data-testid="tile-name">
+        {kindName(kind.stationKind)}
+      </h2>
       {bottleneck && (
-        <span className={`flex w-fit items-center gap-1 rounded-full px-2 text-lg font-bold ${t.badge}`}>
-          <TrendingUp className="h-5 w-5" aria-hidden /> Bottleneck
+        <span className={`flex w-fit items-center gap-1 rounded-full px-2 text-3xl font-bold ${t.badge}`} data-testid="bottleneck-badge">
+          <TrendingUp className="h-7 w-7" aria-hidden /> Bottleneck
         </span>
       )}
       {idle && !bottleneck && (
-        <span className={`flex w-fit items-center gap-1 text-lg font-bold ${t.strong}`} data-testid="idle">
-          <CircleDashed className="h-5 w-5" aria-hidden /> Empty
+        <span className={`flex w-fit items-center gap-1 text-3xl font-bold ${t.strong}`} data-testid="idle">
+          <CircleDashed className="h-7 w-7" aria-hidden /> Empty
         </span>
       )}
-      <div className="grid grid-cols-2 gap-2">
+      <div className="flex flex-col">
         <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label="Waiting" quiet={idle} trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
         {oven ? (
           <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label="Curing" quiet={idle} trays={kind.curing.trays} pieces={kind.curing.pieces} />
         ) : (
           <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label="In process" quiet={idle} trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
         )}
+        {kind.held > 0 && <Figure theme={theme} testId="held" icon={<PauseCircle className="h-7 w-7" aria-hidden />} label="Held" quiet={false} trays={kind.held} pieces={0} />}
       </div>
-      <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-lg ${t.muted}`}>
-        <span className="flex items-center gap-1">
-          <Clock className="h-5 w-5" aria-hidden /> Oldest <strong className={t.strong}>{kind.oldestMinutes == null ? 'none' : minutesText(kind.oldestMinutes)}</strong>
-        </span>
-        {kind.held > 0 && (
-          <span className={`flex items-center gap-1 rounded-full px-2 font-bold ${t.stop}`}>
-            <PauseCircle className="h-5 w-5" aria-hidden /> {kind.held} held
+      <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-3xl ${t.muted}`}>
+        {kind.oldestMinutes != null && (
+          <span className="flex items-center gap-1" aria-label={`Oldest waiting ${minutesText(kind.oldestMinutes)}`}>
+            <Clock className="h-7 w-7" aria-hidden /> <strong className={t.strong}>{minutesText(kind.oldestMinutes)}</strong>
           </span>
         )}
         {kind.moulds > 0 && <span>{kind.moulds} {kind.moulds === 1 ? 'mould' : 'moulds'}</span>}
@@ -120,16 +127,28 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
   );
 }
 
-function Panel({ title, icon, children, theme, count }: { title: string; icon: ReactNode; children: ReactNode; theme: WallTheme; count?: number }) {
+function Panel({ title, icon, children, theme, count, id }: { title: string; icon: ReactNode; children: ReactNode; theme: WallTheme; count?: number; id?: string }) {
   const t = THEMES[theme];
   return (
-    <section aria-label={title} className={`flex min-h-0 flex-1 flex-col rounded-2xl border-4 px-4 py-3 ${t.panel}`}>
-      <h2 className={`mb-2 flex items-center gap-2 text-2xl font-bold ${t.strong}`}>
-        {icon} {title}
-        {count !== undefined && <span className={`ml-auto text-xl ${t.muted}`}>{count}</span>}
+    <section id={id} aria-label={title} className={`flex min-h-0 flex-1 scroll-mt-4 flex-col rounded-2xl border-4 px-4 py-3 ${t.panel}`}>
+      <h2 className={`mb-2 flex items-center gap-2 text-3xl font-bold ${t.strong}`}>
+        {icon} <span className="min-w-0 truncate">{title}</span>
+        {count !== undefined && <span className={`ml-auto text-3xl ${t.muted}`}>{count}</span>}
       </h2>
       <div className="min-h-0 overflow-hidden">{children}</div>
     </section>
+  );
+}
+
+/** "+N more": the wall shows a few one-line entries; the whole list is on the floor page. */
+function More({ shown, total, to, theme }: { shown: number; total: number; to: string; theme: WallTheme }) {
+  if (total <= shown) return null;
+  return (
+    <li>
+      <Link to={to} className={`inline-flex min-h-11 items-center font-bold underline ${THEMES[theme].accent}`} data-testid="more">
+        +{total - shown} more
+      </Link>
+    </li>
   );
 }
 
@@ -139,34 +158,43 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const now = useNow();
   const active = view.wip.kinds.filter((k) => k.stations.length > 0 || k.waiting.trays + k.inProcess.trays + k.curing.trays + k.moulds > 0);
   const tz = view.timeZone;
+  // one list of what waits for a supervisor: refusals, holds, then overrides already used
+  const needs = [
+    ...view.refusals.map((r) => ({ key: `r${r.id}`, icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />, label: 'Refused', text: `${r.trayNumber ?? 'unknown tray'} · ${r.stationName ?? 'a station'}`, full: r.message, muted: false })),
+    ...view.holds.map((h) => ({ key: `h${h.trayId}`, icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />, label: 'On hold', text: `${h.number} · ${h.reason ?? kindName(h.stationKind)}`, full: h.reason ?? '', muted: false })),
+    ...view.overrides.map((o) => ({ key: `o${o.id}`, icon: <Hand className="mr-1 inline h-7 w-7" aria-hidden />, label: 'Override', text: `${o.trayNumber} · ${o.supervisorName ?? 'a supervisor'}`, full: o.reason, muted: true })),
+  ];
+  // the wall has room for a few one-line entries; the floor page (compact) lists them all
+  const shownNeeds = compact ? needs.length : 3;
+  const shownRisk = compact ? view.atRisk.length : 3;
   return (
     <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_440px] grid-rows-[minmax(0,1fr)]'}`}>
-      <div className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-5 grid-rows-4'}`}>
+      <div className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-5'}`} style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(active.length / 5))}, minmax(0, 1fr))` }}>
         {active.map((k) => (
           <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />
         ))}
       </div>
       <div className="flex min-h-0 flex-col gap-3">
         {view.bottleneck && (
-          <p className={`rounded-2xl border-4 px-4 py-3 text-xl ${t.tileHot}`}>
-            <TrendingUp className="mr-2 inline h-6 w-6" aria-hidden />
-            Longest queue for its size: <strong>{kindName(view.bottleneck.stationKind)}</strong>, {view.bottleneck.waitingTrays} trays waiting, room for {view.bottleneck.capacityTrays} at a time.
+          <p className={`truncate rounded-2xl border-4 px-4 py-2 text-3xl ${t.tileHot}`} data-testid="bottleneck-note">
+            <TrendingUp className="mr-2 inline h-7 w-7" aria-hidden />
+            <strong>{kindName(view.bottleneck.stationKind)}</strong>: {view.bottleneck.waitingTrays} waiting, {view.bottleneck.capacityTrays} at a time
           </p>
         )}
-        <Panel theme={theme} title="Cure countdowns" icon={<Timer className="h-7 w-7" aria-hidden />} count={view.curing.length}>
-          <ul className="flex flex-col gap-1 text-2xl">
-            {view.curing.slice(0, 5).map((c) => {
+        <Panel theme={theme} title="Cure countdowns" icon={<Timer className="h-8 w-8" aria-hidden />} count={view.curing.length}>
+          <ul className="flex flex-col gap-1 text-3xl">
+            {view.curing.slice(0, compact ? 50 : 4).map((c) => {
               const left = Date.parse(c.readyAt) - now;
               return (
-                <li key={c.trayId} className="flex justify-between gap-2">
+                <li key={c.trayId} className="flex justify-between gap-2 whitespace-nowrap">
                   <span className="font-bold">{c.number}</span>
-                  <span className="tabular-nums">
+                  <span className="tabular-nums" data-testid="cure-left">
                     {left <= 0 ? (
                       <span className="flex items-center gap-1 font-bold">
-                        <PackageCheck className="h-6 w-6" aria-hidden /> Ready
+                        <PackageCheck className="h-7 w-7" aria-hidden /> Ready
                       </span>
                     ) : (
-                      `${Math.floor(left / 60000)}:${String(Math.floor((left % 60000) / 1000)).padStart(2, '0')} left`
+                      leftText(left)
                     )}
                   </span>
                 </li>
@@ -175,37 +203,26 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
             {view.curing.length === 0 && <li className={t.muted}>Nothing in the oven</li>}
           </ul>
         </Panel>
-        <Panel theme={theme} title="Needs a supervisor" icon={<ShieldAlert className="h-7 w-7" aria-hidden />} count={view.refusals.length + view.holds.length}>
-          <ul className="flex flex-col gap-1 text-xl">
-            {view.refusals.slice(0, 3).map((r) => (
-              <li key={r.id}>
-                <AlertOctagon className="mr-1 inline h-5 w-5" aria-hidden />
-                <strong>Refused</strong> {r.trayNumber ?? 'unknown tray'} at {r.stationName ?? 'a station'}: {r.message}
+        <Panel id="needs-supervisor" theme={theme} title="Needs a supervisor" icon={<ShieldAlert className="h-8 w-8" aria-hidden />} count={needs.length}>
+          <ul className="flex flex-col gap-1 text-3xl">
+            {needs.slice(0, shownNeeds).map((n) => (
+              <li key={n.key} className={`truncate ${n.muted ? t.muted : ''}`} title={n.full}>
+                {n.icon}
+                <strong>{n.label}</strong> {n.text}
               </li>
             ))}
-            {view.holds.slice(0, 3).map((h) => (
-              <li key={h.trayId}>
-                <PauseCircle className="mr-1 inline h-5 w-5" aria-hidden />
-                <strong>On hold</strong> {h.number} at {kindName(h.stationKind)}
-                {h.reason ? `: ${h.reason}` : ''}
-              </li>
-            ))}
-            {view.overrides.slice(0, 2).map((o) => (
-              <li key={o.id} className={t.muted}>
-                <Hand className="mr-1 inline h-5 w-5" aria-hidden />
-                Override {o.trayNumber} by {o.supervisorName ?? 'a supervisor'}: {o.reason}
-              </li>
-            ))}
-            {view.refusals.length + view.holds.length + view.overrides.length === 0 && <li className={t.muted}>Nothing waiting for a decision</li>}
+            <More shown={shownNeeds} total={needs.length} to={`${paths.floor}#needs-supervisor`} theme={theme} />
+            {needs.length === 0 && <li className={t.muted}>Nothing waiting for a decision</li>}
           </ul>
         </Panel>
-        <Panel theme={theme} title="At risk of shipping late" icon={<AlertOctagon className="h-7 w-7" aria-hidden />} count={view.atRisk.length}>
-          <ul className="flex flex-col gap-1 text-xl">
-            {view.atRisk.slice(0, 3).map((o) => (
-              <li key={o.orderId}>
-                <strong>{o.number}</strong> {o.customer}: <strong>{o.risk === 'late' ? 'late' : 'at risk'}</strong>, due {o.dueDate}, expected {factoryTime(o.expectedAt, tz)}
+        <Panel id="at-risk" theme={theme} title="At risk of shipping late" icon={<AlertOctagon className="h-8 w-8" aria-hidden />} count={view.atRisk.length}>
+          <ul className="flex flex-col gap-1 text-3xl">
+            {view.atRisk.slice(0, shownRisk).map((o) => (
+              <li key={o.orderId} className="truncate" title={`${o.number} ${o.customer}: ${o.risk === 'late' ? 'late' : 'at risk'}, due ${o.dueDate}, expected ${factoryTime(o.expectedAt, tz)}`}>
+                <strong>{o.number}</strong> {o.risk === 'late' ? 'late' : 'at risk'} · {o.customer}
               </li>
             ))}
+            <More shown={shownRisk} total={view.atRisk.length} to={`${paths.floor}#at-risk`} theme={theme} />
             {view.atRisk.length === 0 && <li className={t.muted}>Every open order is on course</li>}
           </ul>
         </Panel>

@@ -20,6 +20,7 @@ import { seededRandom } from '../../shared/domain/stats';
 import { PLATINGS, PROCESSES, standardMinutes, type Process, type RoutingStep } from '../../shared/domain/vocabulary';
 import { startServer, type ServerProcess } from '../../tests/support/server-process';
 import { PROJECT_ROOT } from '../../tests/support/paths';
+import { cures } from '../../shared/domain/traveller/station-kinds';
 
 const MIN = 60_000;
 const DAY = 24 * 60 * MIN;
@@ -200,7 +201,7 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
             insEvent.run(crypto.randomUUID(), trayId, 'start', step.seq, station, step.stationKind, operatorId, startAt, startAt + 5_000, qty, null, null, null, null);
             events += 1;
             lastEvent = startAt;
-            if (step.stationKind === 'cure') {
+            if (cures(step.stationKind)) {
               // the oven closes on its own when the next step starts
               cureOpen = { start: startAt, minutes: step.cureMinutes ?? 0, seq: step.seq, kind: step.stationKind, station };
               t = startAt;

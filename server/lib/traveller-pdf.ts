@@ -8,6 +8,7 @@ import path from 'node:path';
 import { woffToSfnt } from './woff';
 import type { RoutingStep } from '@shared/domain/vocabulary';
 import type { TravellerLayoutValue } from '@shared/schemas/travellers';
+import { cures } from '@shared/domain/traveller';
 
 const require = createRequire(import.meta.url);
 
@@ -282,7 +283,7 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
     const ty = ry + (box - fontSize * 0.9) / 2;
     const cureW = 11 * MM;
     text(doc, `${s.seq}. ${s.name}`, x + box + 1.2 * MM, ty, { size: fontSize, width: colW - box - cureW - 2.5 * MM });
-    if (s.stationKind === 'cure' && s.cureMinutes) {
+    if (cures(s.stationKind) && s.cureMinutes) {
       // the minimum cure time; the next step may not start before it has run out
       text(doc, `${s.cureMinutes} min`, x + colW - cureW - 1.5 * MM, ty, { size: fontSize, bold: true, width: cureW, align: 'right' });
     }

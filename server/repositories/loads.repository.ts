@@ -1,3 +1,4 @@
+import type { LoadKind } from '@shared/domain/traveller';
 import type { DbLike as Db } from '../db/client';
 import { sqlClient } from './sql-client';
 
@@ -6,7 +7,7 @@ const client = sqlClient;
 export interface LoadRow {
   id: string;
   number: string;
-  kind: 'cure' | 'plate';
+  kind: LoadKind;
   groupKey: string;
   status: 'open' | 'split';
   createdAt: number;

@@ -1,6 +1,7 @@
 import type { DbLike as Db } from '../db/client';
 import { sqlClient } from './sql-client';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
+import { cures } from '@shared/domain/traveller';
 
 // Report queries: indexed aggregation over orders and the derived step_runs. Raw prepared
 // statements returning plain rows keep a year of data (half a million step rows) fast.
@@ -78,7 +79,7 @@ export const reportsRepository = {
     const joinOrders = of.sql ? ' join orders o on o.id = r.order_id' : '';
     const station = f.stationId ? ' and r.station_id = ?' : '';
     const column = measure === 'queue' ? 'r.queue_minutes' : 'r.process_minutes';
-    const extra = measure === 'process' && stationKind !== 'cure' ? ' and r.implicit = 0' : '';
+    const extra = measure === 'process' && !cures(stationKind) ? ' and r.implicit = 0' : '';
     const rows = client(db)
       .prepare(
         `select ${column} from step_runs r${joinOrders}

@@ -38,6 +38,8 @@ import {
   type SimOrder,
   type SimTraveller,
 } from './simulate-floor';
+import { kindTraits } from '@shared/domain/traveller';
+import { calendarService } from '../services/calendar.service';
 
 /** Weeks of floor history behind "now". */
 export const DEMO_HISTORY_DAYS = 70;
@@ -130,7 +132,8 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     kind: 'tablet' as const,
     stationId: s.id,
     tokenHash: sha256Hex(randomToken()),
-    locale: ['fill', 'cure', 'plate', 'stone', 'polish', 'strike', 'cast'].includes(s.kind) ? 'zh' : 'en',
+    // the colour, plating and press benches run their tablets in Chinese
+    locale: ['FIL', 'OVN', 'PLT', 'STN', 'POL', 'STR', 'CST'].includes(s.code.slice(0, 3)) ? 'zh' : 'en',
     createdAt: now - (DEMO_HISTORY_DAYS + 7) * DAY,
     updatedAt: now,
     lastSeenAt: now - ids.int(1, 90) * MINUTE,
@@ -421,7 +424,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     const readyTimes = travellers.map((t) => sim.finishedAt.get(t.id)).filter((x): x is number => x != null);
     const step = state && latest ? latest.routing.find((r) => r.seq === state.stepSeq) : undefined;
     mouldPatches.set(m.id, {
-      status: state?.phase === 'done' ? 'ready' : step?.stationKind === 'engrave' ? 'engraving' : 'checking',
+      status: state?.phase === 'done' ? 'ready' : kindTraits(step?.stationKind).mouldShop === 'make' ? 'engraving' : 'checking',
       readyAt: readyTimes.length ? Math.min(...readyTimes) : null,
       storageLocation: readyTimes.length ? `Rack ${String.fromCharCode(65 + ids.int(0, 3))}-${String(ids.int(1, 24)).padStart(2, '0')}` : null,
       updatedAt: readyTimes.length ? Math.max(...readyTimes) : m.updatedAt,
@@ -456,6 +459,8 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     insertMany(tx, shipments, shipmentRows);
     insertMany(tx, cartons, cartonRows);
   });
+  // the shifts were written here, not through the calendar service: drop its compiled calendar
+  calendarService.forget(deps);
   lap('written');
 }
 

@@ -21,6 +21,7 @@ import type { Role, RoutingStep, ScanType, StationKind, TrayState } from '@share
 import { initialTrayState, standardMinutes } from '@shared/domain/vocabulary';
 import type { Rng } from './prng';
 import { DEFAULT_REASON_CODES } from './base';
+import { cures } from '@shared/domain/traveller';
 
 const REASON_NAMES = new Map(DEFAULT_REASON_CODES.map((r) => [r.code, r.name]));
 /** Refusal texts name a hold reason, as the scan service writes them. */
@@ -617,7 +618,7 @@ export function simulateFloor(input: SimInput): SimResult {
 
     if (personHeld != null) busyUntil.set(person, sec(addWorking(start, personHeld)));
 
-    if (step.stationKind === 'cure') {
+    if (cures(step.stationKind)) {
       const readyAt = start + (step.cureMinutes ?? 0) * MINUTE;
       slot.freeAt = readyAt;
       const last = step.seq === t.routing.length;
@@ -631,7 +632,7 @@ export function simulateFloor(input: SimInput): SimResult {
           }
         } else {
           slot.freeAt = out;
-          const c = counts('cure', t.state.quantity);
+          const c = counts(step.stationKind, t.state.quantity);
           emit(t, 'finish', out, slot.station, { good: c.good, scrap: c.scrap, reason: c.reason });
           if (last) {
             travellerDone(t, out);

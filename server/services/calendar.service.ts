@@ -90,8 +90,8 @@ export const calendarService = {
   /** The compiled working calendar, cached briefly (its timelines keep their own tables). */
   calendar(deps: AppDeps): WorkingCalendar {
     const hit = cache.get(deps.db);
-    const now = Date.now();
-    if (hit && now - hit.loadedAt < CACHE_MS) return hit.calendar;
+    const now = deps.now();
+    if (hit && now >= hit.loadedAt && now - hit.loadedAt < CACHE_MS) return hit.calendar;
     const calendar = compileCalendar(toConfig(readView(deps)));
     cache.set(deps.db, { calendar, loadedAt: now });
     return calendar;

@@ -4,6 +4,7 @@ import { loadsRepository, type LoadRow, type LoadTrayRow } from '../repositories
 import { auditRepository } from '../repositories/audit.repository';
 import { wipService, type Placement } from './wip.service';
 import { badInput, conflict, notFound } from '../errors';
+import { LOAD_KINDS, LOAD_KIND_TRAITS, cures, loadStationKind, type LoadKind } from '@shared/domain/traveller';
 import type { CreateLoadBody, LoadGroup, LoadTrayView, LoadView, LoadsOverview } from '@shared/schemas/loads';
 
 const MIN = 60_000;
@@ -24,17 +25,18 @@ function trayView(p: Placement, now: number): LoadTrayView {
 
 /** The cure profile a tray waits for: the cure minutes of its cure step. */
 function cureKey(p: Placement): string | null {
-  const fromCurrent = p.row.phase === 'waiting' && p.row.stationKind === 'cure';
+  const fromCurrent = p.row.phase === 'waiting' && cures(p.row.stationKind);
   const minutes = fromCurrent ? p.row.cureMinutes : p.row.nextCureMinutes;
   return minutes != null ? String(minutes) : null;
 }
 
-function groupKey(kind: 'cure' | 'plate', p: Placement): string | null {
-  if (p.phase !== 'waiting' || p.kind !== kind || p.row.kind !== 'tray') return null;
-  return kind === 'cure' ? cureKey(p) : p.row.plating;
+/** What the trays of one load share: the cure profile for an oven, the finish for a bath. */
+function groupKey(kind: LoadKind, p: Placement): string | null {
+  if (p.phase !== 'waiting' || p.kind !== loadStationKind(kind) || p.row.kind !== 'tray') return null;
+  return LOAD_KIND_TRAITS[kind].groupedBy === 'cure profile' ? cureKey(p) : p.row.plating;
 }
 
-function groups(kind: 'cure' | 'plate', placements: Placement[], taken: Set<string>, now: number): LoadGroup[] {
+function groups(kind: LoadKind, placements: Placement[], taken: Set<string>, now: number): LoadGroup[] {
   const by = new Map<string, Placement[]>();
   for (const p of placements) {
     const key = groupKey(kind, p);
@@ -47,7 +49,7 @@ function groups(kind: 'cure' | 'plate', placements: Placement[], taken: Set<stri
       const trays = ps.map((p) => trayView(p, now)).sort((a, b) => (b.waitingMinutes ?? 0) - (a.waitingMinutes ?? 0));
       return {
         key,
-        label: kind === 'cure' ? `${key} min cure` : key.replace(/_/g, ' '),
+        label: LOAD_KIND_TRAITS[kind].label(key),
         trays,
         pieces: trays.reduce((s, t) => s + t.quantity, 0),
         oldestMinutes: trays.length ? Math.max(...trays.map((t) => t.waitingMinutes ?? 0)) : null,
@@ -98,8 +100,8 @@ export const loadsService = {
       open.map((l) => l.id),
     );
     return {
-      oven: groups('cure', placements, taken, now),
-      plating: groups('plate', placements, taken, now),
+      oven: groups(LOAD_KINDS[0], placements, taken, now),
+      plating: groups(LOAD_KINDS[1], placements, taken, now),
       open: open.map((l) =>
         loadView(
           l,
@@ -112,6 +114,7 @@ export const loadsService = {
   /** Groups waiting trays of one cure profile or one finish (from any orders) into a load. */
   create(deps: AppDeps, body: CreateLoadBody, actorId: string | null): LoadView {
     const ids = [...new Set(body.trayIds)];
+    const traits = LOAD_KIND_TRAITS[body.kind];
     const now = deps.now();
     const { placements } = wipService.snapshot(deps);
     const byId = new Map(placements.map((p) => [p.row.trayId, p]));
@@ -122,7 +125,7 @@ export const loadsService = {
       const p = byId.get(id);
       const key = p ? groupKey(body.kind, p) : null;
       if (!p || key === null) {
-        throw badInput(body.kind === 'cure' ? 'Only trays waiting for the oven can go into an oven load.' : 'Only trays waiting for plating can go into a plating load.', [
+        throw badInput(`Only trays waiting for ${traits.waitingFor} can go into ${traits.loadName}.`, [
           { path: ['trayIds', i], message: 'Not waiting for this station kind' },
         ]);
       }
@@ -134,11 +137,11 @@ export const loadsService = {
     if (keys.size !== 1) {
       throw conflict(
         'mixed_load',
-        body.kind === 'cure' ? 'An oven load takes trays of one cure profile only.' : 'A plating load takes trays of one finish only.',
+        `${traits.loadName.charAt(0).toUpperCase()}${traits.loadName.slice(1)} takes trays of one ${traits.groupedBy} only.`,
       );
     }
     const id = crypto.randomUUID();
-    const number = `${body.kind === 'cure' ? 'OV' : 'PL'}-${String(loadsRepository.count(deps.db) + 1).padStart(5, '0')}`;
+    const number = `${traits.numberPrefix}-${String(loadsRepository.count(deps.db) + 1).padStart(5, '0')}`;
     const load: LoadRow = { id, number, kind: body.kind, groupKey: [...keys][0], status: 'open', createdAt: now, splitAt: null };
     deps.db.transaction((tx) => {
       loadsRepository.insert(tx, { ...load, createdBy: actorId }, chosen.map((p) => ({ trayId: p.row.trayId, orderId: p.row.orderId, quantity: p.row.quantity })));

@@ -57,6 +57,7 @@ import {
   type TrayPhase,
   type TravellerKind,
 } from '@shared/domain/vocabulary';
+import { cures, kindTraits } from '@shared/domain/traveller';
 
 /** Roles that may record a payment exception (release without payment). */
 export const EXCEPTION_ROLES: readonly Role[] = ['manager', 'admin'];
@@ -590,7 +591,7 @@ export const ordersService = {
     db.transaction((tx) => {
       const order = getOrder(tx, id);
       refuseIfReleased(order, 'its routing');
-      const steps: RoutingStep[] = body.steps.map((s, i) => ({ ...s, seq: i + 1, cureMinutes: s.stationKind === 'cure' ? (s.cureMinutes ?? null) : null, colour: s.colour ?? null }));
+      const steps: RoutingStep[] = body.steps.map((s, i) => ({ ...s, seq: i + 1, cureMinutes: cures(s.stationKind) ? (s.cureMinutes ?? null) : null, colour: s.colour ?? null }));
       ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', steps));
       ordersRepository.update(tx, id, { updatedAt: now });
       audit(tx, now, actorId, 'order.routing_edit', id, `Routing edited: ${steps.length} steps`);
@@ -650,7 +651,7 @@ export const ordersService = {
       const anyNew = plan.some((p) => !p.stored);
       const mouldSteps = mouldRouting({ reuse: !anyNew, process: spec.process });
       ordersRepository.replaceSteps(tx, id, 'mould', stepRows(id, 'mould', mouldSteps));
-      const checkSeq = mouldSteps.find((s) => s.stationKind === 'mould_check')!.seq;
+      const checkSeq = mouldSteps.find((s) => kindTraits(s.stationKind).mouldShop === 'check')!.seq;
       const mouldTravellers: ReleaseResult['moulds'] = [];
       for (const { side, stored } of plan) {
         let mouldId: string;

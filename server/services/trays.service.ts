@@ -16,7 +16,8 @@ import { canMerge, childTrayNumber, normaliseTrayNumber, releasedQuantity, split
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { MergeBody, MouldLibraryItem, MouldPatch, SplitBody, TrayLink, TrayView } from '@shared/schemas/trays';
 import type { TravellerSummary } from '@shared/schemas/orders';
-import type { Process, RoutingStep, StationKind, TrayPhase, TrayState } from '@shared/domain/vocabulary';
+import type { Process, RoutingStep, TrayPhase, TrayState } from '@shared/domain/vocabulary';
+import { kindTraits } from '@shared/domain/traveller';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
@@ -353,7 +354,7 @@ export const traysService = {
       const mine = travellers.filter((t) => t.mouldId === mould.id);
       const open = mine.find((t) => t.phase !== 'done' && t.phase !== 'scrapped' && t.phase !== 'merged');
       const status: MouldLibraryItem['status'] =
-        mould.status === 'retired' ? 'retired' : open ? ((open.stationKind as StationKind) === 'engrave' ? 'engraving' : 'checking') : mine.length ? 'ready' : (mould.status as MouldLibraryItem['status']);
+        mould.status === 'retired' ? 'retired' : open ? (kindTraits(open.stationKind).mouldShop === 'make' ? 'engraving' : 'checking') : mine.length ? 'ready' : (mould.status as MouldLibraryItem['status']);
       const lastUsed = mine.reduce<number | null>((m, t) => (m == null || t.releasedAt > m ? t.releasedAt : m), null);
       return {
         id: mould.id,

@@ -1,6 +1,7 @@
 import type { AppDeps } from '../app-deps';
 import { floorRepository, type OpenTrayRow, type WipRow } from '../repositories/floor.repository';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
+import { floorPlace } from '@shared/domain/traveller';
 import type { WipKind, WipResponse } from '@shared/schemas/reports';
 
 const MIN = 60_000;
@@ -15,19 +16,10 @@ export interface Placement<R extends WipRow = OpenTrayRow> {
   waitingSince: number | null;
 }
 
-/**
- * A tray waits at the kind of its next step and is in process or curing at the station where it
- * started. A tray whose cure has run its time stands at the oven but is ready: it waits for its
- * next step from the moment the cure ended (the same reading as the scan guards).
- */
+/** Where a traveller counts now: the traveller core's floor reading (the same as the scan guards'). */
 export function place<R extends WipRow>(row: R, now: number): Placement<R> | null {
-  if (row.phase === 'curing' && row.cureReadyAt != null && row.cureReadyAt <= now) {
-    if (!row.nextKind) return { row, phase: 'curing', kind: row.stationKind ?? 'cure', waitingSince: null };
-    return { row, phase: 'waiting', kind: row.nextKind, waitingSince: row.cureReadyAt };
-  }
-  if (!row.stationKind) return null;
-  if (row.phase === 'waiting') return { row, phase: 'waiting', kind: row.stationKind, waitingSince: row.waitingSince ?? row.releasedAt };
-  return { row, phase: row.phase, kind: row.stationKind, waitingSince: null };
+  const at = floorPlace(row, now);
+  return at ? { row, ...at } : null;
 }
 
 const zero = () => ({ trays: 0, pieces: 0 });

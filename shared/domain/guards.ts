@@ -46,14 +46,18 @@
 // earlier than the traveller's release, or earlier than the traveller's last accepted event
 // (history is append-only: a late event cannot be slotted in before later ones).
 
-import type { RejectionCode, Role, RoutingStep, ScanType, StationKind, TrayPhase, TrayState } from './vocabulary';
+import type { RejectionCode, Role, RoutingStep, ScanType, StationKind, TrayState } from './vocabulary';
+import { cures, kindsWhere } from './traveller/station-kinds';
+import { effectivePhase } from './traveller/phase';
+
+export { effectivePhase };
 
 export const MAX_AHEAD_MS = 2 * 60_000;
 export const MAX_AGE_MS = 7 * 24 * 60 * 60_000;
 const MINUTE_MS = 60_000;
 
 /** Station kinds whose steps need the order's mould to be ready before a tray may start. */
-export const MOULD_KINDS: readonly StationKind[] = ['strike', 'cast'];
+export const MOULD_KINDS: readonly StationKind[] = kindsWhere((t) => t.needsMould);
 
 /** Roles that may release a held tray without a separate override. */
 export const RELEASE_ROLES: readonly Role[] = ['supervisor', 'admin'];
@@ -205,15 +209,6 @@ export function lastEventTime(state: TrayState): number {
   let t = Date.parse(state.releasedAt);
   for (const v of [state.startedAt, state.waitingSince]) if (v) t = Math.max(t, Date.parse(v));
   return t;
-}
-
-/**
- * The phase to show: a tray whose cure has run its time stands at the oven but is ready, which
- * for WIP and the station screens means it is waiting for its next step.
- */
-export function effectivePhase(state: TrayState, now: Date | string | number): TrayPhase {
-  if (state.phase === 'curing' && state.cureReadyAt && Date.parse(state.cureReadyAt) <= toMs(now)) return 'waiting';
-  return state.phase;
 }
 
 /** The step a start at this moment would be waiting for (the step after a cure that is in the oven). */
@@ -371,7 +366,7 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
   if (station.kind !== awaited.stationKind) {
     const params = { ...stepParams(awaited, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'start' };
     // A cure is done in an oven: no override makes another station stand in for it.
-    if (awaited.stationKind === 'cure') return refuse('wrong_station', params, false);
+    if (cures(awaited.stationKind)) return refuse('wrong_station', params, false);
     if (input.override?.kind !== 'wrong_station') return refuse('wrong_station', params, true);
     overridden.push('wrong_station');
     substitutedKind = station.kind;
@@ -405,7 +400,7 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
     waitingFromMs = closedMs;
   }
 
-  const isCure = target.stationKind === 'cure' && station.kind === 'cure';
+  const isCure = cures(target.stationKind) && cures(station.kind);
   const cureMinutes = isCure ? (target.cureMinutes ?? 0) : 0;
   const next = stamp({
     ...state,

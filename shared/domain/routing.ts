@@ -2,6 +2,7 @@
 // Templates are data so admins can edit them; the defaults below are what a new
 // factory starts with. All standard minutes here are demo values, meant to be edited.
 import { ANTIQUE_PLATINGS, type BackingType, type Plating, type Process, type RoutingStep, type StationKind } from './vocabulary';
+import { FILL_KIND, OVEN_KIND, cures, kindTraits, kindsWhere } from './traveller/station-kinds';
 
 /**
  * When a template step applies to an order. `fittings`: a backing fitted after inspection
@@ -109,8 +110,8 @@ function applies(when: StepCondition | undefined, spec: RoutingSpec): boolean {
   }
 }
 
-export function colourStepName(i: number, n: number, what: 'fill' | 'cure'): string {
-  return `Colour ${i} of ${n}: ${what}`;
+export function colourStepName(i: number, n: number, kind: StationKind): string {
+  return `Colour ${i} of ${n}: ${kindTraits(kind).colourStep ?? kind}`;
 }
 
 /** Expands a template into the order's routing: seq 1..n, one fill (and cure) per colour. */
@@ -128,7 +129,7 @@ export function expandRouting(template: RoutingTemplate, spec: RoutingSpec): Rou
         stationKind: entry.stationKind,
         trayMinutes: entry.trayMinutes,
         pieceMinutes: entry.pieceMinutes,
-        cureMinutes: entry.stationKind === 'cure' ? (entry.cureMinutes ?? 0) : null,
+        cureMinutes: cures(entry.stationKind) ? (entry.cureMinutes ?? 0) : null,
         colour: null,
       });
       continue;
@@ -136,8 +137,8 @@ export function expandRouting(template: RoutingTemplate, spec: RoutingSpec): Rou
     if (n === 0) continue;
     for (let i = 1; i <= n; i++) {
       out.push({
-        name: colourStepName(i, n, 'fill'),
-        stationKind: 'fill',
+        name: colourStepName(i, n, FILL_KIND),
+        stationKind: FILL_KIND,
         trayMinutes: entry.fill.trayMinutes,
         pieceMinutes: entry.fill.pieceMinutes,
         cureMinutes: null,
@@ -145,8 +146,8 @@ export function expandRouting(template: RoutingTemplate, spec: RoutingSpec): Rou
       });
       if (entry.cure === 'each') {
         out.push({
-          name: colourStepName(i, n, 'cure'),
-          stationKind: 'cure',
+          name: colourStepName(i, n, OVEN_KIND),
+          stationKind: OVEN_KIND,
           trayMinutes: entry.cureStep.trayMinutes,
           pieceMinutes: entry.cureStep.pieceMinutes,
           cureMinutes: entry.cureStep.cureMinutes,
@@ -157,7 +158,7 @@ export function expandRouting(template: RoutingTemplate, spec: RoutingSpec): Rou
     if (entry.cure === 'once') {
       out.push({
         name: entry.onceName,
-        stationKind: 'cure',
+        stationKind: OVEN_KIND,
         trayMinutes: entry.cureStep.trayMinutes,
         pieceMinutes: entry.cureStep.pieceMinutes,
         cureMinutes: entry.cureStep.cureMinutes,
@@ -205,7 +206,7 @@ const ANTIQUE = step('Antique: oxidise and relief-polish', 'antique', t(15, 0.06
 const PLATING: TemplateSingleStep[] = [PLATE, SECOND_PLATE, ANTIQUE];
 const PRINT_OPTIONAL = step('Print', 'print', t(15, 0.1), { when: 'printing' });
 const EPOXY_OPTIONAL = step('Epoxy dome', 'epoxy', t(10, 0.1), { when: 'epoxy' });
-const EPOXY_CURE_OPTIONAL = step('Epoxy: cure', 'cure', t(5, 0), { when: 'epoxy', cureMinutes: EPOXY_WARM_CURE_MINUTES });
+const EPOXY_CURE_OPTIONAL = step('Epoxy: cure', OVEN_KIND, t(5, 0), { when: 'epoxy', cureMinutes: EPOXY_WARM_CURE_MINUTES });
 const FINISH: TemplateSingleStep[] = [
   step('Inspect', 'inspect', t(5, 0.05)),
   step('Fit clutches', 'clutch', t(3, 0.05), { when: 'fittings' }),
@@ -317,11 +318,15 @@ export const DEFAULT_MOULD_TEMPLATE: MouldTemplate = {
   cut: t(60, 0),
 };
 
+/** The mould shop's kinds: where tools are made, and where they are checked. */
+export const MOULD_MAKE_KIND: StationKind = kindsWhere((t) => t.mouldShop === 'make')[0];
+export const MOULD_CHECK_KIND: StationKind = kindsWhere((t) => t.mouldShop === 'check')[0];
+
 /** The names of the mould shop's steps for each tool. */
-export function mouldStepName(kind: 'engrave' | 'mould_check', tool: MouldTool | null): string {
-  if (tool === 'cutting_die') return kind === 'engrave' ? 'Make cutting die' : 'Check cutting die';
+export function mouldStepName(shop: 'make' | 'check', tool: MouldTool | null): string {
+  if (tool === 'cutting_die') return shop === 'make' ? 'Make cutting die' : 'Check cutting die';
   const what = tool === 'back_mould' ? 'back mould' : tool === 'front_mould' ? 'front mould' : 'mould';
-  return kind === 'engrave' ? `Engrave ${what}` : `Check ${what}`;
+  return shop === 'make' ? `Engrave ${what}` : `Check ${what}`;
 }
 
 /**
@@ -336,19 +341,22 @@ export function mouldRouting(opts: { reuse: boolean; tool?: MouldTool | null; pr
   const tool = opts.tool ?? (cutting ? 'cutting_die' : null);
   const steps: Omit<RoutingStep, 'seq'>[] = [];
   if (!opts.reuse) {
-    steps.push({ name: mouldStepName('engrave', tool), stationKind: 'engrave', ...(cutting ? tpl.cut : tpl.engrave), cureMinutes: null, colour: null });
+    steps.push({ name: mouldStepName('make', tool), stationKind: MOULD_MAKE_KIND, ...(cutting ? tpl.cut : tpl.engrave), cureMinutes: null, colour: null });
   }
-  steps.push({ name: mouldStepName('mould_check', tool), stationKind: 'mould_check', ...tpl.check, cureMinutes: null, colour: null });
+  steps.push({ name: mouldStepName('check', tool), stationKind: MOULD_CHECK_KIND, ...tpl.check, cureMinutes: null, colour: null });
   return steps.map((s, i) => ({ seq: i + 1, ...s }));
 }
 
 /** An order's stored mould routing as one tool's traveller shows it: the mould shop's steps under that tool's names. */
 export function mouldStepsFor<T extends Pick<RoutingStep, 'stationKind' | 'name'>>(steps: readonly T[], tool: MouldTool): T[] {
-  return steps.map((s) => (s.stationKind === 'engrave' || s.stationKind === 'mould_check' ? { ...s, name: mouldStepName(s.stationKind, tool) } : s));
+  return steps.map((s) => {
+    const shop = kindTraits(s.stationKind).mouldShop;
+    return shop ? { ...s, name: mouldStepName(shop, tool) } : s;
+  });
 }
 
 /** Station kinds whose start needs the order's moulds to be ready. */
-export const MOULD_USING_KINDS: readonly StationKind[] = ['strike', 'cast'];
+export const MOULD_USING_KINDS: readonly StationKind[] = kindsWhere((t) => t.needsMould);
 
 // ---------------------------------------------------------------------------------------
 // Edited routings
@@ -373,7 +381,7 @@ export function routingProblems(steps: readonly RoutingStep[]): RoutingProblem[]
     if (!(s.trayMinutes >= 0) || !(s.pieceMinutes >= 0)) {
       problems.push({ seq: s.seq, message: 'Standard minutes cannot be negative' });
     }
-    if (s.stationKind === 'cure' && !(typeof s.cureMinutes === 'number' && s.cureMinutes > 0)) {
+    if (cures(s.stationKind) && !(typeof s.cureMinutes === 'number' && s.cureMinutes > 0)) {
       problems.push({ seq: s.seq, message: `${s.name}: a cure step needs a minimum cure time` });
     }
   });

@@ -1,5 +1,6 @@
 // Where an order stands, told the way a customer or a sales person understands it: a short
 // progress line of seven stages instead of twenty station steps.
+import { STATION_KIND_TRAITS } from './traveller/station-kinds';
 import { STATION_KINDS, STATION_KIND_NAMES, type OrderStatus, type RoutingStep, type StationKind, type TrayPhase, type TravellerKind } from './vocabulary';
 
 export const CUSTOMER_STAGES = [
@@ -41,29 +42,9 @@ const STAGE_EXPLANATIONS: Record<CustomerStage, string> = {
  * plating in hard enamel work, so they belong with finishing. Dispatch is the last packing
  * step: the order only counts as shipped when that step has finished.
  */
-export const STAGE_OF_STATION_KIND: Record<StationKind, CustomerStage> = {
-  engrave: 'artwork_moulds',
-  mould_check: 'artwork_moulds',
-  strike: 'metal_forming',
-  cast: 'metal_forming',
-  trim: 'metal_forming',
-  post: 'metal_forming',
-  solder: 'metal_forming',
-  fill: 'colour',
-  cure: 'colour',
-  stone: 'finishing_plating',
-  polish: 'finishing_plating',
-  sandblast: 'finishing_plating',
-  plate: 'finishing_plating',
-  antique: 'finishing_plating',
-  print: 'finishing_plating',
-  epoxy: 'finishing_plating',
-  inspect: 'inspection',
-  clutch: 'packing',
-  bag: 'packing',
-  pack: 'packing',
-  dispatch: 'packing',
-};
+export const STAGE_OF_STATION_KIND = Object.fromEntries(
+  Object.entries(STATION_KIND_TRAITS).map(([k, t]) => [k, t.stage]),
+) as Record<StationKind, CustomerStage>;
 
 /** What the stage computation needs to know about one traveller (tray or mould). */
 export interface TravellerProgress {

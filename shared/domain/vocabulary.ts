@@ -1,4 +1,5 @@
 // The words of the trade that client and server share. Pure data: no I/O, no Drizzle.
+import { STATION_KIND_TRAITS } from './traveller/station-kinds';
 
 export const ROLES = ['operator', 'supervisor', 'planner', 'manager', 'sales', 'admin'] as const;
 
@@ -33,29 +34,9 @@ export const STATION_KINDS = [
 export type StationKind = (typeof STATION_KINDS)[number];
 
 /** Plain English names of the station kinds (the tablet has its own translations). */
-export const STATION_KIND_NAMES: Record<StationKind, string> = {
-  engrave: 'mould engraving',
-  mould_check: 'mould check',
-  strike: 'die striking',
-  cast: 'zinc die casting',
-  trim: 'trimming',
-  post: 'post fitting',
-  solder: 'pin soldering',
-  fill: 'colour fill',
-  cure: 'curing oven',
-  stone: 'stoning',
-  polish: 'polishing',
-  sandblast: 'sandblasting',
-  plate: 'plating',
-  antique: 'antique oxidising',
-  print: 'screen printing',
-  epoxy: 'epoxy',
-  inspect: 'inspection',
-  clutch: 'clutch fitting',
-  bag: 'bagging',
-  pack: 'packing',
-  dispatch: 'dispatch',
-};
+export const STATION_KIND_NAMES = Object.fromEntries(
+  Object.entries(STATION_KIND_TRAITS).map(([k, t]) => [k, t.name]),
+) as Record<StationKind, string>;
 
 export const PROCESSES = ['hard_enamel', 'soft_enamel', 'die_struck', 'printed', 'die_cast_3d'] as const;
 export type Process = (typeof PROCESSES)[number];

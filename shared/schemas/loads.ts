@@ -1,7 +1,8 @@
 import { z } from 'zod';
+import { LOAD_KINDS, type LoadKind } from '@shared/domain/traveller/station-kinds';
 
 export const createLoadBody = z.strictObject({
-  kind: z.enum(['cure', 'plate']),
+  kind: z.enum(LOAD_KINDS),
   trayIds: z.array(z.string().min(1)).min(1).max(200),
 });
 export type CreateLoadBody = z.infer<typeof createLoadBody>;
@@ -30,7 +31,7 @@ export interface LoadGroup {
 export interface LoadView {
   id: string;
   number: string;
-  kind: 'cure' | 'plate';
+  kind: LoadKind;
   groupKey: string;
   status: 'open' | 'split';
   createdAt: string;

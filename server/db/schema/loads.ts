@@ -1,4 +1,5 @@
 import { sqliteTable, text, integer, index, primaryKey } from 'drizzle-orm/sqlite-core';
+import { LOAD_KINDS } from '../../../shared/domain/traveller/station-kinds';
 import { id, ms } from './columns';
 import { trays } from './trays';
 import { orders } from './orders';
@@ -14,7 +15,7 @@ export const loads = sqliteTable(
   {
     id: id(),
     number: text('number').notNull().unique(),
-    kind: text('kind', { enum: ['cure', 'plate'] }).notNull(),
+    kind: text('kind', { enum: LOAD_KINDS }).notNull(),
     /** the cure minutes of an oven load, or the finish of a plating load */
     groupKey: text('group_key').notNull(),
     status: text('status', { enum: ['open', 'split'] }).notNull(),

@@ -8,11 +8,12 @@ import { Button } from '@/components/ui/button';
 import { Card, EmptyState, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { minutesText } from '@/lib/duration';
 import { humanise } from '@/lib/labels';
+import { LOAD_KIND_TRAITS, type LoadKind } from '@shared/domain/traveller/station-kinds';
 
 export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(loadsQueryOptions());
 
-function GroupCard({ kind, group }: { kind: 'cure' | 'plate'; group: LoadGroup }) {
+function GroupCard({ kind, group }: { kind: LoadKind; group: LoadGroup }) {
   const create = useCreateLoad();
   const [chosen, setChosen] = useState<Set<string>>(() => new Set());
   const toggle = (id: string) => setChosen((s) => {
@@ -22,7 +23,7 @@ function GroupCard({ kind, group }: { kind: 'cure' | 'plate'; group: LoadGroup }
     return n;
   });
   const pieces = group.trays.filter((t) => chosen.has(t.trayId)).reduce((s, t) => s + t.quantity, 0);
-  const title = kind === 'cure' ? group.label : humanise(group.key);
+  const title = LOAD_KIND_TRAITS[kind].groupedBy === 'cure profile' ? group.label : humanise(group.key);
   return (
     <Card>
       <header className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
@@ -61,7 +62,7 @@ function GroupCard({ kind, group }: { kind: 'cure' | 'plate'; group: LoadGroup }
       </table>
       <div className="mt-3 flex flex-wrap items-center gap-3">
         <Button disabled={chosen.size === 0 || create.isPending} onClick={() => create.mutate({ kind, trayIds: [...chosen] }, { onSuccess: () => setChosen(new Set()) })}>
-          <Layers className="h-5 w-5" aria-hidden /> Make {kind === 'cure' ? 'an oven' : 'a plating'} load of {chosen.size} trays ({pieces.toLocaleString('en-GB')} pieces)
+          <Layers className="h-5 w-5" aria-hidden /> Make {LOAD_KIND_TRAITS[kind].loadName} of {chosen.size} trays ({pieces.toLocaleString('en-GB')} pieces)
         </Button>
         {create.error && <span className="font-bold text-stop-700">{create.error.message}</span>}
       </div>
@@ -75,7 +76,7 @@ function OpenLoad({ load }: { load: LoadView }) {
     <Card>
       <header className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-xl font-bold text-harbour-900">
-          {load.number} · {load.kind === 'cure' ? `${load.groupKey} min cure` : humanise(load.groupKey)}
+          {load.number} · {LOAD_KIND_TRAITS[load.kind].groupedBy === 'cure profile' ? LOAD_KIND_TRAITS[load.kind].label(load.groupKey) : humanise(load.groupKey)}
         </h3>
         <Pill tone="info">{load.pieces.toLocaleString('en-GB')} pieces</Pill>
       </header>

@@ -7,6 +7,7 @@ import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
 import type { StationKind } from '@shared/domain/vocabulary';
 import { factoryTime, minutesText } from '@/lib/duration';
 import { paths } from '@/config/paths';
+import { cures } from '@shared/domain/traveller/station-kinds';
 
 export type WallTheme = 'dark' | 'light';
 
@@ -83,7 +84,7 @@ function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: Re
 export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: WallTheme; bottleneck: boolean }) {
   const t = THEMES[theme];
   const idle = kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
-  const oven = kind.stationKind === 'cure';
+  const oven = cures(kind.stationKind);
   // An empty station looks quiet through a dashed outline, smaller figures and the word "Empty",
   // never through faded text: every word on the tile keeps its contrast (WCAG 2.1, 1.4.3).
   return (

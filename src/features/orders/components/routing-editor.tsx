@@ -8,6 +8,7 @@ import { Card, ErrorPanel } from '@/components/ui/panels';
 import { Button } from '@/components/ui/button';
 import { humanise } from '@/lib/labels';
 import { useEditRouting, useResetRouting } from '../api/routing';
+import { cures } from '@shared/domain/traveller/station-kinds';
 
 const cell = 'min-h-11 w-full rounded-lg border-2 border-harbour-100 bg-white px-2';
 
@@ -125,7 +126,7 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                       value={s.stationKind}
                       onChange={(e) => {
                         const kind = e.target.value as StationKind;
-                        change(i, { stationKind: kind, cureMinutes: kind === 'cure' ? (s.cureMinutes ?? 120) : null });
+                        change(i, { stationKind: kind, cureMinutes: cures(kind) ? (s.cureMinutes ?? 120) : null });
                       }}
                     >
                       {STATION_KINDS.map((k) => (
@@ -153,7 +154,7 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                   )}
                 </td>
                 <td className="px-2 py-1">
-                  {s.stationKind === 'cure' ? (
+                  {cures(s.stationKind) ? (
                     editing ? (
                       <input
                         aria-label={`Step ${i + 1} minimum cure minutes`}

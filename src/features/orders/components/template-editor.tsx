@@ -8,6 +8,7 @@ import { Card, ErrorPanel } from '@/components/ui/panels';
 import { CheckboxField, TextField } from '@/components/ui/field';
 import { humanise } from '@/lib/labels';
 import { useSaveTemplate } from '../api/routing';
+import { cures } from '@shared/domain/traveller/station-kinds';
 
 const input = 'min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2';
 const CONDITION_LABELS: Record<StepCondition, string> = {
@@ -103,7 +104,7 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                         value={e.stationKind}
                         onChange={(ev) => {
                           const kind = ev.target.value as StationKind;
-                          setEntry(i, { ...e, stationKind: kind, cureMinutes: kind === 'cure' ? (e.cureMinutes ?? 120) : null });
+                          setEntry(i, { ...e, stationKind: kind, cureMinutes: cures(kind) ? (e.cureMinutes ?? 120) : null });
                         }}
                       >
                         {STATION_KINDS.map((k) => (
@@ -124,7 +125,7 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                     </Cap>
                     <NumberCell label={`Entry ${i + 1} minutes per tray`} caption="Min / tray" value={e.trayMinutes} onChange={(v) => setEntry(i, { ...e, trayMinutes: v })} />
                     <NumberCell label={`Entry ${i + 1} minutes per piece`} caption="Min / piece" value={e.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })} />
-                    {e.stationKind === 'cure' && (
+                    {cures(e.stationKind) && (
                       <NumberCell label={`Entry ${i + 1} minimum cure minutes`} caption="Cure at least" value={e.cureMinutes ?? 0} step="1" onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })} />
                     )}
                   </>

@@ -30,6 +30,7 @@ import { OverridePanel } from './override-panel';
 import { QueueLists, type QueueItem } from './queue-lists';
 import { RefusedPanel } from './refused-panel';
 import type { Operator } from './sign-in-panel';
+import { cures } from '@shared/domain/traveller/station-kinds';
 
 type Panel = null | 'finish' | 'hold' | { override: 'wrong_station' | 'curing' | 'release'; retry: Omit<ScanEvent, 'id' | 'occurredAt' | 'code' | 'stationId'> };
 
@@ -132,7 +133,7 @@ export function StationScreen({
   // Cure stations: a tray turning ready is announced once, with a sound.
   const announced = useRef(new Set<string>());
   useEffect(() => {
-    if (station.kind !== 'cure') return;
+    if (!cures(station.kind)) return;
     for (const i of lists.curing) {
       if (i.minutes <= 0 && !i.state.onHold && !announced.current.has(i.number)) {
         announced.current.add(i.number);
@@ -429,7 +430,7 @@ export function StationScreen({
           )}
         </div>
         <aside className="flex flex-col gap-4">
-          <QueueLists inProcess={lists.inProcess} curing={lists.curing} waiting={lists.waiting} onOpen={(n) => void openCode(n)} isOven={station.kind === 'cure'} reasonName={reasonName} />
+          <QueueLists inProcess={lists.inProcess} curing={lists.curing} waiting={lists.waiting} onOpen={(n) => void openCode(n)} isOven={cures(station.kind)} reasonName={reasonName} />
         </aside>
       </main>
       </ActionBarSlot.Provider>

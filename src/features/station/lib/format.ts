@@ -1,6 +1,7 @@
 import type { TFunction } from 'i18next';
 import type { RoutingStep } from '@shared/domain/vocabulary';
 import type { StationLang } from './refusal-text';
+import { kindTraits } from '@shared/domain/traveller/station-kinds';
 
 /** "2 h 05 min", "3 d 4 h" … from minutes, in the tablet's language. */
 export function formatDuration(t: TFunction<'station'>, minutes: number): string {
@@ -40,7 +41,7 @@ export function formatNumber(lang: StationLang, n: number): string {
  */
 export function stepLabel(t: TFunction<'station'>, lang: StationLang, step: RoutingStep | undefined, routing: readonly RoutingStep[]): string {
   if (!step) return '—';
-  if (step.colour != null && (step.stationKind === 'fill' || step.stationKind === 'cure')) {
+  if (step.colour != null && kindTraits(step.stationKind).colourStep != null) {
     const total = routing.reduce((m, s) => Math.max(m, s.colour ?? 0), 0);
     return t('step.colourOf', { n: step.colour, total, kind: t(`kind.${step.stationKind}`) });
   }

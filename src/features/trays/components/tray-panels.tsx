@@ -8,6 +8,7 @@ import { TextField } from '@/components/ui/field';
 import { paths } from '@/config/paths';
 import { formatDateTime, humanise } from '@/lib/labels';
 import { useMergeTrays, useSplitTray } from '../api/tray-actions';
+import { cures } from '@shared/domain/traveller/station-kinds';
 
 /** The routing as a checklist: done, current, to do. */
 export function RoutingProgress({ tray }: { tray: TrayView }) {
@@ -25,7 +26,7 @@ export function RoutingProgress({ tray }: { tray: TrayView }) {
               {done ? <CheckSquare className="h-5 w-5 text-ok-700" aria-label="done" /> : here ? <SquareArrowRight className="h-5 w-5 text-harbour-800" aria-label="current" /> : <Square className="h-5 w-5 text-harbour-600" aria-label="to do" />}
               <span>
                 {s.seq}. {s.name}
-                {s.stationKind === 'cure' && s.cureMinutes ? <span className="text-sm text-harbour-700"> · at least {s.cureMinutes} min</span> : null}
+                {cures(s.stationKind) && s.cureMinutes ? <span className="text-sm text-harbour-700"> · at least {s.cureMinutes} min</span> : null}
               </span>
             </li>
           );

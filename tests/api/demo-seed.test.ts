@@ -41,7 +41,7 @@ beforeAll(async () => {
   b = makeTestApp();
   b.setNow(NOW);
   await seedDemo(b.deps);
-}, 120_000);
+}, 400_000);
 afterAll(() => {
   a?.close();
   b?.close();

@@ -55,15 +55,20 @@ describe('shipment input', () => {
 
 describe('public status', () => {
   const ok = {
+    factory: 'Tallowmere Badge Works',
+    number: '1042',
     title: 'Regatta 2025 crew pins',
     customer: 'Northfield Rowing Club',
+    quantity: 500,
+    process: 'hard_enamel',
     stage: 'Colour',
     stages: [
-      { name: 'Artwork and moulds', done: true },
-      { name: 'Metal forming', done: true },
-      { name: 'Colour', done: false },
+      { key: 'artwork', name: 'Artwork and moulds', done: true, at: '2025-03-20T09:00:00.000Z' },
+      { key: 'forming', name: 'Metal forming', done: true, at: '2025-03-24T16:00:00.000Z' },
+      { key: 'colour', name: 'Colour', done: false },
     ],
     projectedShipAt: '2025-04-02T15:00:00.000Z',
+    updatedAt: '2025-03-26T08:00:00.000Z',
   };
   it('accepts the documented fields', () => {
     expect(publicStatusSchema.parse(ok)).toEqual(ok);
@@ -74,7 +79,7 @@ describe('public status', () => {
   it('refuses any other field, top level or inside a stage', () => {
     expect(publicStatusSchema.safeParse({ ...ok, price: 10 }).success).toBe(false);
     expect(publicStatusSchema.safeParse({ ...ok, notes: 'internal' }).success).toBe(false);
-    expect(publicStatusSchema.safeParse({ ...ok, stages: [{ name: 'Colour', done: false, key: 'colour' }] }).success).toBe(false);
+    expect(publicStatusSchema.safeParse({ ...ok, stages: [{ name: 'Colour', done: false, key: 'colour', operator: 'someone' }] }).success).toBe(false);
   });
 });
 

@@ -24,7 +24,9 @@ export async function freePort(): Promise<number> {
   });
 }
 
-async function waitForHealth(url: string, child: ChildProcess, log: () => string, timeoutMs = 120_000) {
+// the demo seed simulates ten weeks of floor history before the server listens: about two minutes on
+// one free core, more on a loaded machine; the wait ends as soon as the server answers
+async function waitForHealth(url: string, child: ChildProcess, log: () => string, timeoutMs = 900_000) {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     if (child.exitCode !== null) throw new Error(`the server exited early:\n${log()}`);

@@ -14,6 +14,7 @@
 // - Process times scatter around the standard minutes (log-normal); cure times are respected.
 // - Some pieces are scrapped with a reason, a few reworked; a few trays are put on hold and
 //   released; some orders are held.
+import { PriorityQueue } from '@shared/domain/priority-queue';
 import type { GuardInput, ValidOverride } from '@shared/domain/guards';
 import { evaluateScan } from '@shared/domain/guards';
 import { refusalText } from '@shared/domain/scan-messages';
@@ -250,46 +251,18 @@ const SCRAP: Partial<Record<StationKind, { p: number; max: number; reasons: stri
  * plating bath work on their own once loaded; the courier collects. */
 const PERSON_MINUTES: Partial<Record<StationKind, number>> = { cure: 5, plate: 0, dispatch: 0 };
 
+/** The simulator's clock: jobs by time, ties in the order they were queued. */
 class Heap {
-  private items: { at: number; n: number; t: Live }[] = [];
+  private queue = new PriorityQueue<{ at: number; n: number; t: Live }>((x, y) => x.at < y.at || (x.at === y.at && x.n < y.n));
   private counter = 0;
   get size() {
-    return this.items.length;
+    return this.queue.size;
   }
   push(at: number, t: Live) {
-    const item = { at, n: this.counter++, t };
-    const a = this.items;
-    a.push(item);
-    let i = a.length - 1;
-    while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (this.less(a[p], a[i])) break;
-      [a[p], a[i]] = [a[i], a[p]];
-      i = p;
-    }
+    this.queue.push({ at, n: this.counter++, t });
   }
   pop() {
-    const a = this.items;
-    const top = a[0];
-    const last = a.pop()!;
-    if (a.length) {
-      a[0] = last;
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1;
-        const r = l + 1;
-        let m = i;
-        if (l < a.length && this.less(a[l], a[m])) m = l;
-        if (r < a.length && this.less(a[r], a[m])) m = r;
-        if (m === i) break;
-        [a[m], a[i]] = [a[i], a[m]];
-        i = m;
-      }
-    }
-    return top;
-  }
-  private less(x: { at: number; n: number }, y: { at: number; n: number }) {
-    return x.at < y.at || (x.at === y.at && x.n < y.n);
+    return this.queue.pop()!;
   }
 }
 

@@ -20,6 +20,7 @@
 //
 // Each traveller draws from its own random stream (seeded by its id and the run), so the same
 // floor gives the same dates, and adding an order changes others' dates only through capacity.
+import { PriorityQueue } from './priority-queue';
 import type { Timeline, WorkingCalendar } from './calendar';
 import { countAtMost, quantileSorted, seedOf } from './stats';
 import { ORDER_LEVEL_KINDS, type DispatchRecord, type FloorSnapshot, type MeasuredHistory, type ProcessRecord, type QueueRecord } from './floor-history';
@@ -326,48 +327,7 @@ class EventHeap {
 }
 
 /** Travellers waiting for a place at one kind: the best first (earliest due, then first to ask). */
-class WaitingLine {
-  private items: number[] = [];
-  constructor(private readonly before: (a: number, b: number) => boolean) {}
-  get size() {
-    return this.items.length;
-  }
-  push(x: number) {
-    const a = this.items;
-    a.push(x);
-    let i = a.length - 1;
-    while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (!this.before(a[i], a[p])) break;
-      const tmp = a[p];
-      a[p] = a[i];
-      a[i] = tmp;
-      i = p;
-    }
-  }
-  pop(): number {
-    const a = this.items;
-    const top = a[0];
-    const last = a.pop()!;
-    if (a.length) {
-      a[0] = last;
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1;
-        const r = l + 1;
-        let m = i;
-        if (l < a.length && this.before(a[l], a[m])) m = l;
-        if (r < a.length && this.before(a[r], a[m])) m = r;
-        if (m === i) break;
-        const tmp = a[m];
-        a[m] = a[i];
-        a[i] = tmp;
-        i = m;
-      }
-    }
-    return top;
-  }
-}
+class WaitingLine extends PriorityQueue<number> {}
 
 // event kinds
 const REQUEST = 0;
@@ -583,7 +543,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
       const k = kindOfStep[si][s.idx];
       busy[k]--;
       const queue = waiting[k];
-      if (queue.size) start(queue.pop(), t);
+      if (queue.size) start(queue.pop()!, t);
       s.idx++;
       const oi = s.order;
       if (s.idx >= s.steps.length) {

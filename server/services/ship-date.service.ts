@@ -10,6 +10,7 @@ import { projectTrays, type TrayOutlook } from '@shared/domain/projection';
 import { standardMinutes, type TrayPhase } from '@shared/domain/vocabulary';
 import { shippingRepository } from '../repositories/shipping.repository';
 import { projectionService } from './projection.service';
+import { projectionRepository } from '../repositories/projection.repository';
 
 /** Queue allowance per remaining step when nothing better is known (minutes of working time). */
 export const SIMPLE_QUEUE_MINUTES = 60;
@@ -88,6 +89,10 @@ export function projectOrder(
 export function measuredShipDates(deps: AppDeps, orderIds: string[]): Map<string, ShipDate> {
   const out = new Map<string, ShipDate>();
   if (orderIds.length === 0) return out;
+  // only orders on the floor have a projection: asking for others (an order being entered, paid
+  // for or approved) must not run the whole floor's simulation
+  const open = new Set(projectionRepository.openOrders(deps.db).map((o) => o.id));
+  if (!orderIds.some((id) => open.has(id))) return out;
   try {
     for (const [id, p] of projectionService.forOrders(deps, orderIds)) {
       if (p.expectedAt != null) out.set(id, { expectedAt: Date.parse(p.expectedAt), basis: p.explanation });

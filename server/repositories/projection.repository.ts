@@ -126,6 +126,12 @@ export const projectionRepository = {
       )
       .all(orderId) as StepRow[];
   },
+  /** size and tray size of orders released since `since` (what a planner usually chooses) */
+  traySizesSince(db: Db, since: number): { sizeMm: number; traySize: number }[] {
+    return client(db)
+      .prepare('select size_mm as sizeMm, tray_size as traySize from orders where released_at >= ? and tray_size is not null')
+      .all(since) as { sizeMm: number; traySize: number }[];
+  },
   /** a cheap fingerprint of everything a projection reads */
   fingerprint(db: Db): string {
     const c = client(db);

@@ -84,7 +84,7 @@ export function floorSnapshot(deps: AppDeps, now: number): { snapshot: FloorSnap
 }
 
 /** The measured model of the floor now (cached with the projections). */
-function modelOf(deps: AppDeps, snapshot: FloorSnapshot, cal: WorkingCalendar) {
+export function modelOf(deps: AppDeps, snapshot: FloorSnapshot, cal: WorkingCalendar) {
   const stations = repo.stations(deps.db).map((s) => ({ kind: s.kind, capacityTrays: s.capacityTrays, active: !!s.active }));
   return measureFloor(snapshot.measured, cal, stations);
 }

@@ -22,3 +22,6 @@ export const GATE_RECORDERS: readonly Role[] = ['planner', 'manager', 'sales', '
 
 /** Who writes quotes. */
 export const QUOTING: readonly Role[] = ['sales', 'planner', 'admin'];
+
+/** Ask "when would it ship?" for an order not taken yet. */
+export const WHAT_IF: readonly Role[] = ['planner', 'sales', 'manager'];

@@ -254,6 +254,8 @@ interface Sim {
   since: number;
   /** on hold now: working minutes held so far (−1: not held) */
   heldFor: number;
+  /** the order's release: a traveller of an order released later than now starts then */
+  availableAt: number;
 }
 
 const ms = (x: string | null | undefined) => (x ? Date.parse(x) : null);
@@ -410,7 +412,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
       const line = calendar.forStation(first.stationKind);
       const waited = f.startedAt == null && f.waitingSince != null ? Math.max(0, line.workingMinutesBetween(f.waitingSince, now)) : 0;
       for (const s of f.steps) kindIdx(s.stationKind);
-      sims.push({ order: oi, kind: t.kind, steps: f.steps, qty: t.kind === 'mould' ? 1 : st.quantity, idx: 0, waited, notBefore: f.notBefore, startedAt: f.startedAt, seed: seedOf(t.id) ^ seed, rnd: 0, requestAt: 0, since: f.waitingSince ?? now, heldFor: st.onHold ? Math.max(0, calendar.factory.workingMinutesBetween(ms(st.lastEventAt) ?? now, now)) : -1 });
+      sims.push({ order: oi, kind: t.kind, steps: f.steps, qty: t.kind === 'mould' ? 1 : st.quantity, idx: 0, waited, notBefore: f.notBefore, startedAt: f.startedAt, seed: seedOf(t.id) ^ seed, rnd: 0, requestAt: 0, since: f.waitingSince ?? now, heldFor: st.onHold ? Math.max(0, calendar.factory.workingMinutesBetween(ms(st.lastEventAt) ?? now, now)) : -1, availableAt: ord.releasedAt });
       if (t.kind === 'tray') living[oi]++;
       else mouldsOpen[oi]++;
     }
@@ -528,7 +530,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
         let end = lines[k].addWorkingMinutes(now, Math.max(0, minutes - done));
         if (step.cureMinutes != null && step.cureMinutes > 0) end = Math.max(end, ovens[k].addWorkingMinutes(s.startedAt, step.cureMinutes));
         heap.push(Math.max(end, now), si, FINISH);
-      } else ready(si, orderLevel[kindOfStep[si][0]] ? Math.min(s.since, now) : now, s.waited);
+      } else ready(si, orderLevel[kindOfStep[si][0]] ? Math.min(s.since, now) : Math.max(now, s.availableAt), s.waited);
     }
 
     while (heap.size) {

@@ -1,0 +1,15 @@
+import type { Api } from '../http/api';
+import { WHAT_IF } from '@shared/domain/access';
+import { whatIfBodySchema } from '@shared/schemas/projections';
+import { whatIfService } from '../services/what-if.service';
+
+export function registerProjectionRoutes(api: Api) {
+  // a question, not a change: it answers with dates and stores nothing
+  api.route({
+    method: 'post',
+    path: '/projections/what-if',
+    access: { roles: WHAT_IF },
+    body: whatIfBodySchema,
+    handler: ({ deps, body }) => whatIfService.project(deps, body),
+  });
+}

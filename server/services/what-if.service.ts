@@ -1,0 +1,93 @@
+// "What if we take this order?": the open floor projected twice, as it is and with the new
+// order released on it, with the same clock, the same measured model and the same seeds. The
+// new order's dates come from the second run; an open order is listed when its 85th-percentile
+// date moves later. Nothing is written: the order, its trays and moulds exist only in memory.
+import type { AppDeps } from '../app-deps';
+import { DAY } from '@shared/domain/calendar';
+import { projectFloor } from '@shared/domain/floor-projection';
+import type { SnapshotOrder, SnapshotTraveller } from '@shared/domain/floor-history';
+import { expandRouting, mouldRouting, requiredMoulds } from '@shared/domain/routing';
+import { MAX_TRAYS_PER_RELEASE, releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
+import { kindTraits } from '@shared/domain/traveller';
+import { initialTrayState } from '@shared/domain/vocabulary';
+import { quantile } from '@shared/domain/stats';
+import type { WhatIfBody, WhatIfImpact, WhatIfResult } from '@shared/schemas/projections';
+import { badInput } from '../errors';
+import { ordersRepository } from '../repositories/orders.repository';
+import { mouldsRepository } from '../repositories/moulds.repository';
+import { projectionRepository } from '../repositories/projection.repository';
+import { calendarService } from './calendar.service';
+import { floorSnapshot, modelOf, PROJECTION_RUNS } from './projection.service';
+import { DEFAULT_TRAY_SIZE, templateFor } from './orders.service';
+
+/** The id the imagined order carries in the simulation (never stored). */
+export const WHAT_IF_ORDER_ID = 'what-if';
+const TRAY_SIZE_DAYS = 180;
+
+const iso = (x: number | null) => (x == null ? null : new Date(x).toISOString());
+
+/** The tray size planners chose lately for badges of about this size (median), else the default. */
+export function typicalTraySize(deps: AppDeps, sizeMm: number): number {
+  const rows = projectionRepository.traySizesSince(deps.db, deps.now() - TRAY_SIZE_DAYS * DAY);
+  const near = rows.filter((r) => Math.abs(r.sizeMm - sizeMm) <= 5).map((r) => r.traySize);
+  return near.length ? Math.max(1, Math.round(quantile(near, 0.5))) : DEFAULT_TRAY_SIZE;
+}
+
+/** The order as it would stand on the floor the moment it is released: trays and moulds waiting for their first step. */
+export function imaginedOrder(deps: AppDeps, spec: WhatIfBody, releasedAt: number): SnapshotOrder {
+  const db = deps.db;
+  let designKey: string | null = null;
+  if (spec.reorderOf) {
+    const earlier = ordersRepository.byId(db, spec.reorderOf);
+    if (!earlier) throw badInput('The order to repeat does not exist.', [{ path: ['reorderOf'], message: 'Unknown order' }], 'unknown_order');
+    designKey = earlier.designKey;
+  }
+  if (spec.customerId && !ordersRepository.customerById(db, spec.customerId)) {
+    throw badInput('There is no customer with that id.', [{ path: ['customerId'], message: 'Unknown customer' }], 'unknown_customer');
+  }
+  const tray = expandRouting(templateFor(db, spec.process), spec);
+  const stored = requiredMoulds(spec).map((side) => ({ side, reuse: designKey != null && !!mouldsRepository.reusable(db, designKey, side) }));
+  const mould = mouldRouting({ reuse: stored.every((m) => m.reuse), process: spec.process });
+  const checkSeq = mould.find((s) => kindTraits(s.stationKind).mouldShop === 'check')?.seq ?? 1;
+  const at = new Date(releasedAt).toISOString();
+  const travellers: SnapshotTraveller[] = stored.map(({ side, reuse }) => {
+    const id = `${WHAT_IF_ORDER_ID}-M${side === 'front' ? 'F' : 'B'}`;
+    return { id, kind: 'mould', state: { ...initialTrayState({ trayId: id, kind: 'mould', quantity: 1, releasedAt: at }), stepSeq: reuse ? checkSeq : 1 } };
+  });
+  const total = releasedQuantity(spec.quantity, spec.overrunPct);
+  const size = Math.max(typicalTraySize(deps, spec.sizeMm), Math.ceil(total / MAX_TRAYS_PER_RELEASE));
+  splitIntoTrays(total, size).forEach((quantity, i) => {
+    const id = `${WHAT_IF_ORDER_ID}-${String(i + 1).padStart(2, '0')}`;
+    travellers.push({ id, kind: 'tray', state: initialTrayState({ trayId: id, kind: 'tray', quantity, releasedAt: at }) });
+  });
+  return { id: WHAT_IF_ORDER_ID, number: 'what-if', dueDate: spec.dueDate, releasedAt, travellers, routing: { tray, mould } };
+}
+
+export const whatIfService = {
+  project(deps: AppDeps, spec: WhatIfBody): WhatIfResult {
+    const now = deps.now();
+    const releaseAt = spec.releaseAt ? Math.max(now, Date.parse(spec.releaseAt)) : now;
+    if (releaseAt > now + 365 * DAY) throw badInput('The release time is more than a year ahead.', [{ path: ['releaseAt'], message: 'Too far ahead' }], 'bad_release_at');
+    const cal = calendarService.calendar(deps);
+    const { snapshot, orders } = floorSnapshot(deps, now);
+    const model = modelOf(deps, snapshot, cal);
+    const options = { calendar: cal, model, runs: PROJECTION_RUNS };
+    const before = projectFloor(snapshot, options);
+    const imagined = imaginedOrder(deps, spec, releaseAt);
+    const after = projectFloor({ ...snapshot, orders: [...snapshot.orders, imagined] }, options);
+    const mine = after.get(WHAT_IF_ORDER_ID);
+    const impacts: (WhatIfImpact & { by: number })[] = [];
+    for (const o of orders) {
+      const b = before.get(o.id)?.p85At ?? null;
+      const a = after.get(o.id)?.p85At ?? null;
+      if (b == null || a == null || a <= b) continue;
+      impacts.push({ orderId: o.id, number: o.number, p85Before: iso(b)!, p85After: iso(a)!, by: a - b });
+    }
+    impacts.sort((x, y) => y.by - x.by || x.number.localeCompare(y.number));
+    return {
+      expectedAt: iso(mine?.expectedAt ?? null),
+      p85At: iso(mine?.p85At ?? null),
+      impacts: impacts.map(({ by: _by, ...rest }) => rest),
+    };
+  },
+};

@@ -1,0 +1,116 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { makeTestApp, type TestApp } from '../support/test-app';
+import { insertFloorOrder } from '../support/scan-fixtures';
+import { DEFAULT_ROUTING_TEMPLATES, expandRouting } from '@shared/domain/routing';
+import { releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
+import { planOrders } from '../../server/seed/demo-catalogue';
+import { makeRng } from '../../server/seed/prng';
+import type { WhatIfResult } from '@shared/schemas/projections';
+
+// "What if we take this order?" on a floor like the demo factory's: the demo catalogue's order
+// mix (every process, its routings from the default templates, its tray sizes) released onto
+// the floor at different steps. The answer is a simulation of that floor with and without the
+// new order; it must store nothing.
+const HOUR = 3_600_000;
+const NOW = Math.floor(Date.now() / 60_000) * 60_000; // sessions are checked against the real clock
+let t: TestApp;
+let sales: Awaited<ReturnType<TestApp['agentAs']>>;
+let planner: Awaited<ReturnType<TestApp['agentAs']>>;
+
+const spec = {
+  customer: 'Invented Harbour Rowing Club',
+  title: 'Regatta crest',
+  productType: 'pin',
+  process: 'hard_enamel',
+  material: 'iron',
+  sizeMm: 25,
+  quantity: 500,
+  overrunPct: 5,
+  colours: [{ name: 'Navy', hex: '#1b2a4a' }],
+  plating: 'gold',
+  backing: { type: 'butterfly_clutch', count: 1 },
+  packaging: 'individual_bag',
+  dueDate: '2026-03-20',
+};
+const colours = (n: number) => Array.from({ length: n }, (_, i) => ({ name: `Colour ${i + 1}` }));
+
+function rowCounts(): Record<string, number> {
+  const sqlite = t.deps.db.$client;
+  const tables = sqlite.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%'").all() as { name: string }[];
+  return Object.fromEntries(tables.map(({ name }) => [name, (sqlite.prepare(`select count(*) as n from "${name}"`).get() as { n: number }).n]));
+}
+
+async function whatIf(body: object): Promise<WhatIfResult> {
+  const res = await sales.post('/api/projections/what-if').send(body);
+  expect(res.status, JSON.stringify(res.body)).toBe(200);
+  return res.body as WhatIfResult;
+}
+
+beforeAll(async () => {
+  t = makeTestApp();
+  t.setNow(NOW);
+  sales = await t.agentAs('sales');
+  planner = await t.agentAs('planner');
+  // the demo's order book, the ones on the floor: released over the last days, each at a step of its routing
+  const rng = makeRng('what-if-floor');
+  const plans = planOrders(makeRng('what-if-orders'), NOW, 40).filter((p) => p.target === 'in_production' || p.target === 'released');
+  for (const p of plans) {
+    const routing = expandRouting(DEFAULT_ROUTING_TEMPLATES[p.process], p);
+    const trays = splitIntoTrays(releasedQuantity(p.quantity, p.overrunPct), p.traySize);
+    insertFloorOrder(t.deps, {
+      trays: trays.length,
+      quantity: p.traySize,
+      releasedAt: NOW - rng.int(2, 120) * HOUR,
+      routing,
+      stepSeq: routing[rng.int(0, routing.length - 1)].seq,
+    });
+  }
+});
+afterAll(() => t.close());
+
+describe('POST /api/projections/what-if', { timeout: 90_000 }, () => {
+  it('projects the new order and stores nothing', async () => {
+    const before = rowCounts();
+    expect(before.trays).toBeGreaterThan(20);
+    const r = await whatIf(spec);
+    expect(Date.parse(r.expectedAt!)).toBeGreaterThan(NOW);
+    expect(Date.parse(r.p85At!)).toBeGreaterThanOrEqual(Date.parse(r.expectedAt!));
+    expect(rowCounts()).toEqual(before);
+    // the same question gives the same answer (seeded runs)
+    expect(await whatIf(spec)).toEqual(r);
+  });
+
+  it('an 8-colour hard enamel order ships no earlier than the same order with 1 colour', async () => {
+    const one = await whatIf({ ...spec, colours: colours(1) });
+    const eight = await whatIf({ ...spec, colours: colours(8) });
+    expect(Date.parse(eight.expectedAt!)).toBeGreaterThanOrEqual(Date.parse(one.expectedAt!));
+    expect(Date.parse(eight.p85At!)).toBeGreaterThanOrEqual(Date.parse(one.p85At!));
+  });
+
+  it('ten times the quantity ships no earlier, and moves other orders later, never earlier', async () => {
+    const before = rowCounts();
+    const small = await whatIf(spec);
+    const big = await whatIf({ ...spec, quantity: spec.quantity * 10 });
+    expect(Date.parse(big.expectedAt!)).toBeGreaterThanOrEqual(Date.parse(small.expectedAt!));
+    expect(Date.parse(big.p85At!)).toBeGreaterThanOrEqual(Date.parse(small.p85At!));
+    // 5,250 pieces due first take places other trays were waiting for
+    expect(big.impacts.length).toBeGreaterThan(0);
+    for (const i of [...small.impacts, ...big.impacts]) expect(Date.parse(i.p85After), i.number).toBeGreaterThan(Date.parse(i.p85Before));
+    expect(rowCounts()).toEqual(before);
+  });
+
+  it('starts the order at releaseAt when it is later than now', async () => {
+    const now = await whatIf(spec);
+    const later = await whatIf({ ...spec, releaseAt: new Date(NOW + 7 * 24 * HOUR).toISOString() });
+    expect(Date.parse(later.expectedAt!)).toBeGreaterThan(Date.parse(now.expectedAt!));
+    expect(Date.parse(later.expectedAt!)).toBeGreaterThan(NOW + 7 * 24 * HOUR);
+  });
+
+  it('lets planners ask too, and refuses a spec that is not valid', async () => {
+    expect((await planner.post('/api/projections/what-if').send(spec)).status).toBe(200);
+    const bad = await sales.post('/api/projections/what-if').send({ ...spec, colours: [] });
+    expect(bad.status).toBe(400);
+    const unknown = await sales.post('/api/projections/what-if').send({ ...spec, traySize: 50 });
+    expect(unknown.status).toBe(400);
+  });
+});

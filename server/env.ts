@@ -1,13 +1,16 @@
 import { z } from 'zod';
 import path from 'node:path';
 
+/** The documented first-admin password (README): whoever starts with it must change it at first sign-in. */
+export const DEFAULT_ADMIN_PASSWORD = 'trayce-admin';
+
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   PORT: z.coerce.number().int().min(1).max(65535).default(5180),
   TRAYCE_DATA_DIR: z.string().min(1).default('./data'),
   TRAYCE_SEED: z.enum(['demo', 'none']).default('demo'),
   TRAYCE_ADMIN_EMAIL: z.email().default('admin@trayce.local'),
-  TRAYCE_ADMIN_PASSWORD: z.string().min(8).max(72).default('trayce-admin'),
+  TRAYCE_ADMIN_PASSWORD: z.string().min(8).max(72).default(DEFAULT_ADMIN_PASSWORD),
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().min(3).optional(),
   TRAYCE_PUBLIC_URL: z.string().url().optional(),

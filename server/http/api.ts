@@ -3,7 +3,7 @@ import type { z } from 'zod';
 import type { Locale, Role } from '@shared/domain/vocabulary';
 import type { AppDeps } from '../app-deps';
 import { checkBodyKind, type BodyKind } from '../middleware/same-origin';
-import { badInput, forbidden, notSignedIn, type ErrorIssue } from '../errors';
+import { badInput, forbidden, notSignedIn, passwordChangeRequired, type ErrorIssue } from '../errors';
 
 export interface SessionUser {
   id: string;
@@ -11,6 +11,8 @@ export interface SessionUser {
   role: Role;
   locale: Locale;
   sessionId: string;
+  /** a first admin still on the documented default password: only the routes that change it answer */
+  mustChangePassword: boolean;
 }
 
 export interface DeviceAuth {
@@ -37,7 +39,14 @@ type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
  * Who may call a route: `public`, or a list of roles (signed-in user), optionally also a kind of
  * registered device (a wall display reads the floor without a person signed in).
  */
-export type Access = 'public' | { roles: readonly Role[]; devices?: readonly DeviceAuth['kind'][] };
+export type Access =
+  | 'public'
+  | {
+      roles: readonly Role[];
+      devices?: readonly DeviceAuth['kind'][];
+      /** open to a person who must change their password before anything else (sign-in info, the change itself) */
+      beforePasswordChange?: boolean;
+    };
 
 export interface HandlerContext<P, Q, B> {
   req: Request;
@@ -99,6 +108,7 @@ export function checkAccess(access: Access, auth: AuthState | undefined): void {
   const user = auth?.user ?? null;
   const device = auth?.device ?? null;
   if (user) {
+    if (user.mustChangePassword && !access.beforePasswordChange) throw passwordChangeRequired();
     if (access.roles.includes(user.role)) return;
     if (device && access.devices?.includes(device.kind)) return;
     throw forbidden();

@@ -1,4 +1,4 @@
-import { eq, and, isNull, sql } from 'drizzle-orm';
+import { eq, and, isNull, ne, sql } from 'drizzle-orm';
 import type { DbLike as Db } from '../db/client';
 import { users, sessions } from '../db/schema/users';
 
@@ -37,5 +37,11 @@ export const usersRepository = {
       .update(sessions)
       .set({ revokedAt: at })
       .where(and(eq(sessions.userId, userId), isNull(sessions.revokedAt)))
+      .run(),
+  revokeOtherSessions: (db: Db, userId: string, keepSessionId: string, at: number) =>
+    db
+      .update(sessions)
+      .set({ revokedAt: at })
+      .where(and(eq(sessions.userId, userId), isNull(sessions.revokedAt), ne(sessions.id, keepSessionId)))
       .run(),
 };

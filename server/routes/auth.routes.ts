@@ -1,7 +1,7 @@
 import type { Response } from 'express';
 import type { Api } from '../http/api';
 import type { AppDeps } from '../app-deps';
-import { loginBody, badgeBody, localeBody } from '@shared/schemas/auth';
+import { loginBody, badgeBody, localeBody, changePasswordBody } from '@shared/schemas/auth';
 import { authService, KNOWN_CLIENT_COOKIE, SESSION_COOKIE } from '../services/auth.service';
 import type { SignInLimits } from '../middleware/sign-in-limits';
 import { ALL_ROLES } from '@shared/domain/access';
@@ -67,9 +67,9 @@ export function registerAuthRoutes(api: Api, limits: SignInLimits) {
   api.route({
     method: 'get',
     path: '/auth/me',
-    access: { roles: ALL_ROLES },
+    access: { roles: ALL_ROLES, beforePasswordChange: true },
     handler: ({ user, device }) => ({
-      user: { id: user!.id, name: user!.name, role: user!.role, locale: user!.locale },
+      user: { id: user!.id, name: user!.name, role: user!.role, locale: user!.locale, mustChangePassword: user!.mustChangePassword },
       device,
     }),
   });
@@ -77,8 +77,17 @@ export function registerAuthRoutes(api: Api, limits: SignInLimits) {
   api.route({
     method: 'put',
     path: '/auth/me/locale',
-    access: { roles: ALL_ROLES },
+    access: { roles: ALL_ROLES, beforePasswordChange: true },
     body: localeBody,
     handler: ({ deps, body, user }) => authService.setLocale(deps, user!.id, body.locale),
+  });
+
+  api.route({
+    method: 'post',
+    path: '/auth/me/password',
+    access: { roles: ALL_ROLES, beforePasswordChange: true },
+    before: [limits.password],
+    body: changePasswordBody,
+    handler: ({ deps, body, user }) => authService.changePassword(deps, user!, body.currentPassword, body.newPassword),
   });
 }

@@ -4,6 +4,7 @@ import { stations } from '../db/schema/stations';
 import { reasonCodes, routingTemplates, settings } from '../db/schema/reference-data';
 import { users } from '../db/schema/users';
 import { hashSecret } from '../services/auth.service';
+import { DEFAULT_ADMIN_PASSWORD } from '../env';
 import { DEFAULT_ROUTING_TEMPLATES } from '@shared/domain/routing';
 import { PROCESSES, type StationKind } from '@shared/domain/vocabulary';
 
@@ -57,8 +58,12 @@ export const DEFAULT_REASON_CODES: { code: string; name: string; nameZh: string;
   { code: 'hold_material', name: 'Waiting for material or fittings', nameZh: '等待材料或配件', kind: 'hold' },
 ];
 
-/** Stations, reason codes, routing templates, settings and the first admin: what every install needs. */
-export function seedBase(deps: AppDeps) {
+/**
+ * Stations, reason codes, routing templates, settings and the first admin: what every install
+ * needs. A first admin given the documented default password must change it at first sign-in;
+ * `firstAdmin: false` leaves the admin out (the demo factory brings its own).
+ */
+export function seedBase(deps: AppDeps, options: { firstAdmin?: boolean } = {}) {
   const { db, env } = deps;
   const now = deps.now();
   db.transaction((tx) => {
@@ -71,6 +76,7 @@ export function seedBase(deps: AppDeps) {
       tx.insert(routingTemplates).values({ process, name: t.name, template: t, updatedAt: now }).run();
     }
     tx.insert(settings).values({ key: 'factory', value: { name: 'Trayce factory', timeZone: 'Asia/Shanghai' } }).onConflictDoNothing().run();
+    if (options.firstAdmin === false) return;
     tx.insert(users)
       .values({
         id: crypto.randomUUID(),
@@ -78,6 +84,7 @@ export function seedBase(deps: AppDeps) {
         email: env.adminEmail.toLowerCase(),
         role: 'admin',
         passwordHash: hashSecret(env.adminPassword),
+        mustChangePassword: env.adminPassword === DEFAULT_ADMIN_PASSWORD,
         createdAt: now,
         updatedAt: now,
       })

@@ -7,6 +7,7 @@ import { devicesRepository } from '../repositories/devices.repository';
 import { AppError, badInput, throttled } from '../errors';
 import { sha256Hex } from '../lib/keys';
 import { PASSWORD_MAX_BYTES } from '@shared/schemas/auth';
+import { DEFAULT_ADMIN_PASSWORD } from '../env';
 import {
   BADGE_PER_BADGE,
   BADGE_PER_DEVICE,
@@ -159,7 +160,7 @@ async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, d
     .setIssuedAt(Math.floor(now / 1000))
     .setExpirationTime(Math.floor(expiresAt / 1000))
     .sign(deps.keys.session);
-  return { token, expiresAt, user: { id: user.id, name: user.name, role: user.role as Role, locale: user.locale } };
+  return { token, expiresAt, user: { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, mustChangePassword: user.mustChangePassword } };
 }
 
 export const authService = {
@@ -238,7 +239,30 @@ export const authService = {
     if (session.deviceId && !devicesRepository.byId(deps.db, session.deviceId)?.active) return null;
     // Write the idle clock at most every 30 s: reads stay cheap.
     if (now - session.lastSeenAt > 30_000) usersRepository.touchSession(deps.db, sid, now);
-    return { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, sessionId: sid };
+    return { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, sessionId: sid, mustChangePassword: user.mustChangePassword };
+  },
+
+  /**
+   * A person changes their own password, giving the current one. The new one may be neither the
+   * current one nor the documented default; the person's other sessions end, this one goes on.
+   */
+  changePassword(deps: AppDeps, session: SessionUser, currentPassword: string, newPassword: string) {
+    const user = usersRepository.byId(deps.db, session.id);
+    if (!user) throw invalid();
+    const fits = new TextEncoder().encode(currentPassword).length <= PASSWORD_MAX_BYTES;
+    if (!fits || !bcrypt.compareSync(currentPassword, user.passwordHash)) {
+      throw badInput('The current password is not right.', [{ path: ['currentPassword'], message: 'Not right', code: 'wrong_password' }], 'wrong_password');
+    }
+    if (newPassword === currentPassword || newPassword === DEFAULT_ADMIN_PASSWORD) {
+      throw badInput('Choose a password other than the current one and the default.', [{ path: ['newPassword'], message: 'Same as before', code: 'password_reused' }], 'password_reused');
+    }
+    const now = deps.now();
+    deps.db.transaction((tx) => {
+      usersRepository.update(tx, user.id, { passwordHash: hashSecret(newPassword), mustChangePassword: false, updatedAt: now });
+      usersRepository.revokeOtherSessions(tx, user.id, session.sessionId, now);
+    });
+    this.forgetFailures(deps, user.id);
+    return { ok: true };
   },
 
   /** A person's own language; it follows them to every screen and tablet they sign in on. */

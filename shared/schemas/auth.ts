@@ -29,7 +29,7 @@ export const roleSchema = z.enum(ROLES);
 
 export const localeSchema = z.enum(LOCALES);
 
-export const sessionUser = z.object({ id: z.string(), name: z.string(), role: roleSchema, locale: localeSchema });
+export const sessionUser = z.object({ id: z.string(), name: z.string(), role: roleSchema, locale: localeSchema, mustChangePassword: z.boolean().optional() });
 export type SessionUserWire = z.infer<typeof sessionUser>;
 export const meResponse = z.object({
   user: sessionUser,
@@ -40,3 +40,10 @@ export type MeResponse = z.infer<typeof meResponse>;
 /** A person choosing the language they read the app in. */
 export const localeBody = z.strictObject({ locale: localeSchema });
 export type LocaleBody = z.infer<typeof localeBody>;
+
+/** A person changing their own password (required first when the account has the default one). */
+export const changePasswordBody = z.strictObject({
+  currentPassword: z.string().min(1, 'Enter your current password.').max(1024),
+  newPassword: passwordSchema,
+});
+export type ChangePasswordBody = z.infer<typeof changePasswordBody>;

@@ -12,5 +12,9 @@ export async function requireUser({ request }: LoaderFunctionArgs) {
     throw redirect(`${paths.signIn}?next=${encodeURIComponent(url.pathname + url.search)}`);
   }
   applyLocale(me.user.locale);
+  if (me.user.mustChangePassword) {
+    const url = new URL(request.url);
+    throw redirect(`${paths.changePassword}?next=${encodeURIComponent(url.pathname + url.search)}`);
+  }
   return me;
 }

@@ -8,6 +8,8 @@ import { requireUser } from './auth-loader';
 // Routes declared in code; each page is a lazy route module exporting Component (and loader, handle).
 export const router = createBrowserRouter([
   { path: '/sign-in', lazy: () => import('./routes/auth/sign-in'), ErrorBoundary: RouteError },
+  // A first admin on the default password chooses a new one here before anything else opens.
+  { path: '/change-password', lazy: () => import('./routes/auth/change-password'), ErrorBoundary: RouteError },
   // The station tablet: full screen, outside the signed-in shell (it signs operators in itself and works offline).
   { path: '/station', lazy: () => import('./routes/station/station'), ErrorBoundary: RouteError },
   { path: '/pair', lazy: () => import('./routes/station/pair'), ErrorBoundary: RouteError },
@@ -59,6 +61,7 @@ export const router = createBrowserRouter([
               { path: 'flow', lazy: () => import('./routes/reports/flow') },
               { path: 'on-time', lazy: () => import('./routes/reports/on-time') },
               { path: 'yield', lazy: () => import('./routes/reports/yield') },
+              { path: 'costing', lazy: () => import('./routes/reports/costing') },
             ],
           },
           { path: 'sales', lazy: () => import('./routes/sales/order-search') },

@@ -3,6 +3,7 @@ import type { Role } from '@shared/domain/vocabulary';
 // Every client path in one place.
 export const paths = {
   signIn: '/sign-in',
+  changePassword: '/change-password',
   home: '/',
   station: '/station',
   pair: '/pair',

@@ -13,6 +13,8 @@ export const users = sqliteTable(
     pinHash: text('pin_hash'),
     locale: text('locale', { enum: ['en', 'zh-CN'] }).notNull().default('en'),
     active: flag('active').notNull().default(true),
+    /** set on a first admin made with the documented default password: nothing else works until it is changed */
+    mustChangePassword: flag('must_change_password').notNull().default(false),
     failedLogins: integer('failed_logins').notNull().default(0),
     throttledUntil: ms('throttled_until'),
     lastLoginAt: ms('last_login_at'),

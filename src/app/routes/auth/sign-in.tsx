@@ -19,7 +19,7 @@ import type { Locale } from '@shared/domain/vocabulary';
 
 export async function loader() {
   const me = await queryClient.ensureQueryData(meQueryOptions());
-  if (me) throw redirect(roleHome[me.user.role]);
+  if (me) throw redirect(me.user.mustChangePassword ? paths.changePassword : roleHome[me.user.role]);
   return null;
 }
 
@@ -42,7 +42,8 @@ export function Component() {
         applyLocale(user.locale);
         // refetch the (inactive) session query too, or the signed-in area's loader would read the stale "nobody"
         await queryClient.invalidateQueries({ queryKey: authKeys.all, refetchType: 'all' });
-        navigate(safeNext(params.get('next')) ?? roleHome[user.role], { replace: true });
+        const next = safeNext(params.get('next')) ?? roleHome[user.role];
+        navigate(user.mustChangePassword ? `${paths.changePassword}?next=${encodeURIComponent(next)}` : next, { replace: true });
       },
     }),
   );

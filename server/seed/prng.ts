@@ -1,6 +1,6 @@
-// A small seeded random number generator for the demo factory: the same seed gives the same
-// factory. mulberry32 (a 32-bit generator, public domain) is plenty for invented data; nothing
-// here is used for secrets.
+// The demo factory's random draws, on the app's one seeded generator (shared/domain/stats.ts):
+// the same seed gives the same factory. Nothing here is used for secrets.
+import { seededRandom, seedOf } from '@shared/domain/stats';
 
 export interface Rng {
   /** uniform in [0, 1) */
@@ -20,24 +20,8 @@ export interface Rng {
   fork(label: string): Rng;
 }
 
-function hashLabel(label: string): number {
-  let h = 2166136261;
-  for (let i = 0; i < label.length; i++) {
-    h ^= label.charCodeAt(i);
-    h = Math.imul(h, 16777619);
-  }
-  return h >>> 0;
-}
-
 export function makeRng(seed: number | string): Rng {
-  let a = (typeof seed === 'string' ? hashLabel(seed) : seed) >>> 0;
-  const next = (): number => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const next = seededRandom(typeof seed === 'string' ? seedOf(seed) : seed);
   const rng: Rng = {
     next,
     int: (min, max) => min + Math.floor(next() * (max - min + 1)),
@@ -55,7 +39,7 @@ export function makeRng(seed: number | string): Rng {
       const variant = (8 + Math.floor(next() * 4)).toString(16);
       return `${hex(8)}-${hex(4)}-4${hex(3)}-${variant}${hex(3)}-${hex(12)}`;
     },
-    fork: (label) => makeRng((hashLabel(label) ^ Math.floor(next() * 4294967296)) >>> 0),
+    fork: (label) => makeRng((seedOf(label) ^ Math.floor(next() * 4294967296)) >>> 0),
   };
   return rng;
 }

@@ -175,20 +175,6 @@ export function queueProofReady(deps: AppDeps, orderId: string, revision: number
   return { to: order.contactEmail };
 }
 
-/**
- * For other features that want to tell the customer a proof is ready (after an upload, say):
- * queues the message and never throws, so the caller's work is never undone by mail.
- */
-export function notifyProofReady(deps: AppDeps, orderId: string, revision: number, userId: string | null): boolean {
-  try {
-    queueProofReady(deps, orderId, revision, userId);
-    return true;
-  } catch (err) {
-    deps.log.warn({ orderId, revision, err: (err as Error).message }, 'proof-ready mail not queued');
-    return false;
-  }
-}
-
 // ---- the worker ------------------------------------------------------------------------------
 
 interface Worker {

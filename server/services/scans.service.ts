@@ -57,11 +57,10 @@ export interface AcceptedScan {
 
 /**
  * Other features hook in here instead of editing this service: `inTransaction` runs inside the
- * batch's transaction (keep it quick; throw only for a bug), `afterCommit` after it committed.
+ * batch's transaction (keep it quick; throw only for a bug).
  */
 export const scanHooks = {
   inTransaction: [] as Array<(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps) => void>,
-  afterCommit: [] as Array<(accepted: AcceptedScan[], deps: AppDeps) => void>,
 };
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
@@ -391,18 +390,7 @@ export const scansService = {
   /**
    * POST /api/scans: the batch is validated event by event, guarded and written in one
    * transaction; each event is answered in the order sent. An event already stored (accepted or
-   * refused) is a `duplicate` and changes nothing.
-   */
-  submit(deps: AppDeps, rawEvents: unknown[], caller: ScanCaller): ScanBatchResponse {
-    const now = deps.now();
-    const parsed = parseEvents(rawEvents);
-    const out = deps.db.transaction((tx) => processBatch(tx, deps, parsed, caller, now), { behavior: 'immediate' });
-    afterCommit(deps, out.accepted);
-    return { results: out.results, serverTime: new Date(now).toISOString() };
-  },
-
-  /**
-   * The same, with group commit: batches that arrive while the previous commit is being made are
+   * refused) is a `duplicate` and changes nothing. Group commit: batches that arrive while the previous commit is being made are
    * written together in one transaction (each in its own savepoint, so one failing batch never
    * takes the others down), and share one sync to disk. Every caller still gets only its own
    * answers, after the commit that made them durable.
@@ -637,17 +625,6 @@ function parseEvents(rawEvents: unknown[]): ParsedEvent[] {
   });
 }
 
-function afterCommit(deps: AppDeps, accepted: AcceptedScan[]) {
-  notifyFloorChanged(deps);
-  for (const hook of scanHooks.afterCommit) {
-    try {
-      hook(accepted, deps);
-    } catch (error) {
-      deps.log.error({ err: error }, 'a scan listener failed');
-    }
-  }
-}
-
 interface QueuedBatch {
   rawEvents: unknown[];
   caller: ScanCaller;
@@ -674,10 +651,7 @@ function flushGroup(deps: AppDeps) {
     for (const item of items) item.reject(error);
     return;
   }
-  afterCommit(
-    deps,
-    outcomes.flatMap((o) => ('ok' in o ? o.ok.accepted : [])),
-  );
+  notifyFloorChanged(deps);
   const serverTime = new Date(now).toISOString();
   items.forEach((item, i) => {
     const o = outcomes[i];

@@ -22,7 +22,7 @@
 // floor gives the same dates, and adding an order changes others' dates only through capacity.
 import { PriorityQueue } from './priority-queue';
 import type { Timeline, WorkingCalendar } from './calendar';
-import { countAtMost, quantileSorted, seedOf } from './stats';
+import { countAtMost, MULBERRY32_STEP, mulberry32Draw, quantileSorted, seedOf } from './stats';
 import { ORDER_LEVEL_KINDS, type DispatchRecord, type FloorSnapshot, type MeasuredHistory, type ProcessRecord, type QueueRecord } from './floor-history';
 import type { RoutingStep, TrayState } from './vocabulary';
 import { MOULD_USING_KINDS } from './routing';
@@ -335,22 +335,15 @@ class WaitingLine extends PriorityQueue<number> {}
 const REQUEST = 0;
 const FINISH = 1;
 
-/** mulberry32 step on a traveller's own stream */
+/** the next draw of a traveller's own stream (the app's one generator, shared/domain/stats.ts) */
 function nextU(s: Sim): number {
-  s.rnd = (s.rnd + 0x6d2b79f5) >>> 0;
-  let t = s.rnd;
-  t = Math.imul(t ^ (t >>> 15), t | 1);
-  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  return mulberry32Draw((s.rnd = (s.rnd + MULBERRY32_STEP) >>> 0));
 }
 
 /** a uniform in [0, 1) from three numbers (one mulberry32 round on their mix): the same inputs, the same draw */
 function hashU(a: number, b: number, c: number): number {
-  let t = (a ^ Math.imul(b + 1, 0x85ebca6b) ^ Math.imul(c + 1, 0xc2b2ae35)) >>> 0;
-  t = (t + 0x6d2b79f5) >>> 0;
-  t = Math.imul(t ^ (t >>> 15), t | 1);
-  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  const t = (a ^ Math.imul(b + 1, 0x85ebca6b) ^ Math.imul(c + 1, 0xc2b2ae35)) >>> 0;
+  return mulberry32Draw((t + MULBERRY32_STEP) >>> 0);
 }
 
 function stepsFrom(state: TrayState, routing: readonly RoutingStep[], now: number): { steps: RoutingStep[]; waitingSince: number | null; notBefore: number; startedAt: number | null } {
@@ -493,7 +486,6 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
         }
         return;
       }
-      // the handover is the order's: its trays reach a step together and share the draw
       // the handover is the order's: its trays reach a step together and share the draw
       const q0 = waitDist[k].drawRemaining(waited, capacity ? hashU(orderSeed[oi], s.steps[s.idx].seq, r) : nextU(s));
       let q = q0;

@@ -1,11 +1,11 @@
-// Flow figures: flow efficiency, the cumulative flow diagram, throughput, WIP over time and a
-// Little's Law check (L = lambda W). All instants are UTC epoch milliseconds.
+// Flow figures: flow efficiency, the cumulative flow diagram, throughput and WIP over time (the
+// tests check WIP against Little's Law, L = lambda W). All instants are UTC epoch milliseconds.
 //
 // Flow efficiency counts only process time (start -> finish at a station) as value-adding.
 // Oven cure is needed but unattended, so it is not counted as value-adding; its share of the
 // flow time is reported beside it, so a reader can see both.
 
-import { MINUTE, dateOfDayNumber, localDayNumber, utcOfLocal } from './calendar';
+import { dateOfDayNumber, localDayNumber, utcOfLocal } from './calendar';
 import { countAtMost } from './stats';
 
 export interface FlowEfficiencyInput {
@@ -87,33 +87,12 @@ export function countPerBucket(times: readonly number[], buckets: readonly Bucke
 
 // ---- cumulative flow diagram ----------------------------------------------------------
 
-export interface StageArrival {
-  itemId: string;
-  /** index into the ordered stage list (0 = first stage) */
-  stage: number;
-  at: number;
-}
-
 /**
- * Cumulative flow: for every instant in `at` and every stage, how many items had reached that
- * stage or a later one by then. Counting "that stage or later" keeps each line non-decreasing
- * and the lines nested even when an item skips a stage, so the vertical gap between the lines
- * of stages a < b is the number of items between a and b (WIP) at that instant.
- */
-export function cumulativeFlow(arrivals: readonly StageArrival[], stageCount: number, at: readonly number[]): number[][] {
-  const first = new Map<string, number[]>();
-  for (const a of arrivals) {
-    if (a.stage < 0 || a.stage >= stageCount || !Number.isInteger(a.stage)) throw new RangeError(`bad stage ${a.stage}`);
-    let row = first.get(a.itemId);
-    if (!row) first.set(a.itemId, (row = new Array(stageCount).fill(Infinity)));
-    if (a.at < row[a.stage]) row[a.stage] = a.at;
-  }
-  return cumulativeFlowOfItems(first.values(), stageCount, at);
-}
-
-/**
- * The same diagram from each item's first arrival per stage (Infinity or NaN where it has not
- * arrived), without building one event per arrival.
+ * Cumulative flow from each item's first arrival per stage (Infinity or NaN where it has not
+ * arrived): for every instant in `at` and every stage, how many items had reached that stage or a
+ * later one by then. Counting "that stage or later" keeps each line non-decreasing and the lines
+ * nested even when an item skips a stage, so the vertical gap between the lines of stages a < b
+ * is the number of items between a and b (WIP) at that instant.
  */
 export function cumulativeFlowOfItems(items: Iterable<ArrayLike<number>>, stageCount: number, at: readonly number[]): number[][] {
   const reached: number[][] = Array.from({ length: stageCount }, () => []);
@@ -127,11 +106,6 @@ export function cumulativeFlowOfItems(items: Iterable<ArrayLike<number>>, stageC
   }
   const sorted = reached.map((r) => Float64Array.from(r).sort());
   return at.map((t) => sorted.map((x) => countAtMost(x, t)));
-}
-
-/** Items between stage a (reached) and stage b (not yet reached) at each row of a CFD. */
-export function wipBetween(cfd: readonly number[][], a: number, b: number): number[] {
-  return cfd.map((row) => row[a] - row[b]);
 }
 
 // ---- WIP over time --------------------------------------------------------------------
@@ -175,40 +149,4 @@ function integralCount(sorted: Float64Array, from: number, to: number): number {
   let total = before * (to - from);
   for (let i = before; i < sorted.length && sorted[i] < to; i++) total += to - sorted[i];
   return total;
-}
-
-// ---- Little's Law ---------------------------------------------------------------------
-
-export interface LittlesLawCheck {
-  windowMinutes: number;
-  /** L: time-average number in the system over the window */
-  averageWip: number;
-  /** lambda: departures per minute in the window */
-  throughputPerMinute: number;
-  /** W: mean flow time (minutes) of the items that departed in the window */
-  meanFlowMinutes: number | null;
-  /** L / lambda */
-  impliedFlowMinutes: number | null;
-  /** |W - L/lambda| / W */
-  relativeGap: number | null;
-  departures: number;
-}
-
-/** Compares measured mean flow time with average WIP / throughput over [from, to). */
-export function littlesLaw(items: readonly Interval[], from: number, to: number): LittlesLawCheck {
-  if (to <= from) throw new RangeError('empty window');
-  const L = averageWip(items, from, to);
-  const departed = items.filter((i) => i.end !== null && i.end >= from && i.end < to);
-  const lambda = departed.length / ((to - from) / MINUTE);
-  const W = departed.length ? departed.reduce((s, i) => s + ((i.end as number) - i.start), 0) / departed.length / MINUTE : null;
-  const implied = lambda > 0 ? L / lambda : null;
-  return {
-    windowMinutes: (to - from) / MINUTE,
-    averageWip: L,
-    throughputPerMinute: lambda,
-    meanFlowMinutes: W,
-    impliedFlowMinutes: implied,
-    relativeGap: W && implied !== null ? Math.abs(W - implied) / W : null,
-    departures: departed.length,
-  };
 }

@@ -14,6 +14,7 @@ import {
 } from './guards';
 import { initialTrayState, REJECTION_CODES, type RoutingStep, type StationKind, type TrayState } from './vocabulary';
 import { refusalMessage, refusalText } from './scan-messages';
+import { seededRandom } from './stats';
 
 // A two-colour hard-enamel routing. Cure times: 120 min per colour ("each colour cures in an oven for
 // two hours or more before the next colour goes in": common practice, no published source).
@@ -361,15 +362,8 @@ describe('quantities', () => {
   });
 
   it('pieces are conserved through a whole routing with random scrap (checked by an independent sum)', () => {
-    // Deterministic pseudo-random scrap per step (mulberry32).
-    let seed = 12345;
-    const rand = () => {
-      seed |= 0;
-      seed = (seed + 0x6d2b79f5) | 0;
-      let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
+    // Deterministic pseudo-random scrap per step (the app's one seeded generator).
+    const rand = seededRandom(12345);
     for (let trial = 0; trial < 50; trial++) {
       const startQty = 50 + Math.floor(rand() * 200);
       let s = { ...fresh(startQty), releasedAt: at(0) };

@@ -8,7 +8,6 @@ import {
   renumber,
   requiredMoulds,
   routingProblems,
-  routingStandardMinutes,
   MOULD_USING_KINDS,
   mouldStepsFor,
   mouldTool,
@@ -405,12 +404,4 @@ describe('edited routings', () => {
     expect(routingProblems([{ ...moved[0], trayMinutes: -1 }])[0].message).toMatch(/negative/);
   });
 
-  it('standard minutes of a routing add tray minutes and piece minutes × pieces', () => {
-    const steps: RoutingStep[] = [
-      { seq: 1, name: 'a', stationKind: 'strike', trayMinutes: 10, pieceMinutes: 0.5 },
-      { seq: 2, name: 'b', stationKind: 'cure', trayMinutes: 5, pieceMinutes: 0, cureMinutes: 120 },
-    ];
-    // 10 + 0.5 × 100 + 5 = 65; the oven's 120 min are not labour
-    expect(routingStandardMinutes(steps, 100)).toBe(65);
-  });
 });

@@ -388,7 +388,3 @@ export function routingProblems(steps: readonly RoutingStep[]): RoutingProblem[]
   return problems;
 }
 
-/** Total standard minutes of a routing for a tray of `pieces` (cure time excluded: the oven works alone). */
-export function routingStandardMinutes(steps: readonly RoutingStep[], pieces: number): number {
-  return steps.reduce((sum, s) => sum + s.trayMinutes + s.pieceMinutes * pieces, 0);
-}

@@ -87,13 +87,6 @@ export function cartonTotals(lines: readonly CartonLine[]): CartonTotals {
   return { cartons, pieces, weightKg: grams / 1000 };
 }
 
-/** Compare the pieces in the cartons with the pieces packed. */
-export function checkCartons(lines: readonly CartonLine[], piecesPacked: number): CartonTotals & { difference: number; matches: boolean } {
-  const totals = cartonTotals(lines);
-  const difference = totals.pieces - piecesPacked;
-  return { ...totals, difference, matches: difference === 0 };
-}
-
 /**
  * Carton lines for `pieces` pieces at `piecesPerCarton` a carton: full cartons plus one part
  * carton for the remainder.

@@ -19,20 +19,13 @@ export function orderStatisticsFor(n: number, p: number): [number, number] {
   return [lo, Math.min(lo + 1, n - 1)];
 }
 
-/**
- * Type 7 quantile from the order statistics of a sample of n values: `at(i)` gives the i-th
- * smallest (0-based). Lets a database sort and hand over only the two values needed.
- */
-export function quantileFromOrderStatistics(n: number, p: number, at: (i: number) => number): number {
+/** Type 7 quantile of values already sorted ascending (reads only the two order statistics it needs). */
+export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
+  const n = sorted.length;
   const [lo, hi] = orderStatisticsFor(n, p);
   const h = (n - 1) * p;
-  const a = at(lo);
-  return a + (h - lo) * (at(hi) - a);
-}
-
-/** Type 7 quantile of values already sorted ascending. */
-export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
-  return quantileFromOrderStatistics(sorted.length, p, (i) => sorted[i]);
+  const a = sorted[lo];
+  return a + (h - lo) * (sorted[hi] - a);
 }
 
 /** Type 7 quantile of an unsorted sample (the input is not modified). */
@@ -85,16 +78,24 @@ export function roundSummary(s: Summary, digits = 2): Summary {
   return { n: s.n, p50: r(s.p50), p85: r(s.p85), p95: r(s.p95), mean: r(s.mean) };
 }
 
-/** A small seeded pseudo-random generator (mulberry32): same seed, same sequence, in [0, 1). */
+/** The state step of mulberry32 (a public-domain 32-bit generator). */
+export const MULBERRY32_STEP = 0x6d2b79f5;
+
+/** mulberry32's output for a state already advanced by MULBERRY32_STEP: a uniform in [0, 1). */
+export function mulberry32Draw(state: number): number {
+  let t = state;
+  t = Math.imul(t ^ (t >>> 15), t | 1);
+  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+}
+
+/**
+ * The one seeded pseudo-random generator of the app and its tests (mulberry32): same seed, same
+ * sequence, in [0, 1). Not for secrets.
+ */
 export function seededRandom(seed: number): () => number {
   let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  return () => mulberry32Draw((a = (a + MULBERRY32_STEP) >>> 0));
 }
 
 /** A 32-bit seed from a string (FNV-1a), so an order's projection is stable between requests. */

@@ -6,24 +6,13 @@ import {
   releasedQuantity,
   splitIntoTrays,
   splitTray,
-  splitTrayStates,
   trayNumber,
   TRAY_NUMBER_PATTERN,
   type MergeCandidate,
 } from './trays';
 import { expandRouting, DEFAULT_ROUTING_TEMPLATES } from './routing';
 import { initialTrayState, type TrayState } from './vocabulary';
-
-// A small deterministic generator so property checks repeat exactly (mulberry32).
-function rng(seed: number) {
-  return () => {
-    seed |= 0;
-    seed = (seed + 0x6d2b79f5) | 0;
-    let x = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    x = (x + Math.imul(x ^ (x >>> 7), 61 | x)) ^ x;
-    return ((x ^ (x >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from './stats';
 
 describe('releasedQuantity: quantity + overrun, rounded up', () => {
   it('adds the usual 5 % overrun (common practice)', () => {
@@ -43,7 +32,7 @@ describe('releasedQuantity: quantity + overrun, rounded up', () => {
     expect(releasedQuantity(250, 0)).toBe(250);
   });
   it('agrees with exact integer arithmetic for whole percentages', () => {
-    const r = rng(7);
+    const r = seededRandom(7);
     for (let k = 0; k < 2000; k++) {
       const q = 1 + Math.floor(r() * 50_000);
       const p = Math.floor(r() * 11);
@@ -69,7 +58,7 @@ describe('splitIntoTrays: trays of the chosen size, the last takes the remainder
     expect(splitIntoTrays(42, 100)).toEqual([42]);
   });
   it('conserves pieces for any quantity and tray size', () => {
-    const r = rng(42);
+    const r = seededRandom(42);
     for (let k = 0; k < 2000; k++) {
       const total = 1 + Math.floor(r() * 20_000);
       const size = 1 + Math.floor(r() * 600);
@@ -110,7 +99,7 @@ describe('splitTray: pieces are conserved', () => {
     expect(r).toEqual({ ok: true, remaining: 75, parts: [20, 5] });
   });
   it('conserves pieces for random splits', () => {
-    const r = rng(3);
+    const r = seededRandom(3);
     for (let k = 0; k < 500; k++) {
       const q = 2 + Math.floor(r() * 500);
       const parts = [1 + Math.floor(r() * (q - 1))];
@@ -128,12 +117,6 @@ describe('splitTray: pieces are conserved', () => {
     expect(splitTray(waiting(10, { phase: 'in_process' }), [2])).toMatchObject({ ok: false, code: 'not_waiting' });
     expect(splitTray(waiting(10, { phase: 'curing' }), [2])).toMatchObject({ ok: false, code: 'not_waiting' });
     expect(splitTray(waiting(10, { onHold: true }), [2])).toMatchObject({ ok: false, code: 'on_hold' });
-  });
-  it('children start where the parent stands', () => {
-    const parent = waiting(100, { stepSeq: 6, cureReadyAt: '2026-03-02T12:00:00Z' });
-    const { parent: p, children } = splitTrayStates(parent, [30], ['t2']);
-    expect(p.quantity).toBe(70);
-    expect(children[0]).toMatchObject({ trayId: 't2', quantity: 30, stepSeq: 6, cureReadyAt: '2026-03-02T12:00:00Z' });
   });
 });
 

@@ -87,20 +87,6 @@ export function splitTray(
   return { ok: true, remaining, parts: [...parts] };
 }
 
-/** The states after a split: the parent keeps `remaining`, each child starts where the parent stands. */
-export function splitTrayStates(parent: TrayState, parts: readonly number[], childIds: readonly string[]): {
-  parent: TrayState;
-  children: TrayState[];
-} {
-  const r = splitTray(parent, parts);
-  if (!r.ok) throw new Error(r.message);
-  if (childIds.length !== parts.length) throw new Error('one id per part');
-  return {
-    parent: { ...parent, quantity: r.remaining },
-    children: parts.map((q, i) => ({ ...parent, trayId: childIds[i], quantity: q })),
-  };
-}
-
 // ---------------------------------------------------------------------------------------
 // Merge
 

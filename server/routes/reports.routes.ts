@@ -2,7 +2,8 @@ import type { Response } from 'express';
 import type { Api } from '../http/api';
 import { OFFICE, REPORT_READERS } from '@shared/domain/access';
 import type { Role } from '@shared/domain/vocabulary';
-import { reportQuery } from '@shared/schemas/reports';
+import { reportQuery, type ReportWindow } from '@shared/schemas/reports';
+import { localDate } from '@shared/domain/calendar';
 import { reportsCsv, reportsService } from '../services/reports.service';
 import { projectionService } from '../services/projection.service';
 
@@ -14,6 +15,16 @@ function sendCsv(res: Response, name: string, body: string) {
   res.set('Content-Disposition', `attachment; filename="${name}.csv"`);
   // a byte-order mark lets spreadsheet programs read the text as UTF-8
   res.send(`\uFEFF${body}`);
+}
+
+/**
+ * "on-time-2026-11-02-2026-11-29": the report and its first and last day in the factory's zone,
+ * the days the From and To fields showed (the window's end is the instant after its last day).
+ */
+export function csvFileName(report: string, window: ReportWindow): string {
+  const first = localDate(window.timeZone, Date.parse(window.from));
+  const last = localDate(window.timeZone, Math.max(Date.parse(window.from), Date.parse(window.to) - 1));
+  return `${report}-${first}-${last}`;
 }
 
 export function registerReportRoutes(api: Api) {
@@ -39,7 +50,7 @@ export function registerReportRoutes(api: Api) {
       query: reportQuery,
       handler: ({ deps, query, res }) => {
         const data = r.json(deps, query);
-        sendCsv(res, `${r.path}-${data.window.from.slice(0, 10)}-${data.window.to.slice(0, 10)}`, (r.csv as (d: typeof data) => string)(data));
+        sendCsv(res, csvFileName(r.path, data.window), (r.csv as (d: typeof data) => string)(data));
       },
     });
   }

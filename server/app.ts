@@ -29,6 +29,7 @@ import { registerLoadRoutes } from './routes/loads.routes';
 import { registerPaymentRoutes } from './routes/payments.routes';
 import { registerPortalRoutes } from './routes/portal.routes';
 import { registerQuoteRoutes } from './routes/quotes.routes';
+import { registerCostingRoutes } from './routes/costing.routes';
 import { registerProjectionRoutes } from './routes/projections.routes';
 
 const clientDist = path.join(PROJECT_ROOT, 'dist');
@@ -86,6 +87,7 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
   registerPaymentRoutes(api);
   registerPortalRoutes(api);
   registerQuoteRoutes(api);
+  registerCostingRoutes(api);
   registerProjectionRoutes(api);
 
   // The payment webhook's signature is made over the exact bytes sent: keep them raw for it alone.

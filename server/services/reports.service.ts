@@ -30,7 +30,7 @@ const iso = (ms: number) => new Date(ms).toISOString();
 const r2 = (x: number) => Math.round(x * 100) / 100;
 const r4 = (x: number | null) => (x === null ? null : Math.round(x * 10000) / 10000);
 
-interface Window {
+export interface Window {
   filter: ReportFilter;
   info: ReportWindow;
   tz: string;
@@ -44,7 +44,7 @@ function parseBound(tz: string, v: string, end: boolean): number {
   return Date.parse(v);
 }
 
-function windowOf(deps: AppDeps, q: ReportQuery): Window {
+export function windowOf(deps: AppDeps, q: ReportQuery): Window {
   const tz = calendarService.timeZone(deps);
   const now = deps.now();
   const to = q.to ? parseBound(tz, q.to, true) : now;

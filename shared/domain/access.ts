@@ -25,3 +25,6 @@ export const QUOTING: readonly Role[] = ['sales', 'planner', 'admin'];
 
 /** Ask "when would it ship?" for an order not taken yet. */
 export const WHAT_IF: readonly Role[] = ['planner', 'sales', 'manager'];
+
+/** Quoted against actual: what orders cost to make. */
+export const COSTING_READERS: readonly Role[] = ['manager', 'admin'];

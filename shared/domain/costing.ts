@@ -309,9 +309,12 @@ export interface CostComparison {
 }
 
 /**
- * The quoted cost of an order's make against the cost measured on the floor. Both sides count
- * labour by step and the oven; the actual side also pays for scrapped pieces (their material).
- * Material, plating, fittings and packaging are taken as quoted: the scans do not measure them.
+ * The quoted cost of an order's make against the cost measured on the floor, both at the same
+ * rates (so a variance is the floor's, not a changed rate's). Each step counts its labour, and a
+ * cure step also its oven energy (quoted: the loads the quote counted; actual: the cycles run);
+ * the actual side also pays for scrapped pieces (their metal). A step run that the quote did not
+ * have (the routing was changed after the quote) is shown with nothing quoted. Material,
+ * plating, fittings and packaging are taken as quoted: the scans do not measure them.
  */
 export function compareCost(input: {
   quoted: CostLine;
@@ -327,20 +330,33 @@ export function compareCost(input: {
   const quotedTotal = quoted.unitCost * quantity;
   const grams = pieceMassGrams(input.spec, settings);
   const metalPerPiece = ((grams * (1 + formingLoss(input.routing, settings))) / 1000) * settings.materialPricePerKg[input.spec.material];
+  const loadCost = (cureMinutes: number | null | undefined) => settings.ovenKwhPerLoadHour * ((cureMinutes ?? 0) / 60) * settings.tariffPerKwh;
+  // the quote's oven energy per cure step, as ovenCost counts it for the pieces made
+  const made = quantity * (1 + input.spec.overrunPct / 100);
+  const piecesPerLoad = Math.min(made, settings.ovenPiecesPerLoad);
+  const routingBySeq = new Map(input.routing.map((r) => [r.seq, r]));
+  const quotedOven = (seq: number, stationKind: StationKind) => {
+    const r = routingBySeq.get(seq);
+    return stationKind === 'cure' && r ? (loadCost(r.cureMinutes) / piecesPerLoad) * made : 0;
+  };
   let labour = 0;
   let oven = 0;
   let scrapCost = 0;
   const bySeq = new Map(input.actualSteps.map((s) => [s.seq, s]));
-  const steps: StepVariance[] = quoted.steps.map((qs) => {
+  const quotedSeqs = new Set(quoted.steps.map((s) => s.seq));
+  const extra: StepCost[] = input.actualSteps
+    .filter((a) => !quotedSeqs.has(a.seq))
+    .map((a) => ({ seq: a.seq, name: a.name, stationKind: a.stationKind, minutes: 0, cost: 0 }));
+  const rows = [...quoted.steps.map((s) => ({ ...s, cost: s.cost + quotedOven(s.seq, s.stationKind) })), ...extra].sort((a, b) => a.seq - b.seq);
+  const steps: StepVariance[] = rows.map((qs) => {
     const a = bySeq.get(qs.seq);
     const rate = settings.labourRatePerHour[qs.stationKind];
     const actualLabour = ((a?.minutes ?? 0) / 60) * rate;
     labour += actualLabour;
     let stepOven = 0;
     if (a && a.cureCycles > 0) {
-      const loadCost = settings.ovenKwhPerLoadHour * ((a.cureMinutes ?? 0) / 60) * settings.tariffPerKwh;
       // each cycle the order's trays ran is a load's energy, as the quote counts whole loads
-      stepOven = a.cureCycles * loadCost;
+      stepOven = a.cureCycles * loadCost(a.cureMinutes);
       oven += stepOven;
     }
     const scrap = a?.scrap ?? 0;

@@ -23,6 +23,8 @@ export const costingSettingsSchema = z.strictObject({
   castLossPct: pct(300),
   /** outline area ÷ bounding-box area when a spec does not give its own */
   defaultOutlineFactor: z.number().min(0.1).max(1),
+  /** thickness of a part whose order gives none (an order made without a quote), mm */
+  defaultThicknessMm: z.number().positive().max(20),
   /** enamel paint per colour per piece, money */
   enamelPerColourPerPiece: money,
   /** money per working hour, per station kind */
@@ -85,6 +87,8 @@ export const DEFAULT_COSTING_SETTINGS: CostingSettings = {
   castLossPct: 8,
   // Computed: a disc fills π/4 of its bounding square.
   defaultOutlineFactor: Math.round((Math.PI / 4) * 10_000) / 10_000,
+  // From memory: struck and cast badges are commonly about 1.2 to 2 mm thick.
+  defaultThicknessMm: 1.5,
   enamelPerColourPerPiece: 0.004, // demo
   // Demo: invented hourly rates; set the factory's own.
   labourRatePerHour: {

@@ -10,10 +10,12 @@ import { en as users } from '@/features/users/i18n/en';
 import { zhCN as usersZh } from '@/features/users/i18n/zh-CN';
 import { en as portal } from '@/features/customer-status/i18n/en';
 import { zhCN as portalZh } from '@/features/customer-status/i18n/zh-CN';
+import { en as costing } from '@/features/costing/i18n/en';
+import { zhCN as costingZh } from '@/features/costing/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders, users, portal },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh },
+  en: { common, station, orders, users, portal, costing },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, costing: costingZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { useQueryClient } from '@tanstack/react-query';
 import { Ban, Copy, Pause, Pencil, Play, Printer, RefreshCw } from 'lucide-react';
-import { FLOOR_LEADS, PLANNING } from '@shared/domain/access';
+import { COSTING_READERS, FLOOR_LEADS, PLANNING } from '@shared/domain/access';
 import type { TravellerSummary } from '@shared/schemas/orders';
 import { queryClient } from '@/lib/query-client';
 import { orderQueryOptions, useOrder } from '@/features/orders/api/get-order';
@@ -15,6 +15,7 @@ import { RoutingEditor } from '@/features/orders/components/routing-editor';
 import { ReleasePanel } from '@/features/orders/components/release-panel';
 import { TravellersPanel } from '@/features/orders/components/travellers-panel';
 import { HistoryList, SpecCard } from '@/features/orders/components/spec-card';
+import { CostingCard } from '@/features/costing/components/costing-card';
 import { useReprint } from '@/features/trays/api/tray-actions';
 import { trayPdfUrl } from '@/features/trays/api/get-tray';
 import { useMe } from '@/features/auth/api/get-me';
@@ -148,6 +149,7 @@ export function Component() {
       <RoutingEditor order={o} canEdit={mayPlan} />
       {!released && mayPlan && o.status !== 'cancelled' && <ReleasePanel order={o} />}
       {released && <TravellersPanel order={o} actions={(t) => <TravellerActions t={t} onChanged={refresh} />} />}
+      {COSTING_READERS.includes(role) && <CostingCard orderId={o.id} />}
       <HistoryList entries={o.history} />
     </div>
   );

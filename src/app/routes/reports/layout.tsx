@@ -1,8 +1,9 @@
 import { Outlet } from 'react-router';
 import { TabNav } from '@/components/ui/tab-nav';
-import { Clock, GitCommitVertical, LineChart, Percent, Truck } from 'lucide-react';
+import { useTranslation } from 'react-i18next';
+import { Clock, GitCommitVertical, LineChart, Percent, Scale, Truck } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
-import { REPORT_READERS } from '@shared/domain/access';
+import { COSTING_READERS, REPORT_READERS } from '@shared/domain/access';
 import { useMe } from '@/features/auth/api/get-me';
 import { PageHeader } from '@/components/ui/panels';
 
@@ -19,11 +20,13 @@ const TABS = [
 
 export function Component() {
   const me = useMe();
+  const { t } = useTranslation('costing');
   const role = me.data?.user.role;
+  const tabs = [...TABS, { to: 'costing', label: t('report.tab'), icon: Scale, roles: COSTING_READERS }];
   return (
     <>
       <PageHeader title="Reports" subtitle="How long orders take, where trays wait, what comes out good. Every figure is computed on the server from the scans." />
-      <TabNav label="Reports" items={TABS.filter((t) => role && t.roles.includes(role))} />
+      <TabNav label="Reports" items={tabs.filter((t) => role && t.roles.includes(role))} />
       <Outlet />
     </>
   );

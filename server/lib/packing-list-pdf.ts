@@ -3,6 +3,7 @@
 import PDFDocument from 'pdfkit';
 import type { ShipmentView } from '@shared/schemas/shipping';
 import { fontFile } from './traveller-pdf';
+import { faceFor, registerCjkFonts } from './pdf-fonts';
 
 export interface PackingListInput {
   factory: string;
@@ -36,6 +37,9 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
   });
   doc.registerFont('body', fontFile(400));
   doc.registerFont('bold', fontFile(700));
+  registerCjkFonts(doc);
+  // the house face, or the Chinese one when the text has Chinese in it
+  const face = (text: string, bold = false) => faceFor(text, bold ? 'bold' : 'body', bold);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -47,13 +51,13 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
   const width = doc.page.width - left - doc.page.margins.right;
 
   doc.font('bold').fontSize(22).fillColor(INK).text('Packing list', left, doc.page.margins.top);
-  doc.font('body').fontSize(11).fillColor(GREY).text(input.factory);
+  doc.font(face(input.factory)).fontSize(11).fillColor(GREY).text(input.factory);
   doc.moveDown(1);
 
   const field = (label: string, value: string) => {
     const y = doc.y;
     doc.font('body').fontSize(10).fillColor(GREY).text(label, left, y, { width: 45 * MM });
-    doc.font('bold').fontSize(12).fillColor(INK).text(value, left + 46 * MM, y, { width: width - 46 * MM });
+    doc.font(face(value, true)).fontSize(12).fillColor(INK).text(value, left + 46 * MM, y, { width: width - 46 * MM });
     doc.moveDown(0.35);
   };
   field('Order', input.orderNumber);

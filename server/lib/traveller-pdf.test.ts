@@ -187,6 +187,32 @@ describe('traveller PDF → image → QR (independent decoder: jsQR; values: ISO
     expect(text).toContain('Colour 3 of 4: cure');
   });
 
+  it('prints Chinese colour and customer names with an embedded CJK face, read back by pdftotext', async () => {
+    const colours = [{ name: '深蓝', ref: 'C-281', hex: '#1b2a4a' }, { name: 'White', hex: '#ffffff' }];
+    const pdf = await renderTravellersPdf([card('1042-01', 1, { customer: '星河徽章俱乐部', title: '星河 crest', colours })], 'a6');
+    const file = path.join(dir, 'chinese.pdf');
+    fs.writeFileSync(file, pdf);
+    // poppler reads the text back independently of pdfkit; without a face that has the glyphs
+    // the characters would be missing from the page
+    const text = execFileSync('pdftotext', [file, '-']).toString();
+    expect(text).toContain('深蓝');
+    expect(text).toContain('星河徽章俱乐部');
+    expect(text).toContain('White');
+    const fonts = execFileSync('pdffonts', [file]).toString();
+    expect(fonts).toMatch(/NotoSansHans-Regular/);
+    // embedded as a subset (pdffonts: emb yes, sub yes), so the file stays small
+    const noto = fonts.split('\n').find((l) => l.includes('NotoSansHans-Regular'))!;
+    expect(noto).toMatch(/\+NotoSansHans-Regular.*\byes\s+yes\b/);
+    expect(pdf.length).toBeLessThan(400_000);
+  });
+
+  it('a card without Chinese text carries no Chinese face', async () => {
+    const pdf = await renderTravellersPdf([card('1042-01', 1)], 'a6');
+    const file = path.join(dir, 'latin.pdf');
+    fs.writeFileSync(file, pdf);
+    expect(execFileSync('pdffonts', [file]).toString()).not.toMatch(/Noto/);
+  });
+
   it('refuses an empty batch', async () => {
     await expect(renderTravellersPdf([], 'a6')).rejects.toThrow();
   });

@@ -6,6 +6,7 @@ import { createRequire } from 'node:module';
 import fs from 'node:fs';
 import path from 'node:path';
 import { woffToSfnt } from './woff';
+import { faceFor, registerCjkFonts } from './pdf-fonts';
 import type { RoutingStep } from '@shared/domain/vocabulary';
 import type { TravellerLayoutValue } from '@shared/schemas/travellers';
 import { cures } from '@shared/domain/traveller';
@@ -145,7 +146,7 @@ function text(
   y: number,
   opts: { size: number; bold?: boolean; width: number; color?: string; lines?: number; align?: 'left' | 'right' | 'center' },
 ): number {
-  doc.font(opts.bold ? 'bold' : 'regular').fontSize(opts.size).fillColor(opts.color ?? INK);
+  doc.font(faceFor(value, opts.bold ? 'bold' : 'regular', !!opts.bold)).fontSize(opts.size).fillColor(opts.color ?? INK);
   const lineHeight = doc.currentLineHeight(true);
   const height = lineHeight * (opts.lines ?? 1);
   doc.text(value, x, y, { width: opts.width, height, ellipsis: true, lineBreak: (opts.lines ?? 1) > 1, align: opts.align ?? 'left' });
@@ -243,9 +244,9 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
   if (card.colours.length > 0) {
     let cx = pad;
     const sw = 3.2 * MM;
-    doc.font('regular').fontSize(7);
     for (const [i, c] of card.colours.entries()) {
       const label = `${i + 1} ${c.name}${c.ref ? ` (${c.ref})` : ''}`;
+      doc.font(faceFor(label, 'regular', false)).fontSize(7);
       const w = sw + 1.2 * MM + Math.min(doc.widthOfString(label), 40 * MM) + 3 * MM;
       if (cx + w > CARD_W - pad && cx > pad) {
         cx = pad;
@@ -305,6 +306,7 @@ export function renderTravellersPdf(cards: readonly TravellerCard[], layout: Tra
   const doc = new PDFDocument({ size, margin: 0, autoFirstPage: false, info: { Title: 'Travellers', Creator: 'Trayce' } });
   doc.registerFont('regular', fontBytes(400));
   doc.registerFont('bold', fontBytes(700));
+  registerCjkFonts(doc);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {

@@ -166,6 +166,25 @@ describe('shipments', () => {
   });
 });
 
+describe('packing list in Chinese', () => {
+  it('prints a Chinese customer, contact and title (read back by pdftotext) with an embedded CJK face', async () => {
+    const o = insertShippingOrder(t.deps, { customer: '星河徽章俱乐部', contactName: '李明', title: '深蓝星河徽章', trays: [{ quantity: 120, at: SEQ.dispatch }] });
+    const ship = await sales.post(`/api/orders/${o.orderId}/shipments`).send({ carrier: '顺达快运', trackingNumber: 'SD-0001-CN', cartons: [carton(1, 120, 1.2)] });
+    expect(ship.status).toBe(201);
+    const res = await sales.get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(res.status).toBe(200);
+    const file = path.join(t.dataDir, 'packing-list-zh.pdf');
+    fs.writeFileSync(file, res.body as Buffer);
+    const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+    for (const s of ['星河徽章俱乐部', '李明', '深蓝星河徽章', '顺达快运', 'SD-0001-CN', o.number]) expect(text).toContain(s);
+    expect(execFileSync('pdffonts', [file], { encoding: 'utf8' })).toMatch(/NotoSansHans/);
+  });
+});
+
 describe('when an order counts as shipped', () => {
   it('ships when the dispatch step of its last tray finishes; a written-off tray counts as done', async () => {
     const o = insertShippingOrder(t.deps, { quantity: 200, trays: [{ quantity: 100, at: SEQ.dispatch }, { quantity: 95, at: SEQ.dispatch }, { quantity: 5, at: 'scrapped' }] });

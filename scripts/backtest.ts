@@ -1,15 +1,20 @@
-// `npm run backtest [floors]`: projected ship dates against what happened, on invented floors
-// made by the demo simulator. Prints the table and writes .tmp/backtest.json.
+// `npm run backtest [floors] [-- --write]`: projected ship dates against what happened, on
+// invented floors made by the demo simulator. Prints the table and writes .tmp/backtest.json;
+// with --write it also keeps the measured coverage in server/backtest/coverage.json, which the
+// app shows beside every projected date.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { formatTable, runBacktest } from '../server/backtest/backtest';
+import { COVERAGE_FILE, coverageOf } from '../server/backtest/coverage';
 import { productProjector } from '../server/backtest/projector';
 import { PROJECTION_RUNS } from '../server/services/projection.service';
 
-const floors = Number(process.argv[2] ?? 12);
+const args = process.argv.slice(2);
+const write = args.includes('--write');
+const floors = Number(args.find((a) => !a.startsWith('--')) ?? 12);
 if (!Number.isInteger(floors) || floors < 1) {
-  console.error('usage: npm run backtest [number of floors, default 12]');
+  console.error('usage: npm run backtest [number of floors, default 12] [-- --write]');
   process.exit(2);
 }
 const started = Date.now();
@@ -23,3 +28,7 @@ const out = path.join(import.meta.dirname, '..', '.tmp', 'backtest.json');
 fs.mkdirSync(path.dirname(out), { recursive: true });
 fs.writeFileSync(out, JSON.stringify(result, null, 2));
 console.log(`${((Date.now() - started) / 1000).toFixed(1)} s · written to ${path.relative(process.cwd(), out)}`);
+if (write) {
+  fs.writeFileSync(COVERAGE_FILE, `${JSON.stringify(coverageOf(result, new Date()), null, 2)}\n`);
+  console.log(`coverage kept in ${path.relative(process.cwd(), COVERAGE_FILE)}`);
+}

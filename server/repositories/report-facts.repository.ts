@@ -1,69 +1,23 @@
 import type { DbLike as Db } from '../db/client';
 import { sqlClient } from './sql-client';
+import type { ReplayEvent, ReplayTraveller, StepRun, TrayFlow } from '@shared/domain/traveller';
+import type { RoutingStep, StationKind } from '@shared/domain/vocabulary';
 
-// The derived step_runs table and its cursor. Raw prepared statements: the full rebuild reads
-// a year of events (a million rows) and must stream them rather than build objects per row.
-
-export interface EventRow {
-  rowid: number;
-  trayId: string;
-  type: string;
-  stepSeq: number | null;
-  stationKind: string | null;
-  stationId: string | null;
-  occurredAt: number;
-  qtyIn: number | null;
-  goodQty: number | null;
-  scrapQty: number | null;
-  reworkQty: number | null;
-  scrapReason: string | null;
+/** A step run as stored, with its queue and process time in working minutes of its station's calendar. */
+export interface StepRunInsert extends StepRun {
+  queueWorkingMinutes: number | null;
+  processWorkingMinutes: number | null;
 }
 
-export interface TrayInfo {
-  id: string;
-  orderId: string;
-  kind: 'tray' | 'mould';
-  quantity: number;
-  releasedAt: number;
-}
+export type TrayFlowInsert = TrayFlow;
 
-export interface StepRunInsert {
-  trayId: string;
-  orderId: string;
-  travellerKind: 'tray' | 'mould';
-  stepSeq: number;
-  stationKind: string;
-  stationId: string | null;
-  readyAt: number;
-  startedAt: number | null;
-  finishedAt: number;
-  queueMinutes: number | null;
-  processMinutes: number | null;
-  cureMinutes: number | null;
-  qtyIn: number;
-  goodQty: number;
-  scrapQty: number;
-  reworkQty: number;
-  scrapReason: string | null;
-  implicit: boolean;
-}
+// The derived step_runs and tray_flows tables and their cursor. Raw prepared statements: the full
+// rebuild reads a year of events (a million rows), a page of orders at a time.
 
-export interface TrayFlowInsert {
-  trayId: string;
-  orderId: string;
-  releasedAt: number;
-  startedAt: number | null;
-  inspectedAt: number | null;
-  packedAt: number | null;
-  shippedAt: number | null;
-  shippedQty: number | null;
-  lastFinishAt: number | null;
-  processMinutes: number;
-  cureMinutes: number;
-}
-
-const EVENT_COLUMNS = `rowid, tray_id as trayId, type, step_seq as stepSeq, station_kind as stationKind, station_id as stationId,
-  occurred_at as occurredAt, qty_in as qtyIn, good_qty as goodQty, scrap_qty as scrapQty, rework_qty as reworkQty, scrap_reason as scrapReason`;
+const EVENT_COLUMNS = `e.tray_id as trayId, e.type, e.step_seq as stepSeq, e.station_kind as stationKind, e.station_id as stationId,
+  e.occurred_at as occurredAt, e.qty_in as qtyIn, e.good_qty as goodQty, e.scrap_qty as scrapQty, e.rework_qty as reworkQty,
+  e.scrap_reason as scrapReason, e.note, ov.kind as overrideKind, u.role as actorRole`;
+const EVENT_FROM = `scan_events e join trays t on t.id = e.tray_id left join overrides ov on ov.id = e.override_id left join users u on u.id = e.user_id`;
 
 const client = sqlClient;
 
@@ -83,45 +37,47 @@ export const reportFactsRepository = {
   traysWithEventsAfter(db: Db, rowid: number, limit: number): string[] {
     return (client(db).prepare('select distinct tray_id as t from scan_events where rowid > ? limit ?').all(rowid, limit) as { t: string }[]).map((r) => r.t);
   },
-  trays(db: Db, ids?: string[]): TrayInfo[] {
-    const sql = 'select id, order_id as orderId, kind, quantity, released_at as releasedAt from trays';
-    if (!ids) return client(db).prepare(sql).all() as TrayInfo[];
-    const out: TrayInfo[] = [];
-    const stmt = client(db).prepare(`${sql} where id = ?`);
-    for (const id of ids) {
-      const r = stmt.get(id) as TrayInfo | undefined;
-      if (r) out.push(r);
+  /** orders with events after a rowid (at most `limit`) */
+  ordersWithEventsAfter(db: Db, rowid: number, limit: number): string[] {
+    return (
+      client(db).prepare('select distinct t.order_id as o from scan_events e join trays t on t.id = e.tray_id where e.rowid > ? limit ?').all(rowid, limit) as { o: string }[]
+    ).map((r) => r.o);
+  },
+  /** every order that has travellers with events, in id order */
+  ordersWithEvents(db: Db): string[] {
+    return (client(db).prepare('select distinct t.order_id from trays t where exists (select 1 from scan_events e where e.tray_id = t.id) order by t.order_id').raw(true).all() as [string][]).map(
+      (r) => r[0],
+    );
+  },
+  /** the travellers of some orders with their routings, as the replay takes them */
+  travellers(db: Db, orderIds: readonly string[]): ReplayTraveller[] {
+    const c = client(db);
+    const trayStmt = c.prepare(
+      `select id, order_id as orderId, kind, quantity, released_at as releasedAt, parent_tray_id as parentId, merged_into_id as mergedIntoId from trays where order_id = ?`,
+    );
+    const stepStmt = c.prepare(
+      `select traveller_kind as k, seq, name, station_kind as stationKind, tray_minutes as trayMinutes, piece_minutes as pieceMinutes, cure_minutes as cureMinutes, colour
+       from order_steps where order_id = ? order by seq`,
+    );
+    const out: ReplayTraveller[] = [];
+    for (const orderId of orderIds) {
+      const steps = stepStmt.all(orderId) as (RoutingStep & { k: string; stationKind: StationKind })[];
+      const routing = (kind: string) => steps.filter((s) => s.k === kind).map(({ k: _k, ...s }) => s);
+      const byKind = { tray: routing('tray'), mould: routing('mould') };
+      for (const t of trayStmt.all(orderId) as Omit<ReplayTraveller, 'routing'>[]) out.push({ ...t, routing: byKind[t.kind] });
     }
     return out;
   },
-  /** cure minutes of every cure step: key order|kind|seq */
-  cureSteps(db: Db, orderIds?: string[]): Map<string, number> {
-    const m = new Map<string, number>();
-    const sql = 'select order_id as o, traveller_kind as k, seq as s, cure_minutes as c from order_steps where cure_minutes > 0';
-    const rows = (
-      orderIds
-        ? orderIds.flatMap((id) => client(db).prepare(`${sql} and order_id = ?`).all(id))
-        : client(db).prepare(sql).all()
-    ) as { o: string; k: string; s: number; c: number }[];
-    for (const r of rows) m.set(`${r.o}|${r.k}|${r.s}`, r.c);
-    return m;
-  },
-  eventsOfTray(db: Db, trayId: string): EventRow[] {
-    return client(db).prepare(`select ${EVENT_COLUMNS} from scan_events where tray_id = ? order by occurred_at, rowid`).all(trayId) as EventRow[];
-  },
-  /** every tray id that has events, in order */
-  trayIdsWithEvents(db: Db): string[] {
-    return (client(db).prepare('select distinct tray_id as t from scan_events order by tray_id').raw(true).all() as [string][]).map((r) => r[0]);
-  },
-  /** the events of a range of trays (by id), grouped by tray in time order */
-  eventsOfTrayRange(db: Db, firstId: string, lastId: string, upTo: number): EventRow[] {
+  /** the events of some orders' travellers up to a rowid, in time order (then in the order stored) */
+  eventsOfOrders(db: Db, orderIds: readonly string[], upTo: number): ReplayEvent[] {
+    if (orderIds.length === 0) return [];
     return client(db)
-      .prepare(`select ${EVENT_COLUMNS} from scan_events where tray_id >= ? and tray_id <= ? and rowid <= ? order by tray_id, occurred_at, rowid`)
-      .all(firstId, lastId, upTo) as EventRow[];
+      .prepare(`select ${EVENT_COLUMNS} from ${EVENT_FROM} where t.order_id in (${orderIds.map(() => '?').join(', ')}) and e.rowid <= ? order by e.occurred_at, e.rowid`)
+      .all(...orderIds, upTo) as ReplayEvent[];
   },
-  deleteRunsOfTray(db: Db, trayId: string) {
-    client(db).prepare('delete from step_runs where tray_id = ?').run(trayId);
-    client(db).prepare('delete from tray_flows where tray_id = ?').run(trayId);
+  deleteRunsOfOrder(db: Db, orderId: string) {
+    client(db).prepare('delete from step_runs where order_id = ?').run(orderId);
+    client(db).prepare('delete from tray_flows where order_id = ?').run(orderId);
   },
   /**
    * Runs `fill` with the derived tables' indexes dropped and builds them again afterwards from
@@ -142,14 +98,29 @@ export const reportFactsRepository = {
   },
   flowInserter(db: Db): (f: TrayFlowInsert) => void {
     const stmt = client(db).prepare(`insert or replace into tray_flows (tray_id, order_id, released_at, started_at, inspected_at, packed_at, shipped_at, shipped_qty,
-      last_finish_at, process_minutes, cure_minutes) values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
+      last_finish_at, process_minutes, cure_minutes, process_working_minutes, cure_working_minutes) values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
     return (f) =>
-      stmt.run(f.trayId, f.orderId, f.releasedAt, f.startedAt, f.inspectedAt, f.packedAt, f.shippedAt, f.shippedQty, f.lastFinishAt, f.processMinutes, f.cureMinutes);
+      stmt.run(
+        f.trayId,
+        f.orderId,
+        f.releasedAt,
+        f.startedAt,
+        f.inspectedAt,
+        f.packedAt,
+        f.shippedAt,
+        f.shippedQty,
+        f.lastFinishAt,
+        f.processMinutes,
+        f.cureMinutes,
+        f.processWorkingMinutes,
+        f.cureWorkingMinutes,
+      );
   },
   inserter(db: Db): (r: StepRunInsert) => void {
     const stmt = client(db).prepare(`insert into step_runs (tray_id, order_id, traveller_kind, step_seq, station_kind, station_id, ready_at, started_at,
-      finished_at, queue_minutes, process_minutes, cure_minutes, qty_in, good_qty, scrap_qty, rework_qty, scrap_reason, implicit)
-      values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
+      finished_at, queue_minutes, process_minutes, cure_minutes, qty_in, good_qty, scrap_qty, rework_qty, scrap_reason, implicit,
+      pass, queue_working_minutes, process_working_minutes)
+      values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
     return (r) =>
       stmt.run(
         r.trayId,
@@ -170,6 +141,9 @@ export const reportFactsRepository = {
         r.reworkQty,
         r.scrapReason,
         r.implicit ? 1 : 0,
+        r.pass,
+        r.queueWorkingMinutes,
+        r.processWorkingMinutes,
       );
   },
   transaction<T>(db: Db, fn: () => T): T {

@@ -18,6 +18,16 @@ const client = sqlClient;
 /** every station kind, so the kind/time index can serve a whole window */
 const KINDS = STATION_KINDS.map((k) => `'${k}'`).join(', ');
 
+/**
+ * Yield counts of a set of runs, summed as stepRunYieldCounts (shared/domain/traveller/replay.ts)
+ * adds one run: a run a split sent back for rework, or a step done again after it, brings no new
+ * pieces in; the first counts all its good pieces as reworked, both lose their scrap from the good.
+ */
+const YIELD_SUMS = `sum(case when r.pass = 'first' then r.qty_in else 0 end),
+  sum(case when r.pass = 'first' then r.good_qty else r.good_qty - r.qty_in end),
+  sum(r.scrap_qty),
+  sum(case when r.pass = 'rework' then r.good_qty else r.rework_qty end)`;
+
 function orderFilter(f: ReportFilter, alias = 'o'): { sql: string; args: unknown[] } {
   const parts: string[] = [];
   const args: unknown[] = [];
@@ -41,6 +51,16 @@ export interface ShippedOrderRow {
   releasedAt: number | null;
   shippedAt: number;
   dueDate: string;
+}
+
+export interface FinishedTrayFlowRow {
+  trayId: string;
+  releasedAt: number;
+  doneAt: number;
+  process: number;
+  cure: number;
+  processWorking: number;
+  cureWorking: number;
 }
 
 export interface FlowTrayRow {
@@ -70,48 +90,56 @@ export const reportsRepository = {
   },
 
   /**
-   * Queue or process minutes of one station kind's steps finished in the window, as a flat list
+   * Queue or process minutes of one station kind's steps finished in the window, in calendar
+   * minutes and in working minutes of the station's calendar, as two flat lists of the same runs
    * (one covering-index range scan, no row objects). A cure closed on its own counts as process
    * time only for the cure kind itself.
    */
-  cycleValues(db: Db, f: ReportFilter, stationKind: string, measure: 'queue' | 'process'): Float64Array {
+  cycleValues(db: Db, f: ReportFilter, stationKind: string, measure: 'queue' | 'process'): { calendar: Float64Array; working: Float64Array } {
     const of = orderFilter(f);
     const joinOrders = of.sql ? ' join orders o on o.id = r.order_id' : '';
     const station = f.stationId ? ' and r.station_id = ?' : '';
     const column = measure === 'queue' ? 'r.queue_minutes' : 'r.process_minutes';
+    const working = measure === 'queue' ? 'r.queue_working_minutes' : 'r.process_working_minutes';
     const extra = measure === 'process' && !cures(stationKind) ? ' and r.implicit = 0' : '';
     const rows = client(db)
       .prepare(
-        `select ${column} from step_runs r${joinOrders}
-         where r.station_kind = ? and r.finished_at >= ? and r.finished_at < ? and ${column} is not null${extra}${station}${of.sql}`,
+        `select ${column}, ${working} from step_runs r${joinOrders}
+         where r.station_kind = ? and r.finished_at >= ? and r.finished_at < ? and ${column} is not null and ${working} is not null${extra}${station}${of.sql}`,
       )
-      .pluck()
+      .raw(true)
       .iterate(stationKind, f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args);
-    // straight into a typed buffer: no array of boxed numbers for half a million values
-    let out = new Float64Array(4096);
+    // straight into typed buffers: no array of boxed numbers for half a million values
+    let cal = new Float64Array(4096);
+    let work = new Float64Array(4096);
     let n = 0;
-    for (const v of rows as Iterable<number>) {
-      if (n === out.length) {
-        const bigger = new Float64Array(out.length * 2);
-        bigger.set(out);
-        out = bigger;
+    for (const [c, w] of rows as Iterable<[number, number]>) {
+      if (n === cal.length) {
+        const c2 = new Float64Array(cal.length * 2);
+        c2.set(cal);
+        cal = c2;
+        const w2 = new Float64Array(work.length * 2);
+        w2.set(work);
+        work = w2;
       }
-      out[n++] = v;
+      cal[n] = c;
+      work[n++] = w;
     }
-    return out.subarray(0, n);
+    return { calendar: cal.subarray(0, n), working: work.subarray(0, n) };
   },
 
-  /** trays finished in the window with their summed process and cure minutes */
-  finishedTrayFlow(db: Db, f: ReportFilter): { trayId: string; releasedAt: number; doneAt: number; process: number; cure: number }[] {
+  /** trays finished in the window with their summed process and cure minutes, in calendar and in working minutes */
+  finishedTrayFlow(db: Db, f: ReportFilter): FinishedTrayFlowRow[] {
     const of = orderFilter(f);
     const joinOrders = of.sql ? ' join orders o on o.id = fl.order_id' : '';
     return client(db)
       .prepare(
-        `select fl.tray_id as trayId, fl.released_at as releasedAt, s.last_event_at as doneAt, fl.process_minutes as process, fl.cure_minutes as cure
+        `select fl.tray_id as trayId, fl.released_at as releasedAt, s.last_event_at as doneAt, fl.process_minutes as process, fl.cure_minutes as cure,
+           fl.process_working_minutes as processWorking, fl.cure_working_minutes as cureWorking
          from tray_states s join tray_flows fl on fl.tray_id = s.tray_id${joinOrders}
          where s.phase = 'done' and s.last_event_at >= ? and s.last_event_at < ?${of.sql}`,
       )
-      .all(f.from, f.to, ...of.args) as { trayId: string; releasedAt: number; doneAt: number; process: number; cure: number }[];
+      .all(f.from, f.to, ...of.args) as FinishedTrayFlowRow[];
   },
 
   /** trays in the window (released before its end, not gone before its start) with their milestones */
@@ -147,12 +175,17 @@ export const reportsRepository = {
     const station = f.stationId ? ' and r.station_id = ?' : '';
     return client(db)
       .prepare(
-        `select r.station_kind as stationKind, sum(r.qty_in) as inQty, sum(r.good_qty) as goodQty, sum(r.scrap_qty) as scrapQty, sum(r.rework_qty) as reworkQty
+        `select r.station_kind, ${YIELD_SUMS}
          from step_runs r${joinOrders}
          where r.station_kind in (${KINDS}) and r.finished_at >= ? and r.finished_at < ? and r.traveller_kind = 'tray'${station}${of.sql}
          group by r.station_kind`,
       )
-      .all(f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args) as { stationKind: string; inQty: number; goodQty: number; scrapQty: number; reworkQty: number }[];
+      .raw(true)
+      .all(f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args)
+      .map((row) => {
+        const [stationKind, inQty, goodQty, scrapQty, reworkQty] = row as [string, number, number, number, number];
+        return { stationKind, inQty, goodQty, scrapQty, reworkQty };
+      });
   },
 
   scrapByReason(db: Db, f: ReportFilter): { reason: string; name: string | null; qty: number }[] {
@@ -177,7 +210,7 @@ export const reportsRepository = {
     // needs no sort
     return client(db)
       .prepare(
-        `select r.order_id, r.step_seq, sum(r.qty_in), sum(r.good_qty), sum(r.scrap_qty), sum(r.rework_qty)
+        `select r.order_id, r.step_seq, ${YIELD_SUMS}
          from step_runs r
          where r.order_id in (select o.id from orders o where o.shipped_at >= ? and o.shipped_at < ?${of.sql}) and r.traveller_kind = 'tray'
          group by r.order_id, r.step_seq`,

@@ -2,6 +2,7 @@ import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import { calendarRepository } from '../repositories/calendar.repository';
 import { auditRepository } from '../repositories/audit.repository';
+import { reportFactsRepository } from '../repositories/report-facts.repository';
 import { badInput } from '../errors';
 import {
   WEEKDAYS,
@@ -99,8 +100,14 @@ export const calendarService = {
 
   timeZone: (deps: AppDeps): string => calendarRepository.factorySettings(deps.db)?.timeZone ?? DEFAULT_TIME_ZONE,
 
+  /**
+   * Call after every write to the calendar tables or the factory's time zone: the next question
+   * compiles the calendar again, and the report facts (kept in working minutes of this calendar)
+   * are derived again on their next catch-up.
+   */
   forget(deps: AppDeps) {
     cache.delete(deps.db);
+    reportFactsRepository.setCursor(deps.db, 'step_runs', 0, deps.now());
   },
 
   save(deps: AppDeps, body: CalendarBody, actorId: string): CalendarView {

@@ -6,7 +6,7 @@ import { calendarService } from './calendar.service';
 import { badInput } from '../errors';
 import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers, type Summary } from '@shared/domain/stats';
 import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/calendar';
-import { countPerBucket, cumulativeFlowOfItems, makeBuckets, wipOverTime } from '@shared/domain/flow';
+import { countPerBucket, cumulativeFlowOfItems, flowEfficiency, makeBuckets, wipOverTime } from '@shared/domain/flow';
 import { pareto, rolledThroughputYield, stepYield, type StepCounts } from '@shared/domain/yield';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
 import type {
@@ -107,13 +107,15 @@ export const reportsService = {
   cycleTime(deps: AppDeps, q: ReportQuery): CycleTimeReport {
     fresh(deps);
     const w = windowOf(deps, q);
-    const queue = new Map<string, Summary>();
-    const process = new Map<string, Summary>();
+    type Pair = { calendar: Summary; working: Summary };
+    const queue = new Map<string, Pair>();
+    const process = new Map<string, Pair>();
+    const pair = (v: { calendar: Float64Array; working: Float64Array }): Pair => ({ calendar: roundSummary(summarize(v.calendar)), working: roundSummary(summarize(v.working)) });
     for (const kind of STATION_KINDS) {
       const q = repo.cycleValues(deps.db, w.filter, kind, 'queue');
       const p = repo.cycleValues(deps.db, w.filter, kind, 'process');
-      if (q.length) queue.set(kind, roundSummary(summarize(q)));
-      if (p.length) process.set(kind, roundSummary(summarize(p)));
+      if (q.calendar.length) queue.set(kind, pair(q));
+      if (p.calendar.length) process.set(kind, pair(p));
     }
     const empty = { n: 0, p50: null, p85: null, p95: null, mean: null };
     const order = (k: string) => {
@@ -122,32 +124,38 @@ export const reportsService = {
     };
     const stations = [...new Set([...queue.keys(), ...process.keys()])]
       .sort((a, b) => order(a) - order(b))
-      .map((stationKind) => ({ stationKind, process: process.get(stationKind) ?? empty, queue: queue.get(stationKind) ?? empty }));
+      .map((stationKind) => {
+        const p = process.get(stationKind);
+        const q = queue.get(stationKind);
+        return { stationKind, process: p?.calendar ?? empty, queue: q?.calendar ?? empty, processWorking: p?.working ?? empty, queueWorking: q?.working ?? empty };
+      });
 
+    // Flow efficiency in one unit at a time: process over flow in working minutes of the factory
+    // calendar (the headline), and both in calendar minutes beside it. Cure is apart in both.
     const cal = calendarService.calendar(deps);
     const trays = w.filter.stationId ? [] : repo.finishedTrayFlow(deps.db, w.filter);
-    let processSum = 0;
-    let cure = 0;
-    let flow = 0;
-    let working = 0;
+    const sums = { process: 0, cure: 0, flow: 0, processWorking: 0, cureWorking: 0, flowWorking: 0 };
     for (const t of trays) {
-      processSum += t.process;
-      cure += t.cure;
-      flow += (t.doneAt - t.releasedAt) / MIN;
-      working += cal.factory.workingMinutesBetween(t.releasedAt, t.doneAt);
+      sums.process += t.process;
+      sums.cure += t.cure;
+      sums.flow += (t.doneAt - t.releasedAt) / MIN;
+      sums.processWorking += t.processWorking;
+      sums.cureWorking += t.cureWorking;
+      sums.flowWorking += cal.factory.workingMinutesBetween(t.releasedAt, t.doneAt);
     }
+    const figures = (processMinutes: number, cureMinutes: number, flowMinutes: number) => {
+      const fe = flowEfficiency({ processMinutes, cureMinutes, flowMinutes });
+      return { processMinutes: r2(processMinutes), cureMinutes: r2(cureMinutes), flowMinutes: r2(flowMinutes), flowEfficiency: r4(fe.flowEfficiency), cureShare: r4(fe.cureShare) };
+    };
     return {
       window: w.info,
       stations,
       flowEfficiency: {
         trays: trays.length,
-        processMinutes: r2(processSum),
-        cureMinutes: r2(cure),
-        flowMinutes: r2(flow),
-        workingFlowMinutes: r2(working),
-        flowEfficiency: working > 0 ? r4(processSum / working) : null,
-        flowEfficiencyCalendar: flow > 0 ? r4(processSum / flow) : null,
-        cureShare: flow > 0 ? r4(cure / flow) : null,
+        unit: 'working_minutes',
+        cureValueAdding: false,
+        working: figures(sums.processWorking, sums.cureWorking, sums.flowWorking),
+        calendar: figures(sums.process, sums.cure, sums.flow),
       },
     };
   },
@@ -314,9 +322,10 @@ export const reportsCsv = {
     );
   },
   cycleTime(r: CycleTimeReport): string {
+    const cols = (name: string, unit: string) => [`${name}_n`, `${name}_p50_${unit}`, `${name}_p85_${unit}`, `${name}_p95_${unit}`, `${name}_mean_${unit}`];
     return csv(
-      ['station_kind', 'process_n', 'process_p50_min', 'process_p85_min', 'process_p95_min', 'process_mean_min', 'queue_n', 'queue_p50_min', 'queue_p85_min', 'queue_p95_min', 'queue_mean_min'],
-      r.stations.map((k) => [k.stationKind, ...s(k.process), ...s(k.queue)]),
+      ['station_kind', ...cols('process', 'min'), ...cols('queue', 'min'), ...cols('process_working', 'working_min'), ...cols('queue_working', 'working_min')],
+      r.stations.map((k) => [k.stationKind, ...s(k.process), ...s(k.queue), ...s(k.processWorking), ...s(k.queueWorking)]),
     );
   },
   flow(r: FlowReport): string {

@@ -152,6 +152,8 @@ export interface ScanFacts {
   stepSeq: number | null;
   /** for a start: time the tray waited (last finish or cure ready → start) */
   queueMinutes?: number;
+  /** for a start: when the tray became ready for the step it started (never after the start) */
+  readyAt?: string;
   /** for a finish: start → finish */
   processMinutes?: number;
   /** steps this event closed, in order (an implicit cure close comes before a start) */
@@ -417,6 +419,7 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
     facts: {
       stepSeq: target.seq,
       queueMinutes: Math.max(0, (occurredMs - waitingFromMs) / MINUTE_MS),
+      readyAt: iso(Math.min(waitingFromMs, occurredMs)),
       completed,
       overridden,
       ...(substitutedKind ? { substitutedKind } : {}),

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { multiplyRatios, pareto, ratio, ratioToNumber, rolledThroughputYield, stepYield, sumStepCounts } from './yield';
+import { checkCounts, multiplyRatios, pareto, ratio, ratioToNumber, rolledThroughputYield, stepYield, sumStepCounts } from './yield';
 
 // Check values: Minitab's published help on throughput yield and rolled throughput yield:
 // 1000 units in, 950 pass step 1, 800 of 950 pass step 2, 700 of 800 pass step 3 -> RTY 0.70
@@ -50,6 +50,10 @@ describe('first-pass yield counts rework as not passed; final yield counts it as
   it('refuses counts that cannot be', () => {
     expect(() => stepYield({ seq: 1, inQty: 10, goodQty: 5, scrapQty: 5, reworkQty: 6 })).toThrow(RangeError);
     expect(() => stepYield({ seq: 1, inQty: 10, goodQty: 2.5, scrapQty: 5, reworkQty: 0 })).toThrow(RangeError);
+    // more good pieces than went in: a yield above 100 % (a first-pass count above the pieces in)
+    expect(() => checkCounts({ seq: 1, inQty: 10, goodQty: 11, scrapQty: 0, reworkQty: 0 })).toThrow(/more good pieces than went into it/);
+    expect(() => stepYield({ seq: 1, inQty: 0, goodQty: 1, scrapQty: 0, reworkQty: 0 })).toThrow(RangeError);
+    expect(() => checkCounts({ seq: 1, inQty: 10, goodQty: 10, scrapQty: 0, reworkQty: 0 })).not.toThrow();
   });
 
   it('reports null yields for a step nothing entered', () => {

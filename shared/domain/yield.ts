@@ -77,6 +77,7 @@ export function checkCounts(c: StepCounts): void {
     if (!Number.isInteger(c[k]) || c[k] < 0) throw new RangeError(`${k} must be a whole number >= 0`);
   }
   if (c.reworkQty > c.goodQty) throw new RangeError('reworked pieces are counted among the good ones');
+  if (c.goodQty > c.inQty) throw new RangeError('a step cannot give more good pieces than went into it');
 }
 
 export function stepYield(c: StepCounts): StepYield {

@@ -49,8 +49,26 @@ export interface LeadTimeReport {
 
 export interface CycleTimeKind {
   stationKind: string;
+  /** calendar minutes (the clock, nights and days off included) */
   process: Summary;
   queue: Summary;
+  /** working minutes of the station's calendar */
+  processWorking: Summary;
+  queueWorking: Summary;
+}
+
+/** Flow efficiency with every time in one unit. */
+export interface FlowEfficiencyFigures {
+  /** value-adding time: start to finish at the stations, cure steps not included */
+  processMinutes: number;
+  /** time in the oven, reported apart */
+  cureMinutes: number;
+  /** release to done */
+  flowMinutes: number;
+  /** process / flow */
+  flowEfficiency: number | null;
+  /** cure / flow */
+  cureShare: number | null;
 }
 
 export interface CycleTimeReport {
@@ -59,16 +77,14 @@ export interface CycleTimeReport {
   /** value-adding process time over flow time of the trays finished in the window */
   flowEfficiency: {
     trays: number;
-    processMinutes: number;
-    cureMinutes: number;
-    flowMinutes: number;
-    workingFlowMinutes: number;
-    /** process / working flow time */
-    flowEfficiency: number | null;
-    /** process / calendar flow time */
-    flowEfficiencyCalendar: number | null;
-    /** cure / calendar flow time, reported apart (not counted as value-adding) */
-    cureShare: number | null;
+    /** the unit of the headline figure: working minutes of the factory calendar */
+    unit: 'working_minutes';
+    /** oven cure is not counted as value-adding (it is needed but unattended); its share is shown apart */
+    cureValueAdding: false;
+    /** every time in working minutes of the factory calendar */
+    working: FlowEfficiencyFigures;
+    /** every time in calendar minutes */
+    calendar: FlowEfficiencyFigures;
   };
 }
 

@@ -65,6 +65,7 @@ export const router = createBrowserRouter([
             ],
           },
           { path: 'sales', lazy: () => import('./routes/sales/order-search') },
+          { path: 'sales/when', lazy: () => import('./routes/sales/when') },
           { path: 'sales/orders/:id', lazy: () => import('./routes/sales/order-status') },
           { path: 'dispatch', lazy: () => import('./routes/dispatch/dispatch-list') },
           { path: 'dispatch/:id', lazy: () => import('./routes/dispatch/pack-and-ship') },

@@ -20,6 +20,7 @@ export const paths = {
   reports: '/reports',
   sales: '/sales',
   salesOrder: (id: string) => `/sales/orders/${id}`,
+  salesWhatIf: '/sales/when',
   dispatch: '/dispatch',
   dispatchOrder: (id: string) => `/dispatch/${id}`,
   admin: '/admin',

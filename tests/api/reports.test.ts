@@ -167,11 +167,21 @@ describe('a small order through every step', () => {
     expect(k('plate').queue).toMatchObject({ n: 2, p50: 55, mean: 55 });
     expect(k('pack').queue).toMatchObject({ n: 2, p50: 905 }); // 920 and 890, over the night
     expect(k('dispatch').process).toMatchObject({ n: 2, p50: 12.5 }); // 10 and 15
-    // flow efficiency: process 250 + 245 = 495 min over working flow 570 + 580 = 1150 min; cure 240 apart
-    expect(r.flowEfficiency).toMatchObject({ trays: 2, processMinutes: 495, cureMinutes: 240, flowMinutes: 3070, workingFlowMinutes: 1150 });
-    expect(r.flowEfficiency.flowEfficiency).toBe(0.4304);
-    expect(r.flowEfficiency.flowEfficiencyCalendar).toBe(0.1612);
-    expect(r.flowEfficiency.cureShare).toBe(0.0782);
+    // working minutes of the calendar (08:00-16:00) beside the clock's: packing waited 920 and 890
+    // clock minutes, of which 30 and 40 working (from 08:00 the next day); inspection ran after 16:00
+    expect(k('pack').queueWorking).toMatchObject({ n: 2, p50: 35 });
+    expect(k('inspect').process).toMatchObject({ n: 2, p50: 30 });
+    expect(k('inspect').processWorking).toMatchObject({ n: 2, p50: 0 });
+    expect(k('plate').processWorking).toMatchObject({ n: 2, p50: 55 }); // 60 and 50 (B plated to 16:10)
+    // Flow efficiency takes process and flow time in one unit (flow efficiency = value-adding time /
+    // lead time, Modig & Åhlström 2012). Working minutes: process A 60+60+60+0+30+10 = 220, B
+    // 60+50+50+0+30+15 = 205, over working flow 570 + 580 = 1150: 425 / 1150. Calendar minutes:
+    // 250 + 245 = 495 over 1540 + 1530 = 3070. Cure (120 + 120, all inside the shift) apart in both.
+    expect(r.flowEfficiency).toMatchObject({ trays: 2, unit: 'working_minutes', cureValueAdding: false });
+    expect(r.flowEfficiency.working).toEqual({ processMinutes: 425, cureMinutes: 240, flowMinutes: 1150, flowEfficiency: 0.3696, cureShare: 0.2087 });
+    expect(r.flowEfficiency.calendar).toEqual({ processMinutes: 495, cureMinutes: 240, flowMinutes: 3070, flowEfficiency: 0.1612, cureShare: 0.0782 });
+    // never the mixed figure: calendar process over working flow (495 / 1150 = 0.4304)
+    expect([r.flowEfficiency.working.flowEfficiency, r.flowEfficiency.calendar.flowEfficiency]).not.toContain(0.4304);
   });
 
   it('reports first-pass yield per step, rolled throughput yield per order and scrap by reason', async () => {

@@ -32,6 +32,11 @@ export const stepRuns = sqliteTable(
     scrapReason: text('scrap_reason'),
     /** a cure step closed on its own when the next step started */
     implicit: flag('implicit').notNull().default(false),
+    /** how the run counts for yield: 'first', 'rework' (the step a split sent pieces back to) or 'repeat' (a step done again after it) */
+    pass: text('pass', { enum: ['first', 'rework', 'repeat'] }).notNull().default('first'),
+    /** queue and process time in working minutes of the station's calendar */
+    queueWorkingMinutes: real('queue_working_minutes'),
+    processWorkingMinutes: real('process_working_minutes'),
   },
   (t) => [
     // covers every window query (cycle times, yields, scrap): one kind's steps in a period are
@@ -42,7 +47,10 @@ export const stepRuns = sqliteTable(
       t.travellerKind,
       t.queueMinutes,
       t.processMinutes,
+      t.queueWorkingMinutes,
+      t.processWorkingMinutes,
       t.implicit,
+      t.pass,
       t.qtyIn,
       t.goodQty,
       t.scrapQty,
@@ -52,7 +60,7 @@ export const stepRuns = sqliteTable(
       t.orderId,
     ),
     // covers the per-order step counts of the yield report
-    index('step_runs_order_idx').on(t.orderId, t.stepSeq, t.travellerKind, t.qtyIn, t.goodQty, t.scrapQty, t.reworkQty),
+    index('step_runs_order_idx').on(t.orderId, t.stepSeq, t.travellerKind, t.qtyIn, t.goodQty, t.scrapQty, t.reworkQty, t.pass),
     index('step_runs_tray_idx').on(t.trayId),
     // the scrap Pareto reads only the steps that scrapped something
     index('step_runs_scrap_idx')
@@ -80,6 +88,9 @@ export const trayFlows = sqliteTable(
     lastFinishAt: ms('last_finish_at'),
     processMinutes: real('process_minutes').notNull(),
     cureMinutes: real('cure_minutes').notNull(),
+    /** the same two in working minutes of the factory's calendar (the unit of its working flow time) */
+    processWorkingMinutes: real('process_working_minutes').notNull().default(0),
+    cureWorkingMinutes: real('cure_working_minutes').notNull().default(0),
   },
   (t) => [index('tray_flows_order_idx').on(t.orderId), index('tray_flows_released_idx').on(t.releasedAt)],
 );

@@ -4,3 +4,4 @@
 export * from './station-kinds';
 export * from './phase';
 export * from '../guards';
+export * from './replay';

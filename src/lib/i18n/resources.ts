@@ -10,12 +10,16 @@ import { en as users } from '@/features/users/i18n/en';
 import { zhCN as usersZh } from '@/features/users/i18n/zh-CN';
 import { en as portal } from '@/features/customer-status/i18n/en';
 import { zhCN as portalZh } from '@/features/customer-status/i18n/zh-CN';
+import { en as projections } from '@/features/projections/i18n/en';
+import { zhCN as projectionsZh } from '@/features/projections/i18n/zh-CN';
+import { en as reports } from '@/features/reports/i18n/en';
+import { zhCN as reportsZh } from '@/features/reports/i18n/zh-CN';
 import { en as costing } from '@/features/costing/i18n/en';
 import { zhCN as costingZh } from '@/features/costing/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders, users, portal, costing },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, costing: costingZh },
+  en: { common, station, orders, users, portal, projections, costing, reports },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, reports: reportsZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -7,6 +7,7 @@ import { useCreateOrder } from '@/features/orders/api/save-order';
 import { useQuery } from '@tanstack/react-query';
 import { orderQueryOptions } from '@/features/orders/api/get-order';
 import { OrderForm } from '@/features/orders/components/order-form';
+import { WhatIfPanel } from '@/features/projections/components/what-if-panel';
 import { Card, Loading, PageHeader } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
 
@@ -39,6 +40,7 @@ export function Component() {
           error={create.error && errorText(create.error)}
           onSubmit={(spec) => create.mutate(spec, { onSuccess: (order) => navigate(paths.order(order.id)) })}
           onCancel={() => navigate(paths.orders)}
+          extra={(withSpec) => <WhatIfPanel withSpec={withSpec} />}
         />
       </Card>
     </>

@@ -1,4 +1,6 @@
+import { useTranslation } from 'react-i18next';
 import { REPORT_READERS } from '@shared/domain/access';
+import type { StationKind } from '@shared/domain/vocabulary';
 import type { Summary } from '@shared/schemas/reports';
 import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
 import { useReportPage } from '@/features/reports/api/use-report-page';
@@ -10,57 +12,78 @@ import { hoursText, percentText } from '@/lib/duration';
 
 export const handle = { roles: REPORT_READERS };
 
-const cells = (s: Summary) => [s.n, s.p50 ?? '–', s.p85 ?? '–', s.p95 ?? '–', s.mean ?? '–'];
+const stats = ['p50', 'p85', 'mean'] as const;
+const cells = (s: Summary) => stats.map((k) => s[k] ?? '–');
 
 export function Component() {
+  const { t } = useTranslation('reports');
   const { filters, report, frame } = useReportPage('cycle-time', { station: true });
   const stations = useStations();
   const r = report.data;
+  const kindName = (k: string) => t(`station:kind.${k as StationKind}`, { defaultValue: humanise(k) });
+  const head = [
+    t('cycleTime.col.kind'),
+    t('cycleTime.col.processN'),
+    ...stats.map((stat) => t('cycleTime.col.processClock', { stat: t(`cycleTime.stat.${stat}`) })),
+    ...stats.map((stat) => t('cycleTime.col.processWorking', { stat: t(`cycleTime.stat.${stat}`) })),
+    t('cycleTime.col.queueN'),
+    ...stats.map((stat) => t('cycleTime.col.queueClock', { stat: t(`cycleTime.stat.${stat}`) })),
+    ...stats.map((stat) => t('cycleTime.col.queueWorking', { stat: t(`cycleTime.stat.${stat}`) })),
+  ];
+  const fe = r?.flowEfficiency;
   return (
-    <ReportFrame
-      {...frame}
-      stations={stations.data ?? []}
-      note="Queue time runs from the previous step’s finish (or the end of a cure, or release) to the start; process time from start to finish. Minutes of the clock."
-    >
+    <ReportFrame {...frame} stations={stations.data ?? []} note={t('cycleTime.note')}>
       {report.isPending ? (
-        <Loading label="Working out cycle times…" />
+        <Loading label={t('cycleTime.loading')} />
       ) : report.error ? (
         <ErrorPanel message={report.error.message} />
-      ) : r ? (
+      ) : r && fe ? (
         <>
           <Card>
-            <h2 className="text-xl font-bold text-harbour-900">Flow efficiency</h2>
-            {r.flowEfficiency.trays === 0 ? (
-              <p className="text-harbour-700">No tray finished in this period{filters.stationId ? ' (not shown for a single station)' : ''}.</p>
+            <h2 className="text-xl font-bold text-harbour-900">{t('cycleTime.flowTitle')}</h2>
+            {fe.trays === 0 ? (
+              <p className="text-harbour-700">{filters.stationId ? t('cycleTime.noTrayStation') : t('cycleTime.noTray')}</p>
             ) : (
-              <p className="mt-1 text-lg">
-                <strong className="text-3xl">{percentText(r.flowEfficiency.flowEfficiency)}</strong> of working time was spent on the trays’ process steps (
-                {hoursText(r.flowEfficiency.processMinutes / 60)} of work in {hoursText(r.flowEfficiency.workingFlowMinutes / 60)} of working time, summed over the{' '}
-                {r.flowEfficiency.trays.toLocaleString('en-GB')} trays finished). Counted against the clock: {percentText(r.flowEfficiency.flowEfficiencyCalendar)}. Oven cure is needed but unattended, so it is not counted as
-                value-adding: it took {percentText(r.flowEfficiency.cureShare)} of the clock time, shown apart.
-              </p>
+              <>
+                <p className="mt-1 text-lg">
+                  <strong className="text-3xl">{percentText(fe.working.flowEfficiency)}</strong>{' '}
+                  {t('cycleTime.headline', {
+                    process: hoursText(fe.working.processMinutes / 60),
+                    flow: hoursText(fe.working.flowMinutes / 60),
+                    trays: fe.trays.toLocaleString(),
+                  })}
+                </p>
+                <p className="mt-1">
+                  {t('cycleTime.calendar', {
+                    process: hoursText(fe.calendar.processMinutes / 60),
+                    flow: hoursText(fe.calendar.flowMinutes / 60),
+                    share: percentText(fe.calendar.flowEfficiency),
+                  })}
+                </p>
+                <p className="mt-1">{t('cycleTime.cure', { working: percentText(fe.working.cureShare), calendar: percentText(fe.calendar.cureShare) })}</p>
+              </>
             )}
           </Card>
           <ChartAndTable
-            title="Queue and process time per kind of station (minutes, p50)"
-            caption="The full spread (n, p50, p85, p95, mean) is in the table."
+            title={t('cycleTime.chartTitle')}
+            caption={t('cycleTime.chartCaption')}
             chart={
               <Bars
                 layout="vertical"
-                data={r.stations.map((s) => ({ kind: humanise(s.stationKind), queue: s.queue.p50, process: s.process.p50 }))}
+                data={r.stations.map((s) => ({ kind: kindName(s.stationKind), queue: s.queueWorking.p50, process: s.processWorking.p50 }))}
                 x="kind"
-                yLabel="minutes"
+                yLabel={t('cycleTime.axis')}
                 series={[
-                  { key: 'queue', name: 'Waiting (p50)' },
-                  { key: 'process', name: 'Process (p50)' },
+                  { key: 'queue', name: t('cycleTime.queueP50') },
+                  { key: 'process', name: t('cycleTime.processP50') },
                 ]}
               />
             }
             table={
               <StatTable
-                label="Cycle time table"
-                head={['Kind', 'Process n', 'p50', 'p85', 'p95', 'mean', 'Queue n', 'p50', 'p85', 'p95', 'mean']}
-                rows={r.stations.map((s) => [humanise(s.stationKind), ...cells(s.process), ...cells(s.queue)])}
+                label={t('cycleTime.table')}
+                head={head}
+                rows={r.stations.map((s) => [kindName(s.stationKind), s.process.n, ...cells(s.process), ...cells(s.processWorking), s.queue.n, ...cells(s.queue), ...cells(s.queueWorking)])}
               />
             }
           />

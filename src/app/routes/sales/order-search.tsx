@@ -2,7 +2,10 @@ import { useDeferredValue, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router';
 import { createColumnHelper } from '@tanstack/react-table';
 import type { SalesOrderRow } from '@shared/schemas/shipping';
-import { SALES_VIEW } from '@shared/domain/access';
+import { SALES_VIEW, WHAT_IF } from '@shared/domain/access';
+import { useTranslation } from 'react-i18next';
+import { CalendarClock } from 'lucide-react';
+import { useMe } from '@/features/auth/api/get-me';
 import { queryClient } from '@/lib/query-client';
 import { salesSearchQueryOptions, useSalesSearch } from '@/features/sales/api/search-orders';
 import { DataTable } from '@/components/ui/data-table';
@@ -51,9 +54,21 @@ export function Component() {
   const q = useDeferredValue(text.trim());
   const result = useSalesSearch(q);
   const navigate = useNavigate();
+  const { t } = useTranslation('projections');
+  const role = useMe().data?.user.role;
   return (
     <>
-      <PageHeader title="Order status" subtitle="Find any order by number, customer or title: where it stands, when it ships, and how it travels." />
+      <PageHeader
+        title="Order status"
+        subtitle="Find any order by number, customer or title: where it stands, when it ships, and how it travels."
+        actions={
+          role && WHAT_IF.includes(role) ? (
+            <Link className="inline-flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 bg-white px-4 font-bold text-harbour-800" to={paths.salesWhatIf}>
+              <CalendarClock className="h-5 w-5" aria-hidden /> {t('whatIf.pageTitle')}
+            </Link>
+          ) : undefined
+        }
+      />
       <form
         role="search"
         className="mb-4 flex flex-wrap items-end gap-3"

@@ -43,7 +43,11 @@ const blank: OrderSpecInput = {
 
 const emptyToUndefined = (v: unknown) => (v === '' || v == null ? undefined : v);
 
-/** The order spec form (new order, repeat order, or a change before release). */
+/**
+ * The order spec form (new order, repeat order, or a change before release). `extra` is shown
+ * above the buttons and may ask for the checked spec without saving it (the route puts the
+ * "When would it ship?" panel there); without `onSubmit` the form saves nothing.
+ */
 export function OrderForm({
   initial,
   submitLabel,
@@ -51,13 +55,16 @@ export function OrderForm({
   error,
   onSubmit,
   onCancel,
+  extra,
 }: {
   initial?: Partial<OrderSpecInput>;
-  submitLabel: string;
-  pending: boolean;
+  submitLabel?: string;
+  pending?: boolean;
   error?: string | null;
-  onSubmit: (spec: OrderSpec) => void;
+  onSubmit?: (spec: OrderSpec) => void;
   onCancel?: () => void;
+  /** `withSpec(then)` checks the form and, when it is valid, hands the spec to `then` */
+  extra?: (withSpec: (then: (spec: OrderSpec) => void) => void) => ReactNode;
 }) {
   const { t } = useTranslation(['orders', 'common']);
   const customers = useCustomers();
@@ -66,6 +73,7 @@ export function OrderForm({
     defaultValues: { ...blank, ...initial },
   });
   const { register, control, handleSubmit, formState, setValue } = form;
+  const withSpec = (then: (spec: OrderSpec) => void) => void handleSubmit(then)();
   const e = formState.errors;
   const colours = useFieldArray({ control, name: 'colours' });
   const watched = useWatch({ control });
@@ -86,7 +94,7 @@ export function OrderForm({
   const released = Number.isInteger(qty) && qty > 0 && overrun >= 0 ? releasedQuantity(qty, overrun) : null;
 
   return (
-    <form noValidate onSubmit={handleSubmit(onSubmit)} className="flex flex-col gap-6">
+    <form noValidate onSubmit={onSubmit ? handleSubmit(onSubmit) : (ev) => ev.preventDefault()} className="flex flex-col gap-6">
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-lg font-bold text-harbour-900">{t('form.customerDesign')}</legend>
         <TextField
@@ -264,11 +272,14 @@ export function OrderForm({
         </div>
       </fieldset>
 
+      {extra?.(withSpec)}
       {error && <ErrorPanel title={t('form.notSaved')} message={error} />}
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" size="lg" disabled={pending}>
-          {submitLabel}
-        </Button>
+        {onSubmit && (
+          <Button type="submit" size="lg" disabled={pending}>
+            {submitLabel}
+          </Button>
+        )}
         {onCancel && (
           <Button variant="secondary" size="lg" onClick={onCancel}>
             {t('form.cancel')}

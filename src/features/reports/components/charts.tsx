@@ -71,11 +71,11 @@ export function Bars({ data, x, series, yLabel, percent = false, layout = 'horiz
   const fmt = percent ? (v: number) => `${Math.round(v * 1000) / 10}%` : undefined;
   return (
     <ResponsiveContainer width="100%" height="100%">
-      <BarChart data={data} layout={layout} margin={{ top: 12, right: 16, bottom: 8, left: layout === 'vertical' ? 40 : 0 }}>
+      <BarChart data={data} layout={layout} margin={{ top: 12, right: 16, bottom: layout === 'vertical' ? 24 : 8, left: layout === 'vertical' ? 40 : 0 }}>
         <CartesianGrid strokeDasharray="3 3" />
         {layout === 'vertical' ? (
           <>
-            <XAxis type="number" tick={axis} tickFormatter={fmt} domain={percent ? [0, 1] : undefined} />
+            <XAxis type="number" tick={axis} tickFormatter={fmt} domain={percent ? [0, 1] : undefined} label={{ value: yLabel, position: 'insideBottom', offset: -4 }} />
             <YAxis type="category" dataKey={x} tick={{ ...axis, fontSize: 12 }} width={110} interval={0} />
           </>
         ) : (

@@ -15,6 +15,8 @@ export const router = createBrowserRouter([
   { path: '/pair', lazy: () => import('./routes/station/pair'), ErrorBoundary: RouteError },
   // The customer's read-only order status: public, outside the signed-in shell.
   { path: '/status/:token', lazy: () => import('./routes/public/order-status'), ErrorBoundary: RouteError },
+  // The customer's quotation from the mail: accept one quantity, which places the order.
+  { path: '/quote/:token', lazy: () => import('./routes/public/quote'), ErrorBoundary: RouteError },
   // The floor wall: full screen, for a paired wall display or a signed-in supervisor.
   { path: '/wall', lazy: () => import('./routes/wall/wall'), ErrorBoundary: RouteError },
   {

@@ -6,75 +6,22 @@ import { useStartCheckout } from '@/features/customer-status/api/portal-actions'
 import { ProofCard } from '@/features/customer-status/components/proof-card';
 import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
-import { rememberLocale } from '@/lib/i18n';
+import { PortalCard, PortalFrame, usePortalFormats } from '@/features/customer-status/components/portal-frame';
 import type { PublicOrder } from '@shared/schemas/shipping';
-import { LOCALES, type Locale } from '@shared/domain/vocabulary';
 
 // The page a customer opens from the link the factory sent: one order, made for a phone, in
 // English or Chinese. She pays what is due, approves her proof or asks for changes, and follows
 // her own pins being made. It shows only what the public order answer holds; no sign-in, no
 // navigation into the app.
 
-const LANG_NAMES: Record<Locale, string> = { en: 'English', 'zh-CN': '简体中文' };
-
-function useFormats() {
-  const { i18n } = useTranslation();
-  const lang = i18n.language;
-  return {
-    longDate: (iso: string) => new Date(iso).toLocaleDateString(lang, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' }),
-    day: (iso: string) => new Date(iso).toLocaleDateString(lang, { day: 'numeric', month: 'short', year: 'numeric' }),
-    money: (amount: number, currency: string) => new Intl.NumberFormat(lang, { style: 'currency', currency }).format(amount),
-  };
-}
-
-function LanguageSwitch() {
-  // the choice is remembered in this browser: there is no sign-in on this page
-  const { t, i18n } = useTranslation('portal');
-  const lang = i18n.language;
-  return (
-    <div role="group" aria-label={t('language')} className="flex justify-end gap-2">
-      {LOCALES.map((l) => (
-        <button
-          key={l}
-          type="button"
-          lang={l}
-          aria-pressed={lang === l}
-          onClick={() => rememberLocale(l)}
-          className={`min-h-11 rounded-lg px-3 font-bold ${lang === l ? 'bg-harbour-800 text-white' : 'border-2 border-harbour-100 bg-white text-harbour-800'}`}
-        >
-          {LANG_NAMES[l]}
-        </button>
-      ))}
-    </div>
-  );
-}
+const useFormats = usePortalFormats;
 
 function Frame({ children }: { children: React.ReactNode }) {
   const { t } = useTranslation('portal');
-  return (
-    <div className="min-h-full bg-paper">
-      <title>{t('title')}</title>
-      <meta name="robots" content="noindex, nofollow" />
-      <meta name="referrer" content="no-referrer" />
-      <main className="mx-auto flex w-full max-w-md flex-col gap-5 px-4 py-6">
-        <LanguageSwitch />
-        {children}
-      </main>
-    </div>
-  );
+  return <PortalFrame title={t('title')}>{children}</PortalFrame>;
 }
 
-function Card({ id, heading, icon, children }: { id: string; heading: React.ReactNode; icon?: React.ReactNode; children: React.ReactNode }) {
-  return (
-    <section aria-labelledby={id} className="rounded-xl border border-harbour-100 bg-white p-5">
-      <h2 id={id} className="flex items-center gap-2 text-lg font-bold text-harbour-900">
-        {icon}
-        {heading}
-      </h2>
-      <div className="mt-3 flex flex-col gap-3">{children}</div>
-    </section>
-  );
-}
+const Card = PortalCard;
 
 function PayCard({ token, o, confirming }: { token: string; o: PublicOrder; confirming: boolean }) {
   const { t } = useTranslation('portal');

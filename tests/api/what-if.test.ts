@@ -1,4 +1,6 @@
+import fs from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { COVERAGE_FILE } from '../../server/backtest/coverage';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertFloorOrder } from '../support/scan-fixtures';
 import { DEFAULT_ROUTING_TEMPLATES, expandRouting } from '@shared/domain/routing';
@@ -112,5 +114,16 @@ describe('POST /api/projections/what-if', { timeout: 90_000 }, () => {
     expect(bad.status).toBe(400);
     const unknown = await sales.post('/api/projections/what-if').send({ ...spec, traySize: 50 });
     expect(unknown.status).toBe(400);
+  });
+});
+
+describe('GET /api/projections/coverage', () => {
+  it('gives the coverage of the 85 % date the kept backtest measured, for the label beside projected dates', async () => {
+    const kept = JSON.parse(fs.readFileSync(COVERAGE_FILE, 'utf8'));
+    const res = await sales.get('/api/projections/coverage');
+    expect(res.status).toBe(200);
+    expect(res.body.coverage).toEqual({ p85Coverage: kept.snapshots.p85Coverage, measuredOn: kept.measuredOn, floors: kept.floors, orders: kept.snapshots.n });
+    expect(res.body.coverage.p85Coverage).toBeGreaterThan(0);
+    expect(res.body.coverage.p85Coverage).toBeLessThanOrEqual(1);
   });
 });

@@ -13,3 +13,4 @@ export * from './reports';
 export * from './loads';
 export * from './payments';
 export * from './quotes';
+export * from './projections';

@@ -3,13 +3,13 @@ import type { DemoPerson } from './demo-people';
 
 /** The rest of the demo factory's floor crew (invented people; same demo password). */
 export const DEMO_CREW: DemoPerson[] = [
-  { name: 'Liang Wenjie', email: 'liang.wenjie@tallowmere.test', role: 'operator', badge: 'B-206', pin: '6924' },
+  { name: 'Liang Wenjie', email: 'liang.wenjie@tallowmere.test', role: 'operator', badge: 'B-206', pin: '6924', locale: 'zh-CN' },
   { name: 'Farida Osei-Bonsu', email: 'farida.oseibonsu@tallowmere.test', role: 'operator', badge: 'B-207', pin: '7035' },
-  { name: 'Sun Meiling', email: 'sun.meiling@tallowmere.test', role: 'operator', badge: 'B-208', pin: '8146' },
+  { name: 'Sun Meiling', email: 'sun.meiling@tallowmere.test', role: 'operator', badge: 'B-208', pin: '8146', locale: 'zh-CN' },
   { name: 'Tobias Wrenfield', email: 'tobias.wrenfield@tallowmere.test', role: 'operator', badge: 'B-209', pin: '9257' },
-  { name: 'Xu Haoran', email: 'xu.haoran@tallowmere.test', role: 'operator', badge: 'B-210', pin: '1468' },
+  { name: 'Xu Haoran', email: 'xu.haoran@tallowmere.test', role: 'operator', badge: 'B-210', pin: '1468', locale: 'zh-CN' },
   { name: 'Ilse Marchetti', email: 'ilse.marchetti@tallowmere.test', role: 'operator', badge: 'B-211', pin: '2579' },
-  { name: 'Gao Shuang', email: 'gao.shuang@tallowmere.test', role: 'operator', badge: 'B-212', pin: '3680' },
+  { name: 'Gao Shuang', email: 'gao.shuang@tallowmere.test', role: 'operator', badge: 'B-212', pin: '3680', locale: 'zh-CN' },
 ];
 
 const at = (name: string) => `${name}@tallowmere.test`;

@@ -98,6 +98,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           email: p.email,
           role: p.role,
           passwordHash,
+          locale: p.locale ?? 'en',
           badge: p.badge ?? null,
           pinHash: p.pin ? hashSecret(p.pin) : null,
           createdAt: now - (DEMO_HISTORY_DAYS + 14) * DAY,

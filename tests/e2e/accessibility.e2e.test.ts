@@ -160,8 +160,8 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
   for (const locale of TABLET_LOCALES) {
     it(`the station tablet in ${locale}: paired, signed in, a tray open, a refusal, offline`, async () => {
       const t = locale === 'en'
-        ? { pairCode: 'Pairing code', pairSubmit: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in', finish: 'Finish', notStarted: /not started/i }
-        : { pairCode: '配对码', pairSubmit: '配对', paired: '已配对为', badge: '工牌', confirm: '确认', pin: '密码', signIn: '登录', finish: '完成', notStarted: /尚未开始/ };
+        ? { pairCode: 'Pairing code', pairSubmit: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in', finish: 'Finish', notStarted: /not started/i, operator: { badge: 'B-201', pin: '1357' } }
+        : { pairCode: '配对码', pairSubmit: '配对', paired: '已配对为', badge: '工牌', confirm: '确认', pin: '密码', signIn: '登录', finish: '完成', notStarted: /尚未开始/, operator: { badge: 'B-202', pin: '2580' } };
       const admin = await browser.newContext({ bypassCSP: true });
       await apiAs(admin, 'admin@tallowmere.test');
       const stations = (await (await admin.request.get(`${base()}/api/stations`)).json()) as { id: string; code: string }[];
@@ -193,11 +193,12 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
       const focus = await focusOutlines(page, 3);
       expect(focus.length).toBeGreaterThan(0);
       for (const f of focus) expect(f.visible, `focus outline on ${f.element}: ${f.outline}`).toBe(true);
-      await page.getByLabel(t.badge, { exact: true }).fill('B-201');
+      // a demo operator who reads the language under test (their account's language decides after sign-in)
+      await page.getByLabel(t.badge, { exact: true }).fill(t.operator.badge);
       await page.getByRole('button', { name: t.confirm }).click();
       await page.getByRole('textbox', { name: t.pin }).waitFor();
       await check('PIN');
-      await page.getByRole('textbox', { name: t.pin }).fill('1357');
+      await page.getByRole('textbox', { name: t.pin }).fill(t.operator.pin);
       await page.getByRole('button', { name: t.signIn, exact: true }).click();
       await page.getByTestId('station-name').waitFor();
       await page.getByTestId('queue-row').first().waitFor();
@@ -205,7 +206,8 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
       for (const f of await focusOutlines(page, 4)) expect(f.visible, `focus outline on ${f.element}: ${f.outline}`).toBe(true);
 
       // a waiting tray opened, then a refusal: finishing what was never started
-      const waiting = page.getByTestId('queue-row');
+      // (held trays are listed last, and a held tray is refused for its hold, so take the last one ready)
+      const waiting = page.locator('section[aria-labelledby="list-waiting"] [data-testid="queue-row"][data-held="no"]');
       const number = (await waiting.last().locator('span.font-mono').textContent())!.trim();
       await waiting.last().click();
       await page.getByRole('heading', { name: number }).waitFor();

@@ -15,6 +15,7 @@ import { openDb, type Db } from '../../server/db/client';
 import { loadOrCreateKey } from '../../server/lib/keys';
 import { scanEvents } from '../../server/db/schema/scans';
 import { trayStates } from '../../server/db/schema/trays';
+import { users } from '../../server/db/schema/users';
 import { stationsRepository } from '../../server/repositories/stations.repository';
 import { devicesService } from '../../server/services/devices.service';
 import { usersService } from '../../server/services/users.service';
@@ -77,11 +78,25 @@ async function pairAndSignIn(context: BrowserContext, baseUrl: string, code: str
   return page;
 }
 
-/** Types like a hand scanner in keyboard-wedge mode: the whole code at once, then Enter, no field focused. */
+/**
+ * Sends keys as a hand scanner in keyboard-wedge mode does: the whole code in one burst, then
+ * Enter, with no field focused. The key events are made inside the page in one go, so a busy test
+ * machine cannot stretch the gaps between keys the way typing from here key by key can (a real
+ * scanner's keys arrive a few milliseconds apart whatever else runs).
+ */
 async function wedgeScan(page: Page, text: string) {
-  await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
-  await page.keyboard.type(text);
-  await page.keyboard.press('Enter');
+  await page.evaluate((code) => {
+    (document.activeElement as HTMLElement | null)?.blur();
+    for (const key of [...code, 'Enter']) {
+      document.body.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true }));
+      document.body.dispatchEvent(new KeyboardEvent('keyup', { key, bubbles: true, cancelable: true }));
+    }
+  }, text);
+}
+
+/** Sets the language saved with a person's account (what the tablet speaks after sign-in). */
+function setLocale(db: Db, badge: string, locale: 'en' | 'zh-CN') {
+  db.update(users).set({ locale }).where(eq(users.badge, badge)).run();
 }
 
 async function startAndFinish(page: Page, tray: FloorTray) {
@@ -192,6 +207,8 @@ describe('station tablet', () => {
   it('in Chinese, the station screen shows no English words of ours', async () => {
     const base = server.url;
     const { trays } = insertFloorOrder(s.deps, { trays: 3, quantity: 60, releasedAt: Date.now() - 5 * 24 * 3600_000, stepSeq: 4 });
+    // a person whose account says Chinese, on a Chinese tablet
+    setLocale(s.db, 'B-202', 'zh-CN');
     const context = await browser.newContext({ viewport: TABLET, locale: 'zh-CN' });
     const page = await pairAndSignIn(context, base, s.pairingCode('FIL-2', 'zh-CN'), 'B-202', '2580', {
       // before pairing the screen follows the browser's language (zh-CN here)
@@ -250,6 +267,8 @@ describe('station tablet', () => {
         // and one for trimming, scanned here by mistake
         const { trays: [elsewhere] } = insertFloorOrder(s.deps, { trays: 1, quantity: 10, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
 
+        // the person starts in English (an earlier run may have chosen Chinese for them)
+        setLocale(s.db, 'B-202', 'en');
         const context = await browser.newContext({ viewport: size });
         const page = await context.newPage();
         await page.goto(`${server.url}/pair`);

@@ -15,6 +15,7 @@ import { routingEditBodySchema, routingTemplateSchema } from '@shared/schemas/ro
 import { travellerPdfQuerySchema } from '@shared/schemas/trays';
 import { ordersService } from '../services/orders.service';
 import { traysService } from '../services/trays.service';
+import { projectionHistoryService } from '../services/projection-history.service';
 import { CSV_MAX_BYTES, PROOF_MAX_BYTES, csvText, singleFile } from '../lib/uploads';
 import { badInput } from '../errors';
 
@@ -161,7 +162,7 @@ export function registerOrderRoutes(api: Api) {
     params: idParams,
     body: releaseBodySchema,
     status: 201,
-    handler: ({ deps, params, body, user }) => ordersService.release(deps, params.id, body, user!.id),
+    handler: ({ deps, params, body, user }) => projectionHistoryService.afterRelease(deps, params.id, ordersService.release(deps, params.id, body, user!.id)),
   });
 
   api.route({

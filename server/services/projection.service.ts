@@ -4,9 +4,10 @@ import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
 import { measureFloor, projectFloor, type OrderOutlook } from '@shared/domain/floor-projection';
 import { measuredFromRuns, type FloorSnapshot } from '@shared/domain/floor-history';
-import { DAY, dayNumberOfDate, dateOfDayNumber, startOfLocalDate, type WorkingCalendar } from '@shared/domain/calendar';
+import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate, type WorkingCalendar } from '@shared/domain/calendar';
 import { STATION_KIND_NAMES, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
 import type { LateRiskOrder, OrderProjection } from '@shared/schemas/reports';
+import { projectionHistoryRepository as history, type ProjectionHistoryRow } from '../repositories/projection-history.repository';
 
 // Projected ship dates for open orders. Other features call:
 //   projectionService.forOrder(deps, orderId)      -> OrderProjection | null
@@ -147,7 +148,24 @@ function compute(deps: AppDeps): Cache {
   }
   const fresh = { key, at: now, byOrder, outlooks, orders };
   caches.set(deps.db, fresh);
+  keepDaily(deps, outlooks, now, cal.timeZone);
   return fresh;
+}
+
+function historyRow(p: OrderOutlook, reason: ProjectionHistoryRow['reason'], now: number, timeZone: string): ProjectionHistoryRow {
+  return { orderId: p.orderId, day: localDate(timeZone, now), reason, at: now, expectedAt: p.expectedAt, p85At: p.p85At, drivingKind: p.drivingKind };
+}
+
+/** The first projection of each factory day is kept for every open order (the order page draws how it moved). */
+function keepDaily(deps: AppDeps, outlooks: Map<string, OrderOutlook>, now: number, timeZone: string) {
+  try {
+    const kept = history.ordersWithDailyRow(deps.db, localDate(timeZone, now));
+    const rows = [...outlooks.values()].filter((p) => p.traysOpen > 0 && p.expectedAt != null && !kept.has(p.orderId)).map((p) => historyRow(p, 'daily', now, timeZone));
+    history.insertIgnoring(deps.db, rows);
+  } catch (err) {
+    // the dates on the screen matter more than their history: never fail a projection for it
+    deps.log.warn({ err: (err as Error).message }, 'projected dates not kept in the history');
+  }
 }
 
 export const projectionService = {
@@ -159,6 +177,16 @@ export const projectionService = {
 
   forOrder(deps: AppDeps, orderId: string): OrderProjection | null {
     return compute(deps).byOrder.get(orderId) ?? null;
+  },
+
+  /** Keeps the order's projected dates as the floor stands right after its release (its first point). */
+  keepRelease(deps: AppDeps, orderId: string): void {
+    try {
+      const p = compute(deps).outlooks.get(orderId);
+      if (p && p.expectedAt != null) history.insertIgnoring(deps.db, [historyRow(p, 'release', deps.now(), calendarService.calendar(deps).timeZone)]);
+    } catch (err) {
+      deps.log.warn({ err: (err as Error).message, orderId }, 'projected dates at release not kept');
+    }
   },
 
   /** Open orders whose expected date (late) or 85th-percentile date (at risk) passes the due date. */

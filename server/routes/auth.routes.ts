@@ -5,6 +5,7 @@ import { loginBody, badgeBody, localeBody, changePasswordBody } from '@shared/sc
 import { authService, KNOWN_CLIENT_COOKIE, SESSION_COOKIE } from '../services/auth.service';
 import type { SignInLimits } from '../middleware/sign-in-limits';
 import { ALL_ROLES } from '@shared/domain/access';
+import { calendarService } from '../services/calendar.service';
 
 function setSessionCookie(res: Response, deps: AppDeps, token: string, expiresAt: number) {
   res.cookie(SESSION_COOKIE, token, {
@@ -68,9 +69,11 @@ export function registerAuthRoutes(api: Api, limits: SignInLimits) {
     method: 'get',
     path: '/auth/me',
     access: { roles: ALL_ROLES, beforePasswordChange: true },
-    handler: ({ user, device }) => ({
+    handler: ({ user, device, deps }) => ({
       user: { id: user!.id, name: user!.name, role: user!.role, locale: user!.locale, mustChangePassword: user!.mustChangePassword },
       device,
+      // every screen shows times in the factory's zone, not the reader's device's
+      timeZone: calendarService.timeZone(deps),
     }),
   });
 

@@ -9,6 +9,7 @@ import { randomToken, sha256Hex } from '../lib/keys';
 import type { CreateDeviceBody, DeviceView } from '@shared/schemas/stations';
 import { z } from 'zod';
 import type { updateDeviceBody } from '@shared/schemas/stations';
+import { calendarService } from './calendar.service';
 
 /** Pairing codes avoid letters and digits that look alike (0/O, 1/I). */
 const PAIRING_ALPHABET = 'ABCDEFGHJKLMNPQRSTUVWXYZ23456789';
@@ -108,6 +109,11 @@ export const devicesService = {
     const now = deps.now();
     if (!row.lastSeenAt || now - row.lastSeenAt > 60_000) devicesRepository.update(deps.db, id, { lastSeenAt: now });
     const station = row.stationId ? stationsRepository.byId(deps.db, row.stationId) : undefined;
-    return { ...toDeviceView(row), station: station ? { id: station.id, code: station.code, name: station.name, nameZh: station.nameZh, kind: station.kind } : null };
+    return {
+      ...toDeviceView(row),
+      station: station ? { id: station.id, code: station.code, name: station.name, nameZh: station.nameZh, kind: station.kind } : null,
+      // the tablet shows every time in the factory's zone, also offline (it keeps this answer)
+      timeZone: calendarService.timeZone(deps),
+    };
   },
 };

@@ -3,6 +3,7 @@ import { queryClient } from '@/lib/query-client';
 import { meQueryOptions } from '@/features/auth/api/get-me';
 import { paths } from '@/config/paths';
 import { applyLocale } from '@/lib/i18n';
+import { setFactoryTimeZone } from '@/lib/datetime';
 
 /** Loader of the signed-in area: sends visitors without a session to the sign-in page. */
 export async function requireUser({ request }: LoaderFunctionArgs) {
@@ -12,6 +13,7 @@ export async function requireUser({ request }: LoaderFunctionArgs) {
     throw redirect(`${paths.signIn}?next=${encodeURIComponent(url.pathname + url.search)}`);
   }
   applyLocale(me.user.locale);
+  setFactoryTimeZone(me.timeZone);
   if (me.user.mustChangePassword) {
     const url = new URL(request.url);
     throw redirect(`${paths.changePassword}?next=${encodeURIComponent(url.pathname + url.search)}`);

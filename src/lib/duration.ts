@@ -1,4 +1,6 @@
 // Short, plain durations and times for screens read at a glance.
+import { formatDayTime } from '@/lib/datetime';
+import { currentLocale } from '@/lib/i18n';
 
 /** 95 -> "1 h 35 min"; 2900 -> "2 d 0 h" */
 export function minutesText(min: number | null | undefined): string {
@@ -16,16 +18,10 @@ export function hoursText(h: number | null | undefined): string {
   return h < 10 ? `${h.toFixed(1)} h` : `${Math.round(h).toLocaleString('en-GB')} h`;
 }
 
-/** a time in the factory's zone: "Tue 14 Oct, 15:00" */
+/** a time in the factory's zone: "Tue 14 Oct, 15:00" (the one formatter, in the reader's language) */
 export function factoryTime(iso: string | null | undefined, timeZone: string | undefined, withDay = true): string {
   if (!iso) return '–';
-  return new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    ...(withDay ? { weekday: 'short', day: 'numeric', month: 'short' } : {}),
-    hour: '2-digit',
-    minute: '2-digit',
-    hourCycle: 'h23',
-  }).format(new Date(iso));
+  return formatDayTime(iso, currentLocale(), timeZone, withDay ? 'dayTime' : 'time');
 }
 
 /** 0.4304 -> "43.0 %" */

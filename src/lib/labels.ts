@@ -1,6 +1,5 @@
 // Words for the stored codes of the trade, as people read them on screens.
 import type { OrderStatus, TrayPhase } from '@shared/domain/vocabulary';
-import { currentLocale } from '@/lib/i18n';
 
 /** "black_nickel" → "Black nickel"; "die_cast_3d" → "3D die-cast". */
 export function humanise(code: string): string {
@@ -32,12 +31,5 @@ export const TRAY_PHASE_LABELS: Record<TrayPhase | 'on_hold', string> = {
   on_hold: 'On hold',
 };
 
-export function formatDateTime(iso: string | null | undefined): string {
-  if (!iso) return '—';
-  return new Date(iso).toLocaleString(currentLocale(), { dateStyle: 'medium', timeStyle: 'short' });
-}
-
-export function formatDate(iso: string | null | undefined): string {
-  if (!iso) return '—';
-  return new Date(iso).toLocaleDateString(currentLocale(), { dateStyle: 'medium' });
-}
+// Dates and times come from the one formatter (factory zone, reader's language).
+export { formatDateTime, formatDate, formatDueDay } from '@/lib/datetime';

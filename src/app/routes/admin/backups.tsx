@@ -3,6 +3,7 @@ import { queryClient } from '@/lib/query-client';
 import { backupsQueryOptions, useBackups, useMakeBackup } from '@/features/admin/api/backups';
 import { Card, EmptyState, ErrorPanel, Loading, PageHeader } from '@/components/ui/panels';
 import { Button } from '@/components/ui/button';
+import { formatDateTime } from '@/lib/datetime';
 
 export const handle = { roles: ADMIN_ONLY };
 export const loader = () => queryClient.ensureQueryData(backupsQueryOptions());
@@ -35,7 +36,7 @@ export function Component() {
               <li key={b.file} className="flex flex-wrap justify-between gap-2 py-3">
                 <span className="font-mono">{b.file}</span>
                 <span className="text-harbour-700">
-                  {(b.sizeBytes / 1024 / 1024).toFixed(1)} MB · {new Date(b.createdAt).toLocaleString()}
+                  {(b.sizeBytes / 1024 / 1024).toFixed(1)} MB · {formatDateTime(b.createdAt)}
                 </span>
               </li>
             ))}

@@ -10,6 +10,7 @@ import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/pan
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { paths } from '@/config/paths';
+import { formatDateTime } from '@/lib/datetime';
 
 export const handle = { roles: ADMIN_ONLY };
 export const loader = () => Promise.all([queryClient.ensureQueryData(devicesQueryOptions()), queryClient.ensureQueryData(stationsQueryOptions())]);
@@ -47,7 +48,7 @@ export function Component() {
     col.accessor('locale', { header: 'Language', cell: (c) => (c.getValue() === 'zh-CN' ? '简体中文' : 'English') }),
     col.accessor('idleMinutes', { header: 'Sign out after (min idle)' }),
     col.accessor('paired', { header: 'Paired', cell: (c) => (c.getValue() ? <Pill tone="ok">Paired</Pill> : <Pill tone="warn">Waiting: {c.row.original.pairingCode}</Pill>) }),
-    col.accessor('lastSeenAt', { header: 'Last seen', cell: (c) => (c.getValue() ? new Date(c.getValue()!).toLocaleString() : '—') }),
+    col.accessor('lastSeenAt', { header: 'Last seen', cell: (c) => formatDateTime(c.getValue()) }),
     col.display({
       id: 'actions',
       header: 'Actions',

@@ -6,11 +6,12 @@ import { queryClient } from '@/lib/query-client';
 import { caughtMailQueryOptions, useCaughtMail, useMailQueue, useQueueLateDigest, useRetryMail } from '@/features/mail/api/get-mail';
 import { Button } from '@/components/ui/button';
 import { Card, EmptyState, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
+import { formatDateTime } from '@/lib/datetime';
 
 export const handle = { roles: ADMIN_ONLY };
 export const loader = () => queryClient.ensureQueryData(caughtMailQueryOptions());
 
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTime(iso);
 
 function Message({ m }: { m: CaughtMail }) {
   const [open, setOpen] = useState(false);

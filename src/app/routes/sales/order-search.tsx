@@ -11,13 +11,14 @@ import { salesSearchQueryOptions, useSalesSearch } from '@/features/sales/api/se
 import { DataTable } from '@/components/ui/data-table';
 import { ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
+import { formatDate, formatDueDay } from '@/lib/datetime';
 
 export const handle = { roles: SALES_VIEW };
 export const loader = ({ request }: { request: Request }) =>
   queryClient.ensureQueryData(salesSearchQueryOptions(new URL(request.url).searchParams.get('q') ?? ''));
 
-const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { weekday: 'short', day: 'numeric', month: 'short' }) : '—');
-const dueDay = (d: string) => new Date(`${d}T12:00:00Z`).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
+const day = (iso: string | null) => formatDate(iso);
+const dueDay = (d: string) => formatDueDay(d);
 
 function When({ o }: { o: SalesOrderRow }) {
   if (o.shippedAt) return <Pill tone="ok">Shipped {day(o.shippedAt)}</Pill>;

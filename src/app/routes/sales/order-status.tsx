@@ -10,12 +10,13 @@ import { ShipmentsTable } from '@/features/shipping/components/shipments-table';
 import { StageLine } from '@/components/ui/stage-line';
 import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
+import { formatDate, formatDateTime } from '@/lib/datetime';
 
 export const handle = { roles: SALES_VIEW };
 export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(salesOrderQueryOptions(params.id!));
 
-const longDate = (iso: string) => new Date(iso).toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' });
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const longDate = (iso: string) => formatDate(iso);
+const when = (iso: string) => formatDateTime(iso);
 
 export function Component() {
   const { id = '' } = useParams();

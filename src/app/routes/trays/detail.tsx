@@ -13,7 +13,7 @@ import { useMe } from '@/features/auth/api/get-me';
 import { Button } from '@/components/ui/button';
 import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
-import { formatDate, formatDateTime, humanise, TRAY_PHASE_LABELS } from '@/lib/labels';
+import { formatDateTime, formatDueDay, humanise, TRAY_PHASE_LABELS } from '@/lib/labels';
 
 export const handle = { roles: OFFICE };
 export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(trayQueryOptions(params.id!));
@@ -91,7 +91,7 @@ export function Component() {
           <dt className="font-bold text-harbour-700">Released</dt>
           <dd>{formatDateTime(t.releasedAt)}</dd>
           <dt className="font-bold text-harbour-700">Order due</dt>
-          <dd>{formatDate(`${t.order.dueDate}T12:00:00Z`)}</dd>
+          <dd>{formatDueDay(t.order.dueDate)}</dd>
           {t.mould && (
             <>
               <dt className="font-bold text-harbour-700">Mould</dt>

@@ -9,7 +9,7 @@ import { DataTable } from '@/components/ui/data-table';
 import { Pill } from '@/components/ui/panels';
 import { CheckboxField } from '@/components/ui/field';
 import { paths } from '@/config/paths';
-import { formatDate } from '@/lib/labels';
+import { formatDate, formatDueDay } from '@/lib/labels';
 
 const col = createColumnHelper<OrderListItem>();
 
@@ -89,7 +89,7 @@ export function OrdersTable({ orders, showReasons = false }: { orders: OrderList
           }),
         ]
       : []),
-    col.accessor('dueDate', { header: t('list.col.due'), cell: (c) => formatDate(`${c.getValue()}T12:00:00Z`) }),
+    col.accessor('dueDate', { header: t('list.col.due'), cell: (c) => formatDueDay(c.getValue()) }),
     col.accessor('projectedShipAt', { header: t('list.col.projected'), cell: (c) => formatDate(c.getValue()), sortUndefined: 'last' }),
     col.accessor('late', { header: t('list.col.late'), cell: (c) => (c.getValue() ? <Pill tone="stop">{t('list.late')}</Pill> : '') }),
     col.accessor('trays', { header: t('list.col.trays') }),

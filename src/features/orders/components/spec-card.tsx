@@ -1,7 +1,7 @@
 import { AlertTriangle } from 'lucide-react';
 import type { HistoryEntry, OrderDetail } from '@shared/schemas/orders';
 import { Card } from '@/components/ui/panels';
-import { formatDate, formatDateTime, humanise } from '@/lib/labels';
+import { formatDateTime, formatDueDay, humanise } from '@/lib/labels';
 
 /** A colour swatch with its name: the word carries the meaning, the colour helps. */
 export function Swatch({ name, hex, refCode }: { name: string; hex?: string; refCode?: string }) {
@@ -28,7 +28,7 @@ export function SpecCard({ order }: { order: OrderDetail }) {
     ['Fittings', s.backing.type === 'none' || s.backing.count === 0 ? 'None' : `${s.backing.count} × ${humanise(s.backing.type).toLowerCase()}`],
     ['Extras', [s.backLogo && 'back logo', s.printing && 'printed areas', s.epoxy && 'epoxy dome', s.sandblast && 'sandblasted texture'].filter(Boolean).join(', ') || 'None'],
     ['Packaging', humanise(s.packaging)],
-    ['Due', formatDate(`${s.dueDate}T12:00:00Z`)],
+    ['Due', formatDueDay(s.dueDate)],
     ['Projected ship', order.projectedShipAt ? formatDateTime(order.projectedShipAt) : order.releasedAt ? '—' : 'After release'],
   ];
   if (order.reorderOf) rows.push(['Repeat of', `order ${order.reorderOf.number}`]);

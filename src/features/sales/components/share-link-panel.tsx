@@ -4,8 +4,9 @@ import type { ShareLinkInfo } from '@shared/schemas/shipping';
 import { Button } from '@/components/ui/button';
 import { ErrorPanel } from '@/components/ui/panels';
 import { useCreateShareLink, useRevokeShareLinks } from '../api/share-link';
+import { formatDateTime } from '@/lib/datetime';
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : '—');
+const when = (iso: string | null) => formatDateTime(iso);
 
 /**
  * Sales makes a read-only status link for the customer. The address is shown once, right after

@@ -1,22 +1,28 @@
 import { useState } from 'react';
 import { RotateCcw, CheckCheck } from 'lucide-react';
-import { refusalMessage } from '@shared/domain/scan-messages';
+import { useQuery } from '@tanstack/react-query';
+import type { ReasonCodeView } from '@shared/schemas/stations';
+import { api } from '@/lib/api-client';
+import { currentLocale } from '@/lib/i18n';
+import { exceptionMessage, type ReasonName } from '../lib/exception-text';
 import type { ScanExceptionView } from '@shared/schemas/scans';
 import { Button } from '@/components/ui/button';
 import { EmptyState, ErrorPanel, Pill } from '@/components/ui/panels';
 import { useResolveScanException, useRetryScanException } from '../api/decide-scan-exception';
+import { formatDateTime } from '@/lib/datetime';
 
 const TYPE: Record<string, string> = { start: 'Start', finish: 'Finish', hold: 'Hold', release: 'Release' };
 
+/** In the factory's zone, as every screen writes times. */
 function when(iso: string | null) {
-  return iso ? new Date(iso).toLocaleString() : '—';
+  return formatDateTime(iso);
 }
 
-function ExceptionRow({ item, canDecide }: { item: ScanExceptionView; canDecide: boolean }) {
+function ExceptionRow({ item, canDecide, reasonName }: { item: ScanExceptionView; canDecide: boolean; reasonName: ReasonName }) {
   const retry = useRetryScanException();
   const resolve = useResolveScanException();
   const [note, setNote] = useState('');
-  const m = refusalMessage(item.code, item.params);
+  const m = exceptionMessage(item, reasonName, (iso) => (typeof iso === 'string' ? formatDateTime(iso) : '—'));
   const retried = retry.data;
   return (
     <li className="rounded-xl border border-harbour-100 bg-white p-4 shadow-sm" data-testid="exception-row">
@@ -87,11 +93,14 @@ function ExceptionRow({ item, canDecide }: { item: ScanExceptionView; canDecide:
 
 /** Refused scans for supervisors: what happened, who, where, and the decision. */
 export function ScanExceptionsList({ items, canDecide }: { items: ScanExceptionView[]; canDecide: boolean }) {
+  const reasons = useQuery({ queryKey: ['reason-codes', 'office'], queryFn: () => api.get<ReasonCodeView[]>('/reason-codes'), staleTime: 5 * 60_000 });
+  const names = new Map((reasons.data ?? []).map((r) => [r.code, currentLocale() === 'zh-CN' && r.nameZh ? r.nameZh : r.name]));
+  const reasonName: ReasonName = (code) => names.get(code);
   if (items.length === 0) return <EmptyState title="No refused scans">Every scan the tablets sent was accepted.</EmptyState>;
   return (
     <ul className="flex flex-col gap-3">
       {items.map((i) => (
-        <ExceptionRow key={i.id} item={i} canDecide={canDecide} />
+        <ExceptionRow key={i.id} item={i} canDecide={canDecide} reasonName={reasonName} />
       ))}
     </ul>
   );

@@ -2,8 +2,9 @@ import { FileText } from 'lucide-react';
 import type { ShipmentView } from '@shared/schemas/shipping';
 import { Pill } from '@/components/ui/panels';
 import { packingListUrl } from '../api/create-shipment';
+import { formatDateTime } from '@/lib/datetime';
 
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTime(iso);
 
 export function ShipmentsTable({ orderId, shipments }: { orderId: string; shipments: ShipmentView[] }) {
   if (shipments.length === 0) return <p className="text-harbour-700">Nothing has shipped yet.</p>;

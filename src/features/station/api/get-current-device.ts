@@ -4,9 +4,12 @@ import type { DeviceView } from '@shared/schemas/stations';
 import type { StationKind } from '@shared/domain/vocabulary';
 import { stationDb } from '../lib/station-db';
 import { stationKeys } from './station-keys';
+import { setFactoryTimeZone } from '@/lib/datetime';
 
 export interface CurrentDevice extends DeviceView {
   station: { id: string; code: string; name: string; kind: StationKind } | null;
+  /** the factory's zone: the tablet shows its times in it */
+  timeZone?: string;
 }
 
 export type DeviceAnswer = { state: 'paired'; device: CurrentDevice; offline: boolean } | { state: 'unpaired' };
@@ -24,6 +27,7 @@ export async function getCurrentDevice(): Promise<DeviceAnswer> {
       return { state: 'unpaired' };
     }
     await db.setMeta('device', device);
+    setFactoryTimeZone(device.timeZone);
     return { state: 'paired', device, offline: false };
   } catch (error) {
     if (error instanceof ApiError && error.status === 401) {
@@ -31,7 +35,10 @@ export async function getCurrentDevice(): Promise<DeviceAnswer> {
       return { state: 'unpaired' };
     }
     const cached = await db.getMeta<CurrentDevice | null>('device');
-    if (cached) return { state: 'paired', device: cached, offline: true };
+    if (cached) {
+      setFactoryTimeZone(cached.timeZone);
+      return { state: 'paired', device: cached, offline: true };
+    }
     throw error;
   }
 }

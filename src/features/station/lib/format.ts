@@ -2,6 +2,7 @@ import type { TFunction } from 'i18next';
 import type { RoutingStep } from '@shared/domain/vocabulary';
 import type { StationLang } from './refusal-text';
 import { kindTraits } from '@shared/domain/traveller/station-kinds';
+import { formatClock as clock, formatDateTime as dateTime, formatDueDay } from '@/lib/datetime';
 
 /** "2 h 05 min", "3 d 4 h" … from minutes, in the tablet's language. */
 export function formatDuration(t: TFunction<'station'>, minutes: number): string {
@@ -11,23 +12,19 @@ export function formatDuration(t: TFunction<'station'>, minutes: number): string
   return t('duration.days', { d: Math.floor(m / 1440), h: Math.floor((m % 1440) / 60) });
 }
 
+/** "10:27" in the factory's zone (the one formatter every screen uses). */
 export function formatClock(lang: StationLang, iso: unknown): string {
-  if (typeof iso !== 'string') return '—';
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return '—';
-  return new Intl.DateTimeFormat(lang, { hour: '2-digit', minute: '2-digit' }).format(d);
+  return typeof iso === 'string' || typeof iso === 'number' ? clock(iso, lang) : '—';
 }
 
+/** "10 Dec 2026, 10:27" in the factory's zone. */
 export function formatDateTime(lang: StationLang, iso: unknown): string {
-  if (typeof iso !== 'string') return '—';
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return '—';
-  return new Intl.DateTimeFormat(lang, { month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' }).format(d);
+  return typeof iso === 'string' || typeof iso === 'number' ? dateTime(iso, lang) : '—';
 }
 
-/** A calendar day ("2026-12-14") as the tablet shows it. */
+/** A calendar day ("2026-12-14") as every screen shows it. */
 export function formatDate(lang: StationLang, day: string): string {
-  return new Intl.DateTimeFormat(lang, { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${day}T12:00:00Z`));
+  return formatDueDay(day, lang);
 }
 
 export function formatNumber(lang: StationLang, n: number): string {

@@ -1,0 +1,49 @@
+// Dates and times on every screen: the factory's zone (from GET /api/auth/me, or the tablet's own
+// device answer) and the reader's language, through the one formatter in shared/domain.
+import { formatDay, formatInstant, type InstantStyle } from '@shared/domain/time-format';
+import { DEFAULT_TIME_ZONE, factoryToday } from '@shared/domain/calendar';
+import type { Locale } from '@shared/domain/vocabulary';
+import { currentLocale } from '@/lib/i18n';
+
+let factoryZone: string | undefined;
+
+/** Set once the factory's zone is known (sign-in, the tablet's device answer). */
+export function setFactoryTimeZone(timeZone: string | undefined | null): void {
+  if (timeZone) factoryZone = timeZone;
+}
+
+export function factoryTimeZone(): string | undefined {
+  return factoryZone;
+}
+
+/** Today ("2026-12-10") on the factory's clock, as the server counts it: the date pickers' "today". */
+export function factoryTodayDate(nowMs: number = Date.now()): string {
+  return factoryToday(nowMs, factoryZone ?? DEFAULT_TIME_ZONE);
+}
+
+type At = string | number | Date | null | undefined;
+
+/** "10 Dec 2026, 10:27" in the factory's zone. */
+export function formatDateTime(at: At, locale: Locale = currentLocale(), zoneName = false): string {
+  return formatInstant(at, { locale, timeZone: factoryZone }, 'dateTime', zoneName);
+}
+
+/** "10 Dec 2026": the factory's day of an instant. */
+export function formatDate(at: At, locale: Locale = currentLocale()): string {
+  return formatInstant(at, { locale, timeZone: factoryZone }, 'date');
+}
+
+/** "10:27" in the factory's zone. */
+export function formatClock(at: At, locale: Locale = currentLocale()): string {
+  return formatInstant(at, { locale, timeZone: factoryZone }, 'time');
+}
+
+/** "Thu 10 Dec, 10:27" in the factory's zone (or the zone given, e.g. a report's or the wall's). */
+export function formatDayTime(at: At, locale: Locale = currentLocale(), timeZone: string | undefined = factoryZone, style: InstantStyle = 'dayTime'): string {
+  return formatInstant(at, { locale, timeZone: timeZone ?? factoryZone }, style);
+}
+
+/** A calendar day such as a due date ("2026-12-10"), in the same format as formatDate. */
+export function formatDueDay(day: string | null | undefined, locale: Locale = currentLocale()): string {
+  return formatDay(day, locale);
+}

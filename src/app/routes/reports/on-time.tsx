@@ -29,7 +29,8 @@ export function Component() {
           </Card>
           <ChartAndTable
             title={`On-time share per ${filters.bucket === 'week' ? 'week' : 'day'}`}
-            chart={<Bars data={r.buckets.filter((b) => b.shipped > 0)} x="label" yLabel="share" percent series={[{ key: 'share', name: 'Shipped on time' }]} />}
+            caption="Periods without shipments have no bar; a period where none shipped on time shows 0 %."
+            chart={<Bars data={r.buckets.filter((b) => b.shipped > 0)} x="label" yLabel="share" percent markZero series={[{ key: 'share', name: 'Shipped on time' }]} />}
             table={<StatTable label="On-time table" head={['From', 'Shipped', 'On time', 'Share']} rows={r.buckets.map((b) => [b.label, b.shipped, b.onTime, percentText(b.share)])} />}
           />
         </>

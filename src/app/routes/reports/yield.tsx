@@ -9,6 +9,7 @@ import { DataTable } from '@/components/ui/data-table';
 import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
 import { humanise } from '@/lib/labels';
 import { percentText } from '@/lib/duration';
+import { percentAxis } from '@/features/reports/lib/percent-axis';
 
 export const handle = { roles: REPORT_READERS };
 
@@ -27,6 +28,8 @@ export function Component() {
   const { report, frame } = useReportPage('yield', { station: true });
   const stations = useStations();
   const r = report.data;
+  // yields sit near 100 %: the axis starts just below the lowest bar
+  const axis = r ? percentAxis(r.steps.flatMap((s) => [s.firstPassYield, s.finalYield])) : null;
   return (
     <ReportFrame
       {...frame}
@@ -41,10 +44,14 @@ export function Component() {
         <>
           <ChartAndTable
             title="Yield per kind of step"
+            caption={
+              axis?.zoomed ? `The axis starts at ${percentText(axis.domain[0], 1)}, not 0 %, so differences near 100 % can be seen; the table has the exact figures.` : undefined
+            }
             chart={
               <Bars
                 layout="vertical"
                 percent
+                domain={axis?.domain}
                 data={r.steps.map((s) => ({ kind: humanise(s.stationKind), fpy: s.firstPassYield, fy: s.finalYield }))}
                 x="kind"
                 yLabel="yield"

@@ -5,6 +5,7 @@ import {
   BarChart,
   CartesianGrid,
   ComposedChart,
+  LabelList,
   Legend,
   Line,
   LineChart,
@@ -67,27 +68,52 @@ export function Lines({ data, x, series, yLabel, percent = false }: { data: obje
   );
 }
 
-export function Bars({ data, x, series, yLabel, percent = false, layout = 'horizontal' }: { data: object[]; x: string; series: { key: string; name: string }[]; yLabel: string; percent?: boolean; layout?: 'horizontal' | 'vertical' }) {
+export function Bars({
+  data,
+  x,
+  series,
+  yLabel,
+  percent = false,
+  layout = 'horizontal',
+  domain,
+  markZero = false,
+}: {
+  data: object[];
+  x: string;
+  series: { key: string; name: string }[];
+  yLabel: string;
+  percent?: boolean;
+  layout?: 'horizontal' | 'vertical';
+  /** the value axis (shares: see percentAxis); default 0–100 % for shares */
+  domain?: [number, number];
+  /** a value of 0 gets a sliver of a bar and a "0 %" label, so it differs from "no data" (no bar) */
+  markZero?: boolean;
+}) {
   const fmt = percent ? (v: number) => `${Math.round(v * 1000) / 10}%` : undefined;
+  const valueDomain = domain ?? (percent ? ([0, 1] as [number, number]) : undefined);
   return (
     <ResponsiveContainer width="100%" height="100%">
       <BarChart data={data} layout={layout} margin={{ top: 12, right: 16, bottom: layout === 'vertical' ? 24 : 8, left: layout === 'vertical' ? 40 : 0 }}>
         <CartesianGrid strokeDasharray="3 3" />
         {layout === 'vertical' ? (
           <>
-            <XAxis type="number" tick={axis} tickFormatter={fmt} domain={percent ? [0, 1] : undefined} label={{ value: yLabel, position: 'insideBottom', offset: -4 }} />
+            <XAxis type="number" tick={axis} tickFormatter={fmt} domain={valueDomain} allowDataOverflow={!!domain} label={{ value: yLabel, position: 'insideBottom', offset: -4 }} />
             <YAxis type="category" dataKey={x} tick={{ ...axis, fontSize: 12 }} width={110} interval={0} />
           </>
         ) : (
           <>
             <XAxis dataKey={x} tick={axis} />
-            <YAxis tick={axis} tickFormatter={fmt} domain={percent ? [0, 1] : undefined} label={{ value: yLabel, angle: -90, position: 'insideLeft' }} />
+            <YAxis tick={axis} tickFormatter={fmt} domain={valueDomain} allowDataOverflow={!!domain} label={{ value: yLabel, angle: -90, position: 'insideLeft' }} />
           </>
         )}
         <Tooltip formatter={fmt ? (v) => fmt(Number(v)) : undefined} />
         <Legend />
         {series.map((s, i) => (
-          <Bar key={s.key} dataKey={s.key} name={s.name} fill={SERIES[i % SERIES.length]} isAnimationActive={false} />
+          <Bar key={s.key} dataKey={s.key} name={s.name} fill={SERIES[i % SERIES.length]} isAnimationActive={false} minPointSize={markZero ? 3 : 0}>
+            {markZero && (
+              <LabelList dataKey={s.key} position={layout === 'vertical' ? 'right' : 'top'} fill="#8a1c1c" fontWeight={700} formatter={(v: unknown) => (Number(v) === 0 ? (percent ? '0 %' : '0') : '')} />
+            )}
+          </Bar>
         ))}
       </BarChart>
     </ResponsiveContainer>

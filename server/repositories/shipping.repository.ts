@@ -8,6 +8,7 @@ import { cartons, shipments } from '../db/schema/shipping';
 import { auditLog, settings } from '../db/schema/reference-data';
 import { users } from '../db/schema/users';
 import type { Role } from '@shared/domain/vocabulary';
+import { DEFAULT_TIME_ZONE } from '@shared/domain/calendar';
 
 
 /** SQLite caps the variables in one statement; long id lists are read in slices. */
@@ -262,6 +263,6 @@ export const shippingRepository = {
   factory: (db: Db) => {
     const row = db.select().from(settings).where(eq(settings.key, 'factory')).get();
     const v = (row?.value ?? {}) as { name?: string; timeZone?: string };
-    return { name: v.name ?? 'Trayce factory', timeZone: v.timeZone ?? 'UTC' };
+    return { name: v.name ?? 'Trayce factory', timeZone: v.timeZone ?? DEFAULT_TIME_ZONE };
   },
 };

@@ -7,6 +7,7 @@ import { hashSecret } from '../services/auth.service';
 import { DEFAULT_ADMIN_PASSWORD } from '../env';
 import { DEFAULT_ROUTING_TEMPLATES } from '@shared/domain/routing';
 import { PROCESSES, type StationKind } from '@shared/domain/vocabulary';
+import { DEFAULT_TIME_ZONE } from '@shared/domain/calendar';
 
 const GENERAL = 'Local regulations and this factory’s own procedures take precedence over these notes.';
 const GENERAL_ZH = '当地法规和本厂自己的规程优先于这些说明。';
@@ -75,7 +76,7 @@ export function seedBase(deps: AppDeps, options: { firstAdmin?: boolean } = {}) 
       const t = DEFAULT_ROUTING_TEMPLATES[process];
       tx.insert(routingTemplates).values({ process, name: t.name, template: t, updatedAt: now }).run();
     }
-    tx.insert(settings).values({ key: 'factory', value: { name: 'Trayce factory', timeZone: 'Asia/Shanghai' } }).onConflictDoNothing().run();
+    tx.insert(settings).values({ key: 'factory', value: { name: 'Trayce factory', timeZone: DEFAULT_TIME_ZONE } }).onConflictDoNothing().run();
     if (options.firstAdmin === false) return;
     tx.insert(users)
       .values({

@@ -5,6 +5,7 @@ import { auditRepository } from '../repositories/audit.repository';
 import { reportFactsRepository } from '../repositories/report-facts.repository';
 import { badInput } from '../errors';
 import {
+  DEFAULT_TIME_ZONE,
   WEEKDAYS,
   compileCalendar,
   defaultCalendarConfig,
@@ -20,8 +21,6 @@ import type { CalendarBody, CalendarView, WeekBody } from '@shared/schemas/calen
 const DB_WEEKDAY: Record<(typeof WEEKDAYS)[number], number> = { sun: 0, mon: 1, tue: 2, wed: 3, thu: 4, fri: 5, sat: 6 };
 const hm = (m: number) => `${String(Math.floor(m / 60) % 24).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`;
 const emptyWeek = (): WeekSchedule => ({ mon: [], tue: [], wed: [], thu: [], fri: [], sat: [], sun: [] });
-
-export const DEFAULT_TIME_ZONE = 'Asia/Shanghai';
 
 function readView(deps: AppDeps): CalendarView {
   const db = deps.db;

@@ -69,7 +69,7 @@ function assertShippable(p: OrderProgress) {
 export function syncOrderStatus(tx: DbLike, orderId: string, now: number): 'shipped' | 'packed' | null {
   const order = shippingRepository.order(tx, orderId);
   if (!order || order.status === 'cancelled' || order.status === 'shipped') return null;
-  const p = loadProgress(tx, [order], now, 'UTC', { project: false }).get(orderId)!;
+  const p = loadProgress(tx, [order], now, shippingRepository.factory(tx).timeZone, { project: false }).get(orderId)!;
   if (p.shipped.shipped && p.shipped.shippedAt) {
     const at = Date.parse(p.shipped.shippedAt);
     const ok = shippingRepository.setOrderStatus(tx, orderId, ['released', 'in_production', 'packed', 'on_hold'], { status: 'shipped', shippedAt: at, updatedAt: now });
@@ -103,7 +103,7 @@ export const shippingService = {
   /** Orders with pieces ready for packing or dispatch (or every match of `q`). */
   dispatchList(deps: AppDeps, q: string | undefined): DispatchRow[] {
     const list = q?.trim() ? shippingRepository.search(deps.db, q, 50) : shippingRepository.openOrders(deps.db);
-    const progress = loadProgress(deps.db, list, deps.now(), 'UTC', { project: false });
+    const progress = loadProgress(deps.db, list, deps.now(), shippingRepository.factory(deps.db).timeZone, { project: false });
     const rows: DispatchRow[] = [];
     for (const o of list) {
       const p = progress.get(o.id)!;

@@ -2,6 +2,7 @@ import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import { stationsRepository, type StationRow } from '../repositories/stations.repository';
 import { auditRepository } from '../repositories/audit.repository';
+import { calendarService } from './calendar.service';
 import { conflict, notFound } from '../errors';
 import type { StationBody, StationView } from '@shared/schemas/stations';
 import type { StationKind } from '@shared/domain/vocabulary';
@@ -38,6 +39,8 @@ export const stationsService = {
     const id = crypto.randomUUID();
     stationsRepository.insert(deps.db, { id, ...input, createdAt: now, updatedAt: now });
     auditRepository.record(deps.db, now, { userId: actorId, action: 'station.create', entity: 'station', entityId: id, detail: input });
+    // the working calendar keys exceptions by station and kind (an oven runs around the clock)
+    calendarService.forget(deps);
     return stationsService.get(deps, id);
   },
 
@@ -50,6 +53,7 @@ export const stationsService = {
     const now = deps.now();
     stationsRepository.update(deps.db, id, { ...patch, updatedAt: now });
     auditRepository.record(deps.db, now, { userId: actorId, action: 'station.update', entity: 'station', entityId: id, detail: patch });
+    calendarService.forget(deps);
     return stationsService.get(deps, id);
   },
 

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import {
+  DEFAULT_TIME_ZONE,
   compileCalendar,
+  factoryToday,
   dayNumberOfDate,
   localDate,
   startOfLocalDate,
@@ -172,5 +174,27 @@ describe('validation', () => {
     expect(bad).toHaveLength(5);
     expect(() => compileCalendar({ ...CONFIG, timeZone: 'Nowhere/Else' })).toThrow(/time zone/);
     expect(validateCalendar(CONFIG)).toEqual([]);
+  });
+});
+
+describe('one factory clock: "today" is the factory’s date', () => {
+  // China keeps UTC+8 all year, with no daylight saving since 1991 (IANA time zone database, Asia/Shanghai).
+  it('is already tomorrow in Shanghai from 16:00 UTC, while the UTC date is still today', () => {
+    const lateEvening = Date.parse('2026-06-16T23:30:00Z'); // 07:30 on the 17th in the factory
+    expect(new Date(lateEvening).toISOString().slice(0, 10)).toBe('2026-06-16');
+    expect(factoryToday(lateEvening, 'Asia/Shanghai')).toBe('2026-06-17');
+    expect(factoryToday(Date.parse('2026-06-16T15:59:59Z'), 'Asia/Shanghai')).toBe('2026-06-16');
+    expect(factoryToday(Date.parse('2026-06-16T16:00:00Z'), 'Asia/Shanghai')).toBe('2026-06-17');
+  });
+
+  it('follows the zone it is given, daylight saving included', () => {
+    // New York is UTC-4 in June (EDT): 02:00 UTC on the 17th is 22:00 on the 16th there
+    expect(factoryToday(Date.parse('2026-06-17T02:00:00Z'), 'America/New_York')).toBe('2026-06-16');
+    expect(factoryToday(Date.parse('2026-06-17T02:00:00Z'), 'UTC')).toBe('2026-06-17');
+  });
+
+  it('has one default zone, the one the calendar and the factory settings fall back to', () => {
+    expect(DEFAULT_TIME_ZONE).toBe('Asia/Shanghai');
+    expect(zoneOffsetMs(DEFAULT_TIME_ZONE, Date.parse('2026-01-15T00:00:00Z'))).toBe(8 * 3_600_000);
   });
 });

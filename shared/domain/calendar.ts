@@ -3,11 +3,17 @@
 //
 // Time zones: the factory has one time-zone setting, an IANA name such as "Asia/Shanghai".
 // Shifts ("06:00"-"14:00") and days off ("2025-10-01") are local wall-clock values in that
-// zone; every instant in and out of this module is UTC (epoch milliseconds). Conversion uses
-// the platform's Intl time-zone data, so it runs in the browser and on the server alike and
-// follows daylight-saving changes (a 00:00-08:00 shift on a spring-forward night is 7 h).
+// zone; every instant in and out of this module is UTC (epoch milliseconds). Offsets come from
+// the platform's Intl time-zone data through @date-fns/tz, so it runs in the browser and on the
+// server alike and follows daylight-saving changes (a 00:00-08:00 shift on a spring-forward
+// night is 7 h).
 // A shift whose end is not after its start runs past midnight and belongs to the day it
 // starts on; a day off removes the shifts that start on that date.
+
+import { tzOffset } from '@date-fns/tz';
+
+/** The factory's time zone until an admin sets one: the one default for every part of the app. */
+export const DEFAULT_TIME_ZONE = 'Asia/Shanghai';
 
 export const WEEKDAYS = ['mon', 'tue', 'wed', 'thu', 'fri', 'sat', 'sun'] as const;
 export type Weekday = (typeof WEEKDAYS)[number];
@@ -65,30 +71,11 @@ export function isValidTimeZone(tz: string): boolean {
 
 // ---- time-zone arithmetic -------------------------------------------------------------
 
-const formatters = new Map<string, Intl.DateTimeFormat>();
-function formatter(tz: string): Intl.DateTimeFormat {
-  let f = formatters.get(tz);
-  if (!f) {
-    f = new Intl.DateTimeFormat('en-US', {
-      timeZone: tz,
-      hourCycle: 'h23',
-      year: 'numeric',
-      month: 'numeric',
-      day: 'numeric',
-      hour: 'numeric',
-      minute: 'numeric',
-      second: 'numeric',
-    });
-    formatters.set(tz, f);
-  }
-  return f;
-}
-
+/** The zone's offset from UTC at an instant, from the platform's time-zone data (through @date-fns/tz). */
 function exactOffsetMs(tz: string, utcMs: number): number {
-  const parts = formatter(tz).formatToParts(new Date(utcMs));
-  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
-  const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'), get('second'));
-  return asUtc - Math.floor(utcMs / 1000) * 1000;
+  const minutes = tzOffset(tz, new Date(utcMs));
+  if (Number.isNaN(minutes)) throw new RangeError(`unknown time zone: ${tz}`);
+  return Math.round(minutes * MINUTE);
 }
 
 const HOUR = 3_600_000;
@@ -131,6 +118,15 @@ export function dateOfDayNumber(day: number): string {
 /** The local date ("YYYY-MM-DD") in the zone at that instant. */
 export function localDate(tz: string, t: Instant): string {
   return dateOfDayNumber(localDayNumber(tz, toMs(t)));
+}
+
+/**
+ * "Today" on the factory's clock: the local date in the factory's zone at `nowMs`. Lateness, the
+ * approval-date check, progress and reports all ask this, never the UTC date (which is still
+ * yesterday in Shanghai until 08:00).
+ */
+export function factoryToday(nowMs: number, zone: string): string {
+  return localDate(zone, nowMs);
 }
 
 /** Monday = 0 ... Sunday = 6 (1970-01-01 was a Thursday). */

@@ -9,6 +9,7 @@ import { Card, ErrorPanel, Pill } from '@/components/ui/panels';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { formatDate, formatDateTime } from '@/lib/labels';
+import { factoryTodayDate } from '@/lib/datetime';
 import { proofFileUrl, useApproveProof, useRecordPayment, useUploadProof } from '../api/gates';
 
 const paymentForm = z.object({
@@ -108,7 +109,8 @@ function ProofGate({ order }: { order: OrderDetail }) {
   const upload = useUploadProof(order.id);
   const approve = useApproveProof(order.id);
   const fileInput = useRef<HTMLInputElement>(null);
-  const [approvedOn, setApprovedOn] = useState(new Date().toISOString().slice(0, 10));
+  // the factory's today: before 08:00 in Shanghai the UTC date is still yesterday
+  const [approvedOn, setApprovedOn] = useState(() => factoryTodayDate());
   const latest = order.proofs.at(-1);
   const ok = !order.openGates.includes('proof_not_approved');
   const released = order.releasedAt != null;
@@ -155,7 +157,7 @@ function ProofGate({ order }: { order: OrderDetail }) {
             approve.mutate({ revision: latest.revision, body: { approvedOn } });
           }}
         >
-          <TextField label="Approved by the customer on" type="date" value={approvedOn} max={new Date().toISOString().slice(0, 10)} onChange={(ev) => setApprovedOn(ev.target.value)} />
+          <TextField label="Approved by the customer on" type="date" value={approvedOn} max={factoryTodayDate()} onChange={(ev) => setApprovedOn(ev.target.value)} />
           <Button type="submit" disabled={approve.isPending}>
             Approve revision {latest.revision}
           </Button>

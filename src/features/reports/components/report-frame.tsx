@@ -2,6 +2,8 @@ import type { ReactNode } from 'react';
 import { Download, Info } from 'lucide-react';
 import { PROCESSES } from '@shared/domain/vocabulary';
 import { humanise } from '@/lib/labels';
+import { factoryTodayDate } from '@/lib/datetime';
+import { dateOfDayNumber, dayNumberOfDate } from '@shared/domain/calendar';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Card } from '@/components/ui/panels';
 
@@ -15,10 +17,10 @@ export interface ReportFilterValues {
 }
 
 export function defaultFilters(): ReportFilterValues {
-  const day = (d: Date) => d.toISOString().slice(0, 10);
-  const to = new Date();
-  const from = new Date(to.getTime() - 89 * 86_400_000);
-  return { from: day(from), to: day(to), process: '', customerId: '', stationId: '', bucket: 'day' };
+  // the last 90 days up to today on the factory's clock, as the server reads "from" and "to"
+  const to = factoryTodayDate();
+  const from = dateOfDayNumber(dayNumberOfDate(to) - 89);
+  return { from, to, process: '', customerId: '', stationId: '', bucket: 'day' };
 }
 
 /** Only the filters a report uses, without the empty ones: the API query and the CSV link. */

@@ -18,6 +18,8 @@ import { portalRepository } from '../repositories/portal.repository';
 import type { ShareLinkRow } from '../repositories/share-links.repository';
 import type { ShippingOrder } from '../repositories/shipping.repository';
 import { publicStatusSchema, statusTokenSchema, type PublicStatus, type ShareLink, type ShareLinkInfo } from '@shared/schemas/shipping';
+import { carrierTrackingUrl } from '@shared/domain/carrier-tracking';
+import { defaultFrom } from './mail.service';
 
 /** Random bytes in a token: 256 bits, well over the 128 the product asks for. */
 export const TOKEN_BYTES = 32;
@@ -62,6 +64,13 @@ export function resolveLink(deps: AppDeps, token: string): { link: ShareLinkRow;
   return { link, order };
 }
 
+/** The address of the factory's order mail ("orders@pins.example.com"), the customer's contact. */
+function contactAddress(deps: AppDeps): string | null {
+  const from = defaultFrom(deps);
+  const m = /<([^<>\s]+@[^<>\s]+)>\s*$/.exec(from) ?? /^\s*([^<>\s]+@[^<>\s]+)\s*$/.exec(from);
+  return m ? m[1] : null;
+}
+
 /** The public status of one order: its stages with dates, its story, the ship date and tracking. */
 export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow, order: ShippingOrder): PublicStatus {
   const now = deps.now();
@@ -92,6 +101,8 @@ export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow,
     projectedShipAt: p.status === 'shipped' || p.status === 'cancelled' ? null : iso(p.projection.expectedAt),
     updatedAt: iso(Math.max(row.updatedAt, ...story.map((s) => s.doneAt ?? s.startedAt)))!,
   };
+  const contact = contactAddress(deps);
+  if (contact) body.contact = contact;
   if (story.length) {
     body.story = story.map((s) => ({
       stage: s.stage,
@@ -107,6 +118,8 @@ export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow,
   if (last) {
     body.carrier = last.carrier;
     body.trackingNumber = last.trackingNumber;
+    const url = carrierTrackingUrl(last.carrier, last.trackingNumber);
+    if (url) body.trackingUrl = url;
   }
   // Opening the page is recorded (sales sees that the customer looked), at most once a minute.
   if (link.lastOpenedAt == null || now - link.lastOpenedAt > 60_000) shareLinksRepository.touchOpened(deps.db, link.id, now);

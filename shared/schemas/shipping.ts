@@ -194,9 +194,13 @@ export const publicStatusSchema = z.strictObject({
     .optional(),
   projectedShipAt: z.string().nullable(),
   updatedAt: z.string(),
+  /** where the customer writes to the factory about this order (its order mail address) */
+  contact: z.string().optional(),
   shippedAt: z.string().optional(),
   carrier: z.string().optional(),
   trackingNumber: z.string().optional(),
+  /** the carrier's public tracking page, when the carrier is one we know */
+  trackingUrl: z.string().optional(),
 });
 export type PublicStatus = z.infer<typeof publicStatusSchema>;
 

@@ -14,8 +14,9 @@ let a: ShippingOrderFixture;
 let b: ShippingOrderFixture;
 
 // The public answer: exactly these fields (api.md, "Sales and customers").
-// `process` is ours: it picks the plain-words story of how her pins are made.
-const DOCUMENTED = ['factory', 'number', 'title', 'customer', 'quantity', 'process', 'stage', 'stages', 'story', 'projectedShipAt', 'updatedAt', 'shippedAt', 'carrier', 'trackingNumber', 'trackingUrl'];
+// `process` is ours: it picks the plain-words story of how her pins are made; `contact` too: the
+// factory's order mail address, where she writes about the order.
+const DOCUMENTED = ['factory', 'number', 'title', 'customer', 'quantity', 'process', 'stage', 'stages', 'story', 'projectedShipAt', 'updatedAt', 'contact', 'shippedAt', 'carrier', 'trackingNumber', 'trackingUrl'];
 
 beforeAll(async () => {
   t = makeTestApp();
@@ -50,7 +51,10 @@ describe('customer status link', () => {
     expect(ra.status).toBe(200);
     expect(rb.status).toBe(200);
     for (const key of Object.keys(ra.body)) expect(DOCUMENTED).toContain(key);
-    expect(Object.keys(ra.body).sort()).toEqual(['customer', 'factory', 'number', 'process', 'projectedShipAt', 'quantity', 'stage', 'stages', 'story', 'title', 'updatedAt']);
+    expect(Object.keys(ra.body).sort()).toEqual(['contact', 'customer', 'factory', 'number', 'process', 'projectedShipAt', 'quantity', 'stage', 'stages', 'story', 'title', 'updatedAt']);
+    // the page's header facts: the factory, the order's number and quantity, when it last changed, whom to write to
+    expect(ra.body).toMatchObject({ factory: expect.any(String), number: a.number, quantity: expect.any(Number), contact: expect.stringMatching(/^orders@/) });
+    expect(Number.isFinite(Date.parse(ra.body.updatedAt))).toBe(true);
     expect(ra.body).toMatchObject({ title: 'Kite festival pin', customer: 'Invented Kite Club', stage: 'Colour' });
     expect(rb.body).toMatchObject({ title: 'Choir anniversary coin', customer: 'Invented Choir Guild', stage: 'Inspection' });
     const textA = JSON.stringify(ra.body);
@@ -112,6 +116,16 @@ describe('customer status link', () => {
     expect(Object.keys(res.body).sort()).toEqual(DOCUMENTED.filter((k) => k !== 'trackingUrl').sort());
     expect(res.body).toMatchObject({ stage: 'Shipped', shippedAt: '2025-03-05T14:02:00.000Z', carrier: 'Invented Parcel Co', trackingNumber: 'IPC-2288-0041', projectedShipAt: null });
     expect(res.body.stages.every((s: { done: boolean }) => s.done)).toBe(true);
+  });
+
+  it('links the tracking number to the carrier’s own tracking page when the carrier is known', async () => {
+    const d = insertShippingOrder(t.deps, { trays: [{ quantity: 30, at: SEQ.dispatch }], contactEmail: null });
+    expect((await sales.post(`/api/orders/${d.orderId}/shipments`).send({ carrier: 'DHL Express', trackingNumber: '1234567890', cartons: [{ count: 1, piecesPerCarton: 30, weightKg: 1 }] })).status).toBe(201);
+    finishDispatch(t.deps, d.trays[0].id, Date.parse('2025-03-06T09:00:00.000Z'));
+    const token = (await sales.post(`/api/orders/${d.orderId}/share`).send({})).body.token as string;
+    const res = await pub(`/api/public/status/${token}`);
+    expect(Object.keys(res.body).sort()).toEqual([...DOCUMENTED].sort());
+    expect(res.body.trackingUrl).toBe('https://www.dhl.com/global-en/home/tracking/tracking-express.html?submit=1&tracking-id=1234567890');
   });
 
   it('is for sales and planners; an operator or a visitor cannot make one', async () => {

@@ -8,6 +8,8 @@ import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
 import { PortalCard, PortalFrame, usePortalFormats } from '@/features/customer-status/components/portal-frame';
 import type { PublicOrder } from '@shared/schemas/shipping';
+import { formatInstant } from '@shared/domain/time-format';
+import { currentLocale } from '@/lib/i18n';
 
 // The page a customer opens from the link the factory sent: one order, made for a phone, in
 // English or Chinese. She pays what is due, approves her proof or asks for changes, and follows
@@ -186,6 +188,18 @@ export function Component() {
         <p className="mt-1 text-sm">
           {t('orderNumber', { number: o.number })} · {t('pieces', { count: o.quantity })}
         </p>
+        {/* her own clock, with the zone named: she may be anywhere */}
+        <p className="mt-1 text-sm" data-testid="updated-at">
+          {t('updated', { time: formatInstant(o.updatedAt, { locale: currentLocale(), timeZone: undefined }, 'dateTime', true) })}
+        </p>
+        {o.contact && (
+          <p className="mt-1 text-sm">
+            {t('contact')}{' '}
+            <a className="font-bold underline" href={`mailto:${o.contact}?subject=${encodeURIComponent(t('orderNumber', { number: o.number }))}`}>
+              {o.contact}
+            </a>
+          </p>
+        )}
       </header>
 
       <PayCard token={token} o={o} confirming={confirming} />
@@ -208,7 +222,22 @@ export function Component() {
             <dt className="text-harbour-700">{t('when.carrier')}</dt>
             <dd className="font-bold">{o.carrier}</dd>
             <dt className="text-harbour-700">{t('when.tracking')}</dt>
-            <dd className="break-all font-mono text-lg font-bold">{o.trackingNumber}</dd>
+            <dd className="break-all font-mono text-lg font-bold">
+              {o.trackingUrl ? (
+                <a className="underline" href={o.trackingUrl} target="_blank" rel="noopener noreferrer" title={t('when.trackingLink')}>
+                  {o.trackingNumber}
+                </a>
+              ) : (
+                o.trackingNumber
+              )}
+            </dd>
+            {o.trackingUrl && (
+              <dd className="col-span-2">
+                <a className="font-bold text-harbour-800 underline" href={o.trackingUrl} target="_blank" rel="noopener noreferrer">
+                  {t('when.trackingLink')}
+                </a>
+              </dd>
+            )}
           </dl>
         )}
       </Card>

@@ -3,6 +3,8 @@ export const en = {
   title: 'Your order',
   orderNumber: 'Order {{number}}',
   pieces: '{{count}} pieces',
+  updated: 'Last updated {{time}}',
+  contact: 'Questions about this order? Write to',
   language: 'Language',
   loading: 'Loading your order…',
   errors: {
@@ -55,6 +57,7 @@ export const en = {
     projectionNote: 'Our current projection from the work still to do; it can move.',
     carrier: 'Carrier',
     tracking: 'Tracking number',
+    trackingLink: 'Follow it on the carrier’s tracking page',
   },
   stages: {
     heading: 'Where your order is',

@@ -3,6 +3,8 @@ export const zhCN = {
   title: '您的订单',
   orderNumber: '订单 {{number}}',
   pieces: '{{count}} 件',
+  updated: '最后更新 {{time}}',
+  contact: '对此订单有疑问？请写信至',
   language: '语言',
   loading: '正在载入您的订单…',
   errors: {
@@ -55,6 +57,7 @@ export const zhCN = {
     projectionNote: '这是根据剩余工作估算的日期，可能会变动。',
     carrier: '快递公司',
     tracking: '运单号',
+    trackingLink: '在承运商的查询页面跟踪',
   },
   stages: {
     heading: '订单进度',

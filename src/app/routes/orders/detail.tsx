@@ -16,6 +16,8 @@ import { ReleasePanel } from '@/features/orders/components/release-panel';
 import { TravellersPanel } from '@/features/orders/components/travellers-panel';
 import { HistoryList, SpecCard } from '@/features/orders/components/spec-card';
 import { CostingCard } from '@/features/costing/components/costing-card';
+import { DateHistoryChart } from '@/features/projections/components/date-history-chart';
+import { ProjectedP85 } from '@/features/projections/components/projected-p85';
 import { useReprint } from '@/features/trays/api/tray-actions';
 import { trayPdfUrl } from '@/features/trays/api/get-tray';
 import { useMe } from '@/features/auth/api/get-me';
@@ -143,12 +145,17 @@ export function Component() {
           />
         </Card>
       ) : (
-        <SpecCard order={o} />
+        <SpecCard order={o} projected={released && <ProjectedP85 orderId={o.id} />} />
       )}
       {(!released || o.payments.length > 0 || o.proofs.length > 0) && mayPlan && <GatesPanel order={o} role={role} />}
       <RoutingEditor order={o} canEdit={mayPlan} />
       {!released && mayPlan && o.status !== 'cancelled' && <ReleasePanel order={o} />}
       {released && <TravellersPanel order={o} actions={(t) => <TravellerActions t={t} onChanged={refresh} />} />}
+      {released && (
+        <Card>
+          <DateHistoryChart orderId={o.id} />
+        </Card>
+      )}
       {COSTING_READERS.includes(role) && <CostingCard orderId={o.id} />}
       <HistoryList entries={o.history} />
     </div>

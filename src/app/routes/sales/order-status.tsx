@@ -10,6 +10,8 @@ import { ShipmentsTable } from '@/features/shipping/components/shipments-table';
 import { StageLine } from '@/components/ui/stage-line';
 import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
+import { DateHistoryChart } from '@/features/projections/components/date-history-chart';
+import { ProjectedP85 } from '@/features/projections/components/projected-p85';
 import { formatDate, formatDateTime } from '@/lib/datetime';
 
 export const handle = { roles: SALES_VIEW };
@@ -59,6 +61,7 @@ export function Component() {
                 <p className="text-2xl font-bold" data-testid="projected-ship-date">
                   {o.shippedAt ? longDate(o.shippedAt) : o.projectedShipAt ? longDate(o.projectedShipAt) : 'Not yet'}
                 </p>
+                {!o.shippedAt && o.projectedShipAt && <ProjectedP85 orderId={o.id} />}
                 <p className="mt-1 text-sm text-harbour-700">{o.projectionNote}</p>
                 <p className="mt-3">
                   Due <span className="font-bold">{o.dueDate}</span>
@@ -87,6 +90,11 @@ export function Component() {
                   Under quantity: {q.shortBy} pieces short. Ask the customer whether to ship short or wait for more.
                 </p>
               )}
+            </Card>
+          )}
+          {!o.shippedAt && o.projectedShipAt && (
+            <Card>
+              <DateHistoryChart orderId={o.id} />
             </Card>
           )}
           <Card>

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { AlertTriangle } from 'lucide-react';
 import type { HistoryEntry, OrderDetail } from '@shared/schemas/orders';
 import { Card } from '@/components/ui/panels';
@@ -18,9 +19,10 @@ export function Swatch({ name, hex, refCode }: { name: string; hex?: string; ref
   );
 }
 
-export function SpecCard({ order }: { order: OrderDetail }) {
+/** `projected`: shown under the projected ship date (the route adds the 85 % date and its measured coverage). */
+export function SpecCard({ order, projected }: { order: OrderDetail; projected?: ReactNode }) {
   const s = order.spec;
-  const rows: [string, string][] = [
+  const rows: [string, ReactNode][] = [
     ['Customer', order.customer.name],
     ['Product', `${humanise(s.productType)} · ${humanise(s.process)} · ${humanise(s.material)} · ${s.sizeMm} mm`],
     ['Quantity', `${s.quantity} + ${s.overrunPct} % overrun = ${order.releasedQuantity} pieces`],
@@ -29,7 +31,13 @@ export function SpecCard({ order }: { order: OrderDetail }) {
     ['Extras', [s.backLogo && 'back logo', s.printing && 'printed areas', s.epoxy && 'epoxy dome', s.sandblast && 'sandblasted texture'].filter(Boolean).join(', ') || 'None'],
     ['Packaging', humanise(s.packaging)],
     ['Due', formatDueDay(s.dueDate)],
-    ['Projected ship', order.projectedShipAt ? formatDateTime(order.projectedShipAt) : order.releasedAt ? '—' : 'After release'],
+    [
+      'Projected ship',
+      <>
+        {order.projectedShipAt ? formatDateTime(order.projectedShipAt) : order.releasedAt ? '—' : 'After release'}
+        {order.projectedShipAt && projected}
+      </>,
+    ],
   ];
   if (order.reorderOf) rows.push(['Repeat of', `order ${order.reorderOf.number}`]);
   return (

@@ -1,6 +1,7 @@
 import type { LucideIcon } from 'lucide-react';
-import { CalendarClock, ShieldAlert, ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail } from 'lucide-react';
+import { CalendarClock, ShieldAlert, ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail, FileText } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
+import { QUOTING } from '@shared/domain/access';
 import type { CommonStrings } from '@/lib/i18n/common/en';
 import { paths } from './paths';
 
@@ -39,6 +40,7 @@ export const NAV: NavGroup[] = [
     icon: ClipboardList,
     items: [
       { to: paths.orders, label: 'orders', icon: ClipboardList, roles: ['planner', 'manager', 'supervisor', 'admin'] },
+      { to: paths.quotes, label: 'quotes', icon: FileText, roles: QUOTING },
       { to: paths.moulds, label: 'moulds', icon: Boxes, roles: ['planner', 'manager', 'supervisor', 'admin'] },
       { to: paths.dispatch, label: 'dispatch', icon: Truck, roles: ['planner', 'supervisor', 'sales', 'admin'] },
     ],

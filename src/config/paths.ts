@@ -11,6 +11,7 @@ export const paths = {
   scanExceptions: '/exceptions',
   wall: '/wall',
   orders: '/orders',
+  quotes: '/quotes',
   newOrder: '/orders/new',
   importOrders: '/orders/import',
   order: (id: string) => `/orders/${id}`,

@@ -16,10 +16,12 @@ import { en as reports } from '@/features/reports/i18n/en';
 import { zhCN as reportsZh } from '@/features/reports/i18n/zh-CN';
 import { en as costing } from '@/features/costing/i18n/en';
 import { zhCN as costingZh } from '@/features/costing/i18n/zh-CN';
+import { en as quotes } from '@/features/quotes/i18n/en';
+import { zhCN as quotesZh } from '@/features/quotes/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders, users, portal, projections, costing, reports },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, reports: reportsZh },
+  en: { common, station, orders, users, portal, projections, costing, quotes, reports },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, quotes: quotesZh, reports: reportsZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

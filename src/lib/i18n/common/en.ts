@@ -38,6 +38,7 @@ export const en = {
     floor: 'Floor',
     refusedScans: 'Refused scans',
     orders: 'Orders',
+    quotes: 'Quotes',
     moulds: 'Moulds',
     loads: 'Oven & bath loads',
     reports: 'Reports',

@@ -38,6 +38,7 @@ export const zhCN: CommonStrings = {
     floor: '车间看板',
     refusedScans: '被拒扫描',
     orders: '订单',
+    quotes: '报价',
     moulds: '模具',
     loads: '烤炉与电镀批次',
     reports: '报表',

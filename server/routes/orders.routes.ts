@@ -14,6 +14,11 @@ import {
 import { routingEditBodySchema, routingTemplateSchema } from '@shared/schemas/routing';
 import { travellerPdfQuerySchema } from '@shared/schemas/trays';
 import { ordersService } from '../services/orders.service';
+import { orderGatesService } from '../services/order-gates.service';
+import { orderImportService } from '../services/order-import.service';
+import { orderReleaseService } from '../services/order-release.service';
+import { orderRoutingService } from '../services/order-routing.service';
+import { routingTemplatesService } from '../services/routing-templates.service';
 import { traysService } from '../services/trays.service';
 import { projectionHistoryService } from '../services/projection-history.service';
 import { CSV_MAX_BYTES, PROOF_MAX_BYTES, csvText, singleFile } from '../lib/uploads';
@@ -49,7 +54,7 @@ export function registerOrderRoutes(api: Api) {
       const text = req.file ? csvText(req.file.buffer) : body.csv;
       if (text === undefined) throw badInput('Upload a CSV file (field "file") or paste its text (field "csv").', undefined, 'file_missing');
       if (text.trim() === '') throw badInput('The file is empty.', undefined, 'empty_file');
-      return ordersService.previewImport(deps, text);
+      return orderImportService.previewImport(deps, text);
     },
   });
   api.route({
@@ -58,7 +63,7 @@ export function registerOrderRoutes(api: Api) {
     access: { roles: PLANNING },
     body: importBodySchema,
     status: 201,
-    handler: ({ deps, body, user }) => ordersService.importOrders(deps, body.csv, user!.id),
+    handler: ({ deps, body, user }) => orderImportService.importOrders(deps, body.csv, user!.id),
   });
 
   api.route({ method: 'get', path: '/orders/:id', access: { roles: OFFICE }, params: idParams, handler: ({ deps, params }) => ordersService.get(deps, params.id) });
@@ -102,7 +107,7 @@ export function registerOrderRoutes(api: Api) {
     params: idParams,
     body: paymentBodySchema,
     status: 201,
-    handler: ({ deps, params, body, user }) => ordersService.recordPayment(deps, params.id, body, user!),
+    handler: ({ deps, params, body, user }) => orderGatesService.recordPayment(deps, params.id, body, user!),
   });
 
   api.route({
@@ -113,7 +118,7 @@ export function registerOrderRoutes(api: Api) {
     bodyKind: 'file',
     before: [singleFile(PROOF_MAX_BYTES)],
     status: 201,
-    handler: ({ deps, params, req, user }) => ordersService.uploadProof(deps, params.id, req.file, user!.id),
+    handler: ({ deps, params, req, user }) => orderGatesService.uploadProof(deps, params.id, req.file, user!.id),
   });
   api.route({
     method: 'get',
@@ -121,7 +126,7 @@ export function registerOrderRoutes(api: Api) {
     access: { roles: OFFICE },
     params: proofParams,
     handler: ({ deps, params, res }) => {
-      const f = ordersService.proofFile(deps, params.id, params.revision);
+      const f = orderGatesService.proofFile(deps, params.id, params.revision);
       res
         .type(f.mime)
         .set('Content-Disposition', `inline; filename="${f.downloadName}"`)
@@ -136,7 +141,7 @@ export function registerOrderRoutes(api: Api) {
     access: { roles: GATE_RECORDERS },
     params: proofParams,
     body: proofApprovalBodySchema,
-    handler: ({ deps, params, body, user }) => ordersService.approveProof(deps, params.id, params.revision, body, user!.id),
+    handler: ({ deps, params, body, user }) => orderGatesService.approveProof(deps, params.id, params.revision, body, user!.id),
   });
 
   api.route({
@@ -145,14 +150,14 @@ export function registerOrderRoutes(api: Api) {
     access: { roles: PLANNING },
     params: idParams,
     body: routingEditBodySchema,
-    handler: ({ deps, params, body, user }) => ordersService.editRouting(deps, params.id, body, user!.id),
+    handler: ({ deps, params, body, user }) => orderRoutingService.editRouting(deps, params.id, body, user!.id),
   });
   api.route({
     method: 'post',
     path: '/orders/:id/routing/reset',
     access: { roles: PLANNING },
     params: idParams,
-    handler: ({ deps, params, user }) => ordersService.resetRouting(deps, params.id, user!.id),
+    handler: ({ deps, params, user }) => orderRoutingService.resetRouting(deps, params.id, user!.id),
   });
 
   api.route({
@@ -162,7 +167,7 @@ export function registerOrderRoutes(api: Api) {
     params: idParams,
     body: releaseBodySchema,
     status: 201,
-    handler: ({ deps, params, body, user }) => projectionHistoryService.afterRelease(deps, params.id, ordersService.release(deps, params.id, body, user!.id)),
+    handler: ({ deps, params, body, user }) => projectionHistoryService.afterRelease(deps, params.id, orderReleaseService.release(deps, params.id, body, user!.id)),
   });
 
   api.route({
@@ -178,13 +183,13 @@ export function registerOrderRoutes(api: Api) {
     },
   });
 
-  api.route({ method: 'get', path: '/routing-templates', access: { roles: PLANNING }, handler: ({ deps }) => ordersService.listTemplates(deps) });
+  api.route({ method: 'get', path: '/routing-templates', access: { roles: PLANNING }, handler: ({ deps }) => routingTemplatesService.listTemplates(deps) });
   api.route({
     method: 'put',
     path: '/routing-templates/:process',
     access: { roles: ADMIN_ONLY },
     params: processParams,
     body: routingTemplateSchema,
-    handler: ({ deps, params, body, user }) => ordersService.saveTemplate(deps, params.process, body, user!.id),
+    handler: ({ deps, params, body, user }) => routingTemplatesService.saveTemplate(deps, params.process, body, user!.id),
   });
 }

@@ -4,7 +4,11 @@ import type { Api } from '../http/api';
 import { FLOOR_LEADS } from '@shared/domain/access';
 import type { Role } from '@shared/domain/vocabulary';
 import { exceptionsQuery, MAX_SCAN_BATCH, overrideBody, resolveExceptionBody, scanBatchEnvelopeSchema } from '@shared/schemas/scans';
-import { scansService } from '../services/scans.service';
+import { scanExceptionsService } from '../services/scan-exceptions.service';
+import { scanIngestService } from '../services/scan-ingest.service';
+import { scanOverridesService } from '../services/scan-overrides.service';
+import { scanPhotosService } from '../services/scan-photos.service';
+import { stationQueueService } from '../services/station-queue.service';
 import { badInput, tooLarge } from '../errors';
 import type { SignInLimits } from '../middleware/sign-in-limits';
 
@@ -35,7 +39,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     body: batchBody,
     handler: ({ deps, body, user, device }) => {
       if (body.events.length > MAX_SCAN_BATCH) throw tooLarge(`Send at most ${MAX_SCAN_BATCH} scans at a time.`);
-      return scansService.submitQueued(deps, body.events, { user, device });
+      return scanIngestService.submitQueued(deps, body.events, { user, device });
     },
   });
 
@@ -53,7 +57,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     before: [limits.badge],
     body: overrideBody,
     status: 201,
-    handler: ({ deps, body, user, device }) => scansService.createOverride(deps, body, { device, userId: user?.id ?? null }),
+    handler: ({ deps, body, user, device }) => scanOverridesService.createOverride(deps, body, { device, userId: user?.id ?? null }),
   });
 
   api.route({
@@ -64,7 +68,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     handler: ({ deps, query, user, device }) => {
       // A tablet (or an operator on it) sees only the refusals of its own scans.
       const lead = !!user && FLOOR_LEADS.includes(user.role);
-      return scansService.exceptions(deps, {
+      return scanExceptionsService.exceptions(deps, {
         open: query.open === 'all' ? undefined : query.open === 'true',
         deviceId: lead ? undefined : device!.id,
         sinceHours: query.sinceHours ?? (lead ? undefined : 48),
@@ -79,7 +83,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     access: { roles: DECIDING },
     params: idParams,
     body: resolveExceptionBody,
-    handler: ({ deps, params, body, user }) => scansService.resolve(deps, params.id, body, user!.id),
+    handler: ({ deps, params, body, user }) => scanExceptionsService.resolve(deps, params.id, body, user!.id),
   });
 
   api.route({
@@ -87,7 +91,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     path: '/scans/exceptions/:id/retry',
     access: { roles: DECIDING },
     params: idParams,
-    handler: ({ deps, params, user }) => scansService.retry(deps, params.id, user!.id),
+    handler: ({ deps, params, user }) => scanExceptionsService.retry(deps, params.id, user!.id),
   });
 
   api.route({
@@ -95,7 +99,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     path: '/stations/:id/queue',
     access: { roles: [...SCANNING, ...FLOOR_LEADS], devices: ['tablet'] },
     params: idParams,
-    handler: ({ deps, params }) => scansService.stationQueue(deps, params.id),
+    handler: ({ deps, params }) => stationQueueService.stationQueue(deps, params.id),
   });
 
   api.route({
@@ -103,7 +107,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     path: '/scans/lookup',
     access: { roles: [...SCANNING, ...FLOOR_LEADS], devices: ['tablet'] },
     query: z.object({ code: z.string().trim().min(1).max(256) }),
-    handler: ({ deps, query }) => scansService.lookup(deps, query.code),
+    handler: ({ deps, query }) => stationQueueService.lookup(deps, query.code),
   });
 
   api.route({
@@ -118,7 +122,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
       if (!file) throw badInput('Attach the photo as the field "file".');
       const fields = z.object({ code: z.string().trim().min(1).max(256), eventId: z.string().max(100).optional(), operatorId: z.string().max(64).optional() }).safeParse(req.body);
       if (!fields.success) throw badInput('Say which tray the photo belongs to (field "code").');
-      return scansService.addPhoto(deps, { code: fields.data.code, eventId: fields.data.eventId, file, operatorId: fields.data.operatorId }, user?.id ?? null);
+      return scanPhotosService.addPhoto(deps, { code: fields.data.code, eventId: fields.data.eventId, file, operatorId: fields.data.operatorId }, user?.id ?? null);
     },
   });
 
@@ -128,7 +132,7 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     access: { roles: [...SCANNING, ...FLOOR_LEADS], devices: ['tablet'] },
     params: idParams,
     handler: ({ deps, params, res }) => {
-      const { content, mime } = scansService.artwork(deps, params.id);
+      const { content, mime } = scanPhotosService.artwork(deps, params.id);
       res.set('Cache-Control', 'private, max-age=3600').type(mime).send(content);
     },
   });

@@ -12,8 +12,11 @@ import { trays, trayStates } from '../db/schema/trays';
 import { overrides, scanEvents, scanRejections } from '../db/schema/scans';
 import { cartons, shipments } from '../db/schema/shipping';
 import { hashSecret } from '../services/auth.service';
-import { rowFromState, stateFromRow } from '../services/scans.service';
-import { ordersService, routingOf as routingOfOrder } from '../services/orders.service';
+import { rowFromState, stateFromRow } from '../services/scan-ingest.service';
+import { ordersService } from '../services/orders.service';
+import { routingOf as routingOfOrder } from '../services/order-spec.service';
+import { orderGatesService } from '../services/order-gates.service';
+import { orderReleaseService } from '../services/order-release.service';
 import { ordersRepository } from '../repositories/orders.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { randomToken, sha256Hex } from '../lib/keys';
@@ -253,23 +256,23 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       const pdfs = proofPdfs.get(plan) ?? [];
       if (pdfs.length) {
         pdfs.forEach(({ pdf, decoded }, i) => {
-          ordersService.storeProof(at(i === 0 ? st.proof1 : st.proof2), orderId, { buffer: pdf, name: `proof-${plan.number}-r${i + 1}.pdf`, decoded }, planner);
+          orderGatesService.storeProof(at(i === 0 ? st.proof1 : st.proof2), orderId, { buffer: pdf, name: `proof-${plan.number}-r${i + 1}.pdf`, decoded }, planner);
         });
         if (proofApproved) {
-          ordersService.approveProof(at(st.approved), orderId, pdfs.length, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);
+          orderGatesService.approveProof(at(st.approved), orderId, pdfs.length, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);
         }
       }
       if (paid) {
         const exception = released && plan.target === 'in_production' && plan.number.endsWith('7');
         if (exception) {
-          ordersService.recordPayment(at(st.paid), orderId, { exception: true, reason: 'Long-standing customer on 30-day terms' }, { id: manager, role: 'manager' });
+          orderGatesService.recordPayment(at(st.paid), orderId, { exception: true, reason: 'Long-standing customer on 30-day terms' }, { id: manager, role: 'manager' });
         } else {
           const amount = Math.round(plan.quantity * UNIT_PRICE[plan.process] * (1 + plan.colours.length * 0.08) * 100) / 100;
-          ordersService.recordPayment(at(st.paid), orderId, { amount, reference: `BANK-${ids.int(100000, 999999)}` }, { id: planner, role: 'planner' });
+          orderGatesService.recordPayment(at(st.paid), orderId, { amount, reference: `BANK-${ids.int(100000, 999999)}` }, { id: planner, role: 'planner' });
         }
       }
       if (released) {
-        ordersService.release(at(plan.releasedAt!), orderId, { traySize: plan.traySize }, planner);
+        orderReleaseService.release(at(plan.releasedAt!), orderId, { traySize: plan.traySize }, planner);
         const holdAt = plan.target === 'on_hold' ? Math.min(now - HOUR, nextWorking(now - ids.int(18, 36) * HOUR)) : null;
         simOrders.push({
           id: orderId,

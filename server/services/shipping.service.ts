@@ -13,7 +13,7 @@ import { createLinkIn } from './share-links.service';
 import { enqueueMail, kickMail } from './mail.service';
 import { shippedMail } from '../lib/mail-templates';
 import { renderPackingList } from '../lib/packing-list-pdf';
-import { scanHooks, type AcceptedScan } from './scans.service';
+import { scanHooks, type AcceptedScan } from './scan-ingest.service';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import path from 'node:path';
 import { makeTestApp, type TestApp } from '../support/test-app';
-import { scansService } from '../../server/services/scans.service';
+import { stationQueueService } from '../../server/services/station-queue.service';
 
 let t: TestApp;
 let admin: Awaited<ReturnType<TestApp['agentAs']>>;
@@ -44,7 +44,7 @@ describe('stations in two languages', () => {
     const saved = await admin.patch(`/api/stations/${id}`).send({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
     expect(saved.status).toBe(200);
     expect(saved.body).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
-    expect(scansService.stationQueue(t.deps, id).station).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
+    expect(stationQueueService.stationQueue(t.deps, id).station).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
     const bad = await admin.patch(`/api/stations/${id}`).send({ nameZh: '长'.repeat(81) });
     expect(bad.status).toBe(400);
     expect((await admin.get('/api/stations')).body.find((s: { id: string }) => s.id === id).nameZh).toBe('填色二号台');

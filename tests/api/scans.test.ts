@@ -8,7 +8,7 @@ import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertBadgeUser, insertFloorOrder, pairTablet, scan, stationId, tabletAgent, TWO_COLOUR_ROUTING } from '../support/scan-fixtures';
 import { scanEvents, scanRejections } from '../../server/db/schema/scans';
 import { trays, trayStates } from '../../server/db/schema/trays';
-import { scanHooks } from '../../server/services/scans.service';
+import { scanHooks } from '../../server/services/scan-ingest.service';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { REJECTION_CODES, type RejectionCode } from '@shared/domain/vocabulary';
 import { scanBatchResponseSchema } from '@shared/schemas/scans';

@@ -7,7 +7,7 @@ import sharp from 'sharp';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertFloorOrder } from '../support/scan-fixtures';
 import { attachments } from '../../server/db/schema/scans';
-import { scansService } from '../../server/services/scans.service';
+import { scanPhotosService } from '../../server/services/scan-photos.service';
 import { adminService } from '../../server/services/admin.service';
 import { boot } from '../../server/boot';
 import { loadEnv } from '../../server/env';
@@ -90,7 +90,7 @@ describe('QC photos are checked like proofs', () => {
     const res = await operator.post('/api/scans/photos').field('code', code).field('operatorId', 'no-such-user').attach('file', jpeg, { filename: 'qc.jpg', contentType: 'image/jpeg' });
     // a signed-in operator is recorded as themselves; the check matters when nobody is signed in
     expect([201, 400]).toContain(res.status);
-    await expect(scansService.addPhoto(t.deps, { code, file: { buffer: jpeg, size: jpeg.length, originalname: 'qc.jpg' }, operatorId: 'no-such-user' }, null)).rejects.toMatchObject({
+    await expect(scanPhotosService.addPhoto(t.deps, { code, file: { buffer: jpeg, size: jpeg.length, originalname: 'qc.jpg' }, operatorId: 'no-such-user' }, null)).rejects.toMatchObject({
       status: 400,
       code: 'unknown_operator',
     });

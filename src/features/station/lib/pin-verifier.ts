@@ -2,7 +2,7 @@
 // and PIN, the tablet keeps a salted PBKDF2-SHA-256 hash of that PIN (WebCrypto) for the rest of
 // the shift, so the same person can sign in again here without the server. The server still
 // decides: scans carry the operator's id and are accepted only for people who signed in on this
-// tablet (see the scans service).
+// tablet (see the scan overrides service).
 
 export const PIN_ITERATIONS = 100_000;
 export const OFFLINE_SIGN_IN_HOURS = 12;

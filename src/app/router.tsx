@@ -60,7 +60,8 @@ export const router = createBrowserRouter([
             path: 'reports',
             lazy: () => import('./routes/reports/layout'),
             children: [
-              { index: true, loader: () => redirect('/reports/lead-time') },
+              // the manager's home: one summary page (sales, who may read only some reports, go on to lead time)
+              { index: true, lazy: () => import('./routes/reports/summary') },
               { path: 'lead-time', lazy: () => import('./routes/reports/lead-time') },
               { path: 'cycle-time', lazy: () => import('./routes/reports/cycle-time') },
               { path: 'flow', lazy: () => import('./routes/reports/flow') },

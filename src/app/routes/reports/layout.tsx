@@ -1,7 +1,7 @@
 import { Outlet } from 'react-router';
 import { TabNav } from '@/components/ui/tab-nav';
 import { useTranslation } from 'react-i18next';
-import { Clock, GitCommitVertical, LineChart, Percent, Scale, Truck } from 'lucide-react';
+import { Clock, GitCommitVertical, LayoutDashboard, LineChart, Percent, Scale, Truck } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { COSTING_READERS, REPORT_READERS } from '@shared/domain/access';
 import { useMe } from '@/features/auth/api/get-me';
@@ -11,6 +11,7 @@ export const WITH_SALES: readonly Role[] = [...REPORT_READERS, 'sales'];
 export const handle = { roles: WITH_SALES };
 
 const TABS = [
+  { to: '/reports', label: 'Summary', icon: LayoutDashboard, roles: REPORT_READERS, end: true },
   { to: 'lead-time', label: 'Lead time', icon: Clock, roles: WITH_SALES },
   { to: 'cycle-time', label: 'Cycle time', icon: GitCommitVertical, roles: REPORT_READERS },
   { to: 'flow', label: 'Flow & throughput', icon: LineChart, roles: REPORT_READERS },

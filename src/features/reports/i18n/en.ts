@@ -26,6 +26,46 @@ export const en = {
     },
     stat: { p50: 'p50', p85: 'p85', mean: 'mean' },
   },
+  summary: {
+    title: 'Summary',
+    subtitle: 'The floor now and the last four weeks ({{from}} to {{to}}), each with a link to its full report.',
+    tab: 'Summary',
+    loading: 'Reading the figures…',
+    failed: 'This figure could not be read.',
+    open: 'Open the report',
+    wip: {
+      title: 'Work in progress now',
+      value: '{{trays}} trays · {{pieces}} pieces',
+      moulds: '{{count}} moulds in the mould shop',
+      link: 'See the floor',
+    },
+    onTime: {
+      title: 'On-time delivery, last 4 weeks',
+      value: '{{onTime}} of {{shipped}} orders on time',
+      none: 'No order shipped in these four weeks.',
+    },
+    yield: {
+      title: 'First-pass yield and scrap, per week',
+      week: 'Week',
+      fpy: 'First-pass yield',
+      scrap: 'Scrap',
+      pieces: 'Pieces in',
+      note: 'Over all steps: pieces that passed each step the first time, and pieces scrapped, out of the pieces that went in.',
+    },
+    late: {
+      title: 'Late orders',
+      value: '{{late}} late · {{atRisk}} at risk',
+      none: 'No open order is expected late.',
+      link: 'See them in the order list',
+    },
+    throughput: {
+      title: 'Throughput, per week',
+      week: 'Week',
+      orders: 'Orders shipped',
+      trays: 'Trays',
+      pieces: 'Pieces',
+    },
+  },
 };
 
 export type ReportsStrings = typeof en;

@@ -8,6 +8,10 @@ import { seedDemo } from '../../server/seed/demo';
 import { evaluateScan, type GuardInput, type OverrideKind, type ValidOverride } from '@shared/domain/guards';
 import { compileCalendar, WEEKDAYS, type WeekSchedule } from '@shared/domain/calendar';
 import { ORDER_STATUSES, PROCESSES, REJECTION_CODES, initialTrayState, type Role, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
+import { replayTravellers, stepRunYieldCounts, trayFlowOf, type ReplayEvent, type ReplayTraveller, type StepRun } from '@shared/domain/traveller';
+import { reportFactsService } from '../../server/services/report-facts.service';
+import { reportsService } from '../../server/services/reports.service';
+import { calendarService } from '../../server/services/calendar.service';
 
 // A fixed "now" (a Wednesday morning in the factory's time zone) so the run is repeatable.
 const NOW = Date.parse('2026-06-17T02:30:00Z');
@@ -196,6 +200,110 @@ describe('demo factory seed', () => {
     }
     expect(replayed).toBe(events.length);
     expect(scrapTotal).toBeGreaterThan(0);
+  });
+
+  it('replays the whole history through the traveller core to the stored tray states and the report facts, exactly', () => {
+    // The core (shared/domain/traveller/replay.ts) reads every order's events back through the scan
+    // guards. Its states must be the stored tray_states field for field, and its step runs and tray
+    // flows the rows the server derived for the reports (step_runs, tray_flows).
+    const steps = q<RoutingStep & { order_id: string; traveller_kind: string; station_kind: StationKind; tray_minutes: number; piece_minutes: number; cure_minutes: number | null }>(
+      a,
+      'select order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour from order_steps order by seq',
+    );
+    const routing = new Map<string, RoutingStep[]>();
+    for (const s of steps) {
+      const key = `${s.order_id}|${s.traveller_kind}`;
+      routing.set(key, [...(routing.get(key) ?? []), { seq: s.seq, name: s.name, stationKind: s.station_kind, trayMinutes: s.tray_minutes, pieceMinutes: s.piece_minutes, cureMinutes: s.cure_minutes, colour: s.colour }]);
+    }
+    const travellers: ReplayTraveller[] = q<{ id: string; order_id: string; kind: 'tray' | 'mould'; quantity: number; released_at: number; parent_tray_id: string | null; merged_into_id: string | null }>(
+      a,
+      'select id, order_id, kind, quantity, released_at, parent_tray_id, merged_into_id from trays',
+    ).map((t) => ({ id: t.id, orderId: t.order_id, kind: t.kind, quantity: t.quantity, releasedAt: t.released_at, parentId: t.parent_tray_id, mergedIntoId: t.merged_into_id, routing: routing.get(`${t.order_id}|${t.kind}`) ?? [] }));
+    const events = q<ReplayEvent>(
+      a,
+      `select e.tray_id trayId, e.type, e.step_seq stepSeq, e.station_id stationId, e.station_kind stationKind, e.occurred_at occurredAt, e.qty_in qtyIn,
+         e.good_qty goodQty, e.scrap_qty scrapQty, e.rework_qty reworkQty, e.scrap_reason scrapReason, e.note, o.kind overrideKind, u.role actorRole
+       from scan_events e left join overrides o on o.id = e.override_id left join users u on u.id = e.user_id order by e.occurred_at, e.rowid`,
+    );
+    const replay = replayTravellers(travellers, events);
+    expect(replay.refused).toEqual([]);
+
+    // the stored states, every field
+    const stored = q<Record<string, number | string | null>>(a, 'select * from tray_states');
+    expect(stored.length).toBe(travellers.length);
+    for (const row of stored) {
+      const s = replay.states.get(row.tray_id as string)!;
+      expect(
+        { phase: row.phase, stepSeq: row.step_seq, quantity: row.quantity, stationId: row.station_id, startedAt: iso(row.started_at as number | null), waitingSince: iso(row.waiting_since as number | null), cureReadyAt: iso(row.cure_ready_at as number | null), onHold: !!row.on_hold, holdReason: row.hold_reason, releasedAt: iso(row.released_at as number), lastEventAt: iso(row.last_event_at as number | null) },
+        `state of ${row.tray_id}`,
+      ).toEqual({ phase: s.phase, stepSeq: s.stepSeq, quantity: s.quantity, stationId: s.stationId, startedAt: s.startedAt, waitingSince: s.waitingSince, cureReadyAt: s.cureReadyAt, onHold: s.onHold, holdReason: s.holdReason, releasedAt: s.releasedAt, lastEventAt: s.lastEventAt ?? null });
+    }
+
+    // the report facts the server derives, row for row
+    a.setNow(NOW);
+    reportFactsService.catchUp(a.deps, { full: true });
+    const cal = calendarService.calendar(a.deps);
+    const runs: StepRun[] = [...replay.runs.values()].flat();
+    const key = (r: { trayId: string; stepSeq: number; finishedAt: number }) => `${r.trayId}|${r.stepSeq}|${r.finishedAt}`;
+    const storedRuns = new Map(
+      q<Record<string, number | string | null>>(a, 'select * from step_runs').map((r) => [key({ trayId: r.tray_id as string, stepSeq: r.step_seq as number, finishedAt: r.finished_at as number }), r]),
+    );
+    expect(storedRuns.size).toBe(runs.length);
+    expect(runs.length).toBeGreaterThan(5000);
+    for (const r of runs) {
+      const row = storedRuns.get(key(r));
+      expect(row, key(r)).toBeDefined();
+      const timeline = cal.forStation(r.stationId, r.stationKind);
+      expect(row, key(r)).toMatchObject({
+        order_id: r.orderId,
+        traveller_kind: r.travellerKind,
+        station_kind: r.stationKind,
+        station_id: r.stationId,
+        ready_at: r.readyAt,
+        started_at: r.startedAt,
+        queue_minutes: r.queueMinutes,
+        process_minutes: r.processMinutes,
+        cure_minutes: r.cureMinutes,
+        qty_in: r.qtyIn,
+        good_qty: r.goodQty,
+        scrap_qty: r.scrapQty,
+        rework_qty: r.reworkQty,
+        scrap_reason: r.scrapReason,
+        implicit: r.implicit ? 1 : 0,
+        pass: r.pass,
+        queue_working_minutes: timeline.workingMinutesBetween(r.readyAt, r.startedAt!),
+        process_working_minutes: timeline.workingMinutesBetween(r.startedAt!, r.finishedAt),
+      });
+      // pieces conserved at every step
+      expect(r.goodQty + r.scrapQty, key(r)).toBe(r.qtyIn);
+    }
+    const flows = new Map(q<Record<string, number | null>>(a, 'select * from tray_flows').map((f) => [f.tray_id as unknown as string, f]));
+    for (const t of travellers.filter((x) => x.kind === 'tray' && replay.runs.get(x.id)!.length > 0)) {
+      const f = trayFlowOf(t, replay.runs.get(t.id)!, (from, to) => cal.factory.workingMinutesBetween(from, to));
+      expect(flows.get(t.id), t.id).toMatchObject({
+        released_at: f.releasedAt,
+        started_at: f.startedAt,
+        inspected_at: f.inspectedAt,
+        packed_at: f.packedAt,
+        shipped_at: f.shippedAt,
+        shipped_qty: f.shippedQty,
+        last_finish_at: f.lastFinishAt,
+        process_minutes: expect.closeTo(f.processMinutes, 9),
+        cure_minutes: expect.closeTo(f.cureMinutes, 9),
+        process_working_minutes: expect.closeTo(f.processWorkingMinutes, 9),
+        cure_working_minutes: expect.closeTo(f.cureWorkingMinutes, 9),
+      });
+    }
+
+    // and the yield report is the core's runs summed per station kind
+    const report = reportsService.yield(a.deps, { from: new Date(NOW - 400 * 86_400_000).toISOString(), to: new Date(NOW).toISOString() } as never);
+    const byKind = new Map<string, { inQty: number; goodQty: number; scrapQty: number; reworkQty: number }>();
+    for (const r of runs.filter((x) => x.travellerKind === 'tray')) {
+      const c = stepRunYieldCounts(r);
+      const sum = byKind.get(r.stationKind) ?? { inQty: 0, goodQty: 0, scrapQty: 0, reworkQty: 0 };
+      byKind.set(r.stationKind, { inQty: sum.inQty + c.inQty, goodQty: sum.goodQty + c.goodQty, scrapQty: sum.scrapQty + c.scrapQty, reworkQty: sum.reworkQty + c.reworkQty });
+    }
+    expect(new Map(report.steps.map((s) => [s.stationKind, { inQty: s.inQty, goodQty: s.goodQty, scrapQty: s.scrapQty, reworkQty: s.reworkQty }]))).toEqual(byKind);
   });
 
   it('leaves travellers on the floor in every phase, some on hold, and shipped orders with tracking numbers', () => {

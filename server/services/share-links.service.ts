@@ -19,6 +19,7 @@ import type { ShareLinkRow } from '../repositories/share-links.repository';
 import type { ShippingOrder } from '../repositories/shipping.repository';
 import { publicStatusSchema, statusTokenSchema, type PublicStatus, type ShareLink, type ShareLinkInfo } from '@shared/schemas/shipping';
 import { carrierTrackingUrl } from '@shared/domain/carrier-tracking';
+import { localDate } from '@shared/domain/calendar';
 import { defaultFrom } from './mail.service';
 
 /** Random bytes in a token: 256 bits, well over the 128 the product asks for. */
@@ -57,7 +58,9 @@ export function resolveLink(deps: AppDeps, token: string): { link: ShareLinkRow;
   const link = shareLinksRepository.activeByHash(deps.db, hashToken(token));
   if (!link) throw notFoundLink();
   if (link.expiresAt != null && link.expiresAt <= deps.now()) {
-    throw new AppError(410, 'link_expired', `This order link ended on ${new Date(link.expiresAt).toISOString().slice(0, 10)}. Ask your contact at the factory for a new one.`);
+    // the day it ended on the factory's clock, as every date the customer is told
+    const endedOn = localDate(shippingRepository.factory(deps.db).timeZone, link.expiresAt);
+    throw new AppError(410, 'link_expired', `This order link ended on ${endedOn}. Ask your contact at the factory for a new one.`);
   }
   const order = shippingRepository.order(deps.db, link.orderId);
   if (!order) throw notFoundLink();

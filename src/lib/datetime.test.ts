@@ -11,7 +11,7 @@ import type { TrayCard } from '@shared/schemas/scans';
 import type { TrayState } from '@shared/domain/vocabulary';
 import { formatInstant, formatDay } from '@shared/domain/time-format';
 import { applyLocale } from '@/lib/i18n';
-import { setFactoryTimeZone } from './datetime';
+import { factoryDateInDays, factoryTodayDate, setFactoryTimeZone } from './datetime';
 import { SpecCard } from '@/features/orders/components/spec-card';
 import { OrdersTable } from '@/features/orders/components/orders-table';
 import { TrayPanel } from '@/features/station/components/tray-panel';
@@ -107,4 +107,13 @@ describe('one clock and one date format', () => {
       }
     });
   }
+});
+
+describe('the date pickers’ today is the factory’s', () => {
+  it('at 07:30 in Shanghai (23:30 UTC the day before) today is the Shanghai date, and 28 days on counts from it', () => {
+    setFactoryTimeZone('Asia/Shanghai');
+    const at = Date.parse('2026-06-16T23:30:00Z');
+    expect(factoryTodayDate(at)).toBe('2026-06-17');
+    expect(factoryDateInDays(28, at)).toBe('2026-07-15');
+  });
 });

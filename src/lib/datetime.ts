@@ -1,7 +1,7 @@
 // Dates and times on every screen: the factory's zone (from GET /api/auth/me, or the tablet's own
 // device answer) and the reader's language, through the one formatter in shared/domain.
 import { formatDay, formatInstant, type InstantStyle } from '@shared/domain/time-format';
-import { DEFAULT_TIME_ZONE, factoryToday } from '@shared/domain/calendar';
+import { DEFAULT_TIME_ZONE, dateOfDayNumber, dayNumberOfDate, factoryToday } from '@shared/domain/calendar';
 import type { Locale } from '@shared/domain/vocabulary';
 import { currentLocale } from '@/lib/i18n';
 
@@ -19,6 +19,11 @@ export function factoryTimeZone(): string | undefined {
 /** Today ("2026-12-10") on the factory's clock, as the server counts it: the date pickers' "today". */
 export function factoryTodayDate(nowMs: number = Date.now()): string {
   return factoryToday(nowMs, factoryZone ?? DEFAULT_TIME_ZONE);
+}
+
+/** The factory's date `days` days from today ("2026-12-10"), e.g. a default due date. */
+export function factoryDateInDays(days: number, nowMs: number = Date.now()): string {
+  return dateOfDayNumber(dayNumberOfDate(factoryTodayDate(nowMs)) + days);
 }
 
 type At = string | number | Date | null | undefined;

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { factoryTodayDate } from '@/lib/datetime';
 import { Plus, Trash2 } from 'lucide-react';
 import { ADMIN_ONLY } from '@shared/domain/access';
 import { WEEKDAYS, compileCalendar, type Weekday } from '@shared/domain/calendar';
@@ -77,7 +78,7 @@ function DaysOff({ days, onChange, label }: { days: { date: string; name: string
         </div>
       ))}
       <div>
-        <Button variant="ghost" onClick={() => onChange([...days, { date: new Date().toISOString().slice(0, 10), name: '' }])}>
+        <Button variant="ghost" onClick={() => onChange([...days, { date: factoryTodayDate(), name: '' }])}>
           <Plus className="h-5 w-5" aria-hidden /> Day off
         </Button>
       </div>

@@ -1,4 +1,5 @@
 import { useNavigate, useSearchParams } from 'react-router';
+import { factoryDateInDays } from '@/lib/datetime';
 import { useTranslation } from 'react-i18next';
 import { PLANNING } from '@shared/domain/access';
 import { errorText } from '@/lib/error-text';
@@ -24,7 +25,7 @@ export function Component() {
   if (repeatOf && earlier.isPending) return <Loading />;
   const initial: Partial<OrderSpecInput> | undefined =
     repeatOf && earlier.data
-      ? { ...earlier.data.spec, customer: earlier.data.customer.name, reorderOf: earlier.data.id, dueDate: new Date(Date.now() + 28 * 86_400_000).toISOString().slice(0, 10) }
+      ? { ...earlier.data.spec, customer: earlier.data.customer.name, reorderOf: earlier.data.id, dueDate: factoryDateInDays(28) }
       : undefined;
   return (
     <>

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { factoryDateInDays } from '@/lib/datetime';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Plus, Trash2, AlertTriangle } from 'lucide-react';
@@ -37,7 +38,7 @@ const blank: OrderSpecInput = {
   epoxy: false,
   sandblast: false,
   packaging: 'individual_bag',
-  dueDate: new Date(Date.now() + 28 * 86_400_000).toISOString().slice(0, 10),
+  dueDate: factoryDateInDays(28),
   notes: '',
 };
 

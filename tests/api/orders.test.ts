@@ -291,6 +291,24 @@ describe('gates: payment and proof approval before release', () => {
     expect((await detail(order.id)).proofs[0].approvedAt).toBeNull();
   });
 
+  it('approval: the factory’s today counts, not the UTC date (07:30 in Shanghai is still yesterday in UTC)', async () => {
+    const DAY = 86_400_000;
+    // 23:30 UTC yesterday = 07:30 today in the factory (Asia/Shanghai, UTC+8 all year: IANA time zone database)
+    const at = Math.floor(Date.now() / DAY) * DAY - 30 * 60_000;
+    const factoryDay = new Date(at + DAY).toISOString().slice(0, 10);
+    t.setNow(at);
+    try {
+      const order = await createOrder();
+      await planner.post(`/api/orders/${order.id}/proofs`).attach('file', png(), 'art.png');
+      const tomorrow = await planner.post(`/api/orders/${order.id}/proofs/1/approve`).send({ approvedOn: new Date(at + 2 * DAY).toISOString().slice(0, 10) });
+      expect(tomorrow.status).toBe(400);
+      const ok = await planner.post(`/api/orders/${order.id}/proofs/1/approve`).send({ approvedOn: factoryDay });
+      expect(ok.status, JSON.stringify(ok.body)).toBe(200);
+    } finally {
+      t.setNow(null);
+    }
+  });
+
   it('only a manager may let an order go without payment, and it is recorded', async () => {
     const order = await createOrder();
     const refused = await planner.post(`/api/orders/${order.id}/payment`).send({ exception: true, reason: 'Pays on delivery as agreed' });

@@ -28,6 +28,12 @@ describe('each demo role signs in and lands on its home', () => {
     });
   }
 
+  it('the demo leaves no account that opens with the documented default admin password', async () => {
+    // README: admin@trayce.local / trayce-admin is the first admin of a non-demo start
+    const res = await fetch(`${base()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'admin@trayce.local', password: 'trayce-admin' }) });
+    expect(res.status).toBe(401);
+  });
+
   it('shows a wrong password as a readable error and stays on sign-in', async () => {
     const context = await browser.newContext({ viewport: DESKTOP });
     const page = await context.newPage();

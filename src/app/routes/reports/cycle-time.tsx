@@ -32,7 +32,7 @@ export function Component() {
   ];
   const fe = r?.flowEfficiency;
   return (
-    <ReportFrame {...frame} stations={stations.data ?? []} note={t('cycleTime.note')}>
+    <ReportFrame {...frame} percentiles stations={stations.data ?? []} note={t('cycleTime.note')}>
       {report.isPending ? (
         <Loading label={t('cycleTime.loading')} />
       ) : report.error ? (

@@ -31,6 +31,7 @@ export function Component() {
   return (
     <ReportFrame
       {...frame}
+      percentiles
       note="Lead time runs from release to the dispatch scan of the order’s last tray; working hours count only the factory’s shifts."
     >
       {report.isPending ? (

@@ -42,6 +42,7 @@ export function ReportFrame({
   csvUrl,
   children,
   note,
+  percentiles = false,
 }: {
   filters: ReportFilterValues;
   onChange: (patch: Partial<ReportFilterValues>) => void;
@@ -52,6 +53,8 @@ export function ReportFrame({
   csvUrl: string;
   children: ReactNode;
   note?: ReactNode;
+  /** the report shows percentiles: say how they are computed (only there) */
+  percentiles?: boolean;
 }) {
   return (
     <div className="flex flex-col gap-4">
@@ -106,7 +109,7 @@ export function ReportFrame({
       <p className="flex items-start gap-2 text-sm text-harbour-700">
         <Info className="mt-0.5 h-4 w-4 shrink-0" aria-hidden />
         <span>
-          Percentiles (p50, p85, p95) by the Hyndman &amp; Fan type 7 method, the default of R and NumPy; n, the number of values, is shown beside each.
+          {percentiles && 'Percentiles (p50, p85, p95) by the Hyndman & Fan type 7 method, the default of R and NumPy; n, the number of values, is shown beside each. '}
           Days are the factory’s local days. {note}
         </span>
       </p>

@@ -39,7 +39,8 @@ describe('reports', () => {
       const tile = page.getByTestId(id);
       await tile.waitFor();
       // each tile settles on figures, not on an error
-      await page.waitForFunction((sel) => !document.querySelector(`[data-testid="${sel}"] [role="progressbar"], [data-testid="${sel}"] [aria-busy="true"]`), id, { polling: 100 });
+      // (four weeks of yield read week by week: allow a loaded machine its time)
+      await page.waitForFunction((sel) => !document.querySelector(`[data-testid="${sel}"] [role="status"]`), id, { polling: 100, timeout: 120_000 });
       await expect(tile.getByRole('alert').count()).resolves.toBe(0);
       await expect(tile.innerText()).resolves.toMatch(/\d/);
     }

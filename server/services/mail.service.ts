@@ -5,6 +5,7 @@ import crypto from 'node:crypto';
 import nodemailer from 'nodemailer';
 import type { SendMailOptions } from 'nodemailer';
 import type { AppDeps } from '../app-deps';
+import { calendarService } from './calendar.service';
 import type { DbLike } from '../db/client';
 import { mailRepository, type MailRow } from '../repositories/mail.repository';
 import { shippingRepository } from '../repositories/shipping.repository';
@@ -122,7 +123,7 @@ export async function processMailQueue(deps: AppDeps, limit = 20): Promise<{ sen
 export function lateRiskOrders(deps: AppDeps): DigestOrder[] {
   const { timeZone } = shippingRepository.factory(deps.db);
   const open = shippingRepository.openOrders(deps.db);
-  const progress = loadProgress(deps.db, open, deps.now(), timeZone, { shipDates: measuredShipDates(deps, open.map((o) => o.id)) });
+  const progress = loadProgress(deps.db, open, deps.now(), timeZone, { shipDates: measuredShipDates(deps, open.map((o) => o.id)), calendar: calendarService.calendar(deps) });
   const out: DigestOrder[] = [];
   for (const o of open) {
     const p = progress.get(o.id)!;

@@ -2,6 +2,7 @@
 // shipments; from these the customer stage, the plain-words text, the quantities and the
 // projected ship date.
 import type { DbLike } from '../db/client';
+import type { WorkingCalendar } from '@shared/domain/calendar';
 import { shippingRepository, type ShipmentRow, type ShippingOrder } from '../repositories/shipping.repository';
 import { describeStage, orderStage, type OrderStage, type TravellerProgress } from '@shared/domain/stages';
 import {
@@ -48,6 +49,8 @@ export interface ProgressOptions {
   project?: boolean;
   /** measured ship dates by order (the projection service); others get the simple projection */
   shipDates?: Map<string, ShipDate>;
+  /** the factory's working calendar for the simple projection (default: the default week in `timeZone`) */
+  calendar?: WorkingCalendar;
 }
 
 export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, timeZone: string, options: ProgressOptions = {}): Map<string, OrderProgress> {
@@ -102,7 +105,7 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
     const measured = options.shipDates?.get(order.id);
     const open = status !== 'shipped' && status !== 'cancelled';
     const projection: ShipDate =
-      options.project === false ? { expectedAt: null, basis: '' } : open && measured ? measured : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone);
+      options.project === false ? { expectedAt: null, basis: '' } : open && measured ? measured : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone, options.calendar);
     const late =
       status === 'shipped'
         ? shippedAt != null && projectedPastDue(shippedAt, order.dueDate, timeZone)

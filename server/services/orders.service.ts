@@ -4,6 +4,7 @@
 // order-release (release, trays and moulds), order-import (CSV) and routing-templates.
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
+import { calendarService } from './calendar.service';
 import type { DbLike } from '../db/client';
 import { ordersRepository, type OrderRow } from '../repositories/orders.repository';
 import { traysRepository, type TrayRow, type TrayStateRow } from '../repositories/trays.repository';
@@ -130,7 +131,7 @@ function progressOf(deps: AppDeps, rows: { order: OrderRow; customer: string }[]
     contactEmail: null,
   }));
   // ship dates from the projection service (measured queues on the working calendar)
-  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), { project: true, shipDates: shipDateService.measuredShipDates(deps, list.map((o) => o.id)) });
+  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), { project: true, shipDates: shipDateService.measuredShipDates(deps, list.map((o) => o.id)), calendar: calendarService.calendar(deps) });
 }
 
 // ---------------------------------------------------------------------------------------

@@ -1,6 +1,7 @@
 // The sales view: find any order, say where it stands in plain words, when it will ship, what
 // has shipped, and what happened to it.
 import type { AppDeps } from '../app-deps';
+import { calendarService } from './calendar.service';
 import { shippingRepository } from '../repositories/shipping.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { AppError, badInput, notFound } from '../errors';
@@ -78,14 +79,14 @@ function history(deps: AppDeps, p: OrderProgress): HistoryEntry[] {
 export const salesService = {
   search(deps: AppDeps, q: string | undefined, limit: number): SalesOrderRow[] {
     const list = shippingRepository.search(deps.db, q, limit);
-    const progress = loadProgress(deps.db, list, deps.now(), shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, list.map((o) => o.id)) });
+    const progress = loadProgress(deps.db, list, deps.now(), shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, list.map((o) => o.id)), calendar: calendarService.calendar(deps) });
     return list.map((o) => row(progress.get(o.id)!));
   },
 
   detail(deps: AppDeps, orderId: string): SalesOrderDetail {
     const order = shippingRepository.order(deps.db, orderId);
     if (!order) throw notFound('That order');
-    const p = loadProgress(deps.db, [order], deps.now(), shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, [orderId]) }).get(orderId)!;
+    const p = loadProgress(deps.db, [order], deps.now(), shippingRepository.factory(deps.db).timeZone, { shipDates: measuredShipDates(deps, [orderId]), calendar: calendarService.calendar(deps) }).get(orderId)!;
     const cartons = shippingRepository.cartons(deps.db, orderId);
     const released = ['released', 'in_production', 'packed', 'shipped', 'on_hold'].includes(p.status);
     const owner = order.salesOwnerId ? shippingRepository.user(deps.db, order.salesOwnerId) : undefined;

@@ -3,6 +3,7 @@
 // live token sees one order's title, customer, stage, projected date and tracking: nothing else.
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
+import { calendarService } from './calendar.service';
 import type { DbLike } from '../db/client';
 import { shareLinksRepository, type QuoteLinkRow } from '../repositories/share-links.repository';
 import { shippingRepository } from '../repositories/shipping.repository';
@@ -78,7 +79,7 @@ function contactAddress(deps: AppDeps): string | null {
 export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow, order: ShippingOrder): PublicStatus {
   const now = deps.now();
   const factory = shippingRepository.factory(deps.db);
-  const p = loadProgress(deps.db, [order], now, factory.timeZone, { shipDates: measuredShipDates(deps, [order.id]) }).get(order.id)!;
+  const p = loadProgress(deps.db, [order], now, factory.timeZone, { shipDates: measuredShipDates(deps, [order.id]), calendar: calendarService.calendar(deps) }).get(order.id)!;
   const last = p.shipments.at(-1);
   const row = ordersRepository.byId(deps.db, order.id)!;
   const done = new Set(p.stage.stages.filter((s) => s.done).map((s) => s.key));

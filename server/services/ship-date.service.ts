@@ -3,7 +3,8 @@
 // The dates come from the projection service (measured queue times, the working calendar,
 // sampled runs). For an order that service does not cover, the simple projection here is
 // used: each open tray's remaining standard minutes plus a fixed queue allowance per step, on
-// the default working calendar (ovens continuous). It needs no history.
+// the factory's working calendar when the caller gives it (else the default week, ovens
+// continuous). It needs no history.
 import type { AppDeps } from '../app-deps';
 import { compileCalendar, defaultCalendarConfig, type WorkingCalendar } from '@shared/domain/calendar';
 import { projectTrays, type TrayOutlook } from '@shared/domain/projection';
@@ -59,6 +60,7 @@ export function projectOrder(
   input: { status: string; travellers: ProjectionTraveller[]; steps: ProjectionStep[] },
   now: number,
   timeZone: string,
+  calendar: WorkingCalendar = calendarFor(timeZone),
 ): ShipDate {
   const open = ['released', 'in_production', 'packed', 'on_hold'];
   if (!open.includes(input.status) || input.travellers.length === 0) return { expectedAt: null, basis: BASIS_TEXT };
@@ -81,7 +83,7 @@ export function projectOrder(
       onHold: t.onHold,
     };
   });
-  const p = projectTrays(outlooks, { now, calendar: calendarFor(timeZone), queueSamples: {}, runs: 0, defaultQueueMinutes: SIMPLE_QUEUE_MINUTES });
+  const p = projectTrays(outlooks, { now, calendar, queueSamples: {}, runs: 0, defaultQueueMinutes: SIMPLE_QUEUE_MINUTES });
   return { expectedAt: p.expectedAt, basis: BASIS_TEXT };
 }
 

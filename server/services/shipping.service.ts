@@ -2,6 +2,7 @@
 // checks, the packing list, the shipped mail, and the order's packed / shipped status.
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
+import { calendarService } from './calendar.service';
 import type { DbLike } from '../db/client';
 import { shippingRepository, type CartonRow, type ShipmentRow } from '../repositories/shipping.repository';
 import { auditRepository } from '../repositories/audit.repository';
@@ -52,7 +53,7 @@ function shipmentViews(db: DbLike, rows: ShipmentRow[], cartons: CartonRow[]): S
 function progressOf(deps: AppDeps, orderId: string): OrderProgress {
   const order = shippingRepository.order(deps.db, orderId);
   if (!order) throw notFound('That order');
-  return loadProgress(deps.db, [order], deps.now(), shippingRepository.factory(deps.db).timeZone).get(orderId)!;
+  return loadProgress(deps.db, [order], deps.now(), shippingRepository.factory(deps.db).timeZone, { calendar: calendarService.calendar(deps) }).get(orderId)!;
 }
 
 function assertShippable(p: OrderProgress) {

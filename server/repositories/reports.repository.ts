@@ -230,6 +230,11 @@ export const reportsRepository = {
       .all(stationKind, since, limit) as { readyAt: number; startedAt: number; stationId: string | null }[];
   },
 
+  /** The time of the latest scan on the floor (null on an empty floor): where the data ends. */
+  lastScanAt(db: Db): number | null {
+    return (client(db).prepare('select max(occurred_at) at from scan_events').get() as { at: number | null }).at;
+  },
+
   customers(db: Db): { id: string; name: string }[] {
     return client(db).prepare('select id, name from customers order by name').all() as { id: string; name: string }[];
   },

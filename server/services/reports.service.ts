@@ -302,8 +302,14 @@ export const reportsService = {
     return { window: w.info, steps, orders, scrap, rework: { qty: steps.reduce((s, x) => s + x.reworkQty, 0) } };
   },
 
+  /**
+   * The filters' choices, and the last factory day with scans: the report pages open on the four
+   * weeks that end there, not on weeks without data.
+   */
   filters(deps: AppDeps) {
-    return { customers: repo.customers(deps.db) };
+    const last = repo.lastScanAt(deps.db);
+    const lastDataDay = last == null ? null : localDate(calendarService.timeZone(deps), Math.min(last, deps.now()));
+    return { customers: repo.customers(deps.db), lastDataDay };
   },
 };
 

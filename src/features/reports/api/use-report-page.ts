@@ -8,9 +8,10 @@ import { useReportFilters } from '../components/use-report-filters';
  * frame's props (filter bar, customers, CSV link of the same report with the same filters).
  */
 export function useReportPage<N extends ReportName>(name: N, use: { station?: boolean; bucket?: boolean } = {}) {
-  const [filters, setFilters] = useReportFilters();
+  const [filters, setFilters, ready] = useReportFilters();
   const params = filterParams(filters, use);
-  const report = useReport(name, params);
+  // wait for the default period (the last four weeks with data) before asking for the report
+  const report = useReport(name, params, ready);
   const options = useReportFilterOptions();
   return {
     filters,

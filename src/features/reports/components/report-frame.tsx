@@ -3,7 +3,7 @@ import { Download, Info } from 'lucide-react';
 import { PROCESSES } from '@shared/domain/vocabulary';
 import { humanise } from '@/lib/labels';
 import { factoryTodayDate } from '@/lib/datetime';
-import { dateOfDayNumber, dayNumberOfDate } from '@shared/domain/calendar';
+import { defaultWindow } from '../lib/summary';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Card } from '@/components/ui/panels';
 
@@ -16,10 +16,9 @@ export interface ReportFilterValues {
   bucket: string;
 }
 
-export function defaultFilters(): ReportFilterValues {
-  // the last 90 days up to today on the factory's clock, as the server reads "from" and "to"
-  const to = factoryTodayDate();
-  const from = dateOfDayNumber(dayNumberOfDate(to) - 89);
+export function defaultFilters(lastDataDay?: string | null): ReportFilterValues {
+  // the last four weeks with data (factory days, as the server reads "from" and "to")
+  const { from, to } = defaultWindow(lastDataDay, factoryTodayDate());
   return { from, to, process: '', customerId: '', stationId: '', bucket: 'day' };
 }
 

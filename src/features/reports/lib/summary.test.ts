@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { lastWeeks, yieldTotals } from './summary';
+import { defaultWindow, lastWeeks, yieldTotals } from './summary';
 
 describe('manager summary figures', () => {
   it('the last four weeks end today and do not overlap (28 days)', () => {
@@ -24,5 +24,13 @@ describe('manager summary figures', () => {
     expect(t.scrapRate).toBeCloseTo(4 / 150, 10);
     expect(t.inQty).toBe(150);
     expect(yieldTotals([])).toEqual({ firstPassYield: null, scrapRate: null, inQty: 0 });
+  });
+
+  it('reports open on the last four weeks with data, not on empty weeks', () => {
+    // data ended three weeks ago: the window ends there (28 days, both ends included)
+    expect(defaultWindow('2026-11-13', '2026-12-04')).toEqual({ from: '2026-10-17', to: '2026-11-13' });
+    // data up to today, or none at all: the four weeks up to today
+    expect(defaultWindow('2026-12-04', '2026-12-04')).toEqual({ from: '2026-11-07', to: '2026-12-04' });
+    expect(defaultWindow(null, '2026-12-04')).toEqual({ from: '2026-11-07', to: '2026-12-04' });
   });
 });

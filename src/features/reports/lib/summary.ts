@@ -36,3 +36,12 @@ export function yieldTotals(steps: readonly Pick<YieldStep, 'inQty' | 'firstPass
   }
   return { firstPassYield: inQty ? passed / inQty : null, scrapRate: inQty ? scrap / inQty : null, inQty };
 }
+
+/**
+ * The period a report opens on: the last four weeks with data, i.e. the 28 factory days that end
+ * on the last day with scans (or today on an empty floor, or when the data reaches today).
+ */
+export function defaultWindow(lastDataDay: string | null | undefined, today: string): DayRange {
+  const to = lastDataDay && lastDataDay < today ? lastDataDay : today;
+  return { from: dateOfDayNumber(dayNumberOfDate(to) - 27), to };
+}

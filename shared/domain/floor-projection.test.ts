@@ -114,3 +114,29 @@ describe('waits drawn from history', () => {
     expect(both.get('A')!.p85At!).toBeGreaterThanOrEqual(alone.get('A')!.p85At!);
   });
 });
+
+describe("the floor's day-to-day pace", () => {
+  // 12 days, 10 handovers a day at a station with room to spare: 20 min on even days, 40 on odd
+  const queues = Array.from({ length: 120 }, (_, i) => {
+    const d = Math.floor(i / 10);
+    const readyAt = T0 - 20 * 86_400_000 + d * 86_400_000 + (i % 10) * 30 * MIN;
+    return { stationKind: 'trim', travellerKind: 'tray' as const, orderId: `p${i}`, stationId: null, readyAt, startedAt: readyAt + (d % 2 ? 40 : 20) * MIN, lead: true };
+  });
+  const model = measureFloor({ ...none, queues }, calendar, [{ kind: 'trim', capacityTrays: 50 }]);
+
+  it('is each day’s mean handover over the mean of the days (20 and 40 min → 2/3 and 4/3)', () => {
+    // hand-worked: mean of the day means = 30 min; 20/30 and 40/30, six days each
+    expect(model.pace).toHaveLength(12);
+    expect(model.pace[0]).toBeCloseTo(2 / 3, 10);
+    expect(model.pace[11]).toBeCloseTo(4 / 3, 10);
+    expect(measureFloor({ ...none, queues: queues.slice(0, 50) }, calendar, [{ kind: 'trim', capacityTrays: 50 }]).pace).toHaveLength(0);
+  });
+
+  it('spreads the runs without moving their mean much', () => {
+    const snap: FloorSnapshot = { now: T0, orders: [order('P', 1, [step(1, 'trim', 10), step(2, 'trim', 10)])], measured: none };
+    const flat = projectFloor(snap, { calendar, model, runs: 400, pace: false }).get('P')!;
+    const paced = projectFloor(snap, { calendar, model, runs: 400 }).get('P')!;
+    expect(paced.p85At! - paced.expectedAt!).toBeGreaterThan(flat.p85At! - flat.expectedAt!);
+    expect(Math.abs(paced.expectedAt! - flat.expectedAt!)).toBeLessThan(5 * MIN);
+  });
+});

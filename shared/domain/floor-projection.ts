@@ -28,6 +28,11 @@ import type { RoutingStep, TrayState } from './vocabulary';
 import { MOULD_USING_KINDS } from './routing';
 
 const MINUTE = 60_000;
+const DAY_MS = 86_400_000;
+/** days with fewer measured handovers than this say little about the floor's pace */
+const PACE_MIN_SAMPLES = 8;
+/** fewer measured days than this: no day-to-day pace */
+const PACE_MIN_DAYS = 10;
 const MOULD_STEP_KINDS = new Set(['engrave', 'mould_check']);
 
 // ---- measured history ----------------------------------------------------------------------
@@ -95,6 +100,12 @@ export interface FloorModel {
   hold: WaitDistribution;
   /** places per kind (sum of stations' capacityTrays) */
   places: Map<string, number>;
+  /**
+   * The floor's pace, day by day: each measured day's mean handover wait over the mean of all
+   * days (mean 1). A run draws one day's pace for all its handovers, so slow days slow every
+   * order together (a bootstrap of whole days, not of single waits).
+   */
+  pace: Float64Array;
   /** measured samples, for the explanation */
   counts: { queues: number; processes: number; dispatches: number };
 }
@@ -192,6 +203,22 @@ export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalenda
   }
   const ratio = new Map<string, Float64Array>();
   for (const [k, v] of ratioRaw) if (v.length >= minSamples) ratio.set(k, Float64Array.from(v).sort());
+  // day-to-day pace: each day's mean handover wait (trays, own kinds) over the mean of the days
+  const byDay = new Map<number, { sum: number; n: number }>();
+  for (const [kind, rows] of byKind) {
+    if (MOULD_STEP_KINDS.has(kind)) continue;
+    const cap = places.get(kind) ?? Infinity;
+    for (const r of latest(rows, (x) => x.startedAt, perKind)) {
+      if (!(r.lead ?? busyAt(kind, r.readyAt) < cap)) continue;
+      const d = Math.floor(r.readyAt / DAY_MS);
+      const e = byDay.get(d) ?? byDay.set(d, { sum: 0, n: 0 }).get(d)!;
+      e.sum += wm(r);
+      e.n++;
+    }
+  }
+  const dayMeans = [...byDay.values()].filter((e) => e.n >= PACE_MIN_SAMPLES).map((e) => e.sum / e.n);
+  const meanOfDays = dayMeans.reduce((a, b) => a + b, 0) / (dayMeans.length || 1);
+  const pace = dayMeans.length >= PACE_MIN_DAYS && meanOfDays > 0 ? Float64Array.from(dayMeans.map((m) => m / meanOfDays)).sort() : new Float64Array();
   const trayWaits = measured.queues.filter((q) => q.travellerKind === 'tray').length;
   return {
     holdRate: trayWaits ? Math.min(1, measured.holds.length / trayWaits) : 0,
@@ -201,6 +228,7 @@ export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalenda
     dispatch: new WaitDistribution(dispatchWaits),
     ratio,
     places,
+    pace,
     counts: { queues: measured.queues.length, processes: measured.processes.length, dispatches: dispatchWaits.length },
   };
 }
@@ -217,6 +245,8 @@ export interface ProjectFloorOptions {
   capacity?: boolean;
   /** how a freed place picks the next traveller (default earliest due date, then first to ask) */
   rule?: 'due_date' | 'first_come';
+  /** false: every run at the floor's average pace (no day-to-day pace drawn) */
+  pace?: boolean;
 }
 
 export interface OrderOutlook {
@@ -367,6 +397,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
   const runs = Math.max(1, o.runs ?? 100);
   const seed = o.seed ?? 1;
   const capacity = o.capacity !== false;
+  const usePace = capacity && o.pace !== false && o.model.pace.length > 0;
   const firstCome = o.rule === 'first_come';
   const { calendar, model } = o;
   const orders = snapshot.orders;
@@ -441,6 +472,8 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
     const mouldsReadyAt = orders.map((_, oi) => (mouldsOpen[oi] === 0 ? now : Infinity));
     const parked: number[][] = orders.map(() => []);
     const ship = orders.map(() => -Infinity);
+    // the run's pace: one measured day's, the same for every order (drawn from the run number only)
+    const paceR = usePace ? model.pace[Math.floor(hashU(0x5eed, seed, r) * model.pace.length)] : 1;
 
     const start = (si: number, at: number) => {
       const s = sims[si];
@@ -488,7 +521,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
       }
       // the handover is the order's: its trays reach a step together and share the draw
       const q0 = waitDist[k].drawRemaining(waited, capacity ? hashU(orderSeed[oi], s.steps[s.idx].seq, r) : nextU(s));
-      let q = q0;
+      let q = q0 * paceR;
       // a tray now and then waits on hold for a decision (measured rate and length)
       if (s.kind === 'tray') {
         if (s.idx === 0 && s.heldFor >= 0) q += model.hold.drawRemaining(s.heldFor, nextU(s));

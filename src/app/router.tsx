@@ -43,6 +43,7 @@ export const router = createBrowserRouter([
               { path: 'outbox', lazy: () => import('./routes/admin/outbox') },
               { path: 'calendar', lazy: () => import('./routes/admin/calendar') },
               { path: 'routing-templates', lazy: () => import('./routes/admin/routing-templates') },
+              { path: 'costing', lazy: () => import('./routes/admin/costing') },
             ],
           },
           { path: 'orders', lazy: () => import('./routes/orders/list') },

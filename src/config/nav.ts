@@ -1,5 +1,5 @@
 import type { LucideIcon } from 'lucide-react';
-import { CalendarClock, ShieldAlert, ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail, FileText } from 'lucide-react';
+import { CalendarClock, ShieldAlert, ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail, FileText, Calculator } from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { QUOTING } from '@shared/domain/access';
 import type { CommonStrings } from '@/lib/i18n/common/en';
@@ -60,4 +60,5 @@ export const ADMIN_SECTIONS: Omit<NavItem, 'roles'>[] = [
   { to: paths.adminOutbox, label: 'adminOutbox', icon: Mail },
   { to: paths.adminCalendar, label: 'adminCalendar', icon: CalendarClock },
   { to: paths.adminRoutingTemplates, label: 'adminTemplates', icon: Route },
+  { to: paths.adminCosting, label: 'adminCosting', icon: Calculator },
 ];

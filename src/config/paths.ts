@@ -33,6 +33,7 @@ export const paths = {
   adminBackups: '/admin/backups',
   adminOutbox: '/admin/outbox',
   adminCalendar: '/admin/calendar',
+  adminCosting: '/admin/costing',
   publicStatus: (token: string) => `/status/${token}`,
 } as const;
 

@@ -109,3 +109,27 @@ describe('quoted against actual for the manager', () => {
     await office.close();
   });
 });
+
+describe('the costing rates for the admin', () => {
+  it('shows every rate in one form, refuses a bad one and saves a good one', async () => {
+    const office = await browser.newContext({ viewport: DESKTOP, locale: 'en-GB' });
+    const page = await signInAs(office, base(), 'admin@tallowmere.test', DEMO_PASSWORD);
+    await page.goto(`${base()}/admin/costing`);
+    await page.getByRole('heading', { name: 'Costing rates' }).waitFor();
+    // the published density of iron (CRC Handbook) is the default
+    await expect(page.getByLabel('Iron').first().inputValue()).resolves.toBe('7.874');
+    const margin = page.getByLabel('Margin, % of the price');
+    const before = await margin.inputValue();
+    await margin.fill('95');
+    await page.getByRole('button', { name: 'Save the rates' }).click();
+    await page.getByRole('alert').filter({ hasText: /90/ }).first().waitFor();
+    await margin.fill('32');
+    await page.getByRole('button', { name: 'Save the rates' }).click();
+    await page.getByText('Saved. The next quote is priced with these rates.').waitFor();
+    const saved = (await (await office.request.get(`${base()}/api/admin/costing`)).json()) as { marginPct: number };
+    expect(saved.marginPct).toBe(32);
+    await screenshot(page, 'costing-3-admin-rates');
+    await office.request.put(`${base()}/api/admin/costing`, { data: { marginPct: Number(before) } });
+    await office.close();
+  });
+});

@@ -56,6 +56,7 @@ export const en = {
     adminOutbox: 'Outbox',
     adminCalendar: 'Working calendar',
     adminTemplates: 'Routing templates',
+    adminCosting: 'Costing rates',
     adminSettings: 'Settings',
   },
   signIn: {

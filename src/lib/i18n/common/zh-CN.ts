@@ -56,6 +56,7 @@ export const zhCN: CommonStrings = {
     adminOutbox: '发件箱',
     adminCalendar: '工作日历',
     adminTemplates: '工艺路线模板',
+    adminCosting: '成本费率',
     adminSettings: '设置',
   },
   signIn: {

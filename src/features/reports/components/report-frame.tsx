@@ -139,8 +139,9 @@ export function StatTable({ head, rows, label }: { head: string[]; rows: (string
     <table className="w-full text-left text-sm" aria-label={label}>
       <thead className="sticky top-0 bg-white">
         <tr className="border-b-2 border-harbour-100">
-          {head.map((h) => (
-            <th key={h} scope="col" className="px-2 py-2 font-bold">
+          {head.map((h, j) => (
+            // a column of numbers has its header over the numbers, on the right
+            <th key={h} scope="col" className={`px-2 py-2 font-bold ${rows.length > 0 && rows.every((r) => typeof r[j] === 'number') ? 'text-right' : ''}`}>
               {h}
             </th>
           ))}

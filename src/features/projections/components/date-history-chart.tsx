@@ -34,7 +34,7 @@ export function DateHistoryChart({ orderId }: { orderId: string }) {
               <LineChart data={points} margin={{ top: 8, right: 16, bottom: 4, left: 8 }}>
                 <CartesianGrid strokeDasharray="3 3" />
                 <XAxis dataKey="x" type="number" scale="time" domain={['dataMin', 'dataMax']} tick={axis} tickFormatter={(v: number) => formatDate(new Date(v).toISOString())} />
-                <YAxis type="number" domain={['auto', 'auto']} tick={axis} width={96} tickFormatter={(v: number) => formatDate(new Date(v).toISOString())} />
+                <YAxis type="number" domain={['auto', 'auto']} tick={axis} width={150} tickCount={4} tickFormatter={(v: number) => formatDateTime(new Date(v).toISOString())} />
                 <Tooltip labelFormatter={(v) => formatDateTime(new Date(Number(v)).toISOString())} formatter={(v) => formatDateTime(new Date(Number(v)).toISOString())} />
                 <Legend />
                 <Line dataKey="expected" name={t('history.expected')} stroke="#1f5a63" strokeWidth={2} dot isAnimationActive={false} connectNulls />
@@ -44,7 +44,7 @@ export function DateHistoryChart({ orderId }: { orderId: string }) {
           </div>
           <CoverageNote />
           <details>
-            <summary className="cursor-pointer font-bold text-harbour-700">{t('history.date')}</summary>
+            <summary className="cursor-pointer font-bold text-harbour-700">{t('history.table')}</summary>
             <table className="mt-2 w-full text-left text-sm">
               <thead>
                 <tr className="border-b border-harbour-100 text-harbour-700">

@@ -18,6 +18,7 @@ export function WhatIfPanel({ withSpec }: { withSpec: (then: (spec: OrderSpec) =
   const ask = useWhatIf();
   const { isPending: pending, error, data: result } = ask;
   const [releaseAt, setReleaseAt] = useState('');
+  const laterBy = (ms: number) => (ms >= HOUR ? t('whatIf.hours', { count: Math.round(ms / HOUR) }) : t('whatIf.minutes', { count: Math.max(1, Math.round(ms / 60_000)) }));
   const releaseIso = releaseAt && !Number.isNaN(Date.parse(releaseAt)) ? new Date(releaseAt).toISOString() : undefined;
   return (
     <section aria-labelledby="what-if-title" className="flex flex-col gap-3 rounded-xl border-2 border-harbour-100 bg-harbour-50 p-4">
@@ -68,7 +69,7 @@ export function WhatIfPanel({ withSpec }: { withSpec: (then: (spec: OrderSpec) =
                       <td className="py-1 pr-4 font-bold">{i.number}</td>
                       <td className="py-1 pr-4">{formatDateTime(i.p85Before)}</td>
                       <td className="py-1 pr-4">{formatDateTime(i.p85After)}</td>
-                      <td className="py-1">{t('whatIf.hours', { count: Math.round((Date.parse(i.p85After) - Date.parse(i.p85Before)) / HOUR) })}</td>
+                      <td className="py-1">{laterBy(Date.parse(i.p85After) - Date.parse(i.p85Before))}</td>
                     </tr>
                   ))}
                 </tbody>

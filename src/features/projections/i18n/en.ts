@@ -20,6 +20,7 @@ export const en = {
     impactAfter: 'Ships by with this order',
     impactBy: 'Later by',
     hours: '{{count}} h',
+    minutes: '{{count}} min',
   },
   coverage: {
     label: '85 % of orders like this shipped by then',
@@ -35,6 +36,7 @@ export const en = {
     date: 'Day',
     drivingKind: 'Longest wait at',
     release: 'Released',
+    table: 'The points as a table',
     chartLabel: 'Projected ship date by day',
   },
 };

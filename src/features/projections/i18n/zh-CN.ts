@@ -20,6 +20,7 @@ export const zhCN = {
     impactAfter: '接下此单后不晚于',
     impactBy: '推迟',
     hours: '{{count}} 小时',
+    minutes: '{{count}} 分钟',
   },
   coverage: {
     label: '同类订单中有 85 % 在此日期前出货',
@@ -35,6 +36,7 @@ export const zhCN = {
     date: '日期',
     drivingKind: '等待最久的工位',
     release: '下发',
+    table: '以表格查看各点',
     chartLabel: '每天的预计出货日期',
   },
 };

@@ -12,10 +12,21 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
+        // pure tests: the domain, the client's libraries and the server's libraries (no app, no database)
         test: {
           name: 'unit',
           environment: 'node',
-          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'src/**/*.test.ts', 'tests/api/**/*.test.ts'],
+          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'src/**/*.test.ts'],
+          testTimeout: 20_000,
+        },
+      },
+      {
+        resolve: { alias },
+        // the HTTP API on a copy of a migrated, base-seeded database per test file
+        test: {
+          name: 'api',
+          environment: 'node',
+          include: ['tests/api/**/*.test.ts'],
           globalSetup: ['tests/setup/global-db.ts'],
           testTimeout: 20_000,
         },

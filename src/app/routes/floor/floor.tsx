@@ -1,4 +1,5 @@
 import { useEffect } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Link, useLocation } from 'react-router';
 import { Flame, MonitorPlay, Radio, WifiOff } from 'lucide-react';
 import { FLOOR_LEADS } from '@shared/domain/access';
@@ -14,6 +15,7 @@ export const loader = () => queryClient.ensureQueryData(wallQueryOptions());
 
 /** The supervisor's floor: the wall's picture inside the app, with the way to the big screen and the loads. */
 export function Component() {
+  const { t } = useTranslation('live');
   const wall = useWall();
   const status = useLiveWall();
   // the wall's "+N more" opens a list here (#needs-supervisor, #at-risk)
@@ -25,20 +27,20 @@ export function Component() {
   return (
     <>
       <PageHeader
-        title="Floor"
+        title={t('floor.title')}
         subtitle={
           <span className="flex items-center gap-2" role="status">
             {status === 'live' ? <Radio className="h-5 w-5" aria-hidden /> : <WifiOff className="h-5 w-5" aria-hidden />}
-            {status === 'live' ? 'Live: updates as trays are scanned' : 'Reconnecting to the floor…'}
+            {status === 'live' ? t('floor.live') : t('floor.reconnecting')}
           </span>
         }
         actions={
           <>
             <Link to={paths.loads} className="flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50">
-              <Flame className="h-5 w-5" aria-hidden /> Oven &amp; bath loads
+              <Flame className="h-5 w-5" aria-hidden /> {t('floor.loads')}
             </Link>
             <a href={paths.wall} className="flex min-h-11 items-center gap-2 rounded-lg bg-harbour-800 px-4 font-bold text-white hover:bg-harbour-700">
-              <MonitorPlay className="h-5 w-5" aria-hidden /> Open the wall screen
+              <MonitorPlay className="h-5 w-5" aria-hidden /> {t('floor.openWall')}
             </a>
           </>
         }

@@ -1,11 +1,15 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { Link } from 'react-router';
+import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { AlertOctagon, CircleDashed, Clock, Flame, Hand, Hourglass, PackageCheck, PauseCircle, ShieldAlert, Timer, TrendingUp, Wrench } from 'lucide-react';
 import type { WallView } from '@shared/schemas/live';
 import type { WipKind } from '@shared/schemas/reports';
 import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
 import type { StationKind } from '@shared/domain/vocabulary';
-import { factoryTime, minutesText } from '@/lib/duration';
+import { factoryTime } from '@/lib/duration';
+import { formatDueDay } from '@/lib/datetime';
+import { i18n } from '@/lib/i18n';
 import { paths } from '@/config/paths';
 import { cures } from '@shared/domain/traveller/station-kinds';
 
@@ -40,10 +44,22 @@ const THEMES = {
   },
 } as const;
 
+/** A kind of station by the name the tablets use, in the reader's language. */
 export const kindName = (k: string) => {
   const n = STATION_KIND_NAMES[k as StationKind] ?? k.replace(/_/g, ' ');
-  return n.charAt(0).toUpperCase() + n.slice(1);
+  const en = n.charAt(0).toUpperCase() + n.slice(1);
+  return i18n.t(`common:kind.${k}` as 'common:kind.fill', { defaultValue: en });
 };
+
+/** 95 -> "1 h 35 min"; 2900 -> "2 d 0 h", in the reader's language */
+function minutesText(min: number | null | undefined): string {
+  if (min == null || !Number.isFinite(min)) return '–';
+  const m = Math.max(0, Math.round(min));
+  if (m < 60) return i18n.t('common:duration.minutes', { m });
+  const h = Math.floor(m / 60);
+  if (h < 48) return i18n.t('common:duration.hoursMinutes', { h, m: m % 60 });
+  return i18n.t('common:duration.days', { d: Math.floor(h / 24), h: h % 24 });
+}
 
 const fmt = (n: number) => n.toLocaleString('en-GB');
 
@@ -58,23 +74,24 @@ export function useNow() {
 }
 
 /** "17 min 26 s left": a countdown never reads as a clock time. */
-export function leftText(ms: number): string {
+export function leftText(ms: number, t: TFunction<'live'> = i18n.getFixedT(null, 'live')): string {
   const s = Math.max(0, Math.floor(ms / 1000));
   const h = Math.floor(s / 3600);
   const m = Math.floor((s % 3600) / 60);
-  return h > 0 ? `${h} h ${m} min left` : `${m} min ${s % 60} s left`;
+  return h > 0 ? t('board.leftHours', { h, m }) : t('board.leftMinutes', { m, s: s % 60 });
 }
 
 // Everything on the wall is read from about 3 m: no text under 28 px (text-3xl is 30 px).
 function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme; testId: string; quiet: boolean }) {
   const t = THEMES[theme];
+  const { t: tr } = useTranslation('live');
   return (
-    <div className="flex min-w-0 items-baseline justify-between gap-2" title={`${fmt(pieces)} pieces`}>
+    <div className="flex min-w-0 items-baseline justify-between gap-2" title={tr('board.pieces', { pieces: fmt(pieces) })}>
       <span className={`flex min-w-0 items-center gap-1 truncate text-3xl ${t.muted}`}>
         {icon}
         {label}
       </span>
-      <span className={`${quiet ? 'text-3xl' : 'text-4xl'} leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`} aria-label={`${fmt(trays)} ${trays === 1 ? 'tray' : 'trays'}, ${fmt(pieces)} pieces`}>
+      <span className={`${quiet ? 'text-3xl' : 'text-4xl'} leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`} aria-label={tr(trays === 1 ? 'board.countOne' : 'board.countMany', { trays: fmt(trays), pieces: fmt(pieces) })}>
         {fmt(trays)}
       </span>
     </div>
@@ -83,6 +100,7 @@ function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: Re
 
 export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: WallTheme; bottleneck: boolean }) {
   const t = THEMES[theme];
+  const { t: tr } = useTranslation('live');
   const idle = kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
   const oven = cures(kind.stationKind);
   // An empty station looks quiet through a dashed outline, smaller figures and the word "Empty",
@@ -99,30 +117,30 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
       </h2>
       {bottleneck && (
         <span className={`flex w-fit items-center gap-1 rounded-full px-2 text-3xl font-bold ${t.badge}`} data-testid="bottleneck-badge">
-          <TrendingUp className="h-7 w-7" aria-hidden /> Bottleneck
+          <TrendingUp className="h-7 w-7" aria-hidden /> {tr('board.bottleneck')}
         </span>
       )}
       {idle && !bottleneck && (
         <span className={`flex w-fit items-center gap-1 text-3xl font-bold ${t.strong}`} data-testid="idle">
-          <CircleDashed className="h-7 w-7" aria-hidden /> Empty
+          <CircleDashed className="h-7 w-7" aria-hidden /> {tr('board.empty')}
         </span>
       )}
       <div className="flex flex-col">
-        <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label="Waiting" quiet={idle} trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
+        <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label={tr('board.waiting')} quiet={idle} trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
         {oven ? (
-          <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label="Curing" quiet={idle} trays={kind.curing.trays} pieces={kind.curing.pieces} />
+          <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label={tr('board.curing')} quiet={idle} trays={kind.curing.trays} pieces={kind.curing.pieces} />
         ) : (
-          <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label="In process" quiet={idle} trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
+          <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label={tr('board.inProcess')} quiet={idle} trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
         )}
-        {kind.held > 0 && <Figure theme={theme} testId="held" icon={<PauseCircle className="h-7 w-7" aria-hidden />} label="Held" quiet={false} trays={kind.held} pieces={0} />}
+        {kind.held > 0 && <Figure theme={theme} testId="held" icon={<PauseCircle className="h-7 w-7" aria-hidden />} label={tr('board.held')} quiet={false} trays={kind.held} pieces={0} />}
       </div>
       <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-3xl ${t.muted}`}>
         {kind.oldestMinutes != null && (
-          <span className="flex items-center gap-1" aria-label={`Oldest waiting ${minutesText(kind.oldestMinutes)}`}>
+          <span className="flex items-center gap-1" aria-label={tr('board.oldestWaiting', { time: minutesText(kind.oldestMinutes) })}>
             <Clock className="h-7 w-7" aria-hidden /> <strong className={t.strong}>{minutesText(kind.oldestMinutes)}</strong>
           </span>
         )}
-        {kind.moulds > 0 && <span>{kind.moulds} {kind.moulds === 1 ? 'mould' : 'moulds'}</span>}
+        {kind.moulds > 0 && <span>{tr(kind.moulds === 1 ? 'board.mouldOne' : 'board.mouldMany', { count: kind.moulds })}</span>}
       </footer>
     </section>
   );
@@ -143,11 +161,12 @@ function Panel({ title, icon, children, theme, count, id }: { title: string; ico
 
 /** "+N more": the wall shows a few one-line entries; the whole list is on the floor page. */
 function More({ shown, total, to, theme }: { shown: number; total: number; to: string; theme: WallTheme }) {
+  const { t } = useTranslation('live');
   if (total <= shown) return null;
   return (
     <li>
       <Link to={to} className={`inline-flex min-h-11 items-center font-bold underline ${THEMES[theme].accent}`} data-testid="more">
-        +{total - shown} more
+        {t('board.more', { count: total - shown })}
       </Link>
     </li>
   );
@@ -156,14 +175,15 @@ function More({ shown, total, to, theme }: { shown: number; total: number; to: s
 /** The whole floor on one screen: a tile per kind of work, and what needs someone's attention. */
 export function WallBoard({ view, theme, compact = false }: { view: WallView; theme: WallTheme; compact?: boolean }) {
   const t = THEMES[theme];
+  const { t: tr } = useTranslation('live');
   const now = useNow();
   const active = view.wip.kinds.filter((k) => k.stations.length > 0 || k.waiting.trays + k.inProcess.trays + k.curing.trays + k.moulds > 0);
   const tz = view.timeZone;
   // one list of what waits for a supervisor: refusals, holds, then overrides already used
   const needs = [
-    ...view.refusals.map((r) => ({ key: `r${r.id}`, icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />, label: 'Refused', text: `${r.trayNumber ?? 'unknown tray'} · ${r.stationName ?? 'a station'}`, full: r.message, muted: false })),
-    ...view.holds.map((h) => ({ key: `h${h.trayId}`, icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />, label: 'On hold', text: `${h.number} · ${h.reason ?? kindName(h.stationKind)}`, full: h.reason ?? '', muted: false })),
-    ...view.overrides.map((o) => ({ key: `o${o.id}`, icon: <Hand className="mr-1 inline h-7 w-7" aria-hidden />, label: 'Override', text: `${o.trayNumber} · ${o.supervisorName ?? 'a supervisor'}`, full: o.reason, muted: true })),
+    ...view.refusals.map((r) => ({ key: `r${r.id}`, icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.refused'), text: `${r.trayNumber ?? tr('board.unknownTray')} · ${r.stationName ?? tr('board.aStation')}`, full: r.message, muted: false })),
+    ...view.holds.map((h) => ({ key: `h${h.trayId}`, icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.onHold'), text: `${h.number} · ${h.reason ?? kindName(h.stationKind)}`, full: h.reason ?? '', muted: false })),
+    ...view.overrides.map((o) => ({ key: `o${o.id}`, icon: <Hand className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.override'), text: `${o.trayNumber} · ${o.supervisorName ?? tr('board.aSupervisor')}`, full: o.reason, muted: true })),
   ];
   // the wall has room for a few one-line entries; the floor page (compact) lists them all
   const shownNeeds = compact ? needs.length : 3;
@@ -179,10 +199,10 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
         {view.bottleneck && (
           <p className={`truncate rounded-2xl border-4 px-4 py-2 text-3xl ${t.tileHot}`} data-testid="bottleneck-note">
             <TrendingUp className="mr-2 inline h-7 w-7" aria-hidden />
-            <strong>{kindName(view.bottleneck.stationKind)}</strong>: {view.bottleneck.waitingTrays} waiting, {view.bottleneck.capacityTrays} at a time
+            <strong>{kindName(view.bottleneck.stationKind)}</strong>{tr('board.bottleneckNote', { waiting: view.bottleneck.waitingTrays, capacity: view.bottleneck.capacityTrays })}
           </p>
         )}
-        <Panel theme={theme} title="Cure countdowns" icon={<Timer className="h-8 w-8" aria-hidden />} count={view.curing.length}>
+        <Panel theme={theme} title={tr('board.cureTitle')} icon={<Timer className="h-8 w-8" aria-hidden />} count={view.curing.length}>
           <ul className="flex flex-col gap-1 text-3xl">
             {view.curing.slice(0, compact ? 50 : 4).map((c) => {
               const left = Date.parse(c.readyAt) - now;
@@ -192,19 +212,19 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
                   <span className="tabular-nums" data-testid="cure-left">
                     {left <= 0 ? (
                       <span className="flex items-center gap-1 font-bold">
-                        <PackageCheck className="h-7 w-7" aria-hidden /> Ready
+                        <PackageCheck className="h-7 w-7" aria-hidden /> {tr('board.ready')}
                       </span>
                     ) : (
-                      leftText(left)
+                      leftText(left, tr)
                     )}
                   </span>
                 </li>
               );
             })}
-            {view.curing.length === 0 && <li className={t.muted}>Nothing in the oven</li>}
+            {view.curing.length === 0 && <li className={t.muted}>{tr('board.ovenEmpty')}</li>}
           </ul>
         </Panel>
-        <Panel id="needs-supervisor" theme={theme} title="Needs a supervisor" icon={<ShieldAlert className="h-8 w-8" aria-hidden />} count={needs.length}>
+        <Panel id="needs-supervisor" theme={theme} title={tr('board.needsTitle')} icon={<ShieldAlert className="h-8 w-8" aria-hidden />} count={needs.length}>
           <ul className="flex flex-col gap-1 text-3xl">
             {needs.slice(0, shownNeeds).map((n) => (
               <li key={n.key} className={`truncate ${n.muted ? t.muted : ''}`} title={n.full}>
@@ -213,18 +233,18 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
               </li>
             ))}
             <More shown={shownNeeds} total={needs.length} to={`${paths.floor}#needs-supervisor`} theme={theme} />
-            {needs.length === 0 && <li className={t.muted}>Nothing waiting for a decision</li>}
+            {needs.length === 0 && <li className={t.muted}>{tr('board.nothingWaiting')}</li>}
           </ul>
         </Panel>
-        <Panel id="at-risk" theme={theme} title="At risk of shipping late" icon={<AlertOctagon className="h-8 w-8" aria-hidden />} count={view.atRisk.length}>
+        <Panel id="at-risk" theme={theme} title={tr('board.riskTitle')} icon={<AlertOctagon className="h-8 w-8" aria-hidden />} count={view.atRisk.length}>
           <ul className="flex flex-col gap-1 text-3xl">
             {view.atRisk.slice(0, shownRisk).map((o) => (
-              <li key={o.orderId} className="truncate" title={`${o.number} ${o.customer}: ${o.risk === 'late' ? 'late' : 'at risk'}, due ${o.dueDate}, expected ${factoryTime(o.expectedAt, tz)}`}>
-                <strong>{o.number}</strong> {o.risk === 'late' ? 'late' : 'at risk'} · {o.customer}
+              <li key={o.orderId} className="truncate" title={tr('board.riskDetail', { number: o.number, customer: o.customer, risk: tr(o.risk === 'late' ? 'board.late' : 'board.atRisk'), due: formatDueDay(o.dueDate), expected: factoryTime(o.expectedAt, tz) })}>
+                <strong>{o.number}</strong> {tr(o.risk === 'late' ? 'board.late' : 'board.atRisk')} · {o.customer}
               </li>
             ))}
             <More shown={shownRisk} total={view.atRisk.length} to={`${paths.floor}#at-risk`} theme={theme} />
-            {view.atRisk.length === 0 && <li className={t.muted}>Every open order is on course</li>}
+            {view.atRisk.length === 0 && <li className={t.muted}>{tr('board.onCourse')}</li>}
           </ul>
         </Panel>
       </div>

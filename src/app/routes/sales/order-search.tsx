@@ -1,4 +1,4 @@
-import { useDeferredValue, useState } from 'react';
+import { useDeferredValue, useMemo, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router';
 import { createColumnHelper } from '@tanstack/react-table';
 import type { SalesOrderRow } from '@shared/schemas/shipping';
@@ -12,6 +12,8 @@ import { DataTable } from '@/components/ui/data-table';
 import { ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
 import { formatDate, formatDueDay } from '@/lib/datetime';
+import { errorText } from '@/lib/error-text';
+import { useStageName } from '@/features/sales/stage-name';
 
 export const handle = { roles: SALES_VIEW };
 export const loader = ({ request }: { request: Request }) =>
@@ -21,33 +23,45 @@ const day = (iso: string | null) => formatDate(iso);
 const dueDay = (d: string) => formatDueDay(d);
 
 function When({ o }: { o: SalesOrderRow }) {
-  if (o.shippedAt) return <Pill tone="ok">Shipped {day(o.shippedAt)}</Pill>;
-  if (o.status === 'cancelled') return <Pill tone="neutral">Cancelled</Pill>;
+  const { t } = useTranslation('sales');
+  if (o.shippedAt) return <Pill tone="ok">{t('search.shipped', { date: day(o.shippedAt) })}</Pill>;
+  if (o.status === 'cancelled') return <Pill tone="neutral">{t('search.cancelled')}</Pill>;
   return (
     <span className="flex flex-wrap items-center gap-2">
       <span className="font-bold">{day(o.projectedShipAt)}</span>
-      {o.late && <Pill tone="stop">Late</Pill>}
+      {o.late && <Pill tone="stop">{t('search.late')}</Pill>}
     </span>
   );
 }
 
 const col = createColumnHelper<SalesOrderRow>();
-const columns = [
-  col.accessor('number', {
-    header: 'Order',
-    cell: (c) => (
-      <Link className="font-bold text-harbour-700 underline" to={paths.salesOrder(c.row.original.id)} onClick={(e) => e.stopPropagation()}>
-        {c.getValue()}
-      </Link>
-    ),
-  }),
-  col.accessor('customer', { header: 'Customer' }),
-  col.accessor('title', { header: 'Title' }),
-  col.accessor('stage', { header: 'Stage', cell: (c) => <span title={c.row.original.stageText}>{c.getValue()}</span> }),
-  col.accessor((o) => o.shippedAt ?? o.projectedShipAt ?? '', { id: 'ship', header: 'Ships', cell: (c) => <When o={c.row.original} /> }),
-  col.accessor('dueDate', { header: 'Due', cell: (c) => dueDay(c.getValue()) }),
-  col.accessor((o) => o.trackingNumbers.join(', '), { id: 'tracking', header: 'Tracking', cell: (c) => <span className="font-mono">{c.getValue() || '—'}</span> }),
-];
+function useColumns() {
+  const { t } = useTranslation('sales');
+  const stageName = useStageName();
+  return useMemo(
+    () => [
+      col.accessor('number', {
+        header: t('search.col.number'),
+        cell: (c) => (
+          <Link className="font-bold text-harbour-700 underline" to={paths.salesOrder(c.row.original.id)} onClick={(e) => e.stopPropagation()}>
+            {c.getValue()}
+          </Link>
+        ),
+      }),
+      col.accessor('customer', { header: t('search.col.customer') }),
+      col.accessor('title', { header: t('search.col.title') }),
+      col.accessor('stage', { header: t('search.col.stage'), cell: (c) => <span title={c.row.original.stageText}>{stageName(c.getValue())}</span> }),
+      col.accessor((o) => o.shippedAt ?? o.projectedShipAt ?? '', { id: 'ship', header: t('search.col.ships'), cell: (c) => <When o={c.row.original} /> }),
+      col.accessor('dueDate', { header: t('search.col.due'), cell: (c) => dueDay(c.getValue()) }),
+      col.accessor((o) => o.trackingNumbers.join(', '), {
+        id: 'tracking',
+        header: t('search.col.tracking'),
+        cell: (c) => <span className="font-mono">{c.getValue() || '—'}</span>,
+      }),
+    ],
+    [t, stageName],
+  );
+}
 
 export function Component() {
   const [params, setParams] = useSearchParams();
@@ -56,15 +70,21 @@ export function Component() {
   const result = useSalesSearch(q);
   const navigate = useNavigate();
   const { t } = useTranslation('projections');
+  const { t: ts } = useTranslation('sales');
+  const stageName = useStageName();
+  const columns = useColumns();
   const role = useMe().data?.user.role;
   return (
     <>
       <PageHeader
-        title="Order status"
-        subtitle="Find any order by number, customer or title: where it stands, when it ships, and how it travels."
+        title={ts('search.title')}
+        subtitle={ts('search.subtitle')}
         actions={
           role && WHAT_IF.includes(role) ? (
-            <Link className="inline-flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 bg-white px-4 font-bold text-harbour-800" to={paths.salesWhatIf}>
+            <Link
+              className="inline-flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 bg-white px-4 font-bold text-harbour-800"
+              to={paths.salesWhatIf}
+            >
               <CalendarClock className="h-5 w-5" aria-hidden /> {t('whatIf.pageTitle')}
             </Link>
           ) : undefined
@@ -79,12 +99,12 @@ export function Component() {
         }}
       >
         <label className="flex w-full max-w-xl flex-col gap-1 font-bold">
-          Find an order
+          {ts('search.find')}
           <input
             type="search"
             value={text}
             onChange={(e) => setText(e.target.value)}
-            placeholder="Order number, customer or title"
+            placeholder={ts('search.placeholder')}
             className="min-h-12 rounded-lg border-2 border-harbour-100 bg-white px-3 text-lg font-normal"
             autoFocus
           />
@@ -93,10 +113,10 @@ export function Component() {
       {result.isPending ? (
         <Loading />
       ) : result.error ? (
-        <ErrorPanel message={result.error.message} />
+        <ErrorPanel message={errorText(result.error)} />
       ) : (
         <>
-          <ul className="flex flex-col gap-3 md:hidden" aria-label="Orders">
+          <ul className="flex flex-col gap-3 md:hidden" aria-label={ts('search.caption')}>
             {result.data.map((o) => (
               <li key={o.id}>
                 <Link to={paths.salesOrder(o.id)} className="block rounded-xl border border-harbour-100 bg-white p-4">
@@ -106,14 +126,20 @@ export function Component() {
                   </span>
                   <span className="mt-1 block font-bold">{o.customer}</span>
                   <span className="block text-harbour-700">{o.title}</span>
-                  <span className="mt-1 block">{o.stage}</span>
+                  <span className="mt-1 block">{stageName(o.stage)}</span>
                 </Link>
               </li>
             ))}
-            {result.data.length === 0 && <li className="text-harbour-700">No order matches “{q}”.</li>}
+            {result.data.length === 0 && <li className="text-harbour-700">{ts('search.noMatch', { q })}</li>}
           </ul>
           <div className="hidden md:block">
-            <DataTable data={result.data} columns={columns} caption="Orders" emptyTitle={q ? `No order matches “${q}”` : 'No orders yet'} onRowClick={(o) => navigate(paths.salesOrder(o.id))} />
+            <DataTable
+              data={result.data}
+              columns={columns}
+              caption={ts('search.caption')}
+              emptyTitle={q ? ts('search.noMatch', { q }) : ts('search.noOrders')}
+              onRowClick={(o) => navigate(paths.salesOrder(o.id))}
+            />
           </div>
         </>
       )}

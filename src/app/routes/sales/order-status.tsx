@@ -12,7 +12,10 @@ import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/pan
 import { paths } from '@/config/paths';
 import { DateHistoryChart } from '@/features/projections/components/date-history-chart';
 import { ProjectedP85 } from '@/features/projections/components/projected-p85';
-import { formatDate, formatDateTime } from '@/lib/datetime';
+import { formatDate, formatDateTime, formatDueDay } from '@/lib/datetime';
+import { useTranslation } from 'react-i18next';
+import { errorText } from '@/lib/error-text';
+import { useStageName } from '@/features/sales/stage-name';
 
 export const handle = { roles: SALES_VIEW };
 export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(salesOrderQueryOptions(params.id!));
@@ -25,8 +28,10 @@ export function Component() {
   const order = useSalesOrder(id);
   const me = useMe();
   const role = me.data?.user.role;
+  const { t } = useTranslation('sales');
+  const stageName = useStageName();
   if (order.isPending) return <Loading />;
-  if (order.error) return <ErrorPanel message={order.error.message} />;
+  if (order.error) return <ErrorPanel message={errorText(order.error)} />;
   const o = order.data;
   const canShare = !!role && SHARE_LINKS.includes(role);
   const canShip = !!role && SHIPPING.includes(role);
@@ -38,10 +43,13 @@ export function Component() {
         subtitle={o.customer}
         actions={
           <>
-            {o.late && <Pill tone="stop">Late</Pill>}
+            {o.late && <Pill tone="stop">{t('order.late')}</Pill>}
             {canShip && (
-              <Link className="inline-flex min-h-11 items-center rounded-lg border-2 border-harbour-800 bg-white px-4 font-bold text-harbour-800" to={paths.dispatchOrder(o.id)}>
-                Pack and ship
+              <Link
+                className="inline-flex min-h-11 items-center rounded-lg border-2 border-harbour-800 bg-white px-4 font-bold text-harbour-800"
+                to={paths.dispatchOrder(o.id)}
+              >
+                {t('order.packAndShip')}
               </Link>
             )}
           </>
@@ -50,45 +58,41 @@ export function Component() {
       <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="flex flex-col gap-6">
           <Card>
-            <h2 className="text-xl font-bold">Where it stands</h2>
+            <h2 className="text-xl font-bold">{t('order.whereItStands')}</h2>
             <p className="mt-2 text-lg" data-testid="stage-text">
               {o.stageText}
             </p>
             <div className="mt-4 grid grid-cols-[minmax(0,1fr)] gap-6 md:grid-cols-2">
-              <StageLine stages={o.stages} current={o.stage} />
+              <StageLine stages={o.stages.map((s) => ({ ...s, name: stageName(s.name) }))} current={stageName(o.stage)} />
               <div>
-                <h3 className="font-bold text-harbour-700">{o.shippedAt ? 'Shipped' : 'Projected ship date'}</h3>
+                <h3 className="font-bold text-harbour-700">{o.shippedAt ? t('order.shipped') : t('order.projected')}</h3>
                 <p className="text-2xl font-bold" data-testid="projected-ship-date">
-                  {o.shippedAt ? longDate(o.shippedAt) : o.projectedShipAt ? longDate(o.projectedShipAt) : 'Not yet'}
+                  {o.shippedAt ? longDate(o.shippedAt) : o.projectedShipAt ? longDate(o.projectedShipAt) : t('order.notYet')}
                 </p>
                 {!o.shippedAt && o.projectedShipAt && <ProjectedP85 orderId={o.id} />}
                 <p className="mt-1 text-sm text-harbour-700">{o.projectionNote}</p>
                 <p className="mt-3">
-                  Due <span className="font-bold">{o.dueDate}</span>
-                  {o.late && !o.shippedAt && <span className="font-bold text-stop-700"> · projected after the due date</span>}
+                  {t('order.due')} <span className="font-bold">{formatDueDay(o.dueDate)}</span>
+                  {o.late && !o.shippedAt && <span className="font-bold text-stop-700">{t('order.afterDue')}</span>}
                 </p>
               </div>
             </div>
           </Card>
           {q && (
             <Card>
-              <h2 className="mb-2 text-xl font-bold">Quantities</h2>
+              <h2 className="mb-2 text-xl font-bold">{t('order.quantities')}</h2>
               <dl className="grid grid-cols-2 gap-x-6 gap-y-1 md:grid-cols-3">
-                <dt className="text-harbour-700">Ordered</dt>
-                <dd className="font-bold md:col-span-2">
-                  {q.ordered} (up to {q.maxExpected} with the {q.overrunPct} % allowance)
-                </dd>
-                <dt className="text-harbour-700">Finished</dt>
+                <dt className="text-harbour-700">{t('order.ordered')}</dt>
+                <dd className="font-bold md:col-span-2">{t('order.orderedValue', { ordered: q.ordered, max: q.maxExpected, pct: q.overrunPct })}</dd>
+                <dt className="text-harbour-700">{t('order.finished')}</dt>
                 <dd className="font-bold md:col-span-2">{q.finished}</dd>
-                <dt className="text-harbour-700">Still on the floor</dt>
+                <dt className="text-harbour-700">{t('order.onFloor')}</dt>
                 <dd className="font-bold md:col-span-2">{q.onFloor}</dd>
-                <dt className="text-harbour-700">Shipped</dt>
+                <dt className="text-harbour-700">{t('order.shippedQty')}</dt>
                 <dd className="font-bold md:col-span-2">{q.shipped}</dd>
               </dl>
               {q.needsDecision && (
-                <p className="mt-3 rounded-lg border-2 border-warn-700 bg-warn-50 p-3 font-bold text-warn-700">
-                  Under quantity: {q.shortBy} pieces short. Ask the customer whether to ship short or wait for more.
-                </p>
+                <p className="mt-3 rounded-lg border-2 border-warn-700 bg-warn-50 p-3 font-bold text-warn-700">{t('order.under', { short: q.shortBy })}</p>
               )}
             </Card>
           )}
@@ -98,11 +102,11 @@ export function Component() {
             </Card>
           )}
           <Card>
-            <h2 className="mb-2 text-xl font-bold">Shipments</h2>
+            <h2 className="mb-2 text-xl font-bold">{t('order.shipments')}</h2>
             <ShipmentsTable orderId={o.id} shipments={o.shipments} />
           </Card>
           <Card>
-            <h2 className="mb-2 text-xl font-bold">History</h2>
+            <h2 className="mb-2 text-xl font-bold">{t('order.history')}</h2>
             <ol className="flex flex-col gap-1">
               {o.history.map((h, i) => (
                 <li key={i} className="grid grid-cols-1 gap-x-3 sm:grid-cols-[11rem_1fr] border-t border-harbour-100 py-1 first:border-t-0">
@@ -118,17 +122,21 @@ export function Component() {
         </div>
         <div className="flex flex-col gap-6">
           <Card>
-            <h2 className="mb-2 text-xl font-bold">Customer status link</h2>
-            {canShare ? <ShareLinkPanel orderId={o.id} links={o.shareLinks} disabled={o.status === 'cancelled'} /> : <p className="text-harbour-700">Sales and planners make status links.</p>}
+            <h2 className="mb-2 text-xl font-bold">{t('order.statusLink')}</h2>
+            {canShare ? (
+              <ShareLinkPanel orderId={o.id} links={o.shareLinks} disabled={o.status === 'cancelled'} />
+            ) : (
+              <p className="text-harbour-700">{t('order.whoMakesLinks')}</p>
+            )}
           </Card>
           {canShare && (
             <>
               <Card>
-                <h2 className="mb-2 text-xl font-bold">Who hears about it</h2>
+                <h2 className="mb-2 text-xl font-bold">{t('order.whoHears')}</h2>
                 <ContactForm order={o} />
               </Card>
               <Card>
-                <h2 className="mb-2 text-xl font-bold">Proof for approval</h2>
+                <h2 className="mb-2 text-xl font-bold">{t('order.proof')}</h2>
                 <SendProof order={o} />
               </Card>
             </>

@@ -1,4 +1,6 @@
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
+import { errorText } from '@/lib/error-text';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { orderContactSchema, type OrderContactInput, type SalesOrderDetail } from '@shared/schemas/shipping';
 import { SelectField, TextField } from '@/components/ui/field';
@@ -9,6 +11,7 @@ import { useOwners } from '../api/get-sales-order';
 
 /** Who hears about the order: the customer's contact (shipped mail, proofs) and the sales owner. */
 export function ContactForm({ order }: { order: SalesOrderDetail }) {
+  const { t } = useTranslation('sales');
   const save = useSetContact(order.id);
   const owners = useOwners();
   const form = useForm<OrderContactInput>({
@@ -18,24 +21,32 @@ export function ContactForm({ order }: { order: SalesOrderDetail }) {
   const e = form.formState.errors;
   return (
     <form noValidate className="flex flex-col gap-3" onSubmit={form.handleSubmit((v) => save.mutate({ ...v, salesOwnerId: v.salesOwnerId || null }))}>
-      <TextField label="Contact name" autoComplete="off" {...form.register('contactName')} error={e.contactName?.message} />
-      <TextField label="Contact e-mail" type="email" inputMode="email" autoComplete="off" {...form.register('contactEmail')} error={e.contactEmail?.message} hint={`Shared by every order of ${order.customer}.`} />
-      <SelectField label="Sales owner" {...form.register('salesOwnerId', { setValueAs: (v) => v || null })} error={e.salesOwnerId?.message}>
-        <option value="">Nobody yet</option>
+      <TextField label={t('contact.name')} autoComplete="off" {...form.register('contactName')} error={e.contactName?.message} />
+      <TextField
+        label={t('contact.email')}
+        type="email"
+        inputMode="email"
+        autoComplete="off"
+        {...form.register('contactEmail')}
+        error={e.contactEmail?.message}
+        hint={t('contact.emailHint', { customer: order.customer })}
+      />
+      <SelectField label={t('contact.owner')} {...form.register('salesOwnerId', { setValueAs: (v) => v || null })} error={e.salesOwnerId?.message}>
+        <option value="">{t('contact.nobody')}</option>
         {owners.data?.map((o) => (
           <option key={o.id} value={o.id}>
             {o.name}
           </option>
         ))}
       </SelectField>
-      {save.error && <ErrorPanel message={save.error.message} />}
+      {save.error && <ErrorPanel message={errorText(save.error)} />}
       <div className="flex items-center gap-3">
         <Button type="submit" disabled={save.isPending}>
-          Save contact
+          {t('contact.save')}
         </Button>
         {save.isSuccess && !form.formState.isDirty && (
           <span role="status" className="font-bold text-ok-700">
-            Saved
+            {t('contact.saved')}
           </span>
         )}
       </div>

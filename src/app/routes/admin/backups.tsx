@@ -1,3 +1,4 @@
+import { Trans, useTranslation } from 'react-i18next';
 import { ADMIN_ONLY } from '@shared/domain/access';
 import { queryClient } from '@/lib/query-client';
 import { backupsQueryOptions, useBackups, useMakeBackup } from '@/features/admin/api/backups';
@@ -9,27 +10,30 @@ export const handle = { roles: ADMIN_ONLY };
 export const loader = () => queryClient.ensureQueryData(backupsQueryOptions());
 
 export function Component() {
+  const { t } = useTranslation('admin');
   const backups = useBackups();
   const make = useMakeBackup();
   return (
     <>
       <PageHeader
-        title="Backups"
-        subtitle="A backup copies the whole database while the floor keeps scanning. Copies are kept in the data folder under backups/; copy them off this machine as well."
+        title={t('backups.title')}
+        subtitle={t('backups.subtitle', { folder: 'backups/' })}
         actions={
           <Button onClick={() => make.mutate()} disabled={make.isPending}>
-            {make.isPending ? 'Backing up…' : 'Back up now'}
+            {make.isPending ? t('backups.working') : t('backups.now')}
           </Button>
         }
       />
-      {make.error && <ErrorPanel title="No backup made" message={make.error.message} />}
+      {make.error && <ErrorPanel title={t('backups.failed')} message={make.error.message} />}
       <Card>
         {backups.isPending ? (
           <Loading />
         ) : backups.error ? (
           <ErrorPanel message={backups.error.message} />
         ) : backups.data.length === 0 ? (
-          <EmptyState title="No backups yet">Make the first one now, or schedule `npm run backup` on the server.</EmptyState>
+          <EmptyState title={t('backups.none')}>
+            <Trans t={t} i18nKey="backups.noneHint" values={{ command: 'npm run backup' }} components={{ code: <code /> }} />
+          </EmptyState>
         ) : (
           <ul className="divide-y divide-harbour-100">
             {backups.data.map((b) => (

@@ -1,8 +1,9 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { factoryTodayDate } from '@/lib/datetime';
 import { Plus, Trash2 } from 'lucide-react';
 import { ADMIN_ONLY } from '@shared/domain/access';
-import { WEEKDAYS, compileCalendar, type Weekday } from '@shared/domain/calendar';
+import { WEEKDAYS, compileCalendar } from '@shared/domain/calendar';
 import { calendarBody, type CalendarBody, type CalendarView, type WeekBody } from '@shared/schemas/calendar';
 import { queryClient } from '@/lib/query-client';
 import { calendarQueryOptions, useCalendar, useSaveCalendar } from '@/features/calendar/api/get-calendar';
@@ -12,8 +13,6 @@ import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/pan
 
 export const handle = { roles: ADMIN_ONLY };
 export const loader = () => queryClient.ensureQueryData(calendarQueryOptions());
-
-const DAY_NAMES: Record<Weekday, string> = { mon: 'Monday', tue: 'Tuesday', wed: 'Wednesday', thu: 'Thursday', fri: 'Friday', sat: 'Saturday', sun: 'Sunday' };
 
 function hoursOf(week: WeekBody): number {
   try {
@@ -26,60 +25,62 @@ function hoursOf(week: WeekBody): number {
 }
 
 function WeekEditor({ week, onChange, label }: { week: WeekBody; onChange: (w: WeekBody) => void; label: string }) {
+  const { t } = useTranslation('admin');
   return (
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-2 font-bold">
-        {label} · {Math.round(hoursOf(week) * 10) / 10} working hours a week
+        {t('calendar.weekHours', { label, hours: Math.round(hoursOf(week) * 10) / 10 })}
       </legend>
       {WEEKDAYS.map((d) => (
         <div key={d} className="flex flex-wrap items-end gap-3 border-b border-harbour-50 pb-2">
-          <span className="w-28 pb-3 font-bold">{DAY_NAMES[d]}</span>
-          {week[d].length === 0 && <span className="pb-3 text-harbour-700">No shift</span>}
+          <span className="w-28 pb-3 font-bold">{t(`calendar.day.${d}`)}</span>
+          {week[d].length === 0 && <span className="pb-3 text-harbour-700">{t('calendar.noShift')}</span>}
           {week[d].map((s, i) => (
             <div key={i} className="flex items-end gap-2">
               <TextField
-                label={`${DAY_NAMES[d]} shift ${i + 1} starts`}
+                label={t('calendar.shiftStarts', { day: t(`calendar.day.${d}`), n: i + 1 })}
                 type="time"
                 value={s.start}
                 onChange={(e) => onChange({ ...week, [d]: week[d].map((x, j) => (j === i ? { ...x, start: e.target.value } : x)) })}
               />
               <TextField
-                label="ends"
+                label={t('calendar.ends')}
                 type="time"
                 value={s.end}
                 onChange={(e) => onChange({ ...week, [d]: week[d].map((x, j) => (j === i ? { ...x, end: e.target.value } : x)) })}
               />
-              <Button variant="ghost" aria-label={`Remove ${DAY_NAMES[d]} shift ${i + 1}`} onClick={() => onChange({ ...week, [d]: week[d].filter((_, j) => j !== i) })}>
+              <Button variant="ghost" aria-label={t('calendar.removeShift', { day: t(`calendar.day.${d}`), n: i + 1 })} onClick={() => onChange({ ...week, [d]: week[d].filter((_, j) => j !== i) })}>
                 <Trash2 className="h-5 w-5" aria-hidden />
               </Button>
             </div>
           ))}
           <Button variant="ghost" onClick={() => onChange({ ...week, [d]: [...week[d], { start: '08:00', end: '17:00' }] })}>
-            <Plus className="h-5 w-5" aria-hidden /> Shift
+            <Plus className="h-5 w-5" aria-hidden /> {t('calendar.addShift')}
           </Button>
         </div>
       ))}
-      <p className="text-sm text-harbour-700">A shift that ends at or before its start runs past midnight and belongs to the day it starts.</p>
+      <p className="text-sm text-harbour-700">{t('calendar.overnight')}</p>
     </fieldset>
   );
 }
 
 function DaysOff({ days, onChange, label }: { days: { date: string; name: string }[]; onChange: (d: { date: string; name: string }[]) => void; label: string }) {
+  const { t } = useTranslation('admin');
   return (
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-2 font-bold">{label}</legend>
       {days.map((d, i) => (
         <div key={i} className="flex flex-wrap items-end gap-2">
-          <TextField label={`Day off ${i + 1}`} type="date" value={d.date} onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, date: e.target.value } : x)))} />
-          <TextField label="What it is" value={d.name} onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, name: e.target.value } : x)))} />
-          <Button variant="ghost" aria-label={`Remove day off ${i + 1}`} onClick={() => onChange(days.filter((_, j) => j !== i))}>
+          <TextField label={t('calendar.dayOff', { n: i + 1 })} type="date" value={d.date} onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, date: e.target.value } : x)))} />
+          <TextField label={t('calendar.whatItIs')} value={d.name} onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, name: e.target.value } : x)))} />
+          <Button variant="ghost" aria-label={t('calendar.removeDayOff', { n: i + 1 })} onClick={() => onChange(days.filter((_, j) => j !== i))}>
             <Trash2 className="h-5 w-5" aria-hidden />
           </Button>
         </div>
       ))}
       <div>
         <Button variant="ghost" onClick={() => onChange([...days, { date: factoryTodayDate(), name: '' }])}>
-          <Plus className="h-5 w-5" aria-hidden /> Day off
+          <Plus className="h-5 w-5" aria-hidden /> {t('calendar.addDayOff')}
         </Button>
       </div>
     </fieldset>
@@ -87,6 +88,7 @@ function DaysOff({ days, onChange, label }: { days: { date: string; name: string
 }
 
 function Editor({ view }: { view: CalendarView }) {
+  const { t } = useTranslation('admin');
   const save = useSaveCalendar();
   const [draft, setDraft] = useState<CalendarBody>(() => ({
     timeZone: view.timeZone,
@@ -124,11 +126,11 @@ function Editor({ view }: { view: CalendarView }) {
       <Card>
         <div className="max-w-md">
           <TextField
-            label="Factory time zone"
+            label={t('calendar.timeZone')}
             list="time-zones"
             value={draft.timeZone}
             onChange={(e) => setDraft({ ...draft, timeZone: e.target.value })}
-            hint="Shifts and days off are in this zone’s local time (an IANA name such as Asia/Shanghai); daylight saving is followed."
+            hint={t('calendar.timeZoneHint', { example: 'Asia/Shanghai' })}
           />
           <datalist id="time-zones">
             {zones.map((z) => (
@@ -138,14 +140,14 @@ function Editor({ view }: { view: CalendarView }) {
         </div>
       </Card>
       <Card>
-        <WeekEditor label="The factory’s week" week={draft.week} onChange={(week) => setDraft({ ...draft, week })} />
-        {view.isDefault && <p className="mt-2 text-sm text-harbour-700">No week has been saved yet: this is the default week.</p>}
+        <WeekEditor label={t('calendar.factoryWeek')} week={draft.week} onChange={(week) => setDraft({ ...draft, week })} />
+        {view.isDefault && <p className="mt-2 text-sm text-harbour-700">{t('calendar.defaultWeek')}</p>}
       </Card>
       <Card>
-        <DaysOff label="Days off for the whole factory" days={draft.daysOff} onChange={(daysOff) => setDraft({ ...draft, daysOff })} />
+        <DaysOff label={t('calendar.factoryDaysOff')} days={draft.daysOff} onChange={(daysOff) => setDraft({ ...draft, daysOff })} />
       </Card>
       <Card>
-        <h2 className="mb-3 text-xl font-bold text-harbour-900">Stations that work other hours</h2>
+        <h2 className="mb-3 text-xl font-bold text-harbour-900">{t('calendar.otherHours')}</h2>
         <ul className="flex flex-col gap-4">
           {view.stations.map((s) => {
             const o = own(s.stationId);
@@ -156,27 +158,27 @@ function Editor({ view }: { view: CalendarView }) {
                     {s.code} · {s.name}
                   </strong>
                   {s.continuous ? (
-                    <Pill tone="info">Round the clock (set on the station)</Pill>
+                    <Pill tone="info">{t('calendar.roundTheClock')}</Pill>
                   ) : o ? (
                     <>
-                      <Pill tone="warn">Own hours</Pill>
+                      <Pill tone="warn">{t('calendar.ownHours')}</Pill>
                       <Button variant="ghost" onClick={() => setOwn(s.stationId, null)}>
-                        Follow the factory again
+                        {t('calendar.followAgain')}
                       </Button>
                     </>
                   ) : (
                     <>
-                      <Pill>Follows the factory</Pill>
+                      <Pill>{t('calendar.follows')}</Pill>
                       <Button variant="ghost" onClick={() => setOwn(s.stationId, { week: draft.week })}>
-                        Give it its own hours
+                        {t('calendar.giveOwn')}
                       </Button>
                     </>
                   )}
                 </div>
                 {o && !s.continuous && (
                   <div className="mt-3 grid gap-4 xl:grid-cols-2">
-                    <WeekEditor label={`${s.name}: week`} week={o.week ?? draft.week} onChange={(week) => setOwn(s.stationId, { week })} />
-                    <DaysOff label={`${s.name}: extra days off`} days={o.daysOff} onChange={(daysOff) => setOwn(s.stationId, { daysOff })} />
+                    <WeekEditor label={t('calendar.stationWeek', { name: s.name })} week={o.week ?? draft.week} onChange={(week) => setOwn(s.stationId, { week })} />
+                    <DaysOff label={t('calendar.stationDaysOff', { name: s.name })} days={o.daysOff} onChange={(daysOff) => setOwn(s.stationId, { daysOff })} />
                   </div>
                 )}
               </li>
@@ -184,11 +186,11 @@ function Editor({ view }: { view: CalendarView }) {
           })}
         </ul>
       </Card>
-      {(problem || save.error) && <ErrorPanel title="Not saved" message={problem ?? save.error!.message} />}
-      {save.isSuccess && !save.isPending && <p role="status" className="font-bold text-ok-700">Saved. Lead times in working hours and projected dates now use it.</p>}
+      {(problem || save.error) && <ErrorPanel title={t('notSaved')} message={problem ?? save.error!.message} />}
+      {save.isSuccess && !save.isPending && <p role="status" className="font-bold text-ok-700">{t('calendar.saved')}</p>}
       <div>
         <Button type="submit" size="lg" disabled={save.isPending}>
-          Save the calendar
+          {t('calendar.save')}
         </Button>
       </div>
     </form>
@@ -196,10 +198,11 @@ function Editor({ view }: { view: CalendarView }) {
 }
 
 export function Component() {
+  const { t } = useTranslation('admin');
   const cal = useCalendar();
   return (
     <>
-      <PageHeader title="Working calendar" subtitle="Shifts, days off and stations that keep other hours. Lead times in working hours and projected ship dates are laid on it." />
+      <PageHeader title={t('calendar.title')} subtitle={t('calendar.subtitle')} />
       {cal.isPending ? <Loading /> : cal.error ? <ErrorPanel message={cal.error.message} /> : <Editor view={cal.data} />}
     </>
   );

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Mail, RotateCw } from 'lucide-react';
 import { ADMIN_ONLY } from '@shared/domain/access';
 import type { CaughtMail } from '@shared/schemas/shipping';
@@ -14,12 +15,13 @@ export const loader = () => queryClient.ensureQueryData(caughtMailQueryOptions()
 const when = (iso: string) => formatDateTime(iso);
 
 function Message({ m }: { m: CaughtMail }) {
+  const { t } = useTranslation('admin');
   const [open, setOpen] = useState(false);
   return (
     <li className="border-t border-harbour-100 py-2 first:border-t-0">
       <button type="button" className="flex min-h-11 w-full flex-wrap items-baseline gap-x-3 text-left" aria-expanded={open} onClick={() => setOpen((x) => !x)}>
         <span className="font-bold">{m.subject}</span>
-        <span className="text-sm text-harbour-700">to {m.to}</span>
+        <span className="text-sm text-harbour-700">{t('outbox.to', { to: m.to })}</span>
         <span className="ml-auto text-sm text-harbour-700">{when(m.sentAt)}</span>
       </button>
       {open && (
@@ -27,7 +29,7 @@ function Message({ m }: { m: CaughtMail }) {
           <pre className="whitespace-pre-wrap break-words font-sans text-sm">{m.text}</pre>
           {m.attachments && m.attachments.length > 0 && (
             <p className="mt-2 text-sm">
-              Attached: {m.attachments.map((a) => `${a.filename} (${Math.round(a.size / 1024)} KB)`).join(', ')}
+              {t('outbox.attached', { files: m.attachments.map((a) => `${a.filename} (${Math.round(a.size / 1024)} KB)`).join(', ') })}
             </p>
           )}
         </div>
@@ -37,6 +39,7 @@ function Message({ m }: { m: CaughtMail }) {
 }
 
 export function Component() {
+  const { t } = useTranslation('admin');
   const caught = useCaughtMail();
   const queue = useMailQueue();
   const retry = useRetryMail();
@@ -45,35 +48,35 @@ export function Component() {
   return (
     <>
       <PageHeader
-        title="Outbox"
-        subtitle="Mail Trayce sent. Without an SMTP_URL setting it goes to the built-in mail catcher and stays here; nothing leaves the building."
+        title={t('outbox.title')}
+        subtitle={t('outbox.subtitle', { setting: 'SMTP_URL' })}
         actions={
           <Button variant="secondary" onClick={() => digest.mutate()} disabled={digest.isPending}>
-            Send today’s late-risk digest
+            {t('outbox.digest')}
           </Button>
         }
       />
       {digest.data && (
         <p role="status" className="mb-4 font-bold text-ok-700">
-          {digest.data.orders === 0 ? 'No order is projected after its due date: no digest.' : `${digest.data.queued} digests queued for ${digest.data.date} (${digest.data.orders} orders at risk).`}
+          {digest.data.orders === 0 ? t('outbox.noDigest') : t('outbox.queued', { queued: digest.data.queued, date: digest.data.date, orders: digest.data.orders })}
         </p>
       )}
       {waiting.length > 0 && (
         <Card className="mb-6">
-          <h2 className="mb-2 text-xl font-bold">Waiting or failed</h2>
+          <h2 className="mb-2 text-xl font-bold">{t('outbox.waitingTitle')}</h2>
           <ul>
             {waiting.map((q) => (
               <li key={q.id} className="flex flex-wrap items-center gap-3 border-t border-harbour-100 py-2 first:border-t-0">
-                {q.status === 'failed' ? <Pill tone="stop">Failed</Pill> : <Pill tone="warn">Queued</Pill>}
+                {q.status === 'failed' ? <Pill tone="stop">{t('outbox.failed')}</Pill> : <Pill tone="warn">{t('outbox.queuedPill')}</Pill>}
                 <span className="font-bold">{q.subject}</span>
-                <span className="text-sm text-harbour-700">to {q.to}</span>
+                <span className="text-sm text-harbour-700">{t('outbox.to', { to: q.to })}</span>
                 <span className="text-sm text-harbour-700">
-                  {q.attempts} {q.attempts === 1 ? 'attempt' : 'attempts'}
+                  {t('outbox.attempts', { count: q.attempts })}
                   {q.lastError ? `: ${q.lastError}` : ''}
                 </span>
                 {q.status === 'failed' && (
                   <Button variant="ghost" onClick={() => retry.mutate(q.id)}>
-                    <RotateCw className="h-5 w-5" aria-hidden /> Send again
+                    <RotateCw className="h-5 w-5" aria-hidden /> {t('outbox.sendAgain')}
                   </Button>
                 )}
               </li>
@@ -83,16 +86,16 @@ export function Component() {
       )}
       <Card>
         <h2 className="mb-2 flex items-center gap-2 text-xl font-bold">
-          <Mail className="h-6 w-6" aria-hidden /> Caught mail
+          <Mail className="h-6 w-6" aria-hidden /> {t('outbox.caught')}
         </h2>
         {caught.isPending ? (
           <Loading />
         ) : caught.error ? (
           <ErrorPanel message={caught.error.message} />
         ) : caught.data.length === 0 ? (
-          <EmptyState title="No mail yet">Shipped orders, proofs for approval and the daily late-risk digest appear here.</EmptyState>
+          <EmptyState title={t('outbox.noMail')}>{t('outbox.noMailHint')}</EmptyState>
         ) : (
-          <ul aria-label="Caught mail">
+          <ul aria-label={t('outbox.caught')}>
             {caught.data.map((m) => (
               <Message key={m.id ?? `${m.sentAt}-${m.to}`} m={m} />
             ))}

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createColumnHelper } from '@tanstack/react-table';
@@ -15,9 +16,8 @@ import { CheckboxField, SelectField, TextField } from '@/components/ui/field';
 export const handle = { roles: ADMIN_ONLY };
 export const loader = () => queryClient.ensureQueryData(reasonCodesAdminQueryOptions());
 
-const KIND_LABEL = { scrap: 'Scrap', rework: 'Rework', hold: 'Hold' } as const;
-
 function ReasonForm({ existing, onDone }: { existing?: ReasonCodeAdminView; onDone: () => void }) {
+  const { t } = useTranslation(['admin', 'common']);
   const save = useSaveReasonCode();
   const form = useForm({ resolver: zodResolver(reasonCodeBody), defaultValues: existing ?? { code: '', name: '', nameZh: '', kind: 'scrap', stationKind: null, active: true } });
   const e = form.formState.errors;
@@ -31,32 +31,32 @@ function ReasonForm({ existing, onDone }: { existing?: ReasonCodeAdminView; onDo
         save.mutate(existing ? { existing: existing.code, body: patch } : { body }, { onSuccess: onDone });
       })}
     >
-      <TextField label="Code" disabled={!!existing} {...form.register('code')} error={e.code?.message} hint="Stored with every scan; cannot change later." />
-      <TextField label="Name (English)" {...form.register('name')} error={e.name?.message} />
-      <TextField label="Name (简体中文)" lang="zh-CN" {...form.register('nameZh')} error={e.nameZh?.message} />
-      <SelectField label="Used for" {...form.register('kind')}>
-        <option value="scrap">Scrap</option>
-        <option value="rework">Rework</option>
-        <option value="hold">Hold</option>
+      <TextField label={t('code')} disabled={!!existing} {...form.register('code')} error={e.code?.message} hint={t('reasons.codeHint')} />
+      <TextField label={t('reasons.nameEn')} {...form.register('name')} error={e.name?.message} />
+      <TextField label={t('reasons.nameZh')} lang="zh-CN" {...form.register('nameZh')} error={e.nameZh?.message} />
+      <SelectField label={t('reasons.usedFor')} {...form.register('kind')}>
+        <option value="scrap">{t('reasons.kind.scrap')}</option>
+        <option value="rework">{t('reasons.kind.rework')}</option>
+        <option value="hold">{t('reasons.kind.hold')}</option>
       </SelectField>
-      <SelectField label="Only at stations of kind" {...form.register('stationKind', { setValueAs: (v) => (v ? v : null) })}>
-        <option value="">Any station</option>
+      <SelectField label={t('reasons.onlyKind')} {...form.register('stationKind', { setValueAs: (v) => (v ? v : null) })}>
+        <option value="">{t('reasons.anyStation')}</option>
         {STATION_KINDS.map((k) => (
           <option key={k} value={k}>
-            {k.replace('_', ' ')}
+            {t(`common:kind.${k}`)}
           </option>
         ))}
       </SelectField>
-      <CheckboxField label="Offered on the tablets" {...form.register('active')} />
+      <CheckboxField label={t('reasons.offeredOnTablets')} {...form.register('active')} />
       {save.error && (
         <div className="md:col-span-3">
-          <ErrorPanel title="Not saved" message={save.error.message} />
+          <ErrorPanel title={t('notSaved')} message={save.error.message} />
         </div>
       )}
       <div className="flex gap-2 md:col-span-3">
-        <Button type="submit">{existing ? 'Save reason' : 'Add reason'}</Button>
+        <Button type="submit">{existing ? t('reasons.save') : t('reasons.create')}</Button>
         <Button variant="ghost" onClick={onDone}>
-          Cancel
+          {t('cancel')}
         </Button>
       </div>
     </form>
@@ -66,30 +66,31 @@ function ReasonForm({ existing, onDone }: { existing?: ReasonCodeAdminView; onDo
 const col = createColumnHelper<ReasonCodeAdminView>();
 
 export function Component() {
+  const { t } = useTranslation(['admin', 'common']);
   const codes = useReasonCodesAdmin();
   const [editing, setEditing] = useState<ReasonCodeAdminView | 'new' | null>(null);
   const columns = [
-    col.accessor('code', { header: 'Code' }),
-    col.accessor('name', { header: 'Name' }),
-    col.accessor('nameZh', { header: '中文', cell: (c) => <span lang="zh-CN">{c.getValue()}</span> }),
-    col.accessor('kind', { header: 'Used for', cell: (c) => KIND_LABEL[c.getValue()] }),
-    col.accessor('stationKind', { header: 'Station kind', cell: (c) => c.getValue()?.replace('_', ' ') ?? 'any' }),
-    col.accessor('active', { header: 'State', cell: (c) => (c.getValue() ? <Pill tone="ok">Offered</Pill> : <Pill>Switched off</Pill>) }),
-    col.display({ id: 'edit', header: '', cell: (c) => <Button variant="ghost" onClick={() => setEditing(c.row.original)}>Edit</Button> }),
+    col.accessor('code', { header: t('code') }),
+    col.accessor('name', { header: t('name') }),
+    col.accessor('nameZh', { header: t('reasons.nameZhCol'), cell: (c) => <span lang="zh-CN">{c.getValue()}</span> }),
+    col.accessor('kind', { header: t('reasons.usedFor'), cell: (c) => t(`reasons.kind.${c.getValue()}`) }),
+    col.accessor('stationKind', { header: t('reasons.stationKind'), cell: (c) => { const k = c.getValue(); return k ? t(`common:kind.${k}`) : t('reasons.any'); } }),
+    col.accessor('active', { header: t('state'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('reasons.offered')}</Pill> : <Pill>{t('reasons.switchedOff')}</Pill>) }),
+    col.display({ id: 'edit', header: '', cell: (c) => <Button variant="ghost" onClick={() => setEditing(c.row.original)}>{t('edit')}</Button> }),
   ];
   return (
     <>
       <PageHeader
-        title="Reason codes"
-        subtitle="The reasons operators pick for scrap, rework and holds, in English and Chinese. Codes are never deleted, only switched off, so history keeps its meaning."
-        actions={<Button onClick={() => setEditing('new')}>Add a reason</Button>}
+        title={t('reasons.title')}
+        subtitle={t('reasons.subtitle')}
+        actions={<Button onClick={() => setEditing('new')}>{t('reasons.add')}</Button>}
       />
       {editing && (
         <Card className="mb-6">
           <ReasonForm key={editing === 'new' ? 'new' : editing.code} existing={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
         </Card>
       )}
-      {codes.isPending ? <Loading /> : codes.error ? <ErrorPanel message={codes.error.message} /> : <DataTable data={codes.data} columns={columns} filterLabel="Find a reason" caption="Reason codes" />}
+      {codes.isPending ? <Loading /> : codes.error ? <ErrorPanel message={codes.error.message} /> : <DataTable data={codes.data} columns={columns} filterLabel={t('reasons.find')} caption={t('reasons.caption')} />}
     </>
   );
 }

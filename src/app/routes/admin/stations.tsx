@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createColumnHelper } from '@tanstack/react-table';
@@ -16,6 +17,7 @@ export const handle = { roles: ADMIN_ONLY };
 export const loader = () => queryClient.ensureQueryData(stationsQueryOptions());
 
 function StationForm({ station, onDone }: { station?: StationView; onDone: () => void }) {
+  const { t } = useTranslation(['admin', 'common']);
   const save = useSaveStation();
   const form = useForm({
     resolver: zodResolver(stationBody),
@@ -28,42 +30,42 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
       className="grid gap-4 md:grid-cols-4"
       onSubmit={form.handleSubmit((body) => save.mutate({ id: station?.id, body: body as StationBody }, { onSuccess: onDone }))}
     >
-      <TextField label="Code" {...form.register('code')} error={e.code?.message} hint="e.g. FIL-3" />
-      <TextField label="Name" {...form.register('name')} error={e.name?.message} />
-      <SelectField label="Kind of work" {...form.register('kind')} error={e.kind?.message}>
+      <TextField label={t('code')} {...form.register('code')} error={e.code?.message} hint={t('stations.codeHint', { example: 'FIL-3' })} />
+      <TextField label={t('name')} {...form.register('name')} error={e.name?.message} />
+      <SelectField label={t('stations.kindOfWork')} {...form.register('kind')} error={e.kind?.message}>
         {STATION_KINDS.map((k) => (
           <option key={k} value={k}>
-            {k.replace('_', ' ')}
+            {t(`common:kind.${k}`)}
           </option>
         ))}
       </SelectField>
-      <TextField label="Trays at once" type="number" min={1} {...form.register('capacityTrays', { valueAsNumber: true })} error={e.capacityTrays?.message} />
-      <TextField label="Name in Chinese" lang="zh-CN" {...form.register('nameZh')} error={e.nameZh?.message} hint="Shown on Chinese screens; empty shows the name above." />
+      <TextField label={t('stations.capacity')} type="number" min={1} {...form.register('capacityTrays', { valueAsNumber: true })} error={e.capacityTrays?.message} />
+      <TextField label={t('stations.nameZh')} lang="zh-CN" {...form.register('nameZh')} error={e.nameZh?.message} hint={t('stations.nameZhHint')} />
       <div className="md:col-span-2">
-        <TextAreaField label="Instructions shown on the tablet" rows={3} {...form.register('instructions')} />
+        <TextAreaField label={t('stations.instructions')} rows={3} {...form.register('instructions')} />
       </div>
       <div className="md:col-span-2">
-        <TextAreaField label="Safety notes shown on the tablet" rows={3} {...form.register('safetyNotes')} hint="Keep the line that local regulations and the factory’s procedures take precedence." />
+        <TextAreaField label={t('stations.safetyNotes')} rows={3} {...form.register('safetyNotes')} hint={t('stations.safetyHint')} />
       </div>
       <div className="md:col-span-2">
-        <TextAreaField label="Instructions in Chinese" lang="zh-CN" rows={3} {...form.register('instructionsZh')} error={e.instructionsZh?.message} />
+        <TextAreaField label={t('stations.instructionsZh')} lang="zh-CN" rows={3} {...form.register('instructionsZh')} error={e.instructionsZh?.message} />
       </div>
       <div className="md:col-span-2">
-        <TextAreaField label="Safety notes in Chinese" lang="zh-CN" rows={3} {...form.register('safetyNotesZh')} error={e.safetyNotesZh?.message} hint="Keep the line that local regulations and the factory’s procedures take precedence." />
+        <TextAreaField label={t('stations.safetyNotesZh')} lang="zh-CN" rows={3} {...form.register('safetyNotesZh')} error={e.safetyNotesZh?.message} hint={t('stations.safetyHint')} />
       </div>
-      <CheckboxField label="Works outside shifts (ovens keep curing)" {...form.register('continuous')} />
-      <CheckboxField label="In use" {...form.register('active')} />
+      <CheckboxField label={t('stations.continuous')} {...form.register('continuous')} />
+      <CheckboxField label={t('stations.inUse')} {...form.register('active')} />
       {save.error && (
         <div className="md:col-span-4">
-          <ErrorPanel title="Not saved" message={save.error.message} />
+          <ErrorPanel title={t('notSaved')} message={save.error.message} />
         </div>
       )}
       <div className="flex gap-2 md:col-span-4">
         <Button type="submit" disabled={save.isPending}>
-          {station ? 'Save station' : 'Add station'}
+          {station ? t('stations.save') : t('stations.create')}
         </Button>
         <Button variant="ghost" onClick={onDone}>
-          Cancel
+          {t('cancel')}
         </Button>
       </div>
     </form>
@@ -73,26 +75,27 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
 const col = createColumnHelper<StationView>();
 
 export function Component() {
+  const { t } = useTranslation(['admin', 'common']);
   const stations = useStations();
   const [editing, setEditing] = useState<StationView | 'new' | null>(null);
   const columns = [
-    col.accessor('code', { header: 'Code' }),
-    col.accessor('name', { header: 'Name' }),
-    col.accessor('kind', { header: 'Kind', cell: (c) => c.getValue().replace('_', ' ') }),
-    col.accessor('capacityTrays', { header: 'Trays at once' }),
-    col.accessor('continuous', { header: 'Hours', cell: (c) => (c.getValue() ? 'Round the clock' : 'Shifts') }),
-    col.accessor('active', { header: 'State', cell: (c) => (c.getValue() ? <Pill tone="ok">In use</Pill> : <Pill>Not in use</Pill>) }),
-    col.display({ id: 'edit', header: '', cell: (c) => <Button variant="ghost" onClick={() => setEditing(c.row.original)}>Edit</Button> }),
+    col.accessor('code', { header: t('code') }),
+    col.accessor('name', { header: t('name') }),
+    col.accessor('kind', { header: t('stations.kind'), cell: (c) => t(`common:kind.${c.getValue()}`) }),
+    col.accessor('capacityTrays', { header: t('stations.capacity') }),
+    col.accessor('continuous', { header: t('stations.hours'), cell: (c) => (c.getValue() ? t('stations.roundTheClock') : t('stations.shifts')) }),
+    col.accessor('active', { header: t('state'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('stations.inUse')}</Pill> : <Pill>{t('stations.notInUse')}</Pill>) }),
+    col.display({ id: 'edit', header: '', cell: (c) => <Button variant="ghost" onClick={() => setEditing(c.row.original)}>{t('edit')}</Button> }),
   ];
   return (
     <>
-      <PageHeader title="Stations" subtitle="Where the work happens. A routing step names a kind of work; any station of that kind can do it." actions={<Button onClick={() => setEditing('new')}>Add a station</Button>} />
+      <PageHeader title={t('stations.title')} subtitle={t('stations.subtitle')} actions={<Button onClick={() => setEditing('new')}>{t('stations.add')}</Button>} />
       {editing && (
         <Card className="mb-6">
           <StationForm key={editing === 'new' ? 'new' : editing.id} station={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
         </Card>
       )}
-      {stations.isPending ? <Loading /> : stations.error ? <ErrorPanel message={stations.error.message} /> : <DataTable data={stations.data} columns={columns} filterLabel="Find a station" caption="Stations" />}
+      {stations.isPending ? <Loading /> : stations.error ? <ErrorPanel message={stations.error.message} /> : <DataTable data={stations.data} columns={columns} filterLabel={t('stations.find')} caption={t('stations.caption')} />}
     </>
   );
 }

@@ -29,6 +29,10 @@ import { registerLoadRoutes } from './routes/loads.routes';
 import { registerPaymentRoutes } from './routes/payments.routes';
 import { registerPortalRoutes } from './routes/portal.routes';
 import { registerQuoteRoutes } from './routes/quotes.routes';
+import { addScanHook } from './services/scan-ingest.service';
+import { statusAfterScans } from './services/shipping.service';
+import { reportFactsService } from './services/report-facts.service';
+import { startMailWorker } from './services/mail.service';
 import { registerCostingRoutes } from './routes/costing.routes';
 import { registerProjectionRoutes } from './routes/projections.routes';
 
@@ -37,10 +41,19 @@ const clientDist = path.join(PROJECT_ROOT, 'dist');
 export interface CreatedApp {
   app: express.Express;
   api: Api;
+  /** stops the background work started here (the mail worker) */
+  stop(): void;
 }
 
-/** Builds the HTTP app without listening (the Supertest target). */
-export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}): CreatedApp {
+/**
+ * Builds the HTTP app without listening (the Supertest target), and wires what runs beside the
+ * requests, here and nowhere else (no module does work when it is imported):
+ * - scan hooks: an order becomes packed or shipped as its trays finish (in the scan's transaction);
+ * - with `background` (the server; tests leave it off and call what they need): the report-facts
+ *   follower that keeps the report tables fresh after floor changes, and the mail queue worker
+ *   when `deps.mail` is connected (server/index.ts).
+ */
+export function createApp(deps: AppDeps, options: { serveClient?: boolean; background?: boolean } = {}): CreatedApp {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -66,6 +79,13 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
     }),
   );
   app.use(cookieParser());
+
+  addScanHook(deps, statusAfterScans);
+  const stops: (() => void)[] = [];
+  if (options.background) {
+    reportFactsService.follow(deps);
+    if (deps.mail) stops.push(startMailWorker(deps).stop);
+  }
 
   const api = new Api(deps);
   const limits = makeSignInLimits(deps);
@@ -109,5 +129,5 @@ export function createApp(deps: AppDeps, options: { serveClient?: boolean } = {}
     });
   }
   app.use(errorHandler);
-  return { app, api };
+  return { app, api, stop: () => stops.forEach((stop) => stop()) };
 }

@@ -1,7 +1,7 @@
 import { loadEnv } from './env';
 import { boot } from './boot';
 import { createApp } from './app';
-import { startMail } from './services/mail.service';
+import { connectMail } from './services/mail.service';
 import { startPayments } from './services/payments.service';
 
 // A failure nobody awaited (a library's late callback, a stream error) is logged and survived:
@@ -16,19 +16,20 @@ process.on('uncaughtException', (err) => {
 
 const env = loadEnv();
 const deps = await boot(env);
-// Outgoing mail: SMTP_URL, or the local catcher on a loopback port; the queue worker runs here.
-const mail = await startMail(deps);
+// Outgoing mail: SMTP_URL, or the local catcher on a loopback port (its queue worker starts in createApp).
+const mail = await connectMail(deps);
 // Hosted checkout: the real service with STRIPE_SECRET_KEY, else the local fake on a loopback
 // port, which posts its signed events to this server's webhook.
 const payments = await startPayments(deps, () => `http://127.0.0.1:${env.port}/api/payments/webhook`);
-const { app } = createApp(deps);
+const { app, stop } = createApp({ ...deps, mail: mail.mail }, { background: true });
 const server = app.listen(env.port, () => {
   deps.log.info(`Trayce is serving on http://localhost:${env.port}`);
 });
 
 function shutdown(signal: string) {
   deps.log.info(`${signal}: closing`);
-  void mail.stop();
+  stop();
+  void mail.close();
   void payments.stop();
   server.close(() => {
     deps.db.$client.close();

@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gte, inArray, isNull, or, sql } from 'drizzle-orm';
 import type { DbLike as Db } from '../db/client';
-import { scanEvents, scanRejections, overrides, attachments } from '../db/schema/scans';
+import { scanRejections, overrides, attachments } from '../db/schema/scans';
 import { trays, trayStates } from '../db/schema/trays';
 import { orders, orderSteps, proofs } from '../db/schema/orders';
 import { stations } from '../db/schema/stations';
@@ -11,20 +11,16 @@ import type Database from 'better-sqlite3';
 
 /** The traveller fields a scan needs. */
 export type TrayRow = Pick<typeof trays.$inferSelect, 'id' | 'number' | 'kind' | 'orderId' | 'revision' | 'quantity' | 'releasedAt'>;
-export type TrayStateRow = typeof trayStates.$inferSelect;
+export type { TrayStateRow, ScanEventInsert } from './tray-states.repository';
 export type OrderStepRow = typeof orderSteps.$inferSelect;
 export type OverrideRow = typeof overrides.$inferSelect;
 export type RejectionRow = typeof scanRejections.$inferSelect;
-export type ScanEventInsert = typeof scanEvents.$inferInsert;
 export type RejectionInsert = typeof scanRejections.$inferInsert;
 
 // The scan path runs for every scan a tablet sends, so its statements are prepared once per
-// connection and reused (raw better-sqlite3: building each query through the ORM cost more than
+// connection and reused (tray states and event rows: tray-states.repository.ts) (raw better-sqlite3: building each query through the ORM cost more than
 // the write itself). Lists go in as one JSON array parameter, read with json_each.
 const TRAY_COLS = 'id, number, kind, order_id as orderId, revision, quantity, released_at as releasedAt';
-const STATE_COLS = `tray_id as trayId, kind, phase, step_seq as stepSeq, station_kind as stationKind, quantity, station_id as stationId,
-  started_at as startedAt, waiting_since as waitingSince, cure_ready_at as cureReadyAt, on_hold as onHold, hold_reason as holdReason,
-  released_at as releasedAt, last_event_at as lastEventAt, updated_at as updatedAt`;
 const STEP_COLS = `id, order_id as orderId, traveller_kind as travellerKind, seq, name, station_kind as stationKind, tray_minutes as trayMinutes,
   piece_minutes as pieceMinutes, cure_minutes as cureMinutes, colour`;
 const REJECTION_COLS = `id, event_id as eventId, tray_id as trayId, station_id as stationId, device_id as deviceId, user_id as userId, code, message,
@@ -33,11 +29,9 @@ const IN_LIST = '(select value from json_each(?))';
 
 function prepareAll(c: Database.Database) {
   return {
-    acceptedIds: c.prepare(`select id from scan_events where id in ${IN_LIST}`).pluck(),
     rejectionsByEventIds: c.prepare(`select ${REJECTION_COLS} from scan_rejections where event_id in ${IN_LIST}`),
     traysByNumbers: c.prepare(`select ${TRAY_COLS} from trays where number in ${IN_LIST}`),
     trayById: c.prepare(`select ${TRAY_COLS} from trays where id = ?`),
-    statesByTrayIds: c.prepare(`select ${STATE_COLS} from tray_states where tray_id in ${IN_LIST}`),
     stepsByOrders: c.prepare(`select ${STEP_COLS} from order_steps where order_id in ${IN_LIST} order by order_id, seq`),
     // a mould is ready for an order when it is marked ready, or when the order's own mould traveller
     // for it has finished (engraved where new, and checked)
@@ -49,24 +43,8 @@ function prepareAll(c: Database.Database) {
     openRetryable: c.prepare(`select ${REJECTION_COLS} from scan_rejections
       where tray_id in ${IN_LIST} and resolved_at is null and code in (select value from json_each(?))
       order by occurred_at, received_at`),
-    insertEvent: c.prepare(`insert into scan_events (id, tray_id, type, step_seq, station_id, station_kind, device_id, user_id, occurred_at, received_at,
-      qty_in, good_qty, scrap_qty, rework_qty, scrap_reason, override_id, note, photo_hash)
-      values (@id, @trayId, @type, @stepSeq, @stationId, @stationKind, @deviceId, @userId, @occurredAt, @receivedAt,
-      @qtyIn, @goodQty, @scrapQty, @reworkQty, @scrapReason, @overrideId, @note, @photoHash)`),
     insertRejection: c.prepare(`insert into scan_rejections (id, event_id, tray_id, station_id, device_id, user_id, code, message, payload, occurred_at, received_at)
       values (@id, @eventId, @trayId, @stationId, @deviceId, @userId, @code, @message, @payload, @occurredAt, @receivedAt)`),
-    upsertState: c.prepare(`insert into tray_states (tray_id, kind, phase, step_seq, station_kind, quantity, station_id, started_at, waiting_since,
-      cure_ready_at, on_hold, hold_reason, released_at, last_event_at, updated_at)
-      values (@trayId, @kind, @phase, @stepSeq, @stationKind, @quantity, @stationId, @startedAt, @waitingSince,
-      @cureReadyAt, @onHold, @holdReason, @releasedAt, @lastEventAt, @updatedAt)
-      on conflict(tray_id) do update set kind = excluded.kind, phase = excluded.phase, step_seq = excluded.step_seq,
-      station_kind = excluded.station_kind, quantity = excluded.quantity, station_id = excluded.station_id,
-      started_at = excluded.started_at, waiting_since = excluded.waiting_since, cure_ready_at = excluded.cure_ready_at,
-      on_hold = excluded.on_hold, hold_reason = excluded.hold_reason, released_at = excluded.released_at,
-      last_event_at = excluded.last_event_at, updated_at = excluded.updated_at`),
-    updateState: c.prepare(`update tray_states set kind = @kind, phase = @phase, step_seq = @stepSeq, station_kind = @stationKind, quantity = @quantity,
-      station_id = @stationId, started_at = @startedAt, waiting_since = @waitingSince, cure_ready_at = @cureReadyAt, on_hold = @onHold,
-      hold_reason = @holdReason, released_at = @releasedAt, last_event_at = @lastEventAt, updated_at = @updatedAt where tray_id = @trayId`),
     markInProduction: c.prepare(`update orders set status = 'in_production', updated_at = ? where status = 'released' and id in ${IN_LIST}`),
     savepoint: c.prepare('savepoint scan_batch'),
     release: c.prepare('release savepoint scan_batch'),
@@ -117,22 +95,16 @@ function referenceData(db: Db) {
 
 const json = (xs: readonly string[]) => JSON.stringify(xs);
 
-type RawState = Omit<TrayStateRow, 'onHold'> & { onHold: number };
 type RawRejection = Omit<RejectionRow, 'payload'> & { payload: string };
 const toRejection = (r: RawRejection): RejectionRow => ({ ...r, payload: JSON.parse(r.payload) });
 
 export const scansRepository = {
   // --- reads for a batch ---------------------------------------------------------------
-  acceptedIds: (db: Db, ids: string[]): string[] => (ids.length ? (q(db).acceptedIds.all(json(ids)) as string[]) : []),
-
   rejectionsByEventIds: (db: Db, ids: string[]): RejectionRow[] => (ids.length ? (q(db).rejectionsByEventIds.all(json(ids)) as RawRejection[]).map(toRejection) : []),
 
   traysByNumbers: (db: Db, numbers: string[]): TrayRow[] => (numbers.length ? (q(db).traysByNumbers.all(json(numbers)) as TrayRow[]) : []),
 
   trayById: (db: Db, id: string): TrayRow | undefined => q(db).trayById.get(id) as TrayRow | undefined,
-
-  statesByTrayIds: (db: Db, ids: string[]): TrayStateRow[] =>
-    ids.length ? (q(db).statesByTrayIds.all(json(ids)) as RawState[]).map((r) => ({ ...r, onHold: !!r.onHold })) as TrayStateRow[] : [],
 
   stepsByOrders: (db: Db, orderIds: string[]): OrderStepRow[] => (orderIds.length ? (q(db).stepsByOrders.all(json(orderIds)) as OrderStepRow[]) : []),
 
@@ -185,28 +157,11 @@ export const scansRepository = {
   },
 
   // --- writes ---------------------------------------------------------------------------
-  insertEvents(db: Db, rows: ScanEventInsert[]) {
-    const stmt = q(db).insertEvent;
-    for (const r of rows) {
-      stmt.run({
-        stepSeq: null, stationId: null, stationKind: null, deviceId: null, userId: null, qtyIn: null, goodQty: null, scrapQty: null,
-        reworkQty: null, scrapReason: null, overrideId: null, note: null, photoHash: null, ...r,
-      });
-    }
-  },
-
   insertRejections(db: Db, rows: RejectionInsert[]) {
     const stmt = q(db).insertRejection;
     for (const r of rows) {
       stmt.run({ trayId: null, stationId: null, deviceId: null, userId: null, occurredAt: null, ...r, payload: JSON.stringify(r.payload) });
     }
-  },
-
-  /** Writes a traveller's state: an update almost always (the row exists from its release), an insert otherwise. */
-  upsertState(db: Db, row: TrayStateRow) {
-    const p = q(db);
-    const params = { ...row, onHold: row.onHold ? 1 : 0 };
-    if (p.updateState.run(params).changes === 0) p.upsertState.run(params);
   },
 
   useOverride: (db: Db, id: string, eventId: string) => db.update(overrides).set({ usedEventId: eventId }).where(eq(overrides.id, id)).run(),
@@ -285,8 +240,6 @@ export const scansRepository = {
           .all()
       : [],
 
-  events: (db: Db, trayId: string) => db.select().from(scanEvents).where(eq(scanEvents.trayId, trayId)).orderBy(asc(scanEvents.occurredAt)).all(),
-
   /** Refused scans for the supervisors' list, newest first. */
   rejections(db: Db, filter: { open?: boolean; deviceId?: string; since?: number; limit: number }) {
     const where = [
@@ -315,10 +268,6 @@ export const scansRepository = {
 
   countOpenRejections: (db: Db) =>
     db.select({ n: sql<number>`count(*)` }).from(scanRejections).where(isNull(scanRejections.resolvedAt)).get()?.n ?? 0,
-
-  /** For tests and the bench: event rows of an id range. */
-  countEvents: (db: Db, sinceReceived = 0) =>
-    db.select({ n: sql<number>`count(*)` }).from(scanEvents).where(gte(scanEvents.receivedAt, sinceReceived)).get()?.n ?? 0,
 
   attachmentsOf: (db: Db, trayId: string) => db.select().from(attachments).where(eq(attachments.trayId, trayId)).all(),
 

@@ -4,7 +4,6 @@ import { ALL_ROLES, OFFICE } from '@shared/domain/access';
 import { wipService } from '../services/wip.service';
 import { wallService } from '../services/wall.service';
 import { streamService } from '../services/stream.service';
-import { reportFactsService } from '../services/report-facts.service';
 
 export function registerLiveRoutes(api: Api) {
   api.route({
@@ -24,7 +23,6 @@ export function registerLiveRoutes(api: Api) {
     path: '/stream',
     access: { roles: ALL_ROLES, devices: ['wall', 'tablet'] },
     handler: ({ deps, req, res }) => {
-      reportFactsService.follow(deps);
       // checked again while the stream is open: it closes when the session ends or the person or device is switched off
       const access = { roles: ALL_ROLES, devices: ['wall', 'tablet'] as const };
       streamService.open(deps, res, async () => {

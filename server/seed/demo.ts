@@ -8,11 +8,11 @@ import { devices } from '../db/schema/devices';
 import { customers } from '../db/schema/customers';
 import { orders } from '../db/schema/orders';
 import { moulds } from '../db/schema/moulds';
-import { trays, trayStates } from '../db/schema/trays';
-import { overrides, scanEvents, scanRejections } from '../db/schema/scans';
+import { trays } from '../db/schema/trays';
+import { overrides, scanRejections } from '../db/schema/scans';
 import { cartons, shipments } from '../db/schema/shipping';
 import { hashSecret } from '../services/auth.service';
-import { rowFromState, stateFromRow } from '../services/scan-ingest.service';
+import { rowFromState, stateFromRow, trayStatesRepository } from '../repositories/tray-states.repository';
 import { ordersService } from '../services/orders.service';
 import { routingOf as routingOfOrder } from '../services/order-spec.service';
 import { orderGatesService } from '../services/order-gates.service';
@@ -286,7 +286,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
         const travellers = db.select().from(trays).where(eq(trays.orderId, orderId)).all();
         travellers.sort((x, y) => (x.kind === y.kind ? x.number.localeCompare(y.number) : x.kind === 'mould' ? -1 : 1));
         for (const t of travellers) {
-          const row = db.select().from(trayStates).where(eq(trayStates.trayId, t.id)).get()!;
+          const row = trayStatesRepository.byTrayId(db, t.id)!;
           const routing = trayRoutes[t.kind];
           routingOf.set(t.id, routing);
           simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateFromRow(row) });
@@ -444,8 +444,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     for (const [id, patch] of mouldPatches) tx.update(moulds).set(patch).where(eq(moulds.id, id)).run();
     for (const t of simTravellers) {
       const state = sim.states.get(t.id)!;
-      const { trayId, ...row } = rowFromState(state, t.routing, Date.parse(state.lastEventAt ?? state.releasedAt));
-      tx.update(trayStates).set(row).where(eq(trayStates.trayId, trayId)).run();
+      trayStatesRepository.put(tx, rowFromState(state, t.routing, Date.parse(state.lastEventAt ?? state.releasedAt)));
     }
     insertMany(tx, overrides, sim.overrides);
     for (const o of sim.overrides) {
@@ -458,7 +457,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
         detail: { eventId: o.usedEventId, overridden: [o.kind], reason: o.reason, operatorId: used.userId },
       });
     }
-    insertMany(tx, scanEvents, sim.events, 500);
+    trayStatesRepository.insertEvents(tx, sim.events);
     insertMany(tx, scanRejections, sim.rejections.map((r) => ({ ...r, resolvedAt: null, resolvedBy: null, resolution: null })));
     insertMany(tx, shipments, shipmentRows);
     insertMany(tx, cartons, cartonRows);

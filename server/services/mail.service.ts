@@ -237,22 +237,34 @@ export function startMailWorker(deps: AppDeps, intervalMs = 5000): { stop(): voi
 
 /**
  * Connects outgoing mail: to SMTP_URL when set, otherwise to the local catcher started here on
- * a loopback port. Then starts the queue worker.
+ * a loopback port. Returns the sender for AppDeps.mail; createApp starts the queue worker.
  */
-export async function startMail(deps: AppDeps, options: { intervalMs?: number } = {}): Promise<{ catcher: MailCatcher | null; stop(): Promise<void> }> {
+export async function connectMail(deps: AppDeps): Promise<{ mail: NonNullable<AppDeps['mail']>; catcher: MailCatcher | null; close(): Promise<void> }> {
   const catcher = deps.env.smtpUrl ? null : await startMailCatcher({ dataDir: deps.env.dataDir });
   const transport = deps.env.smtpUrl
     ? nodemailer.createTransport(deps.env.smtpUrl)
     : nodemailer.createTransport({ host: catcher!.host, port: catcher!.port, secure: false, ignoreTLS: true });
-  deps.mail = { send: (m) => transport.sendMail(m), from: defaultFrom(deps) };
-  const worker = startMailWorker(deps, options.intervalMs);
   if (catcher) deps.log.info(`Mail goes to the local catcher on ${catcher.url}; admins read it on the Outbox screen.`);
   return {
+    mail: { send: (m) => transport.sendMail(m), from: defaultFrom(deps) },
     catcher,
-    async stop() {
-      worker.stop();
+    async close() {
       transport.close();
       await catcher?.close();
+    },
+  };
+}
+
+/** For tests that add mail to a test app already made: connects it and runs the queue worker. */
+export async function startMail(deps: AppDeps, options: { intervalMs?: number } = {}): Promise<{ catcher: MailCatcher | null; stop(): Promise<void> }> {
+  const connected = await connectMail(deps);
+  deps.mail = connected.mail;
+  const worker = startMailWorker(deps, options.intervalMs);
+  return {
+    catcher: connected.catcher,
+    async stop() {
+      worker.stop();
+      await connected.close();
     },
   };
 }

@@ -4,13 +4,14 @@
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import { ordersRepository } from '../repositories/orders.repository';
-import { traysRepository, type TrayStateInsert } from '../repositories/trays.repository';
+import { traysRepository } from '../repositories/trays.repository';
+import { rowFromState, trayStatesRepository } from '../repositories/tray-states.repository';
 import { mouldsRepository } from '../repositories/moulds.repository';
 import { AppError, badInput, conflict } from '../errors';
 import { checkReleasedAt, type OrderGate, type ReleaseBody, type ReleaseResult } from '@shared/schemas/orders';
 import { mouldRouting, requiredMoulds } from '@shared/domain/routing';
 import { MAX_TRAYS_PER_RELEASE, mouldNumber, releasedQuantity, splitIntoTrays, trayNumber } from '@shared/domain/trays';
-import { initialTrayState, type TravellerKind } from '@shared/domain/vocabulary';
+import { initialTrayState, type RoutingStep, type TravellerKind } from '@shared/domain/vocabulary';
 import { kindTraits } from '@shared/domain/traveller';
 import { openGates, PRE_RELEASE_STATUSES } from './order-gates';
 import { routingFromSpec, routingOf, specOf, stepRows } from './order-spec.service';
@@ -21,34 +22,10 @@ const GATE_MESSAGES: Record<OrderGate, string> = {
   proof_not_approved: 'The latest artwork proof is not approved by the customer yet. Record the approval first.',
 };
 
-/** A tray_states row for a traveller just released, waiting for `stepSeq`. */
-export function releasedStateRow(input: {
-  trayId: string;
-  kind: TravellerKind;
-  quantity: number;
-  releasedAt: number;
-  stepSeq: number;
-  stationKind: string | null;
-  now: number;
-}): TrayStateInsert {
-  const s = initialTrayState({ trayId: input.trayId, kind: input.kind, quantity: input.quantity, releasedAt: new Date(input.releasedAt).toISOString() });
-  return {
-    trayId: s.trayId,
-    kind: s.kind,
-    phase: s.phase,
-    stepSeq: input.stepSeq,
-    stationKind: input.stationKind,
-    quantity: s.quantity,
-    stationId: s.stationId,
-    startedAt: null,
-    waitingSince: Date.parse(s.waitingSince!),
-    cureReadyAt: null,
-    onHold: s.onHold,
-    holdReason: s.holdReason,
-    releasedAt: input.releasedAt,
-    lastEventAt: null,
-    updatedAt: input.now,
-  };
+/** The first state of a traveller just released: waiting for `stepSeq` of its routing. */
+function releasedState(input: { trayId: string; kind: TravellerKind; quantity: number; releasedAt: number; stepSeq: number; routing: readonly RoutingStep[]; now: number }) {
+  const first = initialTrayState({ trayId: input.trayId, kind: input.kind, quantity: input.quantity, releasedAt: new Date(input.releasedAt).toISOString() });
+  return rowFromState({ ...first, stepSeq: input.stepSeq }, input.routing, input.now);
 }
 
 export const orderReleaseService = {
@@ -118,8 +95,7 @@ export const orderReleaseService = {
         traysRepository.insert(tx, { id: trayId, number, kind: 'mould', orderId: id, mouldId, revision: 1, quantity: 1, releasedAt, createdAt: now });
         // a stored mould skips engraving: its traveller starts at the check
         const firstSeq = stored ? checkSeq : 1;
-        const firstKind = mouldSteps.find((s) => s.seq === firstSeq)!.stationKind;
-        traysRepository.insertState(tx, releasedStateRow({ trayId, kind: 'mould', quantity: 1, releasedAt, stepSeq: firstSeq, stationKind: firstKind, now }));
+        trayStatesRepository.insert(tx, releasedState({ trayId, kind: 'mould', quantity: 1, releasedAt, stepSeq: firstSeq, routing: mouldSteps, now }));
         mouldTravellers.push({ id: trayId, number, code: travellerCode(deps, { number, revision: 1 }), quantity: 1 });
       }
 
@@ -127,7 +103,7 @@ export const orderReleaseService = {
         const trayId = crypto.randomUUID();
         const number = trayNumber(order.number, i + 1);
         traysRepository.insert(tx, { id: trayId, number, kind: 'tray', orderId: id, revision: 1, quantity, releasedAt, createdAt: now });
-        traysRepository.insertState(tx, releasedStateRow({ trayId, kind: 'tray', quantity, releasedAt, stepSeq: 1, stationKind: routing[0].stationKind, now }));
+        trayStatesRepository.insert(tx, releasedState({ trayId, kind: 'tray', quantity, releasedAt, stepSeq: routing[0].seq, routing, now }));
         return { id: trayId, number, code: travellerCode(deps, { number, revision: 1 }), quantity };
       });
 

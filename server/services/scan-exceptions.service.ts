@@ -8,7 +8,8 @@ import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { RejectionCode } from '@shared/domain/vocabulary';
 import type { ScanEvent, ScanResult } from '@shared/schemas/scans';
 import { notifyFloorChanged } from './live-bus';
-import { BatchData, evaluateAgain, refusalResult, rowFromState, storedEvent, traySummary } from './scan-ingest.service';
+import { BatchData, evaluateAgain, refusalResult, storedEvent, traySummary } from './scan-ingest.service';
+import { rowFromState, trayStatesRepository } from '../repositories/tray-states.repository';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
@@ -77,7 +78,7 @@ export const scanExceptionsService = {
           return refusalResult(event.id, e, data);
         }
         const ok = e.result;
-        scansRepository.upsertState(tx, rowFromState(ok.next, data.routing(e.tray!), now));
+        trayStatesRepository.put(tx, rowFromState(ok.next, data.routing(e.tray!), now));
         scansRepository.resolveRejection(tx, id, { resolvedAt: now, resolvedBy: actorId, resolution: 'accepted_on_retry' });
         auditRepository.record(tx, now, { userId: actorId, action: 'scan.retry', entity: 'scan_rejection', entityId: id, detail: { eventId: event.id } });
         return { id: event.id, status: 'accepted' as const, tray: traySummary(e.tray!, ok.next, data.routing(e.tray!)) };

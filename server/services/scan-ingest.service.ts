@@ -13,9 +13,9 @@ import {
   type RejectionRow,
   type ScanEventInsert,
   type TrayRow,
-  type TrayStateRow,
 } from '../repositories/scans.repository';
 import { auditRepository } from '../repositories/audit.repository';
+import { rowFromState, stateFromRow, trayStatesRepository } from '../repositories/tray-states.repository';
 import { notifyFloorChanged } from './live-bus';
 import { toRoutingStep } from './order-spec.service';
 import { evaluateScan, lastEventTime, type GuardResult, type RefusalParams, type TravellerVerdict, type ValidOverride } from '@shared/domain/guards';
@@ -44,56 +44,25 @@ export interface AcceptedScan {
   state: TrayState;
 }
 
+/** A listener that runs inside each scan batch's transaction (keep it quick; throw only for a bug). */
+export type ScanHook = (tx: DbLike, accepted: AcceptedScan[], deps: AppDeps) => void;
+
+const hooks = new WeakMap<object, ScanHook[]>();
+
 /**
- * Other features hook in here instead of editing this service: `inTransaction` runs inside the
- * batch's transaction (keep it quick; throw only for a bug).
+ * Other features react to accepted scans through a hook instead of editing this service; createApp
+ * adds the app's own (server/app.ts). Hooks belong to one database. Returns a remover.
  */
-export const scanHooks = {
-  inTransaction: [] as Array<(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps) => void>,
-};
-
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
-const ms = (text: string | null | undefined) => (text == null ? null : Date.parse(text));
-
-export function stateFromRow(r: TrayStateRow): TrayState {
-  return {
-    trayId: r.trayId,
-    kind: r.kind,
-    phase: r.phase,
-    stepSeq: r.stepSeq,
-    quantity: r.quantity,
-    stationId: r.stationId,
-    startedAt: iso(r.startedAt),
-    waitingSince: iso(r.waitingSince),
-    cureReadyAt: iso(r.cureReadyAt),
-    onHold: r.onHold,
-    holdReason: r.holdReason,
-    releasedAt: iso(r.releasedAt)!,
-    lastEventAt: iso(r.lastEventAt),
+export function addScanHook(deps: Pick<AppDeps, 'db'>, hook: ScanHook): () => void {
+  let list = hooks.get(deps.db);
+  if (!list) hooks.set(deps.db, (list = []));
+  if (!list.includes(hook)) list.push(hook);
+  return () => {
+    const i = list.indexOf(hook);
+    if (i >= 0) list.splice(i, 1);
   };
 }
 
-/** The stored row of a traveller's state (the guard's state, instants as epoch ms). */
-export function rowFromState(s: TrayState, routing: readonly RoutingStep[], now: number): TrayStateRow {
-  const step = s.stepSeq == null ? undefined : routing.find((r) => r.seq === s.stepSeq);
-  return {
-    trayId: s.trayId,
-    kind: s.kind,
-    phase: s.phase,
-    stepSeq: s.stepSeq,
-    stationKind: step?.stationKind ?? null,
-    quantity: s.quantity,
-    stationId: s.stationId,
-    startedAt: ms(s.startedAt),
-    waitingSince: ms(s.waitingSince),
-    cureReadyAt: ms(s.cureReadyAt),
-    onHold: s.onHold,
-    holdReason: s.holdReason,
-    releasedAt: ms(s.releasedAt)!,
-    lastEventAt: ms(s.lastEventAt ?? null),
-    updatedAt: now,
-  };
-}
 
 export function traySummary(tray: TrayRow, state: TrayState, routing: readonly RoutingStep[]): ScanTray {
   const step = state.stepSeq == null ? undefined : routing.find((r) => r.seq === state.stepSeq);
@@ -151,7 +120,7 @@ export class BatchData {
       this.traysById.set(t.id, t);
     }
     const newIds = rows.map((t) => t.id).filter((id) => !this.states.has(id));
-    for (const s of scansRepository.statesByTrayIds(this.db, newIds)) this.states.set(s.trayId, stateFromRow(s));
+    for (const s of trayStatesRepository.byTrayIds(this.db, newIds)) this.states.set(s.trayId, stateFromRow(s));
     for (const t of rows) {
       // A traveller released before states were kept starts at its first step.
       if (!this.states.has(t.id)) {
@@ -418,7 +387,7 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
   const data = new BatchData(tx, deps.keys.traveller);
   const valid = parsed.filter((p) => p.event).map((p) => p.event!);
   const ids = valid.map((e) => e.id);
-  const already = new Set(scansRepository.acceptedIds(tx, ids));
+  const already = new Set(trayStatesRepository.acceptedIds(tx, ids));
   const refusedBefore = new Map(scansRepository.rejectionsByEventIds(tx, ids).map((r) => [r.eventId, r]));
   const numbers = valid.map((e) => parseTravellerCode(e.code)?.number).filter((n): n is string => !!n);
   data.loadTrays(numbers);
@@ -490,7 +459,7 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
     resultIndexByEvent.set(event.id, results.length - 1);
   }
 
-  scansRepository.insertEvents(tx, newEvents);
+  trayStatesRepository.insertEvents(tx, newEvents);
   scansRepository.insertRejections(tx, newRejections);
 
   // Scans that arrived late from another tablet may make earlier refusals right: try them again.
@@ -503,11 +472,11 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
 
   for (const trayId of touched) {
     const tray = data.traysById.get(trayId)!;
-    scansRepository.upsertState(tx, rowFromState(data.states.get(trayId)!, data.routing(tray), now));
+    trayStatesRepository.put(tx, rowFromState(data.states.get(trayId)!, data.routing(tray), now));
   }
   const startedOrders = [...new Set(accepted.filter((a) => a.type === 'start').map((a) => a.orderId))];
   scansRepository.markOrderInProduction(tx, startedOrders, now);
-  for (const hook of scanHooks.inTransaction) hook(tx, accepted, deps);
+  for (const hook of hooks.get(deps.db) ?? []) hook(tx, accepted, deps);
   return { results, accepted };
 }
 
@@ -531,7 +500,7 @@ export function evaluateAgain(tx: DbLike, data: BatchData, event: ScanEvent, row
   const prepared: PreparedEvent = { event, operator: operator ? { id: operator.id, role: operator.role as Role } : null, operatorProblem: 'operator_unknown' };
   const e = evaluate(data, prepared, now);
   if (e.result.ok) {
-    scansRepository.insertEvents(tx, eventRows({ ...e, result: e.result }, prepared, row.deviceId, now));
+    trayStatesRepository.insertEvents(tx, eventRows({ ...e, result: e.result }, prepared, row.deviceId, now));
     data.states.set(e.tray!.id, e.result.next);
   }
   return e;

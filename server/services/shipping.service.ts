@@ -14,7 +14,7 @@ import { createLinkIn } from './share-links.service';
 import { enqueueMail, kickMail } from './mail.service';
 import { shippedMail } from '../lib/mail-templates';
 import { renderPackingList } from '../lib/packing-list-pdf';
-import { scanHooks, type AcceptedScan } from './scan-ingest.service';
+import type { AcceptedScan } from './scan-ingest.service';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
@@ -88,7 +88,7 @@ export function syncOrderStatus(tx: DbLike, orderId: string, now: number): 'ship
  * After accepted scans, in their transaction: an order becomes packed or shipped as its trays
  * finish packing and dispatch (a finish with every piece scrapped can complete an order too).
  */
-function statusAfterScans(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps): void {
+export function statusAfterScans(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps): void {
   // Only a finish at packing or dispatch, or one that ends a tray (done, or every piece scrapped),
   // can change the order's status: other finishes skip the order's progress read.
   const orderIds = new Set(
@@ -98,7 +98,6 @@ function statusAfterScans(tx: DbLike, accepted: AcceptedScan[], deps: AppDeps): 
   );
   for (const orderId of orderIds) syncOrderStatus(tx, orderId, deps.now());
 }
-if (!scanHooks.inTransaction.includes(statusAfterScans)) scanHooks.inTransaction.push(statusAfterScans);
 
 export const shippingService = {
   /** Orders with pieces ready for packing or dispatch (or every match of `q`). */

@@ -3,13 +3,13 @@
 import type { AppDeps } from '../app-deps';
 import type { DbLike } from '../db/client';
 import { scansRepository, type TrayRow } from '../repositories/scans.repository';
+import { stateFromRow, trayStatesRepository } from '../repositories/tray-states.repository';
 import { AppError, conflict, notFound } from '../errors';
 import { refusalText } from '@shared/domain/scan-messages';
 import { parseTravellerCode, verifyTravellerCode } from '@shared/domain/traveller-code';
 import { initialTrayState, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
 import type { StationQueue, TrayCard } from '@shared/schemas/scans';
 import { toRoutingStep } from './order-spec.service';
-import { stateFromRow } from './scan-ingest.service';
 
 function cards(db: DbLike, items: { tray: TrayRow; state: TrayState }[]): TrayCard[] {
   const orderIds = [...new Set(items.map((i) => i.tray.orderId))];
@@ -74,7 +74,7 @@ export const stationQueueService = {
     if (check.status === 'void_traveller') {
       throw conflict('void_traveller', refusalText('void_traveller', { currentRevision: check.currentRevision }), { currentRevision: check.currentRevision });
     }
-    const stateRow = scansRepository.statesByTrayIds(deps.db, [tray.id])[0];
+    const stateRow = trayStatesRepository.byTrayId(deps.db, tray.id);
     const state = stateRow
       ? stateFromRow(stateRow)
       : initialTrayState({ trayId: tray.id, kind: tray.kind, quantity: tray.quantity, releasedAt: new Date(tray.releasedAt).toISOString() });

@@ -3,7 +3,8 @@
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import type { DbLike } from '../db/client';
-import { traysRepository, type TrayRow, type TrayStateRow } from '../repositories/trays.repository';
+import { traysRepository, type TrayRow } from '../repositories/trays.repository';
+import { stateFromRow, trayStatesRepository, type TrayStateRow } from '../repositories/tray-states.repository';
 import { ordersRepository, type OrderRow } from '../repositories/orders.repository';
 import { mouldsRepository } from '../repositories/moulds.repository';
 import { auditRepository } from '../repositories/audit.repository';
@@ -17,7 +18,7 @@ import { canMerge, childTrayNumber, normaliseTrayNumber, releasedQuantity, split
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { MergeBody, MouldLibraryItem, MouldPatch, SplitBody, TrayLink, TrayView } from '@shared/schemas/trays';
 import type { TravellerSummary } from '@shared/schemas/orders';
-import type { Process, RoutingStep, TrayPhase, TrayState } from '@shared/domain/vocabulary';
+import type { Process, RoutingStep, TrayPhase } from '@shared/domain/vocabulary';
 import { kindTraits } from '@shared/domain/traveller';
 
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
@@ -34,27 +35,9 @@ function findTray(db: DbLike, idOrNumber: string): TrayRow {
 }
 
 function stateOf(db: DbLike, tray: TrayRow): TrayStateRow {
-  const state = traysRepository.state(db, tray.id);
+  const state = trayStatesRepository.byTrayId(db, tray.id);
   if (!state) throw conflict('no_state', `Tray ${tray.number} has no recorded state.`);
   return state;
-}
-
-/** The domain's view of a stored state (times as ISO). */
-function domainState(s: TrayStateRow): TrayState {
-  return {
-    trayId: s.trayId,
-    kind: s.kind,
-    phase: s.phase as TrayPhase,
-    stepSeq: s.stepSeq,
-    quantity: s.quantity,
-    stationId: s.stationId,
-    startedAt: iso(s.startedAt),
-    waitingSince: iso(s.waitingSince),
-    cureReadyAt: iso(s.cureReadyAt),
-    onHold: s.onHold,
-    holdReason: s.holdReason,
-    releasedAt: iso(s.releasedAt)!,
-  };
 }
 
 function link(t: TrayRow, state?: TrayStateRow | null): TrayLink {
@@ -91,7 +74,7 @@ export const traysService = {
   get(deps: AppDeps, idOrNumber: string): TrayView {
     const { db } = deps;
     const tray = findTray(db, idOrNumber);
-    const state = traysRepository.state(db, tray.id) ?? null;
+    const state = trayStatesRepository.byTrayId(db, tray.id) ?? null;
     const order = ordersRepository.byId(db, tray.orderId)!;
     const customer = ordersRepository.customerById(db, order.customerId)!;
     const mould = tray.mouldId ? mouldsRepository.byId(db, tray.mouldId) : undefined;
@@ -99,7 +82,7 @@ export const traysService = {
     const routing = tray.kind === 'mould' ? mouldStepsFor(stored, mouldTool(order.process as Process, mould?.side === 'back' ? 'back' : 'front')) : stored;
     const byId = new Map(routing.map((s) => [s.seq, s]));
     const related = traysRepository.related(db, tray);
-    const stateOfRelated = (t: TrayRow) => traysRepository.state(db, t.id);
+    const stateOfRelated = (t: TrayRow) => trayStatesRepository.byTrayId(db, t.id);
     const next = state?.stepSeq != null && state.phase !== 'merged' ? byId.get(state.stepSeq) : undefined;
     const phase = (state?.phase ?? 'waiting') as TrayPhase;
     return {
@@ -120,7 +103,7 @@ export const traysService = {
       releasedAt: iso(tray.releasedAt)!,
       nextStep: next ? { seq: next.seq, stationKind: next.stationKind, name: next.name } : null,
       routing,
-      events: traysRepository.events(db, tray.id).map(({ event: e, by, station }) => ({
+      events: trayStatesRepository.eventsNamed(db, tray.id).map(({ event: e, by, station }) => ({
         id: e.id,
         type: e.type,
         stepSeq: e.stepSeq,
@@ -149,7 +132,7 @@ export const traysService = {
       mergedFrom: related
         .filter((t) => t.mergedIntoId === tray.id)
         .map((t) => {
-          const ev = traysRepository.events(db, t.id).filter((e) => e.event.type === 'merge').pop();
+          const ev = trayStatesRepository.eventsNamed(db, t.id).filter((e) => e.event.type === 'merge').pop();
           return { id: t.id, number: t.number, quantity: ev?.event.qtyIn ?? 0 };
         }),
       mould: mould ? { id: mould.id, number: mould.number, side: mould.side } : null,
@@ -161,7 +144,7 @@ export const traysService = {
     const now = deps.now();
     return db.transaction((tx) => {
       const tray = findTray(tx, idOrNumber);
-      const state = traysRepository.state(tx, tray.id);
+      const state = trayStatesRepository.byTrayId(tx, tray.id);
       if (state?.phase === 'merged') throw conflict('tray_merged', `Tray ${tray.number} was merged into another tray; print that one.`);
       const revision = tray.revision + 1;
       traysRepository.update(tx, tray.id, { revision });
@@ -177,7 +160,7 @@ export const traysService = {
       const tray = findTray(tx, idOrNumber);
       if (tray.kind !== 'tray') throw conflict('not_a_tray', 'A mould traveller cannot be split.');
       const state = stateOf(tx, tray);
-      const result = splitTray(domainState(state), body.parts.map((p) => p.quantity));
+      const result = splitTray(stateFromRow(state), body.parts.map((p) => p.quantity));
       if (!result.ok) throw conflict(result.code, result.message);
       const routing = routingOf(tx, tray.orderId, 'tray');
       for (const p of body.parts) {
@@ -202,16 +185,16 @@ export const traysService = {
           lastEventAt: now,
           updatedAt: now,
         };
-        traysRepository.insertState(tx, childState);
+        trayStatesRepository.insert(tx, childState);
         const stepName = routing.find((s) => s.seq === childState.stepSeq)?.name;
-        traysRepository.insertEvent(tx, splitEvent(id, 'split', childState, p.quantity, actorId, now, `Split from ${tray.number}${rework ? `; back to "${stepName}" for rework` : ''}${body.note ? `: ${body.note}` : ''}`));
+        trayStatesRepository.insertEvents(tx, [splitEvent(id, 'split', childState, p.quantity, actorId, now, `Split from ${tray.number}${rework ? `; back to "${stepName}" for rework` : ''}${body.note ? `: ${body.note}` : ''}`)]);
         return { id, number, quantity: p.quantity, revision: 1, code: travellerCode(deps, { number, revision: 1 }) };
       });
       const revision = tray.revision + 1;
       traysRepository.update(tx, tray.id, { revision });
-      traysRepository.updateState(tx, tray.id, { quantity: result.remaining, lastEventAt: now, updatedAt: now });
+      trayStatesRepository.patch(tx, tray.id, { quantity: result.remaining, lastEventAt: now, updatedAt: now });
       const moved = children.map((c) => `${c.quantity} to ${c.number}`).join(', ');
-      traysRepository.insertEvent(tx, splitEvent(tray.id, 'split', state, state.quantity, actorId, now, `Split: ${moved}; ${result.remaining} stay${body.note ? `: ${body.note}` : ''}`));
+      trayStatesRepository.insertEvents(tx, [splitEvent(tray.id, 'split', state, state.quantity, actorId, now, `Split: ${moved}; ${result.remaining} stay${body.note ? `: ${body.note}` : ''}`)]);
       auditTray(tx, now, actorId, 'tray.split', tray.id, `Tray ${tray.number} split: ${moved}; ${result.remaining} stay (new traveller revision ${revision})`);
       return {
         tray: { id: tray.id, number: tray.number, quantity: result.remaining, revision, code: travellerCode(deps, { number: tray.number, revision }) },
@@ -232,12 +215,12 @@ export const traysService = {
         if (!routings.has(orderId)) routings.set(orderId, routingOf(tx, orderId, 'tray'));
         return routings.get(orderId)!;
       };
-      const result = canMerge(trays.map((t, i) => ({ orderId: t.orderId, state: domainState(states[i]), routing: routingFor(t.orderId) })));
+      const result = canMerge(trays.map((t, i) => ({ orderId: t.orderId, state: stateFromRow(states[i]), routing: routingFor(t.orderId) })));
       if (!result.ok) throw conflict(result.code, result.message);
       const [target, ...others] = trays;
       const revision = target.revision + 1;
       traysRepository.update(tx, target.id, { revision });
-      traysRepository.updateState(tx, target.id, {
+      trayStatesRepository.patch(tx, target.id, {
         quantity: result.quantity,
         cureReadyAt: result.cureReadyAt ? Date.parse(result.cureReadyAt) : null,
         waitingSince: result.waitingSince ? Date.parse(result.waitingSince) : null,
@@ -247,11 +230,11 @@ export const traysService = {
       others.forEach((t, i) => {
         const s = states[i + 1];
         traysRepository.update(tx, t.id, { mergedIntoId: target.id });
-        traysRepository.updateState(tx, t.id, { phase: 'merged', quantity: 0, stepSeq: null, stationKind: null, lastEventAt: now, updatedAt: now });
-        traysRepository.insertEvent(tx, splitEvent(t.id, 'merge', s, s.quantity, actorId, now, `Merged into ${target.number}${body.note ? `: ${body.note}` : ''}`));
+        trayStatesRepository.patch(tx, t.id, { phase: 'merged', quantity: 0, stepSeq: null, stationKind: null, lastEventAt: now, updatedAt: now });
+        trayStatesRepository.insertEvents(tx, [splitEvent(t.id, 'merge', s, s.quantity, actorId, now, `Merged into ${target.number}${body.note ? `: ${body.note}` : ''}`)]);
       });
       const brought = others.map((t, i) => `${t.number} (${states[i + 1].quantity})`).join(', ');
-      traysRepository.insertEvent(tx, splitEvent(target.id, 'merge', states[0], result.quantity, actorId, now, `Merged in ${brought}; now ${result.quantity}${body.note ? `: ${body.note}` : ''}`));
+      trayStatesRepository.insertEvents(tx, [splitEvent(target.id, 'merge', states[0], result.quantity, actorId, now, `Merged in ${brought}; now ${result.quantity}${body.note ? `: ${body.note}` : ''}`)]);
       auditTray(tx, now, actorId, 'tray.merge', target.id, `Trays ${brought} merged into ${target.number}: ${result.quantity} pieces (new traveller revision ${revision})`);
       return { tray: { id: target.id, number: target.number, quantity: result.quantity, revision, code: travellerCode(deps, { number: target.number, revision }) }, merged: others.map((t) => t.id) };
     });
@@ -340,7 +323,7 @@ export const traysService = {
   trayPdf(deps: AppDeps, idOrNumber: string, layout: TravellerLayout) {
     const tray = findTray(deps.db, idOrNumber);
     const order = ordersRepository.byId(deps.db, tray.orderId)!;
-    const state = traysRepository.state(deps.db, tray.id) ?? null;
+    const state = trayStatesRepository.byTrayId(deps.db, tray.id) ?? null;
     if (state?.phase === 'merged') throw conflict('tray_merged', `Tray ${tray.number} was merged into another tray; print that one.`);
     return renderTravellersPdf(traysService.cardsFor(deps, order, [{ tray, state }]), layout).then((pdf) => ({ pdf, name: `traveller-${tray.number}-rev${tray.revision}.pdf` }));
   },

@@ -8,7 +8,7 @@ import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertBadgeUser, insertFloorOrder, pairTablet, scan, stationId, tabletAgent, TWO_COLOUR_ROUTING } from '../support/scan-fixtures';
 import { scanEvents, scanRejections } from '../../server/db/schema/scans';
 import { trays, trayStates } from '../../server/db/schema/trays';
-import { scanHooks } from '../../server/services/scan-ingest.service';
+import { addScanHook } from '../../server/services/scan-ingest.service';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { REJECTION_CODES, type RejectionCode } from '@shared/domain/vocabulary';
 import { scanBatchResponseSchema } from '@shared/schemas/scans';
@@ -295,12 +295,12 @@ describe('POST /api/scans: batches', () => {
     const boom = () => {
       throw new Error('simulated failure inside the batch');
     };
-    scanHooks.inTransaction.push(boom);
+    const removeBoom = addScanHook(t.deps, boom);
     try {
       const res = await operator.post('/api/scans').send({ events: [scan(tray.code, ST['STR-1'], 'start', now()), scan('nothing', ST['STR-1'], 'start', now())] });
       expect(res.status).toBe(500);
     } finally {
-      scanHooks.inTransaction.splice(scanHooks.inTransaction.indexOf(boom), 1);
+      removeBoom();
     }
     expect({ events: countEvents(), rejections: countRejections(), state: stateOf(tray.id) }).toEqual(before);
   });
@@ -313,12 +313,12 @@ describe('group commit', () => {
     const boom = (_tx: unknown, accepted: { trayId: string }[]) => {
       if (accepted.some((a) => a.trayId === doomed.id)) throw new Error('simulated failure in one batch');
     };
-    scanHooks.inTransaction.push(boom);
+    const removeBoom = addScanHook(t.deps, boom);
     try {
       const sent = await Promise.all(list.map((tr) => operator.post('/api/scans').send({ events: [scan(tr.code, ST['STR-1'], 'start', now())] })));
       expect(sent.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 500]);
     } finally {
-      scanHooks.inTransaction.splice(scanHooks.inTransaction.indexOf(boom), 1);
+      removeBoom();
     }
     for (const tr of list.slice(0, 5)) expect(stateOf(tr.id).phase).toBe('in_process');
     expect(stateOf(doomed.id).phase).toBe('waiting');

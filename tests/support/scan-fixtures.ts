@@ -6,13 +6,14 @@ import type { AppDeps } from '../../server/app-deps';
 import type { DbLike } from '../../server/db/client';
 import { customers } from '../../server/db/schema/customers';
 import { orders, orderSteps } from '../../server/db/schema/orders';
-import { trays, trayStates } from '../../server/db/schema/trays';
+import { trays } from '../../server/db/schema/trays';
+import { rowFromState, trayStatesRepository } from '../../server/repositories/tray-states.repository';
 import { moulds, orderMoulds } from '../../server/db/schema/moulds';
 import { devicesService } from '../../server/services/devices.service';
 import { usersService } from '../../server/services/users.service';
 import { stationsRepository } from '../../server/repositories/stations.repository';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
-import type { Role, RoutingStep, StationKind } from '@shared/domain/vocabulary';
+import { initialTrayState, type Role, type RoutingStep, type StationKind } from '@shared/domain/vocabulary';
 import type { TestApp } from './test-app';
 
 const step = (seq: number, name: string, stationKind: StationKind, cureMinutes?: number, colour?: number): RoutingStep => ({
@@ -111,14 +112,13 @@ export function insertFloorOrder(
       tx.insert(orderMoulds).values({ orderId, mouldId }).run();
     }
     const seq = options.stepSeq ?? 1;
-    const kind = routing.find((r) => r.seq === seq)!.stationKind;
     for (let i = 1; i <= count; i++) {
       const trayNumber = `${number}-${String(i).padStart(3, '0')}`;
       const id = crypto.randomUUID();
       tx.insert(trays).values({ id, number: trayNumber, kind: 'tray', orderId, revision: 1, quantity, releasedAt: t, createdAt: t }).run();
-      tx.insert(trayStates)
-        .values({ trayId: id, kind: 'tray', phase: 'waiting', stepSeq: seq, stationKind: kind, quantity, waitingSince: t, onHold: false, releasedAt: t, lastEventAt: t, updatedAt: t })
-        .run();
+      const released = new Date(t).toISOString();
+      const state = { ...initialTrayState({ trayId: id, kind: 'tray', quantity, releasedAt: released }), stepSeq: seq, lastEventAt: released };
+      trayStatesRepository.insert(tx, rowFromState(state, routing, t));
       out.push({ id, number: trayNumber, code: makeTravellerCode({ number: trayNumber, revision: 1 }, deps.keys.traveller), quantity });
     }
   });

@@ -4,10 +4,9 @@ import crypto from 'node:crypto';
 import type { AppDeps } from '../../server/app-deps';
 import { customers } from '../../server/db/schema/customers';
 import { orders, orderSteps, proofs } from '../../server/db/schema/orders';
-import { trays, trayStates } from '../../server/db/schema/trays';
-import { scanEvents } from '../../server/db/schema/scans';
+import { trays } from '../../server/db/schema/trays';
+import { trayStatesRepository } from '../../server/repositories/tray-states.repository';
 import { putFile } from '../../server/lib/file-store';
-import { eq } from 'drizzle-orm';
 import type { StationKind, TrayPhase } from '@shared/domain/vocabulary';
 
 /** The tail of a routing: forming, inspection, packing and dispatch (common practice order). */
@@ -109,21 +108,23 @@ export function insertShippingOrder(
       tx.insert(trays)
         .values({ id, number: trayNumber, kind: 'tray', orderId, revision: 1, quantity: plan.quantity, releasedAt: t, createdAt: t, writtenOffAt: plan.at === 'scrapped' ? t : null, writeOffReason: plan.at === 'scrapped' ? 'scratch' : null })
         .run();
-      tx.insert(trayStates)
-        .values({
+      trayStatesRepository.insert(tx, {
           trayId: id,
           kind: 'tray',
           phase,
           stepSeq,
           stationKind: stepSeq ? PACKING_ROUTING[stepSeq - 1].stationKind : null,
           quantity: plan.quantity,
+          stationId: null,
+          startedAt: null,
           waitingSince: t,
+          cureReadyAt: null,
           onHold: !!plan.onHold,
+          holdReason: null,
           releasedAt: t,
           lastEventAt: t,
           updatedAt: t,
-        })
-        .run();
+        });
       out.trays.push({ id, number: trayNumber });
     });
   });
@@ -132,26 +133,20 @@ export function insertShippingOrder(
 
 /** Writes the finish of a tray's dispatch step (as an accepted scan) and marks the tray done. */
 export function finishDispatch(deps: Pick<AppDeps, 'db'>, trayId: string, at: number, quantity?: number) {
-  const state = deps.db.select().from(trayStates).where(eq(trayStates.trayId, trayId)).get()!;
+  const state = trayStatesRepository.byTrayId(deps.db, trayId)!;
   const qty = quantity ?? state.quantity;
   deps.db.transaction((tx) => {
-    tx.insert(scanEvents)
-      .values({ id: crypto.randomUUID(), trayId, type: 'start', stepSeq: SEQ.dispatch, stationKind: 'dispatch', occurredAt: at - 60_000, receivedAt: at - 60_000, qtyIn: qty })
-      .run();
-    tx.insert(scanEvents)
-      .values({ id: crypto.randomUUID(), trayId, type: 'finish', stepSeq: SEQ.dispatch, stationKind: 'dispatch', occurredAt: at, receivedAt: at + 1000, qtyIn: qty, goodQty: qty, scrapQty: 0 })
-      .run();
-    tx.update(trayStates).set({ phase: 'done', stepSeq: null, stationKind: null, quantity: qty, lastEventAt: at, updatedAt: at }).where(eq(trayStates.trayId, trayId)).run();
+    trayStatesRepository.insertEvents(tx, [
+      { id: crypto.randomUUID(), trayId, type: 'start', stepSeq: SEQ.dispatch, stationKind: 'dispatch', occurredAt: at - 60_000, receivedAt: at - 60_000, qtyIn: qty },
+      { id: crypto.randomUUID(), trayId, type: 'finish', stepSeq: SEQ.dispatch, stationKind: 'dispatch', occurredAt: at, receivedAt: at + 1000, qtyIn: qty, goodQty: qty, scrapQty: 0 },
+    ]);
+    trayStatesRepository.patch(tx, trayId, { phase: 'done', stepSeq: null, stationKind: null, quantity: qty, lastEventAt: at, updatedAt: at });
   });
 }
 
 /** Moves a tray to another step (as the scan service would after a finish). */
 export function moveTray(deps: Pick<AppDeps, 'db'>, trayId: string, stepSeq: number, quantity?: number) {
-  deps.db
-    .update(trayStates)
-    .set({ phase: 'waiting', stepSeq, stationKind: PACKING_ROUTING[stepSeq - 1].stationKind, ...(quantity != null ? { quantity } : {}), updatedAt: Date.now() })
-    .where(eq(trayStates.trayId, trayId))
-    .run();
+  trayStatesRepository.patch(deps.db, trayId, { phase: 'waiting', stepSeq, stationKind: PACKING_ROUTING[stepSeq - 1].stationKind, ...(quantity != null ? { quantity } : {}), updatedAt: Date.now() });
 }
 
 /** A proof revision stored in the file store, as the proofs upload stores it. */

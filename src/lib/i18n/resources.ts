@@ -20,6 +20,8 @@ import { en as quotes } from '@/features/quotes/i18n/en';
 import { zhCN as quotesZh } from '@/features/quotes/i18n/zh-CN';
 import { en as live } from '@/features/live/i18n/en';
 import { zhCN as liveZh } from '@/features/live/i18n/zh-CN';
+import { en as scanExceptions } from '@/features/scan-exceptions/i18n/en';
+import { zhCN as scanExceptionsZh } from '@/features/scan-exceptions/i18n/zh-CN';
 import { en as admin } from '@/features/admin/i18n/en';
 import { zhCN as adminZh } from '@/features/admin/i18n/zh-CN';
 import { en as sales } from '@/features/sales/i18n/en';
@@ -32,8 +34,8 @@ import { en as moulds } from '@/features/moulds/i18n/en';
 import { zhCN as mouldsZh } from '@/features/moulds/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders, users, portal, projections, costing, quotes, reports, live, admin, sales, shipping, loads, moulds },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, quotes: quotesZh, reports: reportsZh, live: liveZh, admin: adminZh, sales: salesZh, shipping: shippingZh, loads: loadsZh, moulds: mouldsZh },
+  en: { common, station, orders, users, portal, projections, costing, quotes, reports, live, scanExceptions, admin, sales, shipping, loads, moulds },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, quotes: quotesZh, reports: reportsZh, live: liveZh, scanExceptions: scanExceptionsZh, admin: adminZh, sales: salesZh, shipping: shippingZh, loads: loadsZh, moulds: mouldsZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { FLOOR_LEADS } from '@shared/domain/access';
 import { queryClient } from '@/lib/query-client';
 import { useMe } from '@/features/auth/api/get-me';
@@ -6,11 +7,18 @@ import { scanExceptionsQueryOptions, useScanExceptions } from '@/features/scan-e
 import { ScanExceptionsList } from '@/features/scan-exceptions/components/scan-exceptions-list';
 import { ErrorPanel, Loading, PageHeader } from '@/components/ui/panels';
 import { SelectField } from '@/components/ui/field';
+import { describeRefusal } from '@/features/station/lib/refusal-text';
+import { currentLocale } from '@/lib/i18n';
+import type { DescribeRefusal } from '@/features/scan-exceptions/lib/exception-text';
+
+// the same words the tablet used when it refused the scan, in the reader's language
+const describe: DescribeRefusal = (code, params, time) => describeRefusal(currentLocale(), code, params, time);
 
 export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(scanExceptionsQueryOptions('true'));
 
 export function Component() {
+  const { t } = useTranslation('scanExceptions');
   const [open, setOpen] = useState<'true' | 'false' | 'all'>('true');
   const list = useScanExceptions(open);
   const me = useMe();
@@ -18,17 +26,17 @@ export function Component() {
   return (
     <>
       <PageHeader
-        title="Refused scans"
-        subtitle="Scans the server refused, kept so none is lost. Try one again once its cause is gone, or close it with what was done."
+        title={t('page.title')}
+        subtitle={t('page.subtitle')}
         actions={
-          <SelectField label="Show" value={open} onChange={(e) => setOpen(e.target.value as typeof open)}>
-            <option value="true">Open</option>
-            <option value="false">Resolved</option>
-            <option value="all">All</option>
+          <SelectField label={t('page.show')} value={open} onChange={(e) => setOpen(e.target.value as typeof open)}>
+            <option value="true">{t('page.open')}</option>
+            <option value="false">{t('page.resolved')}</option>
+            <option value="all">{t('page.all')}</option>
           </SelectField>
         }
       />
-      {list.isPending ? <Loading /> : list.error ? <ErrorPanel message={list.error.message} /> : <ScanExceptionsList items={list.data} canDecide={canDecide} />}
+      {list.isPending ? <Loading /> : list.error ? <ErrorPanel message={list.error.message} /> : <ScanExceptionsList items={list.data} canDecide={canDecide} describe={describe} />}
     </>
   );
 }

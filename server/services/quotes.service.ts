@@ -10,11 +10,11 @@ import { mouldsRepository } from '../repositories/moulds.repository';
 import { shippingRepository } from '../repositories/shipping.repository';
 import { shareLinksRepository } from '../repositories/share-links.repository';
 import { auditRepository } from '../repositories/audit.repository';
-import { reportsRepository } from '../repositories/reports.repository';
 import { badInput, conflict, notFound } from '../errors';
 import { customerFor, ordersService } from './orders.service';
 import { templateFor } from './order-spec.service';
 import { calendarService } from './calendar.service';
+import { projectQuantities } from './what-if.service';
 import { createLinkIn, createQuoteLinkIn, quoteLinkOf, revokeQuoteLinksIn, touchQuoteLink } from './share-links.service';
 import { enqueueMail, kickMail } from './mail.service';
 import { putFile } from '../lib/file-store';
@@ -22,10 +22,8 @@ import { quotePdf } from '../lib/quote-pdf';
 import { quoteSentMail } from '../lib/mail-templates';
 import { priceQuote, type QuotePricing } from '@shared/domain/costing';
 import { expandRouting, requiredMoulds } from '@shared/domain/routing';
-import { releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
-import { projectTrays, type TrayOutlook } from '@shared/domain/projection';
 import { DAY, localDate } from '@shared/domain/calendar';
-import { STATION_KINDS, type RoutingStep } from '@shared/domain/vocabulary';
+import type { RoutingStep } from '@shared/domain/vocabulary';
 import { costingSettingsPatchSchema, costingSettingsSchema, DEFAULT_COSTING_SETTINGS, mergeCostingSettings, type CostingSettings, type CostingSettingsPatch } from '@shared/schemas/costing';
 import {
   publicQuoteSchema,
@@ -45,7 +43,7 @@ const FIRST_QUOTE_NUMBER = 2001;
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
 export const SHIP_DATE_BASIS =
-  'Projected as the order list projects released orders: the standard time of every step of the routing for the trays of each quantity, the waiting measured at each station kind over the last 90 days, and the working calendar; released today.';
+  "Simulated runs of the whole open floor with this order added, released now at each quantity: every open tray competes for the stations' places, with handover, hold and process times measured on the floor, on the working calendar. Expected is the average of the runs; the later date is met in 85 % of the runs.";
 
 // ---------------------------------------------------------------------------------------
 // Rates
@@ -78,34 +76,12 @@ function price(db: DbLike, spec: QuoteSpec, quantities: number[], settings: Cost
 }
 
 // ---------------------------------------------------------------------------------------
-// Ship dates per break: the trays each quantity would make, waiting at their first step now.
+// Ship dates per break: the open floor projected with the order added at each quantity, as the
+// what-if projects it.
 
-function queueSamples(deps: AppDeps, now: number) {
-  const cal = calendarService.calendar(deps);
-  const out: Record<string, number[]> = {};
-  for (const kind of STATION_KINDS) {
-    const rows = reportsRepository.recentQueues(deps.db, kind, now - 90 * DAY, 400);
-    if (rows.length) out[kind] = rows.map((r) => Math.max(0, cal.forStation(r.stationId, kind).workingMinutesBetween(r.readyAt, r.startedAt)));
-  }
-  return { cal, samples: out };
-}
-
-function shipDates(deps: AppDeps, spec: QuoteSpec, quantities: number[], traySize: number): QuoteShipDates[] {
+function shipDates(deps: AppDeps, spec: QuoteSpec, quantities: number[]): QuoteShipDates[] {
   try {
-    const now = deps.now();
-    const routing = routingFor(deps.db, spec);
-    const { cal, samples } = queueSamples(deps, now);
-    return quantities.map((q) => {
-      const trays = splitIntoTrays(releasedQuantity(q, spec.overrunPct), traySize);
-      const outlooks: TrayOutlook[] = trays.map((pieces, i) => ({
-        trayId: String(i),
-        phase: 'waiting',
-        waitingSince: now,
-        steps: routing.map((s) => ({ seq: s.seq, stationKind: s.stationKind, standardMinutes: s.trayMinutes + s.pieceMinutes * pieces, cureMinutes: s.cureMinutes })),
-      }));
-      const p = projectTrays(outlooks, { now, calendar: cal, queueSamples: samples, runs: 200, seed: q });
-      return { expectedAt: iso(p.expectedAt), p85At: iso(p.p85At) };
-    });
+    return projectQuantities(deps, spec, quantities);
   } catch (err) {
     deps.log.warn({ err: (err as Error).message }, 'quote ship dates not projected');
     return quantities.map(() => ({ expectedAt: null, p85At: null }));
@@ -163,10 +139,9 @@ function view(deps: AppDeps, q: QuoteRow): QuoteView {
   const { db } = deps;
   const v = currentVersion(db, q);
   const pricing = v.pricing as QuotePricing;
-  const settings = v.settings as CostingSettings;
   const customer = ordersRepository.customerById(db, q.customerId)!;
   const spec = v.spec as QuoteSpec;
-  const dates = shipDates(deps, spec, v.quantities, settings.traySize);
+  const dates = shipDates(deps, spec, v.quantities);
   const order = q.orderId ? ordersRepository.byId(db, q.orderId) : undefined;
   return {
     id: q.id,
@@ -384,8 +359,7 @@ export const quotesService = {
         throw badInput(`Choose one of the quoted quantities: ${v.quantities.join(', ')}.`, [{ path: ['quantity'], message: 'Not a quoted quantity' }], 'quantity_not_quoted');
       }
       const spec = v.spec as QuoteSpec;
-      const settings = v.settings as CostingSettings;
-      const p85 = shipDates(deps, spec, [body.quantity], settings.traySize)[0];
+      const p85 = shipDates(deps, spec, [body.quantity])[0];
       const due = p85.p85At ? p85.p85At.slice(0, 10) : localDate(calendarService.timeZone(deps), now + 21 * DAY);
       // eslint-disable-next-line @typescript-eslint/no-unused-vars
       const { heightMm, thicknessMm, outlineFactor, ...orderSpec } = spec;

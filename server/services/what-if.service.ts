@@ -63,6 +63,40 @@ export function imaginedOrder(deps: AppDeps, spec: WhatIfBody, releasedAt: numbe
   return { id: WHAT_IF_ORDER_ID, number: 'what-if', dueDate: spec.dueDate, releasedAt, travellers, routing: { tray, mould } };
 }
 
+/** A spec as the what-if takes it, without the quantity and due date (a quote's spec). */
+export type WhatIfSpec = Omit<WhatIfBody, 'quantity' | 'dueDate' | 'releaseAt'>;
+
+/**
+ * Ship dates of one spec at several quantities: for each quantity the open floor is projected
+ * with the order released on it now, exactly as the what-if's "with" projection (same snapshot,
+ * measured model, calendar and seeds), so a quote break and a what-if of the same spec and
+ * quantity give the same dates. The snapshot and model are built once for all quantities.
+ * Without a due date the order queues behind every open order's due date (the latest one;
+ * ties go to whoever asked first). Nothing is written.
+ */
+export function projectQuantities(
+  deps: AppDeps,
+  spec: WhatIfSpec,
+  quantities: readonly number[],
+  o: { dueDate?: string; runs?: number } = {},
+): { expectedAt: string | null; p85At: string | null }[] {
+  const now = deps.now();
+  const cal = calendarService.calendar(deps);
+  const { snapshot } = floorSnapshot(deps, now);
+  const model = modelOf(deps, snapshot, cal);
+  const options = { calendar: cal, model, runs: o.runs ?? PROJECTION_RUNS };
+  const dueDate = o.dueDate ?? latestDueDate(snapshot.orders.map((x) => x.dueDate)) ?? new Date(now).toISOString().slice(0, 10);
+  return quantities.map((quantity) => {
+    const imagined = imaginedOrder(deps, { ...spec, quantity, dueDate }, now);
+    const mine = projectFloor({ ...snapshot, orders: [...snapshot.orders, imagined] }, options).get(WHAT_IF_ORDER_ID);
+    return { expectedAt: iso(mine?.expectedAt ?? null), p85At: iso(mine?.p85At ?? null) };
+  });
+}
+
+function latestDueDate(dates: string[]): string | null {
+  return dates.reduce<string | null>((a, d) => (a == null || d > a ? d : a), null);
+}
+
 export const whatIfService = {
   project(deps: AppDeps, spec: WhatIfBody): WhatIfResult {
     const now = deps.now();

@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { errorText } from '@/lib/error-text';
 import { Button } from '@/components/ui/button';
 import { ErrorPanel } from '@/components/ui/panels';
 import { usePackCartons } from '../api/pack-cartons';
@@ -6,6 +8,7 @@ import { CartonLinesEditor, emptyCarton, parseCartons, type CartonDraft } from '
 
 /** At packing: record the cartons filled from the finished trays. */
 export function PackCartonsForm({ orderId, available }: { orderId: string; available: number }) {
+  const { t } = useTranslation('shipping');
   const pack = usePackCartons(orderId);
   const [lines, setLines] = useState<CartonDraft[]>([emptyCarton()]);
   const { valid, complete, totals } = parseCartons(lines);
@@ -20,16 +23,16 @@ export function PackCartonsForm({ orderId, available }: { orderId: string; avail
       }}
     >
       <CartonLinesEditor idPrefix="pack" lines={lines} onChange={setLines} />
-      <p className="text-sm text-harbour-700">{available} finished pieces are not in a carton yet.</p>
+      <p className="text-sm text-harbour-700">{t('cartons.notInCarton', { count: available })}</p>
       {tooMany && (
         <p role="alert" className="font-bold text-stop-700">
-          These cartons hold {totals.pieces} pieces: more than the {available} finished.
+          {t('cartons.tooMany', { pieces: totals.pieces, available })}
         </p>
       )}
-      {pack.error && <ErrorPanel message={pack.error.message} />}
+      {pack.error && <ErrorPanel message={errorText(pack.error)} />}
       <div>
         <Button type="submit" disabled={!complete || valid.length === 0 || tooMany || pack.isPending}>
-          Record packed cartons
+          {t('cartons.record')}
         </Button>
       </div>
     </form>

@@ -1,4 +1,6 @@
 import { useRef, useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { errorText } from '@/lib/error-text';
 import { AlertTriangle, FileText, ScanBarcode } from 'lucide-react';
 import { normaliseTrackingNumber } from '@shared/domain/shipping';
 import { createShipmentSchema, type CreatedShipment, type CreateShipmentInput, type PackingView } from '@shared/schemas/shipping';
@@ -16,6 +18,7 @@ const LAST_CARRIER = 'trayce.lastCarrier';
  * the packed cartons that go, and any cartons not recorded yet. Partial shipments are fine.
  */
 export function ShipmentForm({ view }: { view: PackingView }) {
+  const { t } = useTranslation('shipping');
   const orderId = view.order.id;
   const ship = useCreateShipment(orderId);
   const [carrier, setCarrier] = useState(() => localStorage.getItem(LAST_CARRIER) ?? '');
@@ -48,7 +51,7 @@ export function ShipmentForm({ view }: { view: PackingView }) {
     setProblem(null);
     const parsed = createShipmentSchema.safeParse(body(confirmDuplicate));
     if (!parsed.success) return setProblem(parsed.error.issues.map((i) => i.message).join(' '));
-    if (!extraParsed.complete) return setProblem('Fill in every carton line, or remove the empty one.');
+    if (!extraParsed.complete) return setProblem(t('ship.fillLines'));
     ship.mutate(body(confirmDuplicate), {
       onSuccess: (created) => {
         localStorage.setItem(LAST_CARRIER, carrier.trim());
@@ -72,7 +75,7 @@ export function ShipmentForm({ view }: { view: PackingView }) {
     >
       <label className="flex flex-col gap-1 font-bold" htmlFor="tracking-number">
         <span className="flex items-center gap-2">
-          <ScanBarcode className="h-5 w-5" aria-hidden /> Tracking number (scan the barcode or type it)
+          <ScanBarcode className="h-5 w-5" aria-hidden /> {t('ship.tracking')}
         </span>
         <input
           id="tracking-number"
@@ -90,20 +93,32 @@ export function ShipmentForm({ view }: { view: PackingView }) {
           }}
           className="min-h-14 rounded-lg border-2 border-harbour-100 bg-white px-3 font-mono text-2xl"
         />
-        {tracking && normaliseTrackingNumber(tracking) !== tracking && <span className="text-sm font-normal text-harbour-700">Recorded as {normaliseTrackingNumber(tracking)}</span>}
+        {tracking && normaliseTrackingNumber(tracking) !== tracking && (
+          <span className="text-sm font-normal text-harbour-700">{t('ship.recordedAs', { value: normaliseTrackingNumber(tracking) })}</span>
+        )}
       </label>
       <label className="flex flex-col gap-1 font-bold" htmlFor="carrier">
-        Carrier
-        <input id="carrier" ref={carrierRef} value={carrier} onChange={(e) => setCarrier(e.target.value)} className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-3 text-base font-normal" />
+        {t('ship.carrier')}
+        <input
+          id="carrier"
+          ref={carrierRef}
+          value={carrier}
+          onChange={(e) => setCarrier(e.target.value)}
+          className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-3 text-base font-normal"
+        />
       </label>
 
       {view.cartons.length > 0 && (
         <fieldset className="flex flex-col gap-1">
-          <legend className="mb-1 font-bold">Packed cartons in this shipment</legend>
+          <legend className="mb-1 font-bold">{t('ship.packedInShipment')}</legend>
           {view.cartons.map((c) => (
             <CheckboxField
               key={c.id}
-              label={`${c.count} × ${c.piecesPerCarton} pieces${c.weightKg != null ? `, ${c.weightKg} kg each` : ''}`}
+              label={
+                c.weightKg != null
+                  ? t('pack.cartonLineKg', { count: c.count, per: c.piecesPerCarton, kg: c.weightKg })
+                  : t('pack.cartonLine', { count: c.count, per: c.piecesPerCarton })
+              }
               checked={!left.has(c.id)}
               onChange={(e) => {
                 const next = new Set(left);
@@ -120,63 +135,73 @@ export function ShipmentForm({ view }: { view: PackingView }) {
       ) : (
         <div>
           <Button variant="ghost" onClick={() => setExtra([{ count: '1', piecesPerCarton: '', weightKg: '' }])}>
-            Add cartons not recorded at packing
+            {t('ship.addCartons')}
           </Button>
         </div>
       )}
 
       <p className="text-lg font-bold" aria-live="polite">
-        This shipment: {pieces} pieces of {q.availableToShip} finished and not yet shipped.
+        {t('ship.thisShipment', { pieces, available: q.availableToShip })}
       </p>
       {pieces > q.availableToShip && (
         <p role="alert" className="font-bold text-stop-700">
-          That is more than was made. Count the cartons again.
+          {t('ship.moreThanMade')}
         </p>
       )}
 
       {q.needsDecision && (
         <div className="rounded-lg border-2 border-warn-700 bg-warn-50 p-3">
           <p className="flex items-start gap-2 font-bold text-warn-700">
-            <AlertTriangle className="mt-0.5 h-5 w-5 shrink-0" aria-hidden /> Under quantity: {q.reachable} made or on the floor for {q.ordered} ordered ({q.shortBy} short).
+            <AlertTriangle className="mt-0.5 h-5 w-5 shrink-0" aria-hidden />{' '}
+            {t('ship.under', { reachable: q.reachable, ordered: q.ordered, short: q.shortBy })}
           </p>
-          <p className="mt-1 text-sm">Ship only when the customer agreed to take fewer pieces; otherwise make more first.</p>
-          <CheckboxField label="The customer agreed: ship short" checked={acceptShort} onChange={(e) => setAcceptShort(e.target.checked)} />
+          <p className="mt-1 text-sm">{t('ship.underHow')}</p>
+          <CheckboxField label={t('ship.acceptShort')} checked={acceptShort} onChange={(e) => setAcceptShort(e.target.checked)} />
           <label className="mt-1 flex flex-col gap-1 text-sm font-bold">
-            Who agreed, and how
-            <input value={note} onChange={(e) => setNote(e.target.value)} className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2 text-base font-normal" />
+            {t('ship.whoAgreed')}
+            <input
+              value={note}
+              onChange={(e) => setNote(e.target.value)}
+              className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2 text-base font-normal"
+            />
           </label>
         </div>
       )}
 
-      {problem && <ErrorPanel title="Check the shipment" message={problem} />}
+      {problem && <ErrorPanel title={t('ship.check')} message={problem} />}
       {duplicate ? (
         <div role="alert" className="rounded-lg border-2 border-warn-700 bg-warn-50 p-3">
-          <p className="font-bold text-warn-700">Tracking number already on order {duplicate.join(', ')}.</p>
-          <p className="mt-1 text-sm">Scan the parcel again to check. If these orders really travel in one parcel, record it anyway.</p>
+          <p className="font-bold text-warn-700">{t('ship.duplicate', { orders: duplicate.join(', ') })}</p>
+          <p className="mt-1 text-sm">{t('ship.duplicateHow')}</p>
           <Button className="mt-2" variant="secondary" onClick={() => submit(true)}>
-            Record it anyway
+            {t('ship.anyway')}
           </Button>
         </div>
       ) : (
-        ship.error && <ErrorPanel title="Not recorded" message={ship.error.message} />
+        ship.error && <ErrorPanel title={t('ship.notRecorded')} message={errorText(ship.error)} />
       )}
       {done && (
         <div role="status" className="rounded-lg border-2 border-ok-700 bg-ok-50 p-3">
           <p className="font-bold text-ok-700">
-            Shipment {done.number} recorded: {done.carrier} {done.trackingNumber}, {done.pieces} pieces.
+            {t('ship.done', { number: done.number, carrier: done.carrier, tracking: done.trackingNumber, pieces: done.pieces })}
           </p>
           <p className="text-sm">
-            {done.mail.queued > 0 ? `Shipped mail queued (${done.mail.queued}).` : 'No shipped mail: nobody to send it to.'}
-            {done.mail.missing.length > 0 && ` Missing: ${done.mail.missing.join(', ')}.`}
+            {done.mail.queued > 0 ? t('ship.mailQueued', { count: done.mail.queued }) : t('ship.noMail')}
+            {done.mail.missing.length > 0 && t('ship.missing', { list: done.mail.missing.join(', ') })}
           </p>
-          <a className="mt-1 inline-flex min-h-11 items-center gap-1 font-bold text-harbour-700 underline" href={packingListUrl(orderId, done.id)} target="_blank" rel="noreferrer">
-            <FileText className="h-5 w-5" aria-hidden /> Packing list
+          <a
+            className="mt-1 inline-flex min-h-11 items-center gap-1 font-bold text-harbour-700 underline"
+            href={packingListUrl(orderId, done.id)}
+            target="_blank"
+            rel="noreferrer"
+          >
+            <FileText className="h-5 w-5" aria-hidden /> {t('ship.packingList')}
           </a>
         </div>
       )}
       <div>
         <Button type="submit" size="lg" disabled={ship.isPending || pieces === 0 || pieces > q.availableToShip}>
-          Record shipment
+          {t('ship.record')}
         </Button>
       </div>
     </form>

@@ -22,6 +22,8 @@ import { en as live } from '@/features/live/i18n/en';
 import { zhCN as liveZh } from '@/features/live/i18n/zh-CN';
 import { en as scanExceptions } from '@/features/scan-exceptions/i18n/en';
 import { zhCN as scanExceptionsZh } from '@/features/scan-exceptions/i18n/zh-CN';
+import { en as trays } from '@/features/trays/i18n/en';
+import { zhCN as traysZh } from '@/features/trays/i18n/zh-CN';
 import { en as admin } from '@/features/admin/i18n/en';
 import { zhCN as adminZh } from '@/features/admin/i18n/zh-CN';
 import { en as sales } from '@/features/sales/i18n/en';
@@ -34,8 +36,8 @@ import { en as moulds } from '@/features/moulds/i18n/en';
 import { zhCN as mouldsZh } from '@/features/moulds/i18n/zh-CN';
 
 export const resources = {
-  en: { common, station, orders, users, portal, projections, costing, quotes, reports, live, scanExceptions, admin, sales, shipping, loads, moulds },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, quotes: quotesZh, reports: reportsZh, live: liveZh, scanExceptions: scanExceptionsZh, admin: adminZh, sales: salesZh, shipping: shippingZh, loads: loadsZh, moulds: mouldsZh },
+  en: { common, station, orders, users, portal, projections, costing, quotes, reports, live, scanExceptions, trays, admin, sales, shipping, loads, moulds },
+  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, quotes: quotesZh, reports: reportsZh, live: liveZh, scanExceptions: scanExceptionsZh, trays: traysZh, admin: adminZh, sales: salesZh, shipping: shippingZh, loads: loadsZh, moulds: mouldsZh },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { REPORT_READERS } from '@shared/domain/access';
 import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
 import { useReportPage } from '@/features/reports/api/use-report-page';
@@ -6,51 +7,52 @@ import { ErrorPanel, Loading } from '@/components/ui/panels';
 
 export const handle = { roles: REPORT_READERS };
 
-const STAGE_NAMES: Record<string, string> = { released: 'Released', started: 'Started', inspected: 'Inspected', packed: 'Packed', shipped: 'Shipped' };
-
 export function Component() {
+  const { t } = useTranslation('reports');
   const { filters, report, frame } = useReportPage('flow', { bucket: true });
+  const STAGES = ['released', 'started', 'inspected', 'packed', 'shipped'] as const;
+  const stageName = (s: string) => ((STAGES as readonly string[]).includes(s) ? t(`flow.stage.${s as (typeof STAGES)[number]}`) : s);
   const r = report.data;
   const per = filters.bucket === 'week' ? 'week' : 'day';
   return (
     <ReportFrame
       {...frame}
-      note="Counted in trays. The diagram shows only what has happened; trays scrapped whole leave it."
+      note={t('flow.note')}
     >
       {report.isPending ? (
-        <Loading label="Drawing the flow…" />
+        <Loading label={t('flow.loading')} />
       ) : report.error ? (
         <ErrorPanel message={report.error.message} />
       ) : r ? (
         <>
           <ChartAndTable
-            title="Cumulative flow"
-            caption="Each line counts the trays that have reached a stage by the end of each day or week (less those shipped before the period). Lines never fall; the vertical gap between two lines is the number of trays between those stages."
+            title={t('flow.cumulative')}
+            caption={t('flow.cumulativeCaption')}
             chart={
               <CumulativeFlow
                 data={r.buckets.map((b) => ({ label: b.label, ...Object.fromEntries(r.stages.map((s, i) => [s, b.cumulative[i]])) }))}
-                stages={r.stages.map((s) => ({ key: s, name: STAGE_NAMES[s] ?? s }))}
+                stages={r.stages.map((s) => ({ key: s, name: stageName(s) }))}
               />
             }
             table={
               <StatTable
-                label="Cumulative flow table"
-                head={[per === 'week' ? 'Week of' : 'Day', ...r.stages.map((s) => STAGE_NAMES[s] ?? s)]}
+                label={t('flow.cumulativeTable')}
+                head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), ...r.stages.map(stageName)]}
                 rows={r.buckets.map((b) => [b.label, ...b.cumulative])}
               />
             }
           />
           <ChartAndTable
-            title={`Throughput per ${per}`}
-            caption="Trays and orders that left dispatch."
-            chart={<Bars data={r.buckets} x="label" yLabel="trays" series={[{ key: 'trays', name: 'Trays shipped' }, { key: 'orders', name: 'Orders shipped' }]} />}
-            table={<StatTable label="Throughput table" head={[per === 'week' ? 'Week of' : 'Day', 'Trays', 'Pieces', 'Orders']} rows={r.buckets.map((b) => [b.label, b.trays, b.pieces, b.orders])} />}
+            title={per === 'week' ? t('flow.throughputWeek') : t('flow.throughputDay')}
+            caption={t('flow.throughputCaption')}
+            chart={<Bars data={r.buckets} x="label" yLabel={t('chart.trays')} series={[{ key: 'trays', name: t('flow.traysShipped') }, { key: 'orders', name: t('flow.ordersShipped') }]} />}
+            table={<StatTable label={t('flow.throughputTable')} head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), t('flow.trays'), t('flow.pieces'), t('flow.orders')]} rows={r.buckets.map((b) => [b.label, b.trays, b.pieces, b.orders])} />}
           />
           <ChartAndTable
-            title="Work in progress over time"
-            caption="Trays released and not yet shipped: the average over each day or week, and the count at its end."
-            chart={<Lines data={r.buckets} x="label" yLabel="trays" series={[{ key: 'wipAverage', name: 'Average' }, { key: 'wipAtEnd', name: 'At the end' }]} />}
-            table={<StatTable label="WIP table" head={[per === 'week' ? 'Week of' : 'Day', 'Average', 'At the end']} rows={r.buckets.map((b) => [b.label, b.wipAverage, b.wipAtEnd])} />}
+            title={t('flow.wip')}
+            caption={t('flow.wipCaption')}
+            chart={<Lines data={r.buckets} x="label" yLabel={t('chart.trays')} series={[{ key: 'wipAverage', name: t('flow.average') }, { key: 'wipAtEnd', name: t('flow.atEnd') }]} />}
+            table={<StatTable label={t('flow.wipTable')} head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), t('flow.average'), t('flow.atEnd')]} rows={r.buckets.map((b) => [b.label, b.wipAverage, b.wipAtEnd])} />}
           />
         </>
       ) : null}

@@ -10,24 +10,24 @@ import { PageHeader } from '@/components/ui/panels';
 export const WITH_SALES: readonly Role[] = [...REPORT_READERS, 'sales'];
 export const handle = { roles: WITH_SALES };
 
-const TABS = [
-  { to: '/reports', label: 'Summary', icon: LayoutDashboard, roles: REPORT_READERS, end: true },
-  { to: 'lead-time', label: 'Lead time', icon: Clock, roles: WITH_SALES },
-  { to: 'cycle-time', label: 'Cycle time', icon: GitCommitVertical, roles: REPORT_READERS },
-  { to: 'flow', label: 'Flow & throughput', icon: LineChart, roles: REPORT_READERS },
-  { to: 'on-time', label: 'On-time delivery', icon: Truck, roles: WITH_SALES },
-  { to: 'yield', label: 'Yield & scrap', icon: Percent, roles: REPORT_READERS },
+const TABS: { to: string; label: 'summary' | 'leadTime' | 'cycleTime' | 'flow' | 'onTime' | 'yield'; icon: typeof Clock; roles: readonly Role[]; end?: boolean }[] = [
+  { to: '/reports', label: 'summary', icon: LayoutDashboard, roles: REPORT_READERS, end: true },
+  { to: 'lead-time', label: 'leadTime', icon: Clock, roles: WITH_SALES },
+  { to: 'cycle-time', label: 'cycleTime', icon: GitCommitVertical, roles: REPORT_READERS },
+  { to: 'flow', label: 'flow', icon: LineChart, roles: REPORT_READERS },
+  { to: 'on-time', label: 'onTime', icon: Truck, roles: WITH_SALES },
+  { to: 'yield', label: 'yield', icon: Percent, roles: REPORT_READERS },
 ];
 
 export function Component() {
   const me = useMe();
-  const { t } = useTranslation('costing');
+  const { t } = useTranslation(['reports', 'costing']);
   const role = me.data?.user.role;
-  const tabs = [...TABS, { to: 'costing', label: t('report.tab'), icon: Scale, roles: COSTING_READERS }];
+  const tabs = [...TABS.map((x) => ({ ...x, label: t(`layout.tab.${x.label}`) })), { to: 'costing', label: t('costing:report.tab'), icon: Scale, roles: COSTING_READERS }];
   return (
     <>
-      <PageHeader title="Reports" subtitle="How long orders take, where trays wait, what comes out good. Every figure is computed on the server from the scans." />
-      <TabNav label="Reports" items={tabs.filter((t) => role && t.roles.includes(role))} />
+      <PageHeader title={t('layout.title')} subtitle={t('layout.subtitle')} />
+      <TabNav label={t('layout.nav')} items={tabs.filter((x) => role && x.roles.includes(role))} />
       <Outlet />
     </>
   );

@@ -1,4 +1,6 @@
 import { createColumnHelper } from '@tanstack/react-table';
+import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { REPORT_READERS } from '@shared/domain/access';
 import type { YieldOrder } from '@shared/schemas/reports';
 import { ChartAndTable, ReportFrame, StatTable } from '@/features/reports/components/report-frame';
@@ -7,24 +9,24 @@ import { Bars, Pareto } from '@/features/reports/components/charts';
 import { useStations } from '@/features/stations/api/get-stations';
 import { DataTable } from '@/components/ui/data-table';
 import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
-import { humanise } from '@/lib/labels';
 import { percentText } from '@/lib/duration';
 import { percentAxis } from '@/features/reports/lib/percent-axis';
 
 export const handle = { roles: REPORT_READERS };
 
 const col = createColumnHelper<YieldOrder>();
-const columns = [
-  col.accessor('number', { header: 'Order' }),
-  col.accessor('customer', { header: 'Customer' }),
-  col.accessor('inQty', { header: 'Pieces in' }),
-  col.accessor('goodQty', { header: 'Good out' }),
-  col.accessor('reworkQty', { header: 'Reworked' }),
-  col.accessor('rolledThroughputYield', { header: 'Rolled throughput yield', cell: (c) => percentText(c.getValue(), 2) }),
-  col.accessor('finalYield', { header: 'Final yield', cell: (c) => percentText(c.getValue(), 2) }),
+const columnsFor = (t: TFunction<'reports'>) => [
+  col.accessor('number', { header: t('yield.orderCol.order') }),
+  col.accessor('customer', { header: t('yield.orderCol.customer') }),
+  col.accessor('inQty', { header: t('yield.orderCol.piecesIn') }),
+  col.accessor('goodQty', { header: t('yield.orderCol.goodOut') }),
+  col.accessor('reworkQty', { header: t('yield.orderCol.reworked') }),
+  col.accessor('rolledThroughputYield', { header: t('yield.orderCol.rty'), cell: (c) => percentText(c.getValue(), 2) }),
+  col.accessor('finalYield', { header: t('yield.orderCol.finalYield'), cell: (c) => percentText(c.getValue(), 2) }),
 ];
 
 export function Component() {
+  const { t } = useTranslation(['reports', 'common']);
   const { report, frame } = useReportPage('yield', { station: true });
   const stations = useStations();
   const r = report.data;
@@ -34,50 +36,50 @@ export function Component() {
     <ReportFrame
       {...frame}
       stations={stations.data ?? []}
-      note="First-pass yield counts reworked pieces as not passed; final yield counts them as good. Rolled throughput yield multiplies the steps’ first-pass yields as exact ratios."
+      note={t('yield.note')}
     >
       {report.isPending ? (
-        <Loading label="Counting good pieces…" />
+        <Loading label={t('yield.loading')} />
       ) : report.error ? (
         <ErrorPanel message={report.error.message} />
       ) : r ? (
         <>
           <ChartAndTable
-            title="Yield per kind of step"
+            title={t('yield.perStep')}
             caption={
-              axis?.zoomed ? `The axis starts at ${percentText(axis.domain[0], 1)}, not 0 %, so differences near 100 % can be seen; the table has the exact figures.` : undefined
+              axis?.zoomed ? t('yield.zoomed', { start: percentText(axis.domain[0], 1) }) : undefined
             }
             chart={
               <Bars
                 layout="vertical"
                 percent
                 domain={axis?.domain}
-                data={r.steps.map((s) => ({ kind: humanise(s.stationKind), fpy: s.firstPassYield, fy: s.finalYield }))}
+                data={r.steps.map((s) => ({ kind: t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind }), fpy: s.firstPassYield, fy: s.finalYield }))}
                 x="kind"
-                yLabel="yield"
+                yLabel={t('yield.axis')}
                 series={[
-                  { key: 'fpy', name: 'First-pass yield' },
-                  { key: 'fy', name: 'Final yield' },
+                  { key: 'fpy', name: t('yield.fpy') },
+                  { key: 'fy', name: t('yield.finalYield') },
                 ]}
               />
             }
             table={
               <StatTable
-                label="Yield per step table"
-                head={['Kind', 'In', 'Passed first time', 'Good', 'Scrap', 'Reworked', 'First-pass', 'Final']}
-                rows={r.steps.map((s) => [humanise(s.stationKind), s.inQty, s.firstPassQty, s.goodQty, s.scrapQty, s.reworkQty, percentText(s.firstPassYield, 2), percentText(s.finalYield, 2)])}
+                label={t('yield.stepTable')}
+                head={[t('yield.col.kind'), t('yield.col.in'), t('yield.col.passedFirst'), t('yield.col.good'), t('yield.col.scrap'), t('yield.col.reworked'), t('yield.col.firstPass'), t('yield.col.final')]}
+                rows={r.steps.map((s) => [t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind }), s.inQty, s.firstPassQty, s.goodQty, s.scrapQty, s.reworkQty, percentText(s.firstPassYield, 2), percentText(s.finalYield, 2)])}
               />
             }
           />
           <ChartAndTable
-            title="Scrap by reason"
-            caption={`Largest first, with the running share. ${r.rework.qty.toLocaleString('en-GB')} pieces were reworked (recorded apart, not scrap).`}
+            title={t('yield.scrapTitle')}
+            caption={t('yield.scrapCaption', { qty: r.rework.qty.toLocaleString('en-GB') })}
             chart={<Pareto data={r.scrap} />}
-            table={<StatTable label="Scrap table" head={['Reason', 'Pieces', 'Share', 'Running share']} rows={r.scrap.map((s) => [s.name, s.qty, percentText(s.share), percentText(s.cumulativeShare)])} />}
+            table={<StatTable label={t('yield.scrapTable')} head={[t('yield.scrapCol.reason'), t('yield.scrapCol.pieces'), t('yield.scrapCol.share'), t('yield.scrapCol.running')]} rows={r.scrap.map((s) => [s.name, s.qty, percentText(s.share), percentText(s.cumulativeShare)])} />}
           />
           <Card>
-            <h2 className="mb-3 text-xl font-bold text-harbour-900">Rolled throughput yield per order shipped in the period</h2>
-            <DataTable data={r.orders} columns={columns} filterLabel="Find an order" caption="Yield per order" />
+            <h2 className="mb-3 text-xl font-bold text-harbour-900">{t('yield.rtyTitle')}</h2>
+            <DataTable data={r.orders} columns={columnsFor(t)} filterLabel={t('yield.find')} caption={t('yield.ordersCaption')} />
           </Card>
         </>
       ) : null}

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import {
   Area,
   AreaChart,
@@ -22,14 +23,15 @@ export const SERIES = ['#1f5a63', '#e2b650', '#7a5a12', '#8a4b00', '#14323a', '#
 const axis = { fontSize: 13, fill: '#14323a' };
 
 export function Histogram({ data, p50, p85, unit }: { data: { bin: string; n: number }[]; p50: number | null; p85: number | null; unit: string }) {
+  const { t } = useTranslation('reports');
   return (
     <ResponsiveContainer width="100%" height="100%">
       <BarChart data={data} margin={{ top: 20, right: 16, bottom: 24, left: 0 }}>
         <CartesianGrid strokeDasharray="3 3" />
         <XAxis dataKey="bin" tick={axis} label={{ value: unit, position: 'insideBottom', offset: -12 }} />
-        <YAxis allowDecimals={false} tick={axis} label={{ value: 'orders', angle: -90, position: 'insideLeft' }} />
+        <YAxis allowDecimals={false} tick={axis} label={{ value: t('chart.orders'), angle: -90, position: 'insideLeft' }} />
         <Tooltip />
-        <Bar dataKey="n" name="Orders" fill={SERIES[0]} isAnimationActive={false} />
+        <Bar dataKey="n" name={t('chart.ordersSeries')} fill={SERIES[0]} isAnimationActive={false} />
         {p50 != null && <ReferenceLine x={binOf(data, p50)} stroke={SERIES[2]} strokeDasharray="4 2" label={{ value: 'p50', position: 'top' }} />}
         {p85 != null && <ReferenceLine x={binOf(data, p85)} stroke={SERIES[3]} strokeDasharray="8 3" label={{ value: 'p85', position: 'top' }} />}
       </BarChart>
@@ -122,12 +124,13 @@ export function Bars({
 
 /** Cumulative flow: one line per stage (not stacked); the gap between two lines is the WIP between them. */
 export function CumulativeFlow({ data, stages }: { data: object[]; stages: { key: string; name: string }[] }) {
+  const { t } = useTranslation('reports');
   return (
     <ResponsiveContainer width="100%" height="100%">
       <AreaChart data={data} margin={{ top: 12, right: 16, bottom: 8, left: 0 }}>
         <CartesianGrid strokeDasharray="3 3" />
         <XAxis dataKey="label" tick={axis} />
-        <YAxis tick={axis} allowDecimals={false} label={{ value: 'trays', angle: -90, position: 'insideLeft' }} />
+        <YAxis tick={axis} allowDecimals={false} label={{ value: t('chart.trays'), angle: -90, position: 'insideLeft' }} />
         <Tooltip />
         <Legend />
         {stages.map((s, i) => (
@@ -140,17 +143,18 @@ export function CumulativeFlow({ data, stages }: { data: object[]; stages: { key
 
 /** Pareto: bars largest first, and the running share as a line on its own axis. */
 export function Pareto({ data }: { data: { name: string; qty: number; cumulativeShare: number }[] }) {
+  const { t } = useTranslation('reports');
   return (
     <ResponsiveContainer width="100%" height="100%">
       <ComposedChart data={data} margin={{ top: 12, right: 16, bottom: 40, left: 0 }}>
         <CartesianGrid strokeDasharray="3 3" />
         <XAxis dataKey="name" tick={{ ...axis, fontSize: 11 }} interval={0} angle={-20} textAnchor="end" />
-        <YAxis yAxisId="qty" tick={axis} label={{ value: 'pieces', angle: -90, position: 'insideLeft' }} />
+        <YAxis yAxisId="qty" tick={axis} label={{ value: t('chart.pieces'), angle: -90, position: 'insideLeft' }} />
         <YAxis yAxisId="share" orientation="right" domain={[0, 1]} tick={axis} tickFormatter={(v: number) => `${Math.round(v * 100)}%`} />
         <Tooltip />
         <Legend verticalAlign="top" />
-        <Bar yAxisId="qty" dataKey="qty" name="Scrapped pieces" fill={SERIES[0]} isAnimationActive={false} />
-        <Line yAxisId="share" dataKey="cumulativeShare" name="Running share" stroke={SERIES[3]} strokeWidth={3} strokeDasharray="6 3" isAnimationActive={false} />
+        <Bar yAxisId="qty" dataKey="qty" name={t('chart.scrapped')} fill={SERIES[0]} isAnimationActive={false} />
+        <Line yAxisId="share" dataKey="cumulativeShare" name={t('chart.runningShare')} stroke={SERIES[3]} strokeWidth={3} strokeDasharray="6 3" isAnimationActive={false} />
       </ComposedChart>
     </ResponsiveContainer>
   );

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Download, Info } from 'lucide-react';
+import { useTranslation } from 'react-i18next';
 import { PROCESSES } from '@shared/domain/vocabulary';
-import { humanise } from '@/lib/labels';
 import { factoryTodayDate } from '@/lib/datetime';
 import { defaultWindow } from '../lib/summary';
 import { SelectField, TextField } from '@/components/ui/field';
@@ -55,22 +55,23 @@ export function ReportFrame({
   /** the report shows percentiles: say how they are computed (only there) */
   percentiles?: boolean;
 }) {
+  const { t } = useTranslation(['reports', 'common']);
   return (
     <div className="flex flex-col gap-4">
       <Card>
-        <form className="grid grid-cols-2 gap-3 md:grid-cols-3 xl:grid-cols-7" onSubmit={(e) => e.preventDefault()} aria-label="Filters">
-          <TextField label="From" type="date" value={filters.from} max={filters.to} onChange={(e) => onChange({ from: e.target.value })} />
-          <TextField label="To" type="date" value={filters.to} min={filters.from} onChange={(e) => onChange({ to: e.target.value })} />
-          <SelectField label="Process" value={filters.process} onChange={(e) => onChange({ process: e.target.value })}>
-            <option value="">All processes</option>
+        <form className="grid grid-cols-2 gap-3 md:grid-cols-3 xl:grid-cols-7" onSubmit={(e) => e.preventDefault()} aria-label={t('frame.filters')}>
+          <TextField label={t('frame.from')} type="date" value={filters.from} max={filters.to} onChange={(e) => onChange({ from: e.target.value })} />
+          <TextField label={t('frame.to')} type="date" value={filters.to} min={filters.from} onChange={(e) => onChange({ to: e.target.value })} />
+          <SelectField label={t('frame.process')} value={filters.process} onChange={(e) => onChange({ process: e.target.value })}>
+            <option value="">{t('frame.allProcesses')}</option>
             {PROCESSES.map((p) => (
               <option key={p} value={p}>
-                {humanise(p)}
+                {t(`common:process.${p}`)}
               </option>
             ))}
           </SelectField>
-          <SelectField label="Customer" value={filters.customerId} onChange={(e) => onChange({ customerId: e.target.value })}>
-            <option value="">All customers</option>
+          <SelectField label={t('frame.customer')} value={filters.customerId} onChange={(e) => onChange({ customerId: e.target.value })}>
+            <option value="">{t('frame.allCustomers')}</option>
             {customers.map((c) => (
               <option key={c.id} value={c.id}>
                 {c.name}
@@ -78,8 +79,8 @@ export function ReportFrame({
             ))}
           </SelectField>
           {stations && (
-            <SelectField label="Station" value={filters.stationId} onChange={(e) => onChange({ stationId: e.target.value })}>
-              <option value="">All stations</option>
+            <SelectField label={t('frame.station')} value={filters.stationId} onChange={(e) => onChange({ stationId: e.target.value })}>
+              <option value="">{t('frame.allStations')}</option>
               {stations.map((s) => (
                 <option key={s.id} value={s.id}>
                   {s.code} · {s.name}
@@ -88,9 +89,9 @@ export function ReportFrame({
             </SelectField>
           )}
           {bucket && (
-            <SelectField label="Per" value={filters.bucket} onChange={(e) => onChange({ bucket: e.target.value })}>
-              <option value="day">Day</option>
-              <option value="week">Week</option>
+            <SelectField label={t('frame.per')} value={filters.bucket} onChange={(e) => onChange({ bucket: e.target.value })}>
+              <option value="day">{t('frame.day')}</option>
+              <option value="week">{t('frame.week')}</option>
             </SelectField>
           )}
           <div className="flex items-end">
@@ -100,7 +101,7 @@ export function ReportFrame({
               download
               className="flex min-h-11 w-full items-center justify-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50"
             >
-              <Download className="h-5 w-5" aria-hidden /> Download CSV
+              <Download className="h-5 w-5" aria-hidden /> {t('frame.csv')}
             </a>
           </div>
         </form>
@@ -108,8 +109,8 @@ export function ReportFrame({
       <p className="flex items-start gap-2 text-sm text-harbour-700">
         <Info className="mt-0.5 h-4 w-4 shrink-0" aria-hidden />
         <span>
-          {percentiles && 'Percentiles (p50, p85, p95) by the Hyndman & Fan type 7 method, the default of R and NumPy; n, the number of values, is shown beside each. '}
-          Days are the factory’s local days. {note}
+          {percentiles && t('frame.percentiles', { authors: 'Hyndman & Fan', numpy: 'NumPy' })}
+          {t('frame.localDays')} {note}
         </span>
       </p>
       {children}
@@ -119,6 +120,7 @@ export function ReportFrame({
 
 /** A chart and the table of the same figures, side by side on a wide screen. */
 export function ChartAndTable({ title, chart, table, caption }: { title: string; chart: ReactNode; table: ReactNode; caption?: ReactNode }) {
+  const { t } = useTranslation('reports');
   return (
     <Card>
       <h2 className="mb-1 text-xl font-bold text-harbour-900">{title}</h2>
@@ -126,7 +128,7 @@ export function ChartAndTable({ title, chart, table, caption }: { title: string;
       <div className="grid gap-6 xl:grid-cols-[3fr_2fr]">
         <div className="h-96 min-w-0">{chart}</div>
         {/* the table keeps the chart's height and scrolls; its header stays in view */}
-        <div className="max-h-96 min-w-0 overflow-auto rounded-lg border border-harbour-50" tabIndex={0} aria-label={`${title}: table`}>
+        <div className="max-h-96 min-w-0 overflow-auto rounded-lg border border-harbour-50" tabIndex={0} aria-label={t('frame.tableOf', { title })}>
           {table}
         </div>
       </div>
@@ -135,6 +137,7 @@ export function ChartAndTable({ title, chart, table, caption }: { title: string;
 }
 
 export function StatTable({ head, rows, label }: { head: string[]; rows: (string | number)[][]; label: string }) {
+  const { t } = useTranslation('reports');
   return (
     <table className="w-full text-left text-sm" aria-label={label}>
       <thead className="sticky top-0 bg-white">
@@ -160,7 +163,7 @@ export function StatTable({ head, rows, label }: { head: string[]; rows: (string
         {rows.length === 0 && (
           <tr>
             <td colSpan={head.length} className="px-2 py-4 text-center text-harbour-700">
-              Nothing in this period
+              {t('frame.empty')}
             </td>
           </tr>
         )}

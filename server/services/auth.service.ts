@@ -33,11 +33,34 @@ export const DEVICE_COOKIE = 'trayce_device';
 // A fixed hash to compare against when the account does not exist, so timing says nothing.
 const DUMMY_HASH = bcrypt.hashSync('not-a-real-password', BCRYPT_COST);
 
-export function hashSecret(secret: string): string {
+function checkSecretLength(secret: string) {
   if (new TextEncoder().encode(secret).length > PASSWORD_MAX_BYTES) {
     throw badInput(`Passwords are limited to ${PASSWORD_MAX_BYTES} bytes.`, undefined, 'password_too_long');
   }
+}
+
+/** A bcrypt hash made at once (seeding and user admin; a request that signs in uses the async ones below). */
+export function hashSecret(secret: string): string {
+  checkSecretLength(secret);
   return bcrypt.hashSync(secret, BCRYPT_COST);
+}
+
+/**
+ * bcrypt off the event loop: bcryptjs's async hash and compare work in slices between other
+ * callbacks, so a sign-in (about 120 ms of hashing) does not hold up the scan batches meanwhile.
+ */
+export async function hashSecretAsync(secret: string): Promise<string> {
+  checkSecretLength(secret);
+  return bcrypt.hash(secret, BCRYPT_COST);
+}
+
+/** Compares a secret with a stored hash off the event loop; with no hash, compares with a dummy so timing says nothing. */
+async function secretMatches(secret: string, hash: string | null | undefined): Promise<boolean> {
+  if (!hash) {
+    await bcrypt.compare(secret, DUMMY_HASH);
+    return false;
+  }
+  return bcrypt.compare(secret, hash);
 }
 
 const invalid = () => new AppError(401, 'invalid_credentials', 'That sign-in is not right. Check it and try again.');
@@ -93,7 +116,7 @@ export interface BadgeClient {
  * whether the right PIN is enough (an override needs a supervisor too); every refusal gets the
  * same answer and counts the same.
  */
-function checkBadge(deps: AppDeps, badge: string, pin: string, client: BadgeClient, accept: (user: UserRow) => boolean): UserRow {
+async function checkBadge(deps: AppDeps, badge: string, pin: string, client: BadgeClient, accept: (user: UserRow) => boolean): Promise<UserRow> {
   const now = deps.now();
   const clientKey = client.device ? `device:${client.device.id}` : `user:${client.userId ?? 'none'}`;
   const badgeKey = `badge:${badge}:${clientKey}`;
@@ -104,7 +127,7 @@ function checkBadge(deps: AppDeps, badge: string, pin: string, client: BadgeClie
   const wait = failureStore.wait(deps.db, keys, now);
   if (wait > 0) throw throttledFor(wait);
   const user = usersRepository.byBadge(deps.db, badge);
-  const pinRight = user?.pinHash ? bcrypt.compareSync(pin, user.pinHash) : (bcrypt.compareSync(pin, DUMMY_HASH), false);
+  const pinRight = await secretMatches(pin, user?.pinHash);
   if (!user || !pinRight || !accept(user)) {
     const after = failureStore.fail(deps.db, keys, now);
     const report = after.find((k) => worthReporting(k.record, k.rule));
@@ -182,7 +205,7 @@ export const authService = {
     const wait = failureStore.wait(deps.db, keys, now);
     if (wait > 0) throw throttledFor(wait);
     const fits = new TextEncoder().encode(password).length <= PASSWORD_MAX_BYTES;
-    const ok = user ? fits && bcrypt.compareSync(password, user.passwordHash) : (bcrypt.compareSync(password, DUMMY_HASH), false);
+    const ok = (await secretMatches(password, user?.passwordHash)) && !!user && fits;
     if (!user || !ok) {
       failureStore.fail(deps.db, keys, now);
       throw invalid();
@@ -195,7 +218,7 @@ export const authService = {
 
   /** Operators (and supervisors) on a registered tablet: badge plus PIN. */
   async badgeLogin(deps: AppDeps, device: DeviceAuth, badge: string, pin: string) {
-    const user = checkBadge(deps, badge, pin, { device, userId: null, purpose: 'sign_in' }, () => true);
+    const user = await checkBadge(deps, badge, pin, { device, userId: null, purpose: 'sign_in' }, () => true);
     if (!user.active) throw new AppError(403, 'account_inactive', 'This badge is switched off. Ask a supervisor.');
     const row = devicesRepository.byId(deps.db, device.id);
     return startSession(deps, user, row?.idleMinutes ?? 10, device.id);
@@ -206,7 +229,7 @@ export const authService = {
    * wrong badge, a wrong PIN, a switched-off badge and a person who is not a supervisor all get
    * the same 401 and count the same.
    */
-  verifySupervisorBadge(deps: AppDeps, badge: string, pin: string, client: Omit<BadgeClient, 'purpose'>): UserRow {
+  verifySupervisorBadge(deps: AppDeps, badge: string, pin: string, client: Omit<BadgeClient, 'purpose'>): Promise<UserRow> {
     return checkBadge(deps, badge, pin, { ...client, purpose: 'override' }, (u) => u.active && RELEASE_ROLES.includes(u.role as Role));
   },
 
@@ -246,19 +269,20 @@ export const authService = {
    * A person changes their own password, giving the current one. The new one may be neither the
    * current one nor the documented default; the person's other sessions end, this one goes on.
    */
-  changePassword(deps: AppDeps, session: SessionUser, currentPassword: string, newPassword: string) {
+  async changePassword(deps: AppDeps, session: SessionUser, currentPassword: string, newPassword: string) {
     const user = usersRepository.byId(deps.db, session.id);
     if (!user) throw invalid();
     const fits = new TextEncoder().encode(currentPassword).length <= PASSWORD_MAX_BYTES;
-    if (!fits || !bcrypt.compareSync(currentPassword, user.passwordHash)) {
+    if (!fits || !(await secretMatches(currentPassword, user.passwordHash))) {
       throw badInput('The current password is not right.', [{ path: ['currentPassword'], message: 'Not right', code: 'wrong_password' }], 'wrong_password');
     }
     if (newPassword === currentPassword || newPassword === DEFAULT_ADMIN_PASSWORD) {
       throw badInput('Choose a password other than the current one and the default.', [{ path: ['newPassword'], message: 'Same as before', code: 'password_reused' }], 'password_reused');
     }
+    const passwordHash = await hashSecretAsync(newPassword);
     const now = deps.now();
     deps.db.transaction((tx) => {
-      usersRepository.update(tx, user.id, { passwordHash: hashSecret(newPassword), mustChangePassword: false, updatedAt: now });
+      usersRepository.update(tx, user.id, { passwordHash, mustChangePassword: false, updatedAt: now });
       usersRepository.revokeOtherSessions(tx, user.id, session.sessionId, now);
     });
     this.forgetFailures(deps, user.id);

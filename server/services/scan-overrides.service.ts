@@ -15,8 +15,8 @@ export const OVERRIDE_MINUTES = 15;
 
 export const scanOverridesService = {
   /** A supervisor's badge and PIN on the tablet, and a reason: lets one scan of one tray through. */
-  createOverride(deps: AppDeps, input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: OverrideKind }, caller: { device: DeviceAuth | null; userId: string | null }) {
-    const supervisor = authService.verifySupervisorBadge(deps, input.badge, input.pin, caller);
+  async createOverride(deps: AppDeps, input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: OverrideKind }, caller: { device: DeviceAuth | null; userId: string | null }) {
+    const supervisor = await authService.verifySupervisorBadge(deps, input.badge, input.pin, caller);
     if (caller.device && caller.device.stationId !== input.stationId) {
       throw conflict('station_not_allowed', 'This tablet can approve scans only at its own station. Approve it on the tablet at that station.');
     }

@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import { Trans, useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { AlertTriangle, Flame, Layers, Split } from 'lucide-react';
 import { FLOOR_LEADS } from '@shared/domain/access';
 import type { LoadGroup, LoadView } from '@shared/schemas/loads';
@@ -6,65 +8,96 @@ import { queryClient } from '@/lib/query-client';
 import { loadsQueryOptions, useCreateLoad, useLoads, useSplitLoad } from '@/features/loads/api/get-loads';
 import { Button } from '@/components/ui/button';
 import { Card, EmptyState, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
-import { minutesText } from '@/lib/duration';
 import { humanise } from '@/lib/labels';
+import { currentLocale, i18n } from '@/lib/i18n';
+import { errorText } from '@/lib/error-text';
 import { LOAD_KIND_TRAITS, type LoadKind } from '@shared/domain/traveller/station-kinds';
 
 export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(loadsQueryOptions());
 
+const num = (n: number) => n.toLocaleString(currentLocale());
+
+/** 95 -> "1 h 35 min" in the reader's language (the shared duration words). */
+function minutesText(min: number | null | undefined): string {
+  if (min == null || !Number.isFinite(min)) return '–';
+  const m = Math.max(0, Math.round(min));
+  if (m < 60) return i18n.t('common:duration.minutes', { m });
+  const h = Math.floor(m / 60);
+  if (h < 48) return i18n.t('common:duration.hoursMinutes', { h, m: m % 60 });
+  return i18n.t('common:duration.days', { d: Math.floor(h / 24), h: h % 24 });
+}
+
+/** A load group's name: the cure time, or the plating finish by its shared name. */
+function groupName(kind: LoadKind, key: string, t: TFunction<'loads'>, tc: TFunction<'common'>): string {
+  if (LOAD_KIND_TRAITS[kind].groupedBy === 'cure profile') return t('cureLabel', { minutes: key });
+  return tc(`plating.${key as 'gold'}`, { defaultValue: humanise(key) });
+}
+
 function GroupCard({ kind, group }: { kind: LoadKind; group: LoadGroup }) {
   const create = useCreateLoad();
+  const { t } = useTranslation('loads');
+  const { t: tc } = useTranslation('common');
   const [chosen, setChosen] = useState<Set<string>>(() => new Set());
-  const toggle = (id: string) => setChosen((s) => {
-    const n = new Set(s);
-    if (n.has(id)) n.delete(id);
-    else n.add(id);
-    return n;
-  });
-  const pieces = group.trays.filter((t) => chosen.has(t.trayId)).reduce((s, t) => s + t.quantity, 0);
-  const title = LOAD_KIND_TRAITS[kind].groupedBy === 'cure profile' ? group.label : humanise(group.key);
+  const toggle = (id: string) =>
+    setChosen((s) => {
+      const n = new Set(s);
+      if (n.has(id)) n.delete(id);
+      else n.add(id);
+      return n;
+    });
+  const pieces = group.trays.filter((tr) => chosen.has(tr.trayId)).reduce((s, tr) => s + tr.quantity, 0);
+  const title = groupName(kind, group.key, t, tc);
   return (
     <Card>
       <header className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-xl font-bold text-harbour-900">{title}</h3>
         <span className="text-harbour-700">
-          {group.trays.length} trays · {group.pieces.toLocaleString('en-GB')} pieces · oldest waiting {minutesText(group.oldestMinutes)}
+          {t('groupSummary', { trays: group.trays.length, pieces: num(group.pieces), oldest: minutesText(group.oldestMinutes) })}
         </span>
       </header>
-      <table className="w-full text-left text-sm" aria-label={`Trays waiting: ${title}`}>
+      <table className="w-full text-left text-sm" aria-label={t('traysWaiting', { title })}>
         <thead>
           <tr className="border-b-2 border-harbour-100">
             <th className="w-10 px-2 py-1">
-              <span className="sr-only">Choose</span>
+              <span className="sr-only">{t('choose')}</span>
             </th>
-            <th className="px-2 py-1">Tray</th>
-            <th className="px-2 py-1">Order</th>
-            <th className="px-2 py-1">Customer</th>
-            <th className="px-2 py-1 text-right">Pieces</th>
-            <th className="px-2 py-1 text-right">Waiting</th>
+            <th className="px-2 py-1">{t('tray')}</th>
+            <th className="px-2 py-1">{t('order')}</th>
+            <th className="px-2 py-1">{t('customer')}</th>
+            <th className="px-2 py-1 text-right">{t('pieces')}</th>
+            <th className="px-2 py-1 text-right">{t('waiting')}</th>
           </tr>
         </thead>
         <tbody>
-          {group.trays.map((t) => (
-            <tr key={t.trayId} className="border-b border-harbour-50">
+          {group.trays.map((tr) => (
+            <tr key={tr.trayId} className="border-b border-harbour-50">
               <td className="px-2 py-1">
-                <input type="checkbox" className="h-6 w-6" checked={chosen.has(t.trayId)} onChange={() => toggle(t.trayId)} aria-label={`Put tray ${t.number} in the load`} />
+                <input
+                  type="checkbox"
+                  className="h-6 w-6"
+                  checked={chosen.has(tr.trayId)}
+                  onChange={() => toggle(tr.trayId)}
+                  aria-label={t('putIn', { number: tr.number })}
+                />
               </td>
-              <td className="px-2 py-1 font-bold">{t.number}</td>
-              <td className="px-2 py-1">{t.orderNumber}</td>
-              <td className="px-2 py-1">{t.customer}</td>
-              <td className="px-2 py-1 text-right tabular-nums">{t.quantity.toLocaleString('en-GB')}</td>
-              <td className="px-2 py-1 text-right">{minutesText(t.waitingMinutes)}</td>
+              <td className="px-2 py-1 font-bold">{tr.number}</td>
+              <td className="px-2 py-1">{tr.orderNumber}</td>
+              <td className="px-2 py-1">{tr.customer}</td>
+              <td className="px-2 py-1 text-right tabular-nums">{num(tr.quantity)}</td>
+              <td className="px-2 py-1 text-right">{minutesText(tr.waitingMinutes)}</td>
             </tr>
           ))}
         </tbody>
       </table>
       <div className="mt-3 flex flex-wrap items-center gap-3">
-        <Button disabled={chosen.size === 0 || create.isPending} onClick={() => create.mutate({ kind, trayIds: [...chosen] }, { onSuccess: () => setChosen(new Set()) })}>
-          <Layers className="h-5 w-5" aria-hidden /> Make {LOAD_KIND_TRAITS[kind].loadName} of {chosen.size} trays ({pieces.toLocaleString('en-GB')} pieces)
+        <Button
+          disabled={chosen.size === 0 || create.isPending}
+          onClick={() => create.mutate({ kind, trayIds: [...chosen] }, { onSuccess: () => setChosen(new Set()) })}
+        >
+          <Layers className="h-5 w-5" aria-hidden /> {t(kind === 'cure' ? 'makeCure' : 'makePlate', { count: chosen.size, pieces: num(pieces) })}
         </Button>
-        {create.error && <span className="font-bold text-stop-700">{create.error.message}</span>}
+        {create.error && <span className="font-bold text-stop-700">{errorText(create.error)}</span>}
       </div>
     </Card>
   );
@@ -72,65 +105,83 @@ function GroupCard({ kind, group }: { kind: LoadKind; group: LoadGroup }) {
 
 function OpenLoad({ load }: { load: LoadView }) {
   const split = useSplitLoad();
+  const { t } = useTranslation('loads');
+  const { t: tc } = useTranslation('common');
   return (
     <Card>
       <header className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-xl font-bold text-harbour-900">
-          {load.number} · {LOAD_KIND_TRAITS[load.kind].groupedBy === 'cure profile' ? LOAD_KIND_TRAITS[load.kind].label(load.groupKey) : humanise(load.groupKey)}
+          {load.number} · {groupName(load.kind, load.groupKey, t, tc)}
         </h3>
-        <Pill tone="info">{load.pieces.toLocaleString('en-GB')} pieces</Pill>
+        <Pill tone="info">{t('loadPieces', { pieces: num(load.pieces) })}</Pill>
       </header>
-      <p className="mb-2 text-sm text-harbour-700">Each order keeps its own trays and pieces; splitting the load gives every order back exactly what it put in.</p>
+      <p className="mb-2 text-sm text-harbour-700">{t('keepsOwn')}</p>
       <ul className="mb-3 flex flex-col gap-1">
         {load.orders.map((o) => (
           <li key={o.orderId}>
-            Order <strong>{o.orderNumber}</strong>: {o.pieces.toLocaleString('en-GB')} pieces in {load.trays.filter((t) => t.orderId === o.orderId).map((t) => t.number).join(', ')}
+            <Trans
+              t={t}
+              i18nKey="orderLine"
+              values={{
+                number: o.orderNumber,
+                pieces: num(o.pieces),
+                trays: load.trays
+                  .filter((tr) => tr.orderId === o.orderId)
+                  .map((tr) => tr.number)
+                  .join(', '),
+              }}
+              components={{ strong: <strong /> }}
+            />
           </li>
         ))}
       </ul>
       <Button variant="secondary" disabled={split.isPending} onClick={() => split.mutate(load.id)}>
-        <Split className="h-5 w-5" aria-hidden /> Split back into its trays
+        <Split className="h-5 w-5" aria-hidden /> {t('split')}
       </Button>
-      {split.error && <p className="mt-2 font-bold text-stop-700">{split.error.message}</p>}
+      {split.error && <p className="mt-2 font-bold text-stop-700">{errorText(split.error)}</p>}
     </Card>
   );
 }
 
 export function Component() {
   const loads = useLoads();
+  const { t } = useTranslation('loads');
   return (
     <>
-      <PageHeader title="Oven & bath loads" subtitle="Trays waiting for the oven, by cure profile, and for plating, by finish: choose trays from any orders to fill a load." />
+      <PageHeader title={t('title')} subtitle={t('subtitle')} />
       <p className="mb-4 flex items-start gap-2 rounded-xl border-2 border-warn-700/30 bg-warn-50 p-3 text-warn-700">
         <AlertTriangle className="mt-0.5 h-5 w-5 shrink-0" aria-hidden />
-        Ovens are hot and plating baths hold corrosive and toxic chemicals: heat-resistant gloves, goggles and ventilation as the station notes say. Local regulations and the
-        factory’s own procedures take precedence.
+        {t('safety')}
       </p>
       {loads.isPending ? (
         <Loading />
       ) : loads.error ? (
-        <ErrorPanel message={loads.error.message} />
+        <ErrorPanel message={errorText(loads.error)} />
       ) : (
         <div className="flex flex-col gap-6">
           {loads.data.open.length > 0 && (
-            <section aria-label="Open loads" className="flex flex-col gap-3">
-              <h2 className="text-2xl font-bold text-harbour-900">Open loads</h2>
+            <section aria-label={t('open')} className="flex flex-col gap-3">
+              <h2 className="text-2xl font-bold text-harbour-900">{t('open')}</h2>
               {loads.data.open.map((l) => (
                 <OpenLoad key={l.id} load={l} />
               ))}
             </section>
           )}
-          <section aria-label="Waiting for the oven" className="flex flex-col gap-3">
+          <section aria-label={t('waitingOven')} className="flex flex-col gap-3">
             <h2 className="flex items-center gap-2 text-2xl font-bold text-harbour-900">
-              <Flame className="h-6 w-6" aria-hidden /> Waiting for the oven
+              <Flame className="h-6 w-6" aria-hidden /> {t('waitingOven')}
             </h2>
-            {loads.data.oven.length === 0 ? <EmptyState title="No tray waits for the oven" /> : loads.data.oven.map((g) => <GroupCard key={g.key} kind="cure" group={g} />)}
+            {loads.data.oven.length === 0 ? <EmptyState title={t('noOven')} /> : loads.data.oven.map((g) => <GroupCard key={g.key} kind="cure" group={g} />)}
           </section>
-          <section aria-label="Waiting for plating" className="flex flex-col gap-3">
+          <section aria-label={t('waitingPlating')} className="flex flex-col gap-3">
             <h2 className="flex items-center gap-2 text-2xl font-bold text-harbour-900">
-              <Layers className="h-6 w-6" aria-hidden /> Waiting for plating
+              <Layers className="h-6 w-6" aria-hidden /> {t('waitingPlating')}
             </h2>
-            {loads.data.plating.length === 0 ? <EmptyState title="No tray waits for plating" /> : loads.data.plating.map((g) => <GroupCard key={g.key} kind="plate" group={g} />)}
+            {loads.data.plating.length === 0 ? (
+              <EmptyState title={t('noPlating')} />
+            ) : (
+              loads.data.plating.map((g) => <GroupCard key={g.key} kind="plate" group={g} />)
+            )}
           </section>
         </div>
       )}

@@ -2,6 +2,7 @@
 // against the tray's state (shared/domain/guards.ts), written, and answered in the order sent;
 // batches that arrive together share one transaction (group commit). Refusals that a late scan
 // from another tablet makes right are tried again here too.
+import { boundedPayload } from '@shared/domain/bounded-payload';
 import crypto from 'node:crypto';
 import type { AppDeps } from '../app-deps';
 import type { DbLike } from '../db/client';
@@ -304,7 +305,7 @@ function rejectionRow(p: PreparedEvent | null, raw: unknown, e: Evaluated | null
     userId,
     code,
     message: refusalText(code, params as Record<string, string | number | null>),
-    payload: { event: event ?? raw, params },
+    payload: { event: event ?? boundedPayload(raw), params },
     occurredAt: Number.isNaN(occurred) ? null : occurred,
     receivedAt: now,
   };

@@ -27,10 +27,12 @@ export const wallService = {
       }))
       .sort((a, b) => a.readyAt.localeCompare(b.readyAt));
     // hold reasons by their names, never their codes
-    const reasonName = new Map(stationsRepository.reasonCodes(deps.db).map((r) => [r.code, r.name]));
+    const codes = stationsRepository.reasonCodes(deps.db);
+    const reasonName = new Map(codes.map((r) => [r.code, r.name]));
+    const reasonNameZh = new Map(codes.map((r) => [r.code, r.nameZh]));
     const holds = snap.placements
       .filter((p) => p.row.onHold)
-      .map((p) => ({ trayId: p.row.trayId, number: p.row.number, orderNumber: p.row.orderNumber, stationKind: p.kind, reason: p.row.holdReason ? (reasonName.get(p.row.holdReason) ?? p.row.holdReason) : null, pieces: p.row.quantity }));
+      .map((p) => ({ trayId: p.row.trayId, number: p.row.number, orderNumber: p.row.orderNumber, stationKind: p.kind, reason: p.row.holdReason ? (reasonName.get(p.row.holdReason) ?? p.row.holdReason) : null, reasonZh: p.row.holdReason ? (reasonNameZh.get(p.row.holdReason) || null) : null, pieces: p.row.quantity }));
     const oldestByKind = new Map<string, { stationKind: string; trayNumber: string; orderNumber: string; minutes: number }>();
     for (const p of snap.placements) {
       if (p.phase !== 'waiting' || p.waitingSince == null) continue;

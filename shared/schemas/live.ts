@@ -17,7 +17,8 @@ export interface WallView {
   timeZone: string;
   wip: WipResponse;
   curing: { trayId: string; number: string; orderNumber: string; stationName: string | null; readyAt: string; pieces: number; stepName: string | null }[];
-  holds: { trayId: string; number: string; orderNumber: string; stationKind: string; reason: string | null; pieces: number }[];
+  /** reason: the hold reason's name; reasonZh its Chinese name where the admin gave one */
+  holds: { trayId: string; number: string; orderNumber: string; stationKind: string; reason: string | null; reasonZh: string | null; pieces: number }[];
   oldest: { stationKind: string; trayNumber: string; orderNumber: string; minutes: number }[];
   refusals: { id: string; code: string; message: string; at: string; trayNumber: string | null; stationName: string | null; userName: string | null }[];
   overrides: { id: string; kind: string; reason: string; at: string; trayNumber: string; stationName: string | null; supervisorName: string | null; used: boolean }[];

@@ -179,10 +179,11 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const now = useNow();
   const active = view.wip.kinds.filter((k) => k.stations.length > 0 || k.waiting.trays + k.inProcess.trays + k.curing.trays + k.moulds > 0);
   const tz = view.timeZone;
+  const holdReason = (h: WallView['holds'][number]) => (i18n.language === 'zh-CN' && h.reasonZh ? h.reasonZh : h.reason);
   // one list of what waits for a supervisor: refusals, holds, then overrides already used
   const needs = [
-    ...view.refusals.map((r) => ({ key: `r${r.id}`, icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.refused'), text: `${r.trayNumber ?? tr('board.unknownTray')} · ${r.stationName ?? tr('board.aStation')}`, full: r.message, muted: false })),
-    ...view.holds.map((h) => ({ key: `h${h.trayId}`, icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.onHold'), text: `${h.number} · ${h.reason ?? kindName(h.stationKind)}`, full: h.reason ?? '', muted: false })),
+    ...view.refusals.map((r) => ({ key: `r${r.id}`, icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.refused'), text: `${r.trayNumber ?? tr('board.unknownTray')} · ${r.stationName ?? tr('board.aStation')}`, full: i18n.language === 'zh-CN' ? tr(`common:rejection.${r.code}` as 'common:rejection.on_hold', { defaultValue: r.message }) : r.message, muted: false })),
+    ...view.holds.map((h) => ({ key: `h${h.trayId}`, icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.onHold'), text: `${h.number} · ${holdReason(h) ?? kindName(h.stationKind)}`, full: holdReason(h) ?? '', muted: false })),
     ...view.overrides.map((o) => ({ key: `o${o.id}`, icon: <Hand className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.override'), text: `${o.trayNumber} · ${o.supervisorName ?? tr('board.aSupervisor')}`, full: o.reason, muted: true })),
   ];
   // the wall has room for a few one-line entries; the floor page (compact) lists them all

@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { errorText } from '@/lib/error-text';
 import { Link } from 'react-router';
 import { createColumnHelper } from '@tanstack/react-table';
 import { FLOOR_LEADS } from '@shared/domain/access';
@@ -10,7 +12,7 @@ import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
 import { ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
-import { formatDate, humanise } from '@/lib/labels';
+import { formatDate } from '@/lib/labels';
 
 export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(mouldsQueryOptions());
@@ -20,6 +22,7 @@ const tone = (s: MouldLibraryItem['status']) => (s === 'ready' ? 'ok' : s === 'r
 
 function StorageCell({ mould }: { mould: MouldLibraryItem }) {
   const update = useUpdateMould();
+  const { t } = useTranslation('moulds');
   const [value, setValue] = useState(mould.storageLocation ?? '');
   const changed = value !== (mould.storageLocation ?? '');
   return (
@@ -32,28 +35,33 @@ function StorageCell({ mould }: { mould: MouldLibraryItem }) {
       }}
     >
       <input
-        aria-label={`Storage place of mould ${mould.number}`}
+        aria-label={t('storageOf', { number: mould.number })}
         className="min-h-11 w-36 rounded-lg border-2 border-harbour-100 bg-white px-2"
         value={value}
-        placeholder="e.g. Shelf B-4"
+        placeholder={t('storageExample')}
         onChange={(e) => setValue(e.target.value)}
       />
       {changed && (
         <Button type="submit" variant="secondary" disabled={update.isPending}>
-          Save
+          {t('save')}
         </Button>
       )}
-      {update.error && <span role="alert" className="text-sm font-bold text-stop-700">{update.error.message}</span>}
+      {update.error && (
+        <span role="alert" className="text-sm font-bold text-stop-700">
+          {errorText(update.error)}
+        </span>
+      )}
     </form>
   );
 }
 
 function RetireButton({ mould }: { mould: MouldLibraryItem }) {
   const update = useUpdateMould();
+  const { t } = useTranslation('moulds');
   const retired = mould.status === 'retired';
   return (
     <Button variant="ghost" disabled={update.isPending} onClick={() => update.mutate({ id: mould.id, patch: { retired: !retired } })}>
-      {retired ? 'Put back in use' : 'Retire'}
+      {retired ? t('unretire') : t('retire')}
     </Button>
   );
 }
@@ -61,16 +69,17 @@ function RetireButton({ mould }: { mould: MouldLibraryItem }) {
 export function Component() {
   const moulds = useMoulds();
   const me = useMe();
+  const { t } = useTranslation('moulds');
   const columns = [
-    col.accessor('number', { header: 'Mould' }),
-    col.accessor('side', { header: 'Side', cell: (c) => humanise(c.getValue()) }),
-    col.accessor('status', { header: 'State', cell: (c) => <Pill tone={tone(c.getValue())}>{humanise(c.getValue())}</Pill> }),
-    col.accessor('storageLocation', { header: 'Stored at', cell: (c) => <StorageCell mould={c.row.original} /> }),
-    col.accessor('useCount', { header: 'Orders made' }),
-    col.accessor((m) => m.firstOrder?.customer ?? '', { id: 'customer', header: 'Customer' }),
+    col.accessor('number', { header: t('col.number') }),
+    col.accessor('side', { header: t('col.side'), cell: (c) => t(`side.${c.getValue()}`) }),
+    col.accessor('status', { header: t('col.state'), cell: (c) => <Pill tone={tone(c.getValue())}>{t(`status.${c.getValue()}`)}</Pill> }),
+    col.accessor('storageLocation', { header: t('col.storedAt'), cell: (c) => <StorageCell mould={c.row.original} /> }),
+    col.accessor('useCount', { header: t('col.useCount') }),
+    col.accessor((m) => m.firstOrder?.customer ?? '', { id: 'customer', header: t('col.customer') }),
     col.accessor((m) => m.firstOrder?.number ?? '', {
       id: 'firstOrder',
-      header: 'First order',
+      header: t('col.firstOrder'),
       cell: (c) =>
         c.row.original.firstOrder ? (
           <Link className="font-bold text-harbour-800 underline" to={paths.order(c.row.original.firstOrder.id)}>
@@ -80,21 +89,20 @@ export function Component() {
           '—'
         ),
     }),
-    col.accessor('lastUsedAt', { header: 'Last used', cell: (c) => formatDate(c.getValue()) }),
-    ...(me.data && me.data.user.role !== 'sales' ? [col.display({ id: 'retire', header: 'Actions', cell: (c) => <RetireButton mould={c.row.original} /> })] : []),
+    col.accessor('lastUsedAt', { header: t('col.lastUsed'), cell: (c) => formatDate(c.getValue()) }),
+    ...(me.data && me.data.user.role !== 'sales'
+      ? [col.display({ id: 'retire', header: t('col.actions'), cell: (c) => <RetireButton mould={c.row.original} /> })]
+      : []),
   ];
   return (
     <>
-      <PageHeader
-        title="Mould library"
-        subtitle="Every mould made, where it is stored and how often it was used. A repeat order of the same design reuses its mould and skips engraving."
-      />
+      <PageHeader title={t('title')} subtitle={t('subtitle')} />
       {moulds.isPending ? (
         <Loading />
       ) : moulds.error ? (
-        <ErrorPanel message={moulds.error.message} />
+        <ErrorPanel message={errorText(moulds.error)} />
       ) : (
-        <DataTable data={moulds.data} columns={columns} filterLabel="Find a mould, customer or order" caption="Mould library" emptyTitle="No moulds yet: they are made when an order is released" />
+        <DataTable data={moulds.data} columns={columns} filterLabel={t('filter')} caption={t('caption')} emptyTitle={t('empty')} />
       )}
     </>
   );

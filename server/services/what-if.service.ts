@@ -74,13 +74,27 @@ export type WhatIfSpec = Omit<WhatIfBody, 'quantity' | 'dueDate' | 'releaseAt'>;
  * Without a due date the order queues behind every open order's due date (the latest one;
  * ties go to whoever asked first). Nothing is written.
  */
-export function projectQuantities(
-  deps: AppDeps,
-  spec: WhatIfSpec,
-  quantities: readonly number[],
-  o: { dueDate?: string; runs?: number } = {},
-): { expectedAt: string | null; p85At: string | null }[] {
+type QuantityDates = { expectedAt: string | null; p85At: string | null }[];
+
+// A quote is read again and again (its page, the PDF, the mail, the customer's link): the same
+// question on the same floor gets the same answer for a minute, as the projection service's cache.
+const QUANTITY_CACHE_MS = 60_000;
+const QUANTITY_CACHE_SIZE = 200;
+const quantityCaches = new WeakMap<object, Map<string, { at: number; value: QuantityDates }>>();
+
+export function projectQuantities(deps: AppDeps, spec: WhatIfSpec, quantities: readonly number[], o: { dueDate?: string; runs?: number } = {}): QuantityDates {
   const now = deps.now();
+  const key = JSON.stringify([projectionRepository.fingerprint(deps.db), spec, quantities, o.dueDate ?? null, o.runs ?? null]);
+  const cache = quantityCaches.get(deps.db) ?? quantityCaches.set(deps.db, new Map()).get(deps.db)!;
+  const hit = cache.get(key);
+  if (hit && now >= hit.at && now - hit.at < QUANTITY_CACHE_MS) return hit.value;
+  const value = projectQuantitiesNow(deps, spec, quantities, o, now);
+  if (cache.size >= QUANTITY_CACHE_SIZE) cache.clear();
+  cache.set(key, { at: now, value });
+  return value;
+}
+
+function projectQuantitiesNow(deps: AppDeps, spec: WhatIfSpec, quantities: readonly number[], o: { dueDate?: string; runs?: number }, now: number): QuantityDates {
   const cal = calendarService.calendar(deps);
   const { snapshot } = floorSnapshot(deps, now);
   const model = modelOf(deps, snapshot, cal);

@@ -17,6 +17,7 @@
 // where one more piece would open another tray.
 import type { CostingSettings } from '@shared/schemas/costing';
 import type { BackingType, Material, Packaging, Plating, Process, RoutingStep, StationKind } from './vocabulary';
+import { cures } from './traveller/station-kinds';
 
 export interface CostingSpec {
   process: Process;
@@ -179,14 +180,14 @@ export function stepCosts(routing: readonly RoutingStep[], madePieces: number, s
  * its share of full loads.
  */
 export function ovenCost(routing: readonly RoutingStep[], madePieces: number, settings: CostingSettings): { cycles: number; cost: number } {
-  const cures = routing.filter((s) => s.stationKind === 'cure');
+  const cureSteps = routing.filter((s) => cures(s.stationKind));
   const piecesPerLoad = Math.min(madePieces, settings.ovenPiecesPerLoad);
   let cost = 0;
-  for (const c of cures) {
+  for (const c of cureSteps) {
     const loadCost = settings.ovenKwhPerLoadHour * ((c.cureMinutes ?? 0) / 60) * settings.tariffPerKwh;
     cost += (loadCost / piecesPerLoad) * madePieces;
   }
-  return { cycles: cures.length, cost };
+  return { cycles: cureSteps.length, cost };
 }
 
 /** The cost (and price) of one quantity of the spec. */
@@ -337,7 +338,7 @@ export function compareCost(input: {
   const routingBySeq = new Map(input.routing.map((r) => [r.seq, r]));
   const quotedOven = (seq: number, stationKind: StationKind) => {
     const r = routingBySeq.get(seq);
-    return stationKind === 'cure' && r ? (loadCost(r.cureMinutes) / piecesPerLoad) * made : 0;
+    return cures(stationKind) && r ? (loadCost(r.cureMinutes) / piecesPerLoad) * made : 0;
   };
   let labour = 0;
   let oven = 0;

@@ -25,6 +25,7 @@ import type { Timeline, WorkingCalendar } from './calendar';
 import { countAtMost, MULBERRY32_STEP, mulberry32Draw, quantileSorted, seedOf } from './stats';
 import { ORDER_LEVEL_KINDS, type DispatchRecord, type FloorSnapshot, type MeasuredHistory, type ProcessRecord, type QueueRecord } from './floor-history';
 import type { RoutingStep, TrayState } from './vocabulary';
+import { OVEN_KINDS } from './traveller/station-kinds';
 import { MOULD_USING_KINDS } from './routing';
 
 const MINUTE = 60_000;
@@ -443,7 +444,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
   });
   const nK = kindNames.length;
   const lines: Timeline[] = kindNames.map((k) => calendar.forStation(k));
-  const ovens: Timeline[] = kindNames.map((k) => calendar.forStation('cure', k));
+  const ovens: Timeline[] = kindNames.map((k) => calendar.forStation(...OVEN_KINDS, k));
   const placesOf = kindNames.map((k) => (capacity ? (model.places.get(k) ?? Infinity) : Infinity));
   const waitDist = kindNames.map((k) => (capacity ? model.handover.get(k) : model.queue.get(k)) ?? model.queue.get(k) ?? new WaitDistribution([]));
   const ratios = kindNames.map((k) => model.ratio.get(k) ?? null);

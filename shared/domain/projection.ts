@@ -13,6 +13,7 @@
 // The 85th-percentile date is never reported earlier than the expected one.
 
 import type { Timeline, WorkingCalendar } from './calendar';
+import { OVEN_KINDS } from './traveller/station-kinds';
 import { MINUTE } from './calendar';
 import { countAtMost, quantileSorted, seededRandom } from './stats';
 
@@ -162,7 +163,7 @@ function walkTray(tray: TrayOutlook, o: ProjectionOptions, pick: QueuePick): Pat
     const step = steps[i];
     const line = cal.forStation(step.stationKind);
     const curing = step.cureMinutes != null && step.cureMinutes > 0;
-    const oven = curing ? cal.forStation('cure', step.stationKind) : line;
+    const oven = curing ? cal.forStation(...OVEN_KINDS, step.stationKind) : line;
     cost.steps++;
     if (i === 0 && (tray.phase === 'in_process' || tray.phase === 'curing') && tray.startedAt != null) {
       // the step under way: what is left of its standard time, from now

@@ -78,6 +78,9 @@ export function kindsWhere(test: (t: StationKindTraits) => boolean): StationKind
   return (Object.keys(STATION_KIND_TRAITS) as StationKind[]).filter((k) => test(STATION_KIND_TRAITS[k]));
 }
 
+/** Every oven kind: their calendar (ovens cure through nights and days off) is asked for first. */
+export const OVEN_KINDS: readonly StationKind[] = kindsWhere((t) => t.cures);
+
 /** The one station kind that does a load kind's work (the oven for `cure`, the bath for `plate`). */
 export function loadStationKind(load: LoadKind): StationKind {
   return kindsWhere((t) => t.loads === load)[0];

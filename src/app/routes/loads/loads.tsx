@@ -11,7 +11,7 @@ import { Card, EmptyState, ErrorPanel, Loading, PageHeader, Pill } from '@/compo
 import { humanise } from '@/lib/labels';
 import { currentLocale, i18n } from '@/lib/i18n';
 import { errorText } from '@/lib/error-text';
-import { LOAD_KIND_TRAITS, type LoadKind } from '@shared/domain/traveller/station-kinds';
+import { cures, LOAD_KIND_TRAITS, type LoadKind } from '@shared/domain/traveller/station-kinds';
 
 export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(loadsQueryOptions());
@@ -95,7 +95,7 @@ function GroupCard({ kind, group }: { kind: LoadKind; group: LoadGroup }) {
           disabled={chosen.size === 0 || create.isPending}
           onClick={() => create.mutate({ kind, trayIds: [...chosen] }, { onSuccess: () => setChosen(new Set()) })}
         >
-          <Layers className="h-5 w-5" aria-hidden /> {t(kind === 'cure' ? 'makeCure' : 'makePlate', { count: chosen.size, pieces: num(pieces) })}
+          <Layers className="h-5 w-5" aria-hidden /> {t(cures(kind) ? 'makeCure' : 'makePlate', { count: chosen.size, pieces: num(pieces) })}
         </Button>
         {create.error && <span className="font-bold text-stop-700">{errorText(create.error)}</span>}
       </div>

@@ -1,28 +1,16 @@
 import { useState, type ReactNode } from 'react';
 import { ArrowDown, ArrowUp, Plus, Trash2 } from 'lucide-react';
+import { useTranslation } from 'react-i18next';
 import { STEP_CONDITIONS, expandRouting, type RoutingTemplate, type StepCondition, type TemplateEntry } from '@shared/domain/routing';
 import { routingTemplateSchema } from '@shared/schemas/routing';
 import { STATION_KINDS, type StationKind } from '@shared/domain/vocabulary';
 import { Button } from '@/components/ui/button';
 import { Card, ErrorPanel } from '@/components/ui/panels';
 import { CheckboxField, TextField } from '@/components/ui/field';
-import { humanise } from '@/lib/labels';
 import { useSaveTemplate } from '../api/routing';
 import { cures } from '@shared/domain/traveller/station-kinds';
 
 const input = 'min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2';
-const CONDITION_LABELS: Record<StepCondition, string> = {
-  always: 'Always',
-  back_logo: 'When there is a back logo',
-  printing: 'When printed areas',
-  epoxy: 'When epoxy dome',
-  fittings: 'When there are fittings',
-  posts: 'When fittings need posts',
-  safety_pin: 'When the backing is a safety pin',
-  antique: 'When the finish is antique',
-  second_plating: 'When the finish is two-tone',
-  sandblast: 'When sandblasted',
-};
 
 /** A small captioned control; the aria-label keeps each row's controls apart for screen readers. */
 function Cap({ caption, children }: { caption: string; children: ReactNode }) {
@@ -44,6 +32,8 @@ function NumberCell({ label, caption, value, onChange, step = '0.5' }: { label: 
 
 /** Admins edit a process's template: steps, times, conditions and how colours are cured. A preview shows the expansion. */
 export function TemplateEditor({ template }: { template: RoutingTemplate }) {
+  const { t } = useTranslation(['admin', 'common']);
+  const kindName = (k: string) => t(`common:kind.${k}` as 'common:kind.fill', { defaultValue: k });
   const [draft, setDraft] = useState<RoutingTemplate>(template);
   const [colours, setColours] = useState(3);
   const [flags, setFlags] = useState({ backLogo: false, printing: false, epoxy: false, sandblast: false, antique: false, twoTone: false, safetyPin: false });
@@ -74,16 +64,16 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
     <div className="grid gap-6 xl:grid-cols-[2fr_1fr]">
       <Card>
         <div className="mb-4 flex flex-wrap items-end gap-3">
-          <TextField label="Template name" value={draft.name} onChange={(e) => setDraft({ ...draft, name: e.target.value })} />
+          <TextField label={t('templateEditor.name')} value={draft.name} onChange={(e) => setDraft({ ...draft, name: e.target.value })} />
           <Button disabled={!parsed.success || save.isPending} onClick={() => save.mutate(draft)}>
-            Save template
+            {t('templateEditor.save')}
           </Button>
           <Button variant="secondary" onClick={() => setDraft(template)}>
-            Discard changes
+            {t('templateEditor.discard')}
           </Button>
           {save.isSuccess && (
             <span role="status" className="font-bold text-ok-700">
-              Saved. New orders use it; released orders keep their routing.
+              {t('templateEditor.saved')}
             </span>
           )}
         </div>
@@ -94,12 +84,12 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                 <span className="w-6 font-bold">{i + 1}</span>
                 {e.type === 'step' ? (
                   <>
-                    <Cap caption="Step name">
-                      <input aria-label={`Entry ${i + 1} name`} className={`${input} w-52`} value={e.name} onChange={(ev) => setEntry(i, { ...e, name: ev.target.value })} />
+                    <Cap caption={t('templateEditor.stepName')}>
+                      <input aria-label={t('templateEditor.entryName', { n: i + 1 })} className={`${input} w-52`} value={e.name} onChange={(ev) => setEntry(i, { ...e, name: ev.target.value })} />
                     </Cap>
-                    <Cap caption="Station kind">
+                    <Cap caption={t('templateEditor.stationKind')}>
                       <select
-                        aria-label={`Entry ${i + 1} station kind`}
+                        aria-label={t('templateEditor.entryKind', { n: i + 1 })}
                         className={`${input} w-36`}
                         value={e.stationKind}
                         onChange={(ev) => {
@@ -109,56 +99,56 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                       >
                         {STATION_KINDS.map((k) => (
                           <option key={k} value={k}>
-                            {humanise(k)}
+                            {kindName(k)}
                           </option>
                         ))}
                       </select>
                     </Cap>
-                    <Cap caption="Included">
-                      <select aria-label={`Entry ${i + 1} condition`} className={`${input} w-52`} value={e.when ?? 'always'} onChange={(ev) => setEntry(i, { ...e, when: ev.target.value as StepCondition })}>
+                    <Cap caption={t('templateEditor.included')}>
+                      <select aria-label={t('templateEditor.entryCondition', { n: i + 1 })} className={`${input} w-52`} value={e.when ?? 'always'} onChange={(ev) => setEntry(i, { ...e, when: ev.target.value as StepCondition })}>
                         {STEP_CONDITIONS.map((c) => (
                           <option key={c} value={c}>
-                            {CONDITION_LABELS[c]}
+                            {t(`templateEditor.condition.${c}`)}
                           </option>
                         ))}
                       </select>
                     </Cap>
-                    <NumberCell label={`Entry ${i + 1} minutes per tray`} caption="Min / tray" value={e.trayMinutes} onChange={(v) => setEntry(i, { ...e, trayMinutes: v })} />
-                    <NumberCell label={`Entry ${i + 1} minutes per piece`} caption="Min / piece" value={e.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })} />
+                    <NumberCell label={t('templateEditor.entryTrayMin', { n: i + 1 })} caption={t('templateEditor.minTray')} value={e.trayMinutes} onChange={(v) => setEntry(i, { ...e, trayMinutes: v })} />
+                    <NumberCell label={t('templateEditor.entryPieceMin', { n: i + 1 })} caption={t('templateEditor.minPiece')} value={e.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })} />
                     {cures(e.stationKind) && (
-                      <NumberCell label={`Entry ${i + 1} minimum cure minutes`} caption="Cure at least" value={e.cureMinutes ?? 0} step="1" onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })} />
+                      <NumberCell label={t('templateEditor.entryCure', { n: i + 1 })} caption={t('templateEditor.cureAtLeast')} value={e.cureMinutes ?? 0} step="1" onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })} />
                     )}
                   </>
                 ) : (
                   <>
-                    <span className="self-center font-bold">One fill per colour</span>
-                    <NumberCell label="Fill minutes per tray" caption="Fill min / tray" value={e.fill.trayMinutes} onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, trayMinutes: v } })} />
-                    <NumberCell label="Fill minutes per piece" caption="Fill min / piece" value={e.fill.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, pieceMinutes: v } })} />
-                    <Cap caption="Curing">
-                      <select aria-label="How colours are cured" className={`${input} w-56`} value={e.cure} onChange={(ev) => setEntry(i, { ...e, cure: ev.target.value as 'each' | 'once' | 'none' })}>
-                        <option value="each">Cure after every colour</option>
-                        <option value="once">One bake after all colours</option>
-                        <option value="none">No cure (air-dried)</option>
+                    <span className="self-center font-bold">{t('templateEditor.oneFill')}</span>
+                    <NumberCell label={t('templateEditor.fillTray')} caption={t('templateEditor.fillTrayCap')} value={e.fill.trayMinutes} onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, trayMinutes: v } })} />
+                    <NumberCell label={t('templateEditor.fillPiece')} caption={t('templateEditor.fillPieceCap')} value={e.fill.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, pieceMinutes: v } })} />
+                    <Cap caption={t('templateEditor.curing')}>
+                      <select aria-label={t('templateEditor.howCured')} className={`${input} w-56`} value={e.cure} onChange={(ev) => setEntry(i, { ...e, cure: ev.target.value as 'each' | 'once' | 'none' })}>
+                        <option value="each">{t('templateEditor.cureEach')}</option>
+                        <option value="once">{t('templateEditor.cureOnce')}</option>
+                        <option value="none">{t('templateEditor.cureNone')}</option>
                       </select>
                     </Cap>
                     {e.cure !== 'none' && (
-                      <NumberCell label="Minimum cure minutes" caption="Cure at least" value={e.cureStep.cureMinutes} step="1" onChange={(v) => setEntry(i, { ...e, cureStep: { ...e.cureStep, cureMinutes: Math.round(v) } })} />
+                      <NumberCell label={t('templateEditor.minCure')} caption={t('templateEditor.cureAtLeast')} value={e.cureStep.cureMinutes} step="1" onChange={(v) => setEntry(i, { ...e, cureStep: { ...e.cureStep, cureMinutes: Math.round(v) } })} />
                     )}
                     {e.cure === 'once' && (
-                      <Cap caption="Bake step name">
-                        <input aria-label="Name of the bake" className={`${input} w-48`} value={e.onceName} onChange={(ev) => setEntry(i, { ...e, onceName: ev.target.value })} />
+                      <Cap caption={t('templateEditor.bakeName')}>
+                        <input aria-label={t('templateEditor.bakeNameLabel')} className={`${input} w-48`} value={e.onceName} onChange={(ev) => setEntry(i, { ...e, onceName: ev.target.value })} />
                       </Cap>
                     )}
                   </>
                 )}
                 <span className="ml-auto flex">
-                  <Button variant="ghost" aria-label={`Move entry ${i + 1} up`} disabled={i === 0} onClick={() => move(i, -1)}>
+                  <Button variant="ghost" aria-label={t('templateEditor.up', { n: i + 1 })} disabled={i === 0} onClick={() => move(i, -1)}>
                     <ArrowUp className="h-5 w-5" aria-hidden />
                   </Button>
-                  <Button variant="ghost" aria-label={`Move entry ${i + 1} down`} disabled={i === draft.steps.length - 1} onClick={() => move(i, 1)}>
+                  <Button variant="ghost" aria-label={t('templateEditor.down', { n: i + 1 })} disabled={i === draft.steps.length - 1} onClick={() => move(i, 1)}>
                     <ArrowDown className="h-5 w-5" aria-hidden />
                   </Button>
-                  <Button variant="ghost" aria-label={`Remove entry ${i + 1}`} onClick={() => setDraft({ ...draft, steps: draft.steps.filter((_, j) => j !== i) })}>
+                  <Button variant="ghost" aria-label={t('templateEditor.remove', { n: i + 1 })} onClick={() => setDraft({ ...draft, steps: draft.steps.filter((_, j) => j !== i) })}>
                     <Trash2 className="h-5 w-5" aria-hidden />
                   </Button>
                 </span>
@@ -169,9 +159,9 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
         <div className="mt-3">
           <Button
             variant="secondary"
-            onClick={() => setDraft({ ...draft, steps: [...draft.steps, { type: 'step', name: 'New step', stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, when: 'always' }] })}
+            onClick={() => setDraft({ ...draft, steps: [...draft.steps, { type: 'step', name: t('templateEditor.newStep'), stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, when: 'always' }] })}
           >
-            <Plus className="h-5 w-5" aria-hidden /> Add a step
+            <Plus className="h-5 w-5" aria-hidden /> {t('templateEditor.addStep')}
           </Button>
         </div>
         {!parsed.success && (
@@ -183,24 +173,24 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
             ))}
           </ul>
         )}
-        {save.error && <ErrorPanel title="Not saved" message={save.error.message} />}
+        {save.error && <ErrorPanel title={t('notSaved')} message={save.error.message} />}
       </Card>
       <Card>
-        <h2 className="mb-2 text-lg font-bold text-harbour-900">Preview</h2>
+        <h2 className="mb-2 text-lg font-bold text-harbour-900">{t('templateEditor.preview')}</h2>
         <div className="mb-3 flex flex-wrap items-end gap-3">
-          <TextField label="Colours" type="number" min={0} max={24} value={colours} onChange={(e) => setColours(Math.max(0, Math.min(24, Math.round(Number(e.target.value)))))} />
-          <CheckboxField label="Back logo" checked={flags.backLogo} onChange={(e) => setFlags({ ...flags, backLogo: e.target.checked })} />
-          <CheckboxField label="Printing" checked={flags.printing} onChange={(e) => setFlags({ ...flags, printing: e.target.checked })} />
-          <CheckboxField label="Epoxy" checked={flags.epoxy} onChange={(e) => setFlags({ ...flags, epoxy: e.target.checked })} />
-          <CheckboxField label="Sandblast" checked={flags.sandblast} onChange={(e) => setFlags({ ...flags, sandblast: e.target.checked })} />
-          <CheckboxField label="Antique finish" checked={flags.antique} onChange={(e) => setFlags({ ...flags, antique: e.target.checked })} />
-          <CheckboxField label="Two-tone" checked={flags.twoTone} onChange={(e) => setFlags({ ...flags, twoTone: e.target.checked })} />
-          <CheckboxField label="Safety pin" checked={flags.safetyPin} onChange={(e) => setFlags({ ...flags, safetyPin: e.target.checked })} />
+          <TextField label={t('templateEditor.colours')} type="number" min={0} max={24} value={colours} onChange={(e) => setColours(Math.max(0, Math.min(24, Math.round(Number(e.target.value)))))} />
+          <CheckboxField label={t('templateEditor.backLogo')} checked={flags.backLogo} onChange={(e) => setFlags({ ...flags, backLogo: e.target.checked })} />
+          <CheckboxField label={t('templateEditor.printing')} checked={flags.printing} onChange={(e) => setFlags({ ...flags, printing: e.target.checked })} />
+          <CheckboxField label={t('templateEditor.epoxy')} checked={flags.epoxy} onChange={(e) => setFlags({ ...flags, epoxy: e.target.checked })} />
+          <CheckboxField label={t('templateEditor.sandblast')} checked={flags.sandblast} onChange={(e) => setFlags({ ...flags, sandblast: e.target.checked })} />
+          <CheckboxField label={t('templateEditor.antique')} checked={flags.antique} onChange={(e) => setFlags({ ...flags, antique: e.target.checked })} />
+          <CheckboxField label={t('templateEditor.twoTone')} checked={flags.twoTone} onChange={(e) => setFlags({ ...flags, twoTone: e.target.checked })} />
+          <CheckboxField label={t('templateEditor.safetyPin')} checked={flags.safetyPin} onChange={(e) => setFlags({ ...flags, safetyPin: e.target.checked })} />
         </div>
         <ol className="flex flex-col gap-1 text-sm">
           {preview.map((s) => (
             <li key={s.seq}>
-              {s.seq}. {s.name} <span className="text-harbour-700">({humanise(s.stationKind)}{s.cureMinutes ? `, at least ${s.cureMinutes} min` : ''})</span>
+              {s.seq}. {s.name} <span className="text-harbour-700">({kindName(s.stationKind)}{s.cureMinutes ? t('templateEditor.atLeast', { min: s.cureMinutes }) : ''})</span>
             </li>
           ))}
         </ol>

@@ -19,6 +19,7 @@ function when(iso: string | null) {
 
 function ExceptionRow({ item, canDecide, reasonName, describe }: { item: ScanExceptionView; canDecide: boolean; reasonName: ReasonName; describe?: DescribeRefusal }) {
   const { t } = useTranslation('scanExceptions');
+  const { t: tc } = useTranslation('common');
   const retry = useRetryScanException();
   const resolve = useResolveScanException();
   const [note, setNote] = useState('');
@@ -32,7 +33,7 @@ function ExceptionRow({ item, canDecide, reasonName, describe }: { item: ScanExc
         <div className="min-w-0">
           <p className="text-lg font-bold">
             <span className="font-mono">{item.trayNumber ?? item.scannedCode ?? '—'}</span> ·{' '}
-            {t('row.heading', { what: item.type ? t(`common:scanType.${item.type}`) : t('row.scan'), station: item.stationName ?? t('row.unknownStation') })}
+            {t('row.heading', { what: item.type ? tc(`scanType.${item.type}`) : t('row.scan'), station: item.stationName ?? t('row.unknownStation') })}
           </p>
           <p className="text-sm text-harbour-700">
             {t('row.times', { operator: item.operatorName ?? t('row.unknownOperator'), scanned: when(item.occurredAt), received: when(item.receivedAt) })}

@@ -23,6 +23,8 @@ const ROLES: OfficeRole[] = ['planner', 'supervisor', 'manager', 'sales', 'admin
 const TRANSLATED: Partial<Record<OfficeRole, string[]>> = {
   planner: [paths.orders, `${paths.orders}?view=all`, paths.newOrder, paths.importOrders],
   admin: [paths.adminUsers],
+  supervisor: [paths.loads, paths.moulds],
+  sales: [paths.sales, paths.dispatch],
 };
 
 // Words that stay in Chinese text: the product's name, the language switch's "English", the

@@ -36,7 +36,7 @@ function When({ o }: { o: SalesOrderRow }) {
 
 const col = createColumnHelper<SalesOrderRow>();
 function useColumns() {
-  const { t } = useTranslation('sales');
+  const { t, i18n } = useTranslation('sales');
   const stageName = useStageName();
   return useMemo(
     () => [
@@ -50,7 +50,7 @@ function useColumns() {
       }),
       col.accessor('customer', { header: t('search.col.customer') }),
       col.accessor('title', { header: t('search.col.title') }),
-      col.accessor('stage', { header: t('search.col.stage'), cell: (c) => <span title={c.row.original.stageText}>{stageName(c.getValue())}</span> }),
+      col.accessor('stage', { header: t('search.col.stage'), cell: (c) => <span title={i18n.language === 'en' ? c.row.original.stageText : undefined}>{stageName(c.getValue())}</span> }),
       col.accessor((o) => o.shippedAt ?? o.projectedShipAt ?? '', { id: 'ship', header: t('search.col.ships'), cell: (c) => <When o={c.row.original} /> }),
       col.accessor('dueDate', { header: t('search.col.due'), cell: (c) => dueDay(c.getValue()) }),
       col.accessor((o) => o.trackingNumbers.join(', '), {
@@ -59,7 +59,7 @@ function useColumns() {
         cell: (c) => <span className="font-mono">{c.getValue() || '—'}</span>,
       }),
     ],
-    [t, stageName],
+    [t, i18n.language, stageName],
   );
 }
 

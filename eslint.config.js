@@ -12,7 +12,10 @@ const sharedOnly = {
   paths: builtinModules.map((name) => ({ name, message: 'shared/ is pure and runs in the browser too: no Node modules.' })),
   patterns: [
     { group: ['@/*', '**/src/**', '**/server/**'], message: 'shared/ imports neither src/ nor server/.' },
-    { group: ['drizzle-orm', 'drizzle-orm/*', 'better-sqlite3', 'node:*', 'express'], message: 'shared/ is pure and runs in the browser too: no Node modules, no database.' },
+    {
+      group: ['drizzle-orm', 'drizzle-orm/*', 'better-sqlite3', 'node:*', 'express'],
+      message: 'shared/ is pure and runs in the browser too: no Node modules, no database.',
+    },
   ],
 };
 
@@ -35,7 +38,17 @@ export default tseslint.config(
   },
   {
     files: ['src/features/**/*.{ts,tsx}'],
-    rules: { 'no-restricted-imports': ['error', { patterns: [noServer, { group: ['@/features/*', '../../*', '!../../..'], message: 'Features do not import features; compose them in src/app/routes.' }] }] },
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            noServer,
+            { group: ['@/features/*', '../../*', '!../../..'], message: 'Features do not import features; compose them in src/app/routes.' },
+          ],
+        },
+      ],
+    },
   },
   { files: ['server/**/*.ts'], rules: { 'no-restricted-imports': ['error', { patterns: [noClient] }] } },
   { files: ['shared/**/*.ts'], ignores: ['shared/**/*.test.ts'], rules: { 'no-restricted-imports': ['error', sharedOnly] } },

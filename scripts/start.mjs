@@ -25,9 +25,11 @@ function run(label, command, args) {
   if (result.status !== 0) process.exit(result.status ?? 1);
 }
 
-if (staleAgainst(built, ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'package-lock.json'])) run('Building the client…', 'npx', ['vite', 'build', '--logLevel', 'warn']);
+if (staleAgainst(built, ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'package-lock.json']))
+  run('Building the client…', 'npx', ['vite', 'build', '--logLevel', 'warn']);
 const serverBundle = path.join(root, 'dist-server', 'index.mjs');
-if (staleAgainst(serverBundle, ['server', 'shared', 'package-lock.json', 'scripts/build-server.mjs'])) run('Building the server…', process.execPath, ['scripts/build-server.mjs']);
+if (staleAgainst(serverBundle, ['server', 'shared', 'package-lock.json', 'scripts/build-server.mjs']))
+  run('Building the server…', process.execPath, ['scripts/build-server.mjs']);
 
 const server = spawn(process.execPath, ['--enable-source-maps', serverBundle], {
   cwd: root,

@@ -81,7 +81,11 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
 
   const manager = { email: 'bench.manager@bench.trayce.local', password: 'bench-manager-password' };
   usersService.create(deps, { name: 'Bench Manager', email: manager.email, role: 'manager', password: manager.password }, null);
-  const operatorId = usersService.create(deps, { name: 'Bench Operator', email: 'bench.operator@bench.trayce.local', role: 'operator', password: 'bench-operator-password' }, null).id;
+  const operatorId = usersService.create(
+    deps,
+    { name: 'Bench Operator', email: 'bench.operator@bench.trayce.local', role: 'operator', password: 'bench-operator-password' },
+    null,
+  ).id;
   const stations = db.prepare('select id, kind from stations where active = 1').all() as { id: string; kind: string }[];
   const stationsOf = new Map<string, string[]>();
   for (const s of stations) stationsOf.set(s.kind, [...(stationsOf.get(s.kind) ?? []), s.id]);
@@ -89,16 +93,21 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
 
   const customers = Array.from({ length: 400 }, (_, i) => ({ id: crypto.randomUUID(), name: `Bench customer ${String(i + 1).padStart(3, '0')}` }));
   const insCustomer = db.prepare('insert into customers (id, name, created_at, updated_at) values (?, ?, ?, ?)');
-  const insOrder = db.prepare(`insert into orders (id, number, customer_id, title, process, material, size_mm, quantity, overrun_pct, colours, plating, backing_type, backing_count,
+  const insOrder =
+    db.prepare(`insert into orders (id, number, customer_id, title, process, material, size_mm, quantity, overrun_pct, colours, plating, backing_type, backing_count,
     back_logo, printing, epoxy, packaging, due_date, notes, status, design_key, tray_size, released_at, packed_at, shipped_at, created_at, updated_at)
     values (?, ?, ?, ?, ?, ?, 25, ?, 5, ?, ?, 'butterfly_clutch', 1, 0, ?, ?, 'individual_bag', ?, '', ?, ?, 200, ?, ?, ?, ?, ?)`);
   const updOrder = db.prepare(`update orders set status = 'shipped', packed_at = ?, shipped_at = ?, updated_at = ? where id = ?`);
   const insStep = db.prepare(`insert into order_steps (id, order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour)
     values (?, ?, 'tray', ?, ?, ?, ?, ?, ?, ?)`);
-  const insTray = db.prepare(`insert into trays (id, number, kind, order_id, revision, quantity, released_at, created_at) values (?, ?, 'tray', ?, 1, ?, ?, ?)`);
-  const insState = db.prepare(`insert into tray_states (tray_id, kind, phase, step_seq, station_kind, quantity, station_id, started_at, waiting_since, cure_ready_at,
+  const insTray = db.prepare(
+    `insert into trays (id, number, kind, order_id, revision, quantity, released_at, created_at) values (?, ?, 'tray', ?, 1, ?, ?, ?)`,
+  );
+  const insState =
+    db.prepare(`insert into tray_states (tray_id, kind, phase, step_seq, station_kind, quantity, station_id, started_at, waiting_since, cure_ready_at,
     on_hold, hold_reason, released_at, last_event_at, updated_at) values (?, 'tray', ?, ?, ?, ?, ?, ?, ?, ?, 0, null, ?, ?, ?)`);
-  const insEvent = db.prepare(`insert into scan_events (id, tray_id, type, step_seq, station_id, station_kind, user_id, occurred_at, received_at, qty_in, good_qty, scrap_qty, rework_qty, scrap_reason)
+  const insEvent =
+    db.prepare(`insert into scan_events (id, tray_id, type, step_seq, station_id, station_kind, user_id, occurred_at, received_at, qty_in, good_qty, scrap_qty, rework_qty, scrap_reason)
     values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
 
   db.transaction(() => {
@@ -170,7 +179,8 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
           releasedAt,
           releasedAt,
         );
-        for (const s of routing) insStep.run(crypto.randomUUID(), orderId, s.seq, s.name, s.stationKind, s.trayMinutes, s.pieceMinutes, s.cureMinutes ?? null, s.colour ?? null);
+        for (const s of routing)
+          insStep.run(crypto.randomUUID(), orderId, s.seq, s.name, s.stationKind, s.trayMinutes, s.pieceMinutes, s.cureMinutes ?? null, s.colour ?? null);
         const released = Math.ceil(quantity * 1.05);
         const traySizes: number[] = [];
         for (let left = released; left > 0; left -= 200) traySizes.push(Math.min(200, left));
@@ -182,7 +192,15 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
           trays += 1;
           let t = releasedAt;
           let qty = size;
-          let state: { phase: string; seq: number | null; kind: string | null; station: string | null; startedAt: number | null; waitingSince: number | null; cureReadyAt: number | null } | null = null;
+          let state: {
+            phase: string;
+            seq: number | null;
+            kind: string | null;
+            station: string | null;
+            startedAt: number | null;
+            waitingSince: number | null;
+            cureReadyAt: number | null;
+          } | null = null;
           let lastEvent = releasedAt;
           let cureOpen: { start: number; minutes: number; seq: number; kind: string; station: string } | null = null;
           for (const step of routing) {
@@ -192,13 +210,36 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
             if (startAt >= now) {
               // still in the oven (or ready there: the guards read that as waiting for the next step)
               state = cureOpen
-                ? { phase: 'curing', seq: cureOpen.seq, kind: cureOpen.kind, station: cureOpen.station, startedAt: cureOpen.start, waitingSince: null, cureReadyAt: cureOpen.start + cureOpen.minutes * MIN }
+                ? {
+                    phase: 'curing',
+                    seq: cureOpen.seq,
+                    kind: cureOpen.kind,
+                    station: cureOpen.station,
+                    startedAt: cureOpen.start,
+                    waitingSince: null,
+                    cureReadyAt: cureOpen.start + cureOpen.minutes * MIN,
+                  }
                 : { phase: 'waiting', seq: step.seq, kind: step.stationKind, station: null, startedAt: null, waitingSince: t, cureReadyAt: null };
               break;
             }
             cureOpen = null;
             const station = pick(stationsOf.get(step.stationKind) ?? [null as unknown as string]);
-            insEvent.run(crypto.randomUUID(), trayId, 'start', step.seq, station, step.stationKind, operatorId, startAt, startAt + 5_000, qty, null, null, null, null);
+            insEvent.run(
+              crypto.randomUUID(),
+              trayId,
+              'start',
+              step.seq,
+              station,
+              step.stationKind,
+              operatorId,
+              startAt,
+              startAt + 5_000,
+              qty,
+              null,
+              null,
+              null,
+              null,
+            );
             events += 1;
             lastEvent = startAt;
             if (cures(step.stationKind)) {
@@ -216,7 +257,22 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
             const scrap = SCRAP_REASON[step.stationKind] && rnd() < 0.25 ? Math.min(qty - 1, Math.floor(exp(qty * 0.01))) : 0;
             const good = qty - scrap;
             const rework = step.stationKind === 'fill' || step.stationKind === 'inspect' ? (rnd() < 0.1 ? Math.floor(good * 0.03) : 0) : 0;
-            insEvent.run(crypto.randomUUID(), trayId, 'finish', step.seq, station, step.stationKind, operatorId, finishAt, finishAt + 5_000, qty, good, scrap, rework, scrap ? SCRAP_REASON[step.stationKind] : null);
+            insEvent.run(
+              crypto.randomUUID(),
+              trayId,
+              'finish',
+              step.seq,
+              station,
+              step.stationKind,
+              operatorId,
+              finishAt,
+              finishAt + 5_000,
+              qty,
+              good,
+              scrap,
+              rework,
+              scrap ? SCRAP_REASON[step.stationKind] : null,
+            );
             events += 1;
             lastEvent = finishAt;
             qty = good;
@@ -227,7 +283,20 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
             lastFinish = Math.max(lastFinish, lastEvent);
           } else {
             allDone = false;
-            insState.run(trayId, state.phase, state.seq, state.kind, qty, state.station, state.startedAt, state.waitingSince, state.cureReadyAt, releasedAt, lastEvent, lastEvent);
+            insState.run(
+              trayId,
+              state.phase,
+              state.seq,
+              state.kind,
+              qty,
+              state.station,
+              state.startedAt,
+              state.waitingSince,
+              state.cureReadyAt,
+              releasedAt,
+              lastEvent,
+              lastEvent,
+            );
           }
         });
         if (allDone) updOrder.run(lastFinish, lastFinish, lastFinish, orderId);

@@ -81,7 +81,11 @@ async function concurrent(url: string, bodies: unknown[], cookie?: string): Prom
 
 function startEcho(): Promise<{ url: string; stop: () => Promise<void> }> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'scripts', 'bench', 'echo-server.ts')], { cwd: PROJECT_ROOT, env: { ...process.env, NODE_ENV: 'production' }, stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawn(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'scripts', 'bench', 'echo-server.ts')], {
+      cwd: PROJECT_ROOT,
+      env: { ...process.env, NODE_ENV: 'production' },
+      stdio: ['ignore', 'pipe', 'inherit'],
+    });
     child.stdout!.on('data', (d: Buffer) => {
       const m = /listening (\d+)/.exec(String(d));
       if (m)
@@ -99,7 +103,11 @@ function startEcho(): Promise<{ url: string; stop: () => Promise<void> }> {
 }
 
 /** Raw better-sqlite3 inserts of the same rows into scan_events, same pragmas as the server, 500 rows per commit. */
-function rawSqlite(dir: string, rows: { id: string; trayId: string; type: string; stepSeq: number; stationId: string; at: number }[], synchronous: 'FULL' | 'NORMAL') {
+function rawSqlite(
+  dir: string,
+  rows: { id: string; trayId: string; type: string; stepSeq: number; stationId: string; at: number }[],
+  synchronous: 'FULL' | 'NORMAL',
+) {
   const file = path.join(dir, `raw-${synchronous}.db`);
   const drizzleDb = openDb(file);
   migrateDb(drizzleDb);
@@ -129,7 +137,9 @@ export async function benchScans(options: ScanBenchOptions = {}): Promise<Record
   const trim = stationsRepository.byCode(h.deps.db, 'TRM-1')!.id;
   const trays: FloorTray[] = [];
   for (let made = 0; made < batchTrays + singlePosts; made += BATCH) {
-    trays.push(...insertFloorOrder(h.deps, { trays: Math.min(BATCH, batchTrays + singlePosts - made), quantity: 100, releasedAt: now - 3600_000, stepSeq: 2 }).trays);
+    trays.push(
+      ...insertFloorOrder(h.deps, { trays: Math.min(BATCH, batchTrays + singlePosts - made), quantity: 100, releasedAt: now - 3600_000, stepSeq: 2 }).trays,
+    );
   }
   const operator = { email: 'bench.scanner@bench.trayce.local', password: 'bench-scanner-password' };
   usersService.create(h.deps, { name: 'Bench Scanner', email: operator.email, role: 'operator', password: operator.password }, null);
@@ -145,7 +155,14 @@ export async function benchScans(options: ScanBenchOptions = {}): Promise<Record
   // The same rows written raw, with the same durability, in the same run.
   const rawDir = path.join(PROJECT_ROOT, '.tmp', 'bench', `raw-${crypto.randomUUID().slice(0, 8)}`);
   fs.mkdirSync(rawDir, { recursive: true });
-  const rawRows = batchEvents.map((e, i) => ({ id: e.id, trayId: forBatches[i % batchTrays].id, type: e.type, stepSeq: 2, stationId: trim, at: Date.parse(e.occurredAt) }));
+  const rawRows = batchEvents.map((e, i) => ({
+    id: e.id,
+    trayId: forBatches[i % batchTrays].id,
+    type: e.type,
+    stepSeq: 2,
+    stationId: trim,
+    at: Date.parse(e.occurredAt),
+  }));
   const rawFull = rawSqlite(rawDir, rawRows, 'FULL');
   const rawNormal = rawSqlite(rawDir, rawRows, 'NORMAL');
   fs.rmSync(rawDir, { recursive: true, force: true });

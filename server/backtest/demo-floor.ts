@@ -11,7 +11,18 @@ import { DEFAULT_REASON_CODES, DEFAULT_STATIONS } from '../seed/base';
 import { planOrders } from '../seed/demo-catalogue';
 import { STATION_CREW } from '../seed/demo-crew';
 import { makeRng } from '../seed/prng';
-import { DAY, DEMO_SHIFTS, DEMO_WORKDAYS, FACTORY_UTC_OFFSET_MS, HOUR, MINUTE, nextWorking, simulateFloor, type SimOrder, type SimTraveller } from '../seed/simulate-floor';
+import {
+  DAY,
+  DEMO_SHIFTS,
+  DEMO_WORKDAYS,
+  FACTORY_UTC_OFFSET_MS,
+  HOUR,
+  MINUTE,
+  nextWorking,
+  simulateFloor,
+  type SimOrder,
+  type SimTraveller,
+} from '../seed/simulate-floor';
 
 export interface DemoFloor {
   seed: string;
@@ -43,7 +54,14 @@ export function makeDemoFloor(seed: string, end: number, historyDays = 70): Demo
   const rng = makeRng(seed);
   const ids = rng.fork('ids');
   const plans = planOrders(rng.fork('orders'), end, historyDays);
-  const stations = DEFAULT_STATIONS.map((s) => ({ id: `st-${s.code}`, code: s.code, name: s.name, kind: s.kind, capacity: s.capacityTrays, deviceId: `dev-${s.code}` }));
+  const stations = DEFAULT_STATIONS.map((s) => ({
+    id: `st-${s.code}`,
+    code: s.code,
+    name: s.name,
+    kind: s.kind,
+    capacity: s.capacityTrays,
+    deviceId: `dev-${s.code}`,
+  }));
   const operatorsByKind: Partial<Record<StationKind, string[]>> = {};
   const roleOf = new Map<string, Role>();
   for (const [kind, crew] of Object.entries(STATION_CREW)) {
@@ -64,7 +82,14 @@ export function makeDemoFloor(seed: string, end: number, historyDays = 70): Demo
     const orderId = `o-${plan.number}`;
     orders.push({ id: orderId, number: plan.number, dueDate: isoDate(releasedAt + 14 * DAY), releasedAt });
     const holdAt = plan.target === 'on_hold' ? Math.min(end - HOUR, nextWorking(end - ids.int(18, 36) * HOUR)) : null;
-    simOrders.push({ id: orderId, releasedAt, startsOnFloor: plan.target !== 'released', holdAt, holdNote: holdAt ? 'Customer asked us to wait' : null, keepFromCourier: plan.target === 'packed' });
+    simOrders.push({
+      id: orderId,
+      releasedAt,
+      startsOnFloor: plan.target !== 'released',
+      holdAt,
+      holdNote: holdAt ? 'Customer asked us to wait' : null,
+      keepFromCourier: plan.target === 'packed',
+    });
     const routing: RoutingStep[] = expandRouting(DEFAULT_ROUTING_TEMPLATES[plan.process], plan);
     const reuse = designs.has(plan.designKey);
     designs.add(plan.designKey);
@@ -77,10 +102,28 @@ export function makeDemoFloor(seed: string, end: number, historyDays = 70): Demo
     });
     splitIntoTrays(releasedQuantity(plan.quantity, plan.overrunPct), plan.traySize).forEach((quantity, i) => {
       const id = `${orderId}-${String(i + 1).padStart(2, '0')}`;
-      travellers.push({ id, orderId, kind: 'tray', quantity, releasedAt, routing, initial: initialTrayState({ trayId: id, kind: 'tray', quantity, releasedAt: new Date(releasedAt).toISOString() }) });
+      travellers.push({
+        id,
+        orderId,
+        kind: 'tray',
+        quantity,
+        releasedAt,
+        routing,
+        initial: initialTrayState({ trayId: id, kind: 'tray', quantity, releasedAt: new Date(releasedAt).toISOString() }),
+      });
     });
   }
-  const simTravellers: SimTraveller[] = travellers.map((t) => ({ id: t.id, number: t.id, kind: t.kind, orderId: t.orderId, mouldId: null, quantity: t.quantity, releasedAt: t.releasedAt, routing: [...t.routing], initial: t.initial }));
+  const simTravellers: SimTraveller[] = travellers.map((t) => ({
+    id: t.id,
+    number: t.id,
+    kind: t.kind,
+    orderId: t.orderId,
+    mouldId: null,
+    quantity: t.quantity,
+    releasedAt: t.releasedAt,
+    routing: [...t.routing],
+    initial: t.initial,
+  }));
   const sim = simulateFloor({
     rng: rng.fork('floor'),
     now: end,

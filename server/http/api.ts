@@ -133,7 +133,8 @@ export class Api {
     const bodyKind: BodyKind = spec.bodyKind ?? 'json';
     const signed = spec.origin === 'signed';
     if (signed) {
-      if (spec.method !== 'post' || spec.access !== 'public' || spec.path.includes(':')) throw new Error(`A signed route is a public POST to a fixed path: ${spec.path}`);
+      if (spec.method !== 'post' || spec.access !== 'public' || spec.path.includes(':'))
+        throw new Error(`A signed route is a public POST to a fixed path: ${spec.path}`);
       this.signedRoutes.add(`POST ${spec.path}`);
     }
     this.routes.push({ method: spec.method, path: spec.path, access: spec.access, bodyKind, signed });

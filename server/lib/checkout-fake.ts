@@ -57,7 +57,8 @@ function apiError(res: express.Response, status: number, message: string, param?
 
 function pageFor(s: FakeSession): string {
   const amount = new Intl.NumberFormat('en', { style: 'currency', currency: s.currency.toUpperCase() }).format(
-    s.amount_total / 10 ** (new Intl.NumberFormat('en', { style: 'currency', currency: s.currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2),
+    s.amount_total /
+      10 ** (new Intl.NumberFormat('en', { style: 'currency', currency: s.currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2),
   );
   const body =
     s.status === 'open'
@@ -114,8 +115,10 @@ export function startCheckoutFake(options: { webhookUrl: () => string; port?: nu
       const unit = Number(pd.unit_amount);
       const qty = Number(item.quantity ?? 1);
       const cur = String(pd.currency ?? '').toLowerCase();
-      if (!Number.isInteger(unit) || unit < 1 || !Number.isInteger(qty) || qty < 1) return apiError(res, 400, 'unit_amount and quantity must be positive integers.', `line_items[${i}]`);
-      if (!/^[a-z]{3}$/.test(cur) || (currency && cur !== currency)) return apiError(res, 400, 'One three-letter currency for every line item.', `line_items[${i}][price_data][currency]`);
+      if (!Number.isInteger(unit) || unit < 1 || !Number.isInteger(qty) || qty < 1)
+        return apiError(res, 400, 'unit_amount and quantity must be positive integers.', `line_items[${i}]`);
+      if (!/^[a-z]{3}$/.test(cur) || (currency && cur !== currency))
+        return apiError(res, 400, 'One three-letter currency for every line item.', `line_items[${i}][price_data][currency]`);
       currency = cur;
       total += unit * qty;
       names.push(String((pd.product_data as Record<string, unknown> | undefined)?.name ?? 'Item'));

@@ -7,8 +7,7 @@ export interface RenderedMail {
   html: string;
 }
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 function page(title: string, body: string, factory: string): string {
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(title)}</title></head>
@@ -123,7 +122,14 @@ export function lateDigestMail(input: { factory: string; timeZone: string; date:
   return { subject, text, html };
 }
 
-export function proofReadyMail(input: { factory: string; orderNumber: string; title: string; revision: number; contactName: string | null; filename: string }): RenderedMail {
+export function proofReadyMail(input: {
+  factory: string;
+  orderNumber: string;
+  title: string;
+  revision: number;
+  contactName: string | null;
+  filename: string;
+}): RenderedMail {
   const subject = `Proof ${input.revision} for your order ${input.orderNumber} is ready for approval`;
   const greeting = `Hello${input.contactName ? ` ${input.contactName}` : ''},`;
   const body = `The artwork proof (revision ${input.revision}) for "${input.title}" (${input.orderNumber}) is attached as ${input.filename}. Please check the artwork, colours, size and fittings, and reply to approve it or to ask for changes. Production starts once the proof is approved.`;
@@ -133,7 +139,15 @@ export function proofReadyMail(input: { factory: string; orderNumber: string; ti
 }
 
 /** To the planners: the customer sent a proof back from her order page. */
-export function proofChangesMail(input: { factory: string; orderNumber: string; title: string; customer: string; revision: number; comment: string; orderUrl: string }): RenderedMail {
+export function proofChangesMail(input: {
+  factory: string;
+  orderNumber: string;
+  title: string;
+  customer: string;
+  revision: number;
+  comment: string;
+  orderUrl: string;
+}): RenderedMail {
   const subject = `Changes asked for proof ${input.revision} of order ${input.orderNumber}`;
   const body = `${input.customer} asked for changes to proof revision ${input.revision} of "${input.title}" (${input.orderNumber}) on the order page. The proof gate stays shut until a new revision is approved.`;
   const text = [body, '', 'Their comment:', input.comment, '', `Open the order: ${input.orderUrl}`, '', input.factory].join('\n');

@@ -23,7 +23,9 @@ const INK = '#111111';
 const GREY = '#555555';
 
 function when(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-GB', { timeZone, day: 'numeric', month: 'long', year: 'numeric', hour: '2-digit', minute: '2-digit' }).format(new Date(iso));
+  return new Intl.DateTimeFormat('en-GB', { timeZone, day: 'numeric', month: 'long', year: 'numeric', hour: '2-digit', minute: '2-digit' }).format(
+    new Date(iso),
+  );
 }
 
 const kg = (n: number) => `${n.toLocaleString('en-GB', { maximumFractionDigits: 3 })} kg`;
@@ -56,8 +58,16 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
 
   const field = (label: string, value: string) => {
     const y = doc.y;
-    doc.font('body').fontSize(10).fillColor(GREY).text(label, left, y, { width: 45 * MM });
-    doc.font(face(value, true)).fontSize(12).fillColor(INK).text(value, left + 46 * MM, y, { width: width - 46 * MM });
+    doc
+      .font('body')
+      .fontSize(10)
+      .fillColor(GREY)
+      .text(label, left, y, { width: 45 * MM });
+    doc
+      .font(face(value, true))
+      .fontSize(12)
+      .fillColor(INK)
+      .text(value, left + 46 * MM, y, { width: width - 46 * MM });
     doc.moveDown(0.35);
   };
   field('Order', input.orderNumber);
@@ -86,7 +96,12 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
       x += cols[i].w;
     });
     doc.y = y + 18;
-    doc.moveTo(left, doc.y - 4).lineTo(left + width, doc.y - 4).lineWidth(0.5).strokeColor('#999999').stroke();
+    doc
+      .moveTo(left, doc.y - 4)
+      .lineTo(left + width, doc.y - 4)
+      .lineWidth(0.5)
+      .strokeColor('#999999')
+      .stroke();
   };
   row(
     cols.map((c) => c.title),
@@ -100,7 +115,12 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
 
   doc.font('body').fontSize(11).fillColor(INK);
   const more = input.ordered - input.shippedSoFar;
-  doc.text(`Ordered: ${input.ordered} pieces. Shipped so far, including this shipment: ${input.shippedSoFar} pieces.${more > 0 ? ` ${more} pieces are still to come.` : ''}`, left, doc.y, { width });
+  doc.text(
+    `Ordered: ${input.ordered} pieces. Shipped so far, including this shipment: ${input.shippedSoFar} pieces.${more > 0 ? ` ${more} pieces are still to come.` : ''}`,
+    left,
+    doc.y,
+    { width },
+  );
   if (s.shortAccepted) doc.moveDown(0.5).text('This order ships fewer pieces than ordered, by agreement.', { width });
   doc.moveDown(2);
   doc.font('body').fontSize(10).fillColor(GREY).text('Packed by: ____________________    Checked by: ____________________', left, doc.y, { width });

@@ -11,7 +11,8 @@ import { fonts as cjkFonts } from '@embedpdf/fonts-sc';
 const require = createRequire(import.meta.url);
 
 /** Han ideographs (with extensions), CJK punctuation, kana, bopomofo, Hangul and full-width forms. */
-const CJK_TEXT = /[\u2E80-\u2FDF\u3000-\u30FF\u3100-\u312F\u3190-\u31FF\u3200-\u9FFF\uA960-\uA97F\uAC00-\uD7AF\uF900-\uFAFF\uFE30-\uFE4F\uFF00-\uFFEF\u{20000}-\u{3134F}]/u;
+const CJK_TEXT =
+  /[\u2E80-\u2FDF\u3000-\u30FF\u3100-\u312F\u3190-\u31FF\u3200-\u9FFF\uA960-\uA97F\uAC00-\uD7AF\uF900-\uFAFF\uFE30-\uFE4F\uFF00-\uFFEF\u{20000}-\u{3134F}]/u;
 
 export function needsCjkFont(text: string): boolean {
   return CJK_TEXT.test(text);

@@ -29,7 +29,8 @@ const PROCESS_NAMES: Record<string, [string, string]> = {
 
 const money = (n: number, currency: string) =>
   new Intl.NumberFormat('en-GB', { style: 'currency', currency, minimumFractionDigits: 2, maximumFractionDigits: 3 }).format(n);
-const day = (iso: string | null, tz: string) => (iso ? new Intl.DateTimeFormat('en-GB', { timeZone: tz, day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso)) : '–');
+const day = (iso: string | null, tz: string) =>
+  iso ? new Intl.DateTimeFormat('en-GB', { timeZone: tz, day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso)) : '–';
 
 export function quotePdf(input: QuotePdfInput): Promise<Buffer> {
   const { quote: q } = input;
@@ -63,7 +64,11 @@ export function quotePdf(input: QuotePdfInput): Promise<Buffer> {
     const y = doc.y;
     label(en, zh, left, y, 50 * MM);
     const after = doc.y;
-    doc.font('bold').fontSize(11).fillColor(INK).text(value, left + 52 * MM, y, { width: width - 52 * MM });
+    doc
+      .font('bold')
+      .fontSize(11)
+      .fillColor(INK)
+      .text(value, left + 52 * MM, y, { width: width - 52 * MM });
     doc.y = Math.max(after, doc.y) + 3;
   };
   const s = q.spec;
@@ -95,13 +100,28 @@ export function quotePdf(input: QuotePdfInput): Promise<Buffer> {
     bottom = Math.max(bottom, doc.y);
     x += c.w;
   }
-  doc.moveTo(left, bottom + 2).lineTo(left + width, bottom + 2).strokeColor('#999999').lineWidth(0.5).stroke();
+  doc
+    .moveTo(left, bottom + 2)
+    .lineTo(left + width, bottom + 2)
+    .strokeColor('#999999')
+    .lineWidth(0.5)
+    .stroke();
   y = bottom + 6;
   for (const l of q.lines) {
-    const cells = [l.quantity.toLocaleString('en-GB'), money(l.unitPrice, q.currency), money(l.goodsTotal, q.currency), money(l.total, q.currency), day(l.shipDates.p85At, input.timeZone)];
+    const cells = [
+      l.quantity.toLocaleString('en-GB'),
+      money(l.unitPrice, q.currency),
+      money(l.goodsTotal, q.currency),
+      money(l.total, q.currency),
+      day(l.shipDates.p85At, input.timeZone),
+    ];
     x = left;
     cells.forEach((c, i) => {
-      doc.font(i === 3 ? 'bold' : 'body').fontSize(11).fillColor(INK).text(c, x, y, { width: cols[i].w - 4 });
+      doc
+        .font(i === 3 ? 'bold' : 'body')
+        .fontSize(11)
+        .fillColor(INK)
+        .text(c, x, y, { width: cols[i].w - 4 });
       x += cols[i].w;
     });
     y += 18;
@@ -116,7 +136,16 @@ export function quotePdf(input: QuotePdfInput): Promise<Buffer> {
     doc.font('body').fontSize(11).fillColor(INK).text(q.notes, left, doc.y, { width });
   }
   doc.moveDown(1);
-  doc.font('body').fontSize(9).fillColor(GREY).text('Production starts after payment and your approval of the artwork proof. Ship dates are projections from our floor and are confirmed when the order is released.', left, doc.y, { width });
+  doc
+    .font('body')
+    .fontSize(9)
+    .fillColor(GREY)
+    .text(
+      'Production starts after payment and your approval of the artwork proof. Ship dates are projections from our floor and are confirmed when the order is released.',
+      left,
+      doc.y,
+      { width },
+    );
   if (cjk) doc.font('zh').fontSize(8).text('付款并确认设计稿后开始生产。发货日期为预估，订单投产时确认。', { width });
   doc.end();
   return done;

@@ -24,12 +24,7 @@ afterAll(() => {
 });
 
 function card(number: string, revision: number, over: Partial<TravellerCard> = {}): TravellerCard {
-  const colours = [
-    { name: 'Navy', ref: 'C-281', hex: '#1b2a4a' },
-    { name: 'White', hex: '#ffffff' },
-    { name: 'Signal red', hex: '#c8102e' },
-    { name: 'Gold' },
-  ];
+  const colours = [{ name: 'Navy', ref: 'C-281', hex: '#1b2a4a' }, { name: 'White', hex: '#ffffff' }, { name: 'Signal red', hex: '#c8102e' }, { name: 'Gold' }];
   return {
     kind: 'tray',
     number,
@@ -188,7 +183,10 @@ describe('traveller PDF → image → QR (independent decoder: jsQR; values: ISO
   });
 
   it('prints Chinese colour and customer names with an embedded CJK face, read back by pdftotext', async () => {
-    const colours = [{ name: '深蓝', ref: 'C-281', hex: '#1b2a4a' }, { name: 'White', hex: '#ffffff' }];
+    const colours = [
+      { name: '深蓝', ref: 'C-281', hex: '#1b2a4a' },
+      { name: 'White', hex: '#ffffff' },
+    ];
     const pdf = await renderTravellersPdf([card('1042-01', 1, { customer: '星河徽章俱乐部', title: '星河 crest', colours })], 'a6');
     const file = path.join(dir, 'chinese.pdf');
     fs.writeFileSync(file, pdf);

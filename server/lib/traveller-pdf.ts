@@ -146,7 +146,10 @@ function text(
   y: number,
   opts: { size: number; bold?: boolean; width: number; color?: string; lines?: number; align?: 'left' | 'right' | 'center' },
 ): number {
-  doc.font(faceFor(value, opts.bold ? 'bold' : 'regular', !!opts.bold)).fontSize(opts.size).fillColor(opts.color ?? INK);
+  doc
+    .font(faceFor(value, opts.bold ? 'bold' : 'regular', !!opts.bold))
+    .fontSize(opts.size)
+    .fillColor(opts.color ?? INK);
   const lineHeight = doc.currentLineHeight(true);
   const height = lineHeight * (opts.lines ?? 1);
   doc.text(value, x, y, { width: opts.width, height, ellipsis: true, lineBreak: (opts.lines ?? 1) > 1, align: opts.align ?? 'left' });
@@ -159,7 +162,10 @@ function drawSwatch(doc: Doc, hex: string | undefined, x: number, y: number, s: 
   } else {
     // no swatch given: an outlined box with a diagonal, so it never looks like white
     doc.rect(x, y, s, s).lineWidth(0.5).stroke(INK);
-    doc.moveTo(x, y + s).lineTo(x + s, y).stroke(GREY);
+    doc
+      .moveTo(x, y + s)
+      .lineTo(x + s, y)
+      .stroke(GREY);
   }
 }
 
@@ -182,7 +188,10 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
   let y = pad;
   text(doc, card.kind === 'mould' ? 'MOULD TRAVELLER' : 'TRAY TRAVELLER', rx, y, { size: 7, width: rw - 14 * MM, color: GREY });
   // revision mark, top right
-  doc.roundedRect(CARD_W - pad - 13 * MM, y - 1, 13 * MM, 5.5 * MM, 2).lineWidth(0.8).stroke(INK);
+  doc
+    .roundedRect(CARD_W - pad - 13 * MM, y - 1, 13 * MM, 5.5 * MM, 2)
+    .lineWidth(0.8)
+    .stroke(INK);
   text(doc, `REV ${card.revision}`, CARD_W - pad - 13 * MM, y + 0.6 * MM, { size: 8, bold: true, width: 13 * MM, align: 'center' });
   y += 5 * MM;
   text(doc, card.number, rx, y, { size: 22, bold: true, width: rw });
@@ -260,7 +269,11 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
   }
 
   // --- routing as a checklist, a box per step, in as many columns as it needs
-  doc.moveTo(pad, y).lineTo(CARD_W - pad, y).lineWidth(0.5).stroke(RULE);
+  doc
+    .moveTo(pad, y)
+    .lineTo(CARD_W - pad, y)
+    .lineWidth(0.5)
+    .stroke(RULE);
   y += 1.5 * MM;
   const footerH = 6 * MM;
   const areaH = CARD_H - pad - footerH - y;
@@ -273,7 +286,7 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
   }
   const perCol = Math.max(1, Math.floor(areaH / rowH));
   const colW = W / cols;
-  const fontSize = Math.min(7.5, Math.max(5, rowH / MM * 1.75));
+  const fontSize = Math.min(7.5, Math.max(5, (rowH / MM) * 1.75));
   const box = Math.min(3 * MM, rowH * 0.72);
   steps.forEach((s, i) => {
     const col = Math.floor(i / perCol);
@@ -328,7 +341,14 @@ export function renderTravellersPdf(cards: readonly TravellerCard[], layout: Tra
 
 function drawCutLines(doc: Doc, layout: TravellerLayout, [w, h]: [number, number]): void {
   doc.save().lineWidth(0.3).dash(3, { space: 3 }).strokeColor(RULE);
-  doc.moveTo(w / 2, 0).lineTo(w / 2, h).stroke();
-  if (layout === 'a4x4') doc.moveTo(0, h / 2).lineTo(w, h / 2).stroke();
+  doc
+    .moveTo(w / 2, 0)
+    .lineTo(w / 2, h)
+    .stroke();
+  if (layout === 'a4x4')
+    doc
+      .moveTo(0, h / 2)
+      .lineTo(w, h / 2)
+      .stroke();
   doc.undash().restore();
 }

@@ -33,7 +33,7 @@ export function diskFull(err: unknown): AppError | null {
   return new AppError(
     507,
     'disk_full',
-    'The server\'s disk is full, so nothing was saved. Ask the person who looks after the server to free space (old backups, logs), then try again; the tablets keep their scans until then.',
+    "The server's disk is full, so nothing was saved. Ask the person who looks after the server to free space (old backups, logs), then try again; the tablets keep their scans until then.",
   );
 }
 

@@ -9,7 +9,12 @@ import { fontFile } from './traveller-pdf';
 // fontkit comes with pdfkit and ships no type declarations
 const fontkit = createRequire(import.meta.url)('fontkit') as { create(buf: Buffer): unknown };
 
-type Font = { numGlyphs: number; postscriptName: string; unitsPerEm: number; layout(s: string): { advanceWidth: number; glyphs: { id: number; path: { toSVG(): string } }[] } };
+type Font = {
+  numGlyphs: number;
+  postscriptName: string;
+  unitsPerEm: number;
+  layout(s: string): { advanceWidth: number; glyphs: { id: number; path: { toSVG(): string } }[] };
+};
 
 describe('WOFF → sfnt', () => {
   for (const weight of [400, 700] as const) {

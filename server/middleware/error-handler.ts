@@ -21,7 +21,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (err instanceof MulterError) {
     const tooBig = err.code === 'LIMIT_FILE_SIZE';
-    res.status(tooBig ? 413 : 400).json(body(tooBig ? 'too_large' : 'bad_upload', tooBig ? 'The file is too large.' : `The upload was not accepted: ${err.message}.`));
+    res
+      .status(tooBig ? 413 : 400)
+      .json(body(tooBig ? 'too_large' : 'bad_upload', tooBig ? 'The file is too large.' : `The upload was not accepted: ${err.message}.`));
     return;
   }
   const disk = diskFull(err);

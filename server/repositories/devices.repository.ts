@@ -10,6 +10,5 @@ export const devicesRepository = {
   byTokenHash: (db: Db, tokenHash: string) => db.select().from(devices).where(eq(devices.tokenHash, tokenHash)).get(),
   byPairingCode: (db: Db, code: string) => db.select().from(devices).where(eq(devices.pairingCode, code)).get(),
   insert: (db: Db, row: typeof devices.$inferInsert) => db.insert(devices).values(row).run(),
-  update: (db: Db, id: string, patch: Partial<typeof devices.$inferInsert>) =>
-    db.update(devices).set(patch).where(eq(devices.id, id)).run(),
+  update: (db: Db, id: string, patch: Partial<typeof devices.$inferInsert>) => db.update(devices).set(patch).where(eq(devices.id, id)).run(),
 };

@@ -108,7 +108,16 @@ export const floorRepository = {
          where r.resolved_at is null and r.received_at >= ?
          order by r.received_at desc limit ?`,
       )
-      .all(since, limit) as { id: string; code: string; message: string; occurredAt: number | null; receivedAt: number; trayNumber: string | null; stationName: string | null; userName: string | null }[];
+      .all(since, limit) as {
+      id: string;
+      code: string;
+      message: string;
+      occurredAt: number | null;
+      receivedAt: number;
+      trayNumber: string | null;
+      stationName: string | null;
+      userName: string | null;
+    }[];
   },
 
   recentOverrides(db: Db, since: number, limit: number) {
@@ -118,7 +127,16 @@ export const floorRepository = {
          from overrides ov join trays t on t.id = ov.tray_id left join stations st on st.id = ov.station_id left join users u on u.id = ov.supervisor_id
          where ov.created_at >= ? order by ov.created_at desc limit ?`,
       )
-      .all(since, limit) as { id: string; kind: string; reason: string; createdAt: number; usedEventId: string | null; trayNumber: string; stationName: string | null; supervisorName: string | null }[];
+      .all(since, limit) as {
+      id: string;
+      kind: string;
+      reason: string;
+      createdAt: number;
+      usedEventId: string | null;
+      trayNumber: string;
+      stationName: string | null;
+      supervisorName: string | null;
+    }[];
   },
 
   /** scan events after a rowid, for the live stream (oldest first) */

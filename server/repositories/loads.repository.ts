@@ -43,7 +43,9 @@ export const loadsRepository = {
   /** trays already in an open load */
   traysInOpenLoads(db: Db): Set<string> {
     return new Set(
-      (client(db).prepare(`select lt.tray_id as t from load_trays lt join loads l on l.id = lt.load_id where l.status = 'open'`).all() as { t: string }[]).map((r) => r.t),
+      (client(db).prepare(`select lt.tray_id as t from load_trays lt join loads l on l.id = lt.load_id where l.status = 'open'`).all() as { t: string }[]).map(
+        (r) => r.t,
+      ),
     );
   },
   insert(db: Db, load: LoadRow & { createdBy: string | null }, trays: { trayId: string; orderId: string; quantity: number }[]) {

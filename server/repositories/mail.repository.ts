@@ -23,7 +23,11 @@ export const mailRepository = {
   markFailed: (db: Db, id: string, attempts: number, error: string) =>
     db.update(mailQueue).set({ status: 'failed', attempts, lastError: error }).where(eq(mailQueue.id, id)).run(),
   requeue: (db: Db, id: string, at: number) =>
-    db.update(mailQueue).set({ status: 'queued', nextAttemptAt: at }).where(and(eq(mailQueue.id, id), eq(mailQueue.status, 'failed'))).run().changes > 0,
+    db
+      .update(mailQueue)
+      .set({ status: 'queued', nextAttemptAt: at })
+      .where(and(eq(mailQueue.id, id), eq(mailQueue.status, 'failed')))
+      .run().changes > 0,
   hasKey: (db: Db, dedupeKey: string) => !!db.select({ id: mailQueue.id }).from(mailQueue).where(eq(mailQueue.dedupeKey, dedupeKey)).get(),
   recent: (db: Db, limit: number) => db.select().from(mailQueue).orderBy(desc(mailQueue.createdAt)).limit(limit).all(),
   forOrder: (db: Db, orderId: string) => db.select().from(mailQueue).where(eq(mailQueue.orderId, orderId)).orderBy(asc(mailQueue.createdAt)).all(),

@@ -82,7 +82,10 @@ export const ordersRepository = {
     db
       .insert(routingTemplates)
       .values(row)
-      .onConflictDoUpdate({ target: routingTemplates.process, set: { name: row.name, template: row.template, updatedAt: row.updatedAt, updatedBy: row.updatedBy } })
+      .onConflictDoUpdate({
+        target: routingTemplates.process,
+        set: { name: row.name, template: row.template, updatedAt: row.updatedAt, updatedBy: row.updatedBy },
+      })
       .run(),
 
   // --- gates
@@ -108,8 +111,7 @@ export const ordersRepository = {
   requestProofChanges: (db: Db, id: string, patch: Pick<typeof proofs.$inferInsert, 'changesRequestedAt' | 'changesComment'>) =>
     db.update(proofs).set(patch).where(eq(proofs.id, id)).run(),
 
-  userNames: (db: Db, ids: string[]) =>
-    ids.length ? db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids)).all() : [],
+  userNames: (db: Db, ids: string[]) => (ids.length ? db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids)).all() : []),
 
   history: (db: Db, orderId: string, trayIds: string[]) =>
     db

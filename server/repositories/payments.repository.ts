@@ -22,7 +22,14 @@ export const paymentsRepository = {
     db
       .select()
       .from(checkoutSessions)
-      .where(and(eq(checkoutSessions.orderId, orderId), eq(checkoutSessions.status, 'open'), eq(checkoutSessions.amount, amount), eq(checkoutSessions.currency, currency)))
+      .where(
+        and(
+          eq(checkoutSessions.orderId, orderId),
+          eq(checkoutSessions.status, 'open'),
+          eq(checkoutSessions.amount, amount),
+          eq(checkoutSessions.currency, currency),
+        ),
+      )
       .orderBy(desc(checkoutSessions.createdAt))
       .all()
       .find((s) => s.expiresAt > now + 10 * 60_000),

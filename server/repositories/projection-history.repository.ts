@@ -29,7 +29,9 @@ export const projectionHistoryRepository = {
   },
   /** the orders that already have their daily row for `day` */
   ordersWithDailyRow(db: Db, day: string): Set<string> {
-    const rows = sqlClient(db).prepare(`select order_id as orderId from projection_history where reason = 'daily' and day = ?`).all(day) as { orderId: string }[];
+    const rows = sqlClient(db).prepare(`select order_id as orderId from projection_history where reason = 'daily' and day = ?`).all(day) as {
+      orderId: string;
+    }[];
     return new Set(rows.map((r) => r.orderId));
   },
   forOrder(db: Db, orderId: string): ProjectionHistoryRow[] {

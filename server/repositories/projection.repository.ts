@@ -93,11 +93,18 @@ export const projectionRepository = {
   /** hold and release scans since `since`, per traveller in time order */
   holdsSince(db: Db, since: number): { trayId: string; type: 'hold' | 'release'; occurredAt: number }[] {
     return client(db)
-      .prepare(`select tray_id as trayId, type, occurred_at as occurredAt from scan_events where type in ('hold', 'release') and occurred_at >= ? order by tray_id, occurred_at`)
+      .prepare(
+        `select tray_id as trayId, type, occurred_at as occurredAt from scan_events where type in ('hold', 'release') and occurred_at >= ? order by tray_id, occurred_at`,
+      )
       .all(since) as { trayId: string; type: 'hold' | 'release'; occurredAt: number }[];
   },
   stations(db: Db): { id: string; kind: string; capacityTrays: number; active: number }[] {
-    return client(db).prepare('select id, kind, capacity_trays as capacityTrays, active from stations').all() as { id: string; kind: string; capacityTrays: number; active: number }[];
+    return client(db).prepare('select id, kind, capacity_trays as capacityTrays, active from stations').all() as {
+      id: string;
+      kind: string;
+      capacityTrays: number;
+      active: number;
+    }[];
   },
   /** released, not shipped, not cancelled */
   openOrders(db: Db): OpenOrderRow[] {
@@ -128,15 +135,16 @@ export const projectionRepository = {
   },
   /** size and tray size of orders released since `since` (what a planner usually chooses) */
   traySizesSince(db: Db, since: number): { sizeMm: number; traySize: number }[] {
-    return client(db)
-      .prepare('select size_mm as sizeMm, tray_size as traySize from orders where released_at >= ? and tray_size is not null')
-      .all(since) as { sizeMm: number; traySize: number }[];
+    return client(db).prepare('select size_mm as sizeMm, tray_size as traySize from orders where released_at >= ? and tray_size is not null').all(since) as {
+      sizeMm: number;
+      traySize: number;
+    }[];
   },
   /** a cheap fingerprint of everything a projection reads */
   fingerprint(db: Db): string {
     const c = client(db);
     const e = (c.prepare('select max(rowid) as m from scan_events').get() as { m: number | null }).m ?? 0;
-    const o = c.prepare("select count(*) as n, max(updated_at) as u from orders where released_at is not null").get() as { n: number; u: number | null };
+    const o = c.prepare('select count(*) as n, max(updated_at) as u from orders where released_at is not null').get() as { n: number; u: number | null };
     const s = (c.prepare('select count(*) as n from tray_states').get() as { n: number }).n;
     return `${e}|${o.n}|${o.u ?? 0}|${s}`;
   },

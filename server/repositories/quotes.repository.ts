@@ -21,7 +21,11 @@ export const quotesRepository = {
   insert: (db: Db, row: typeof quotes.$inferInsert) => db.insert(quotes).values(row).run(),
   update: (db: Db, id: string, patch: Partial<typeof quotes.$inferInsert>) => db.update(quotes).set(patch).where(eq(quotes.id, id)).run(),
   /** marks the quote accepted only if it was not already: false when someone else got there first */
-  markAccepted: (db: Db, id: string, patch: Pick<typeof quotes.$inferInsert, 'orderId' | 'acceptedVersion' | 'acceptedQuantity' | 'acceptedName' | 'acceptedAt' | 'updatedAt'>) =>
+  markAccepted: (
+    db: Db,
+    id: string,
+    patch: Pick<typeof quotes.$inferInsert, 'orderId' | 'acceptedVersion' | 'acceptedQuantity' | 'acceptedName' | 'acceptedAt' | 'updatedAt'>,
+  ) =>
     db
       .update(quotes)
       .set(patch)

@@ -28,7 +28,9 @@ export const reportFactsRepository = {
   },
   setCursor(db: Db, name: string, position: number, at: number) {
     client(db)
-      .prepare('insert into report_cursors (name, position, updated_at) values (?, ?, ?) on conflict(name) do update set position = excluded.position, updated_at = excluded.updated_at')
+      .prepare(
+        'insert into report_cursors (name, position, updated_at) values (?, ?, ?) on conflict(name) do update set position = excluded.position, updated_at = excluded.updated_at',
+      )
       .run(name, position, at);
   },
   maxEventRowid(db: Db): number {
@@ -40,14 +42,19 @@ export const reportFactsRepository = {
   /** orders with events after a rowid (at most `limit`) */
   ordersWithEventsAfter(db: Db, rowid: number, limit: number): string[] {
     return (
-      client(db).prepare('select distinct t.order_id as o from scan_events e join trays t on t.id = e.tray_id where e.rowid > ? limit ?').all(rowid, limit) as { o: string }[]
+      client(db).prepare('select distinct t.order_id as o from scan_events e join trays t on t.id = e.tray_id where e.rowid > ? limit ?').all(rowid, limit) as {
+        o: string;
+      }[]
     ).map((r) => r.o);
   },
   /** every order that has travellers with events, in id order */
   ordersWithEvents(db: Db): string[] {
-    return (client(db).prepare('select distinct t.order_id from trays t where exists (select 1 from scan_events e where e.tray_id = t.id) order by t.order_id').raw(true).all() as [string][]).map(
-      (r) => r[0],
-    );
+    return (
+      client(db)
+        .prepare('select distinct t.order_id from trays t where exists (select 1 from scan_events e where e.tray_id = t.id) order by t.order_id')
+        .raw(true)
+        .all() as [string][]
+    ).map((r) => r[0]);
   },
   /** the travellers of some orders with their routings, as the replay takes them */
   travellers(db: Db, orderIds: readonly string[]): ReplayTraveller[] {
@@ -72,7 +79,9 @@ export const reportFactsRepository = {
   eventsOfOrders(db: Db, orderIds: readonly string[], upTo: number): ReplayEvent[] {
     if (orderIds.length === 0) return [];
     return client(db)
-      .prepare(`select ${EVENT_COLUMNS} from ${EVENT_FROM} where t.order_id in (${orderIds.map(() => '?').join(', ')}) and e.rowid <= ? order by e.occurred_at, e.rowid`)
+      .prepare(
+        `select ${EVENT_COLUMNS} from ${EVENT_FROM} where t.order_id in (${orderIds.map(() => '?').join(', ')}) and e.rowid <= ? order by e.occurred_at, e.rowid`,
+      )
       .all(...orderIds, upTo) as ReplayEvent[];
   },
   deleteRunsOfOrder(db: Db, orderId: string) {
@@ -97,7 +106,8 @@ export const reportFactsRepository = {
     client(db).prepare('delete from tray_flows').run();
   },
   flowInserter(db: Db): (f: TrayFlowInsert) => void {
-    const stmt = client(db).prepare(`insert or replace into tray_flows (tray_id, order_id, released_at, started_at, inspected_at, packed_at, shipped_at, shipped_qty,
+    const stmt = client(db)
+      .prepare(`insert or replace into tray_flows (tray_id, order_id, released_at, started_at, inspected_at, packed_at, shipped_at, shipped_qty,
       last_finish_at, process_minutes, cure_minutes, process_working_minutes, cure_working_minutes) values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`);
     return (f) =>
       stmt.run(

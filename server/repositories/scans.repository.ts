@@ -43,7 +43,8 @@ function prepareAll(c: Database.Database) {
     openRetryable: c.prepare(`select ${REJECTION_COLS} from scan_rejections
       where tray_id in ${IN_LIST} and resolved_at is null and code in (select value from json_each(?))
       order by occurred_at, received_at`),
-    insertRejection: c.prepare(`insert into scan_rejections (id, event_id, tray_id, station_id, device_id, user_id, code, message, payload, occurred_at, received_at)
+    insertRejection:
+      c.prepare(`insert into scan_rejections (id, event_id, tray_id, station_id, device_id, user_id, code, message, payload, occurred_at, received_at)
       values (@id, @eventId, @trayId, @stationId, @deviceId, @userId, @code, @message, @payload, @occurredAt, @receivedAt)`),
     markInProduction: c.prepare(`update orders set status = 'in_production', updated_at = ? where status = 'released' and id in ${IN_LIST}`),
     savepoint: c.prepare('savepoint scan_batch'),
@@ -100,7 +101,8 @@ const toRejection = (r: RawRejection): RejectionRow => ({ ...r, payload: JSON.pa
 
 export const scansRepository = {
   // --- reads for a batch ---------------------------------------------------------------
-  rejectionsByEventIds: (db: Db, ids: string[]): RejectionRow[] => (ids.length ? (q(db).rejectionsByEventIds.all(json(ids)) as RawRejection[]).map(toRejection) : []),
+  rejectionsByEventIds: (db: Db, ids: string[]): RejectionRow[] =>
+    ids.length ? (q(db).rejectionsByEventIds.all(json(ids)) as RawRejection[]).map(toRejection) : [],
 
   traysByNumbers: (db: Db, numbers: string[]): TrayRow[] => (numbers.length ? (q(db).traysByNumbers.all(json(numbers)) as TrayRow[]) : []),
 
@@ -267,7 +269,11 @@ export const scansRepository = {
   },
 
   countOpenRejections: (db: Db) =>
-    db.select({ n: sql<number>`count(*)` }).from(scanRejections).where(isNull(scanRejections.resolvedAt)).get()?.n ?? 0,
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(scanRejections)
+      .where(isNull(scanRejections.resolvedAt))
+      .get()?.n ?? 0,
 
   attachmentsOf: (db: Db, trayId: string) => db.select().from(attachments).where(eq(attachments.trayId, trayId)).all(),
 

@@ -10,7 +10,6 @@ import { users } from '../db/schema/users';
 import type { Role } from '@shared/domain/vocabulary';
 import { DEFAULT_TIME_ZONE } from '@shared/domain/calendar';
 
-
 /** SQLite caps the variables in one statement; long id lists are read in slices. */
 function inChunks<T>(ids: string[], read: (slice: string[]) => T[], size = 5000): T[] {
   if (ids.length === 0) return [];
@@ -71,18 +70,20 @@ export const shippingRepository = {
     if (!text) return base.orderBy(desc(orders.createdAt)).limit(limit).all();
     const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
     const esc = sql`'\\'`;
-    return base
-      .where(
-        or(
-          sql`${orders.number} like ${pattern} escape ${esc}`,
-          sql`${customers.name} like ${pattern} escape ${esc}`,
-          sql`${orders.title} like ${pattern} escape ${esc}`,
-        ),
-      )
-      // an exact order number first, then the newest
-      .orderBy(sql`${orders.number} = ${text} desc`, desc(orders.createdAt))
-      .limit(limit)
-      .all();
+    return (
+      base
+        .where(
+          or(
+            sql`${orders.number} like ${pattern} escape ${esc}`,
+            sql`${customers.name} like ${pattern} escape ${esc}`,
+            sql`${orders.title} like ${pattern} escape ${esc}`,
+          ),
+        )
+        // an exact order number first, then the newest
+        .orderBy(sql`${orders.number} = ${text} desc`, desc(orders.createdAt))
+        .limit(limit)
+        .all()
+    );
   },
 
   /** open orders (released, not shipped or cancelled), for the late-risk digest */
@@ -99,64 +100,71 @@ export const shippingRepository = {
   travellers: (db: Db, allOrderIds: string[]) =>
     inChunks(allOrderIds, (orderIds) =>
       db
-          .select({
-            id: trays.id,
-            orderId: trays.orderId,
-            number: trays.number,
-            kind: trays.kind,
-            quantity: trays.quantity,
-            writtenOffAt: trays.writtenOffAt,
-            phase: trayStates.phase,
-            stepSeq: trayStates.stepSeq,
-            stateQuantity: trayStates.quantity,
-            onHold: trayStates.onHold,
-            startedAt: trayStates.startedAt,
-            waitingSince: trayStates.waitingSince,
-            cureReadyAt: trayStates.cureReadyAt,
-            lastEventAt: trayStates.lastEventAt,
-          })
-          .from(trays)
-          .leftJoin(trayStates, eq(trayStates.trayId, trays.id))
-          .where(inArray(trays.orderId, orderIds))
-          .orderBy(asc(trays.number))
-          .all(),
+        .select({
+          id: trays.id,
+          orderId: trays.orderId,
+          number: trays.number,
+          kind: trays.kind,
+          quantity: trays.quantity,
+          writtenOffAt: trays.writtenOffAt,
+          phase: trayStates.phase,
+          stepSeq: trayStates.stepSeq,
+          stateQuantity: trayStates.quantity,
+          onHold: trayStates.onHold,
+          startedAt: trayStates.startedAt,
+          waitingSince: trayStates.waitingSince,
+          cureReadyAt: trayStates.cureReadyAt,
+          lastEventAt: trayStates.lastEventAt,
+        })
+        .from(trays)
+        .leftJoin(trayStates, eq(trayStates.trayId, trays.id))
+        .where(inArray(trays.orderId, orderIds))
+        .orderBy(asc(trays.number))
+        .all(),
     ),
 
   steps: (db: Db, allOrderIds: string[]) =>
     inChunks(allOrderIds, (orderIds) =>
       db
-          .select({
-            orderId: orderSteps.orderId,
-            travellerKind: orderSteps.travellerKind,
-            seq: orderSteps.seq,
-            name: orderSteps.name,
-            stationKind: orderSteps.stationKind,
-            trayMinutes: orderSteps.trayMinutes,
-            pieceMinutes: orderSteps.pieceMinutes,
-            cureMinutes: orderSteps.cureMinutes,
-          })
-          .from(orderSteps)
-          .where(inArray(orderSteps.orderId, orderIds))
-          .orderBy(asc(orderSteps.orderId), asc(orderSteps.travellerKind), asc(orderSteps.seq))
-          .all(),
+        .select({
+          orderId: orderSteps.orderId,
+          travellerKind: orderSteps.travellerKind,
+          seq: orderSteps.seq,
+          name: orderSteps.name,
+          stationKind: orderSteps.stationKind,
+          trayMinutes: orderSteps.trayMinutes,
+          pieceMinutes: orderSteps.pieceMinutes,
+          cureMinutes: orderSteps.cureMinutes,
+        })
+        .from(orderSteps)
+        .where(inArray(orderSteps.orderId, orderIds))
+        .orderBy(asc(orderSteps.orderId), asc(orderSteps.travellerKind), asc(orderSteps.seq))
+        .all(),
     ),
 
   /** when each tray's dispatch step last finished */
   dispatchFinishes: (db: Db, allTrayIds: string[]) =>
     inChunks(allTrayIds, (trayIds) =>
       db
-          .select({ trayId: scanEvents.trayId, at: max(scanEvents.occurredAt) })
-          .from(scanEvents)
-          .where(and(inArray(scanEvents.trayId, trayIds), eq(scanEvents.type, 'finish'), eq(scanEvents.stationKind, 'dispatch')))
-          .groupBy(scanEvents.trayId)
-          .all(),
+        .select({ trayId: scanEvents.trayId, at: max(scanEvents.occurredAt) })
+        .from(scanEvents)
+        .where(and(inArray(scanEvents.trayId, trayIds), eq(scanEvents.type, 'finish'), eq(scanEvents.stationKind, 'dispatch')))
+        .groupBy(scanEvents.trayId)
+        .all(),
     ),
 
   /** holds and releases of the order's travellers, for the history */
   holdEvents: (db: Db, trayIds: string[]) =>
     trayIds.length
       ? db
-          .select({ trayId: scanEvents.trayId, type: scanEvents.type, at: scanEvents.occurredAt, note: scanEvents.note, scrapReason: scanEvents.scrapReason, by: users.name })
+          .select({
+            trayId: scanEvents.trayId,
+            type: scanEvents.type,
+            at: scanEvents.occurredAt,
+            note: scanEvents.note,
+            scrapReason: scanEvents.scrapReason,
+            by: users.name,
+          })
           .from(scanEvents)
           .leftJoin(users, eq(users.id, scanEvents.userId))
           .where(and(inArray(scanEvents.trayId, trayIds), inArray(scanEvents.type, ['hold', 'release', 'write_off'])))
@@ -178,7 +186,11 @@ export const shippingRepository = {
   shipmentById: (db: Db, id: string) => db.select().from(shipments).where(eq(shipments.id, id)).get(),
   cartons: (db: Db, orderId: string) => db.select().from(cartons).where(eq(cartons.orderId, orderId)).orderBy(asc(cartons.createdAt)).all(),
   nextShipmentNumber: (db: Db, orderId: string) =>
-    (db.select({ n: max(shipments.number) }).from(shipments).where(eq(shipments.orderId, orderId)).get()?.n ?? 0) + 1,
+    (db
+      .select({ n: max(shipments.number) })
+      .from(shipments)
+      .where(eq(shipments.orderId, orderId))
+      .get()?.n ?? 0) + 1,
   /** other orders' numbers that already carry this tracking number */
   ordersWithTracking: (db: Db, trackingNumber: string, exceptOrderId: string) =>
     db
@@ -208,9 +220,18 @@ export const shippingRepository = {
   insertCarton: (db: Db, row: typeof cartons.$inferInsert) => db.insert(cartons).values(row).run(),
   /** put packed cartons into a shipment; only those still unshipped */
   assignCartons: (db: Db, ids: string[], shipmentId: string) =>
-    ids.length ? db.update(cartons).set({ shipmentId }).where(and(inArray(cartons.id, ids), isNull(cartons.shipmentId))).run().changes : 0,
+    ids.length
+      ? db
+          .update(cartons)
+          .set({ shipmentId })
+          .where(and(inArray(cartons.id, ids), isNull(cartons.shipmentId)))
+          .run().changes
+      : 0,
   deleteUnshippedCarton: (db: Db, orderId: string, id: string) =>
-    db.delete(cartons).where(and(eq(cartons.id, id), eq(cartons.orderId, orderId), isNull(cartons.shipmentId))).run().changes,
+    db
+      .delete(cartons)
+      .where(and(eq(cartons.id, id), eq(cartons.orderId, orderId), isNull(cartons.shipmentId)))
+      .run().changes,
 
   setOrderStatus: (db: Db, id: string, from: readonly string[], patch: Partial<typeof orders.$inferInsert>) =>
     db
@@ -250,9 +271,9 @@ export const shippingRepository = {
       .orderBy(asc(auditLog.at))
       .all(),
 
-  user: (db: Db, id: string) => db.select({ id: users.id, name: users.name, email: users.email, role: users.role, active: users.active }).from(users).where(eq(users.id, id)).get(),
-  usersByName: (db: Db, ids: string[]) =>
-    ids.length ? db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids)).all() : [],
+  user: (db: Db, id: string) =>
+    db.select({ id: users.id, name: users.name, email: users.email, role: users.role, active: users.active }).from(users).where(eq(users.id, id)).get(),
+  usersByName: (db: Db, ids: string[]) => (ids.length ? db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids)).all() : []),
   activeUsersWithRoles: (db: Db, roles: Role[]) =>
     db
       .select({ id: users.id, name: users.name, email: users.email, role: users.role })

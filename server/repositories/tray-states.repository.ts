@@ -129,8 +129,20 @@ export const trayStatesRepository = {
     const stmt = q(db).insertEvent;
     for (const r of rows) {
       stmt.run({
-        stepSeq: null, stationId: null, stationKind: null, deviceId: null, userId: null, qtyIn: null, goodQty: null, scrapQty: null,
-        reworkQty: null, scrapReason: null, overrideId: null, note: null, photoHash: null, ...r,
+        stepSeq: null,
+        stationId: null,
+        stationKind: null,
+        deviceId: null,
+        userId: null,
+        qtyIn: null,
+        goodQty: null,
+        scrapQty: null,
+        reworkQty: null,
+        scrapReason: null,
+        overrideId: null,
+        note: null,
+        photoHash: null,
+        ...r,
       });
     }
   },
@@ -151,5 +163,9 @@ export const trayStatesRepository = {
 
   /** For tests and the bench: event rows received since. */
   countEvents: (db: Db, sinceReceived = 0) =>
-    db.select({ n: sql<number>`count(*)` }).from(scanEvents).where(gte(scanEvents.receivedAt, sinceReceived)).get()?.n ?? 0,
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(scanEvents)
+      .where(gte(scanEvents.receivedAt, sinceReceived))
+      .get()?.n ?? 0,
 };

@@ -18,12 +18,7 @@ export const traysRepository = {
       .orderBy(asc(trays.kind), asc(trays.createdAt), asc(trays.number))
       .all(),
   withState: (db: Db, id: string) =>
-    db
-      .select({ tray: trays, state: trayStates })
-      .from(trays)
-      .leftJoin(trayStates, eq(trayStates.trayId, trays.id))
-      .where(eq(trays.id, id))
-      .get(),
+    db.select({ tray: trays, state: trayStates }).from(trays).leftJoin(trayStates, eq(trayStates.trayId, trays.id)).where(eq(trays.id, id)).get(),
   related: (db: Db, tray: TrayRow) =>
     db
       .select()

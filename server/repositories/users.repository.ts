@@ -15,17 +15,18 @@ export const usersRepository = {
       .get(),
   byBadge: (db: Db, badge: string) => db.select().from(users).where(eq(users.badge, badge)).get(),
   list: (db: Db) => db.select().from(users).orderBy(users.name).all(),
-  count: (db: Db) => db.select({ n: sql<number>`count(*)` }).from(users).get()?.n ?? 0,
+  count: (db: Db) =>
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(users)
+      .get()?.n ?? 0,
   insert: (db: Db, row: typeof users.$inferInsert) => db.insert(users).values(row).run(),
-  update: (db: Db, id: string, patch: Partial<typeof users.$inferInsert>) =>
-    db.update(users).set(patch).where(eq(users.id, id)).run(),
+  update: (db: Db, id: string, patch: Partial<typeof users.$inferInsert>) => db.update(users).set(patch).where(eq(users.id, id)).run(),
 
   insertSession: (db: Db, row: typeof sessions.$inferInsert) => db.insert(sessions).values(row).run(),
   sessionById: (db: Db, id: string) => db.select().from(sessions).where(eq(sessions.id, id)).get(),
-  touchSession: (db: Db, id: string, at: number) =>
-    db.update(sessions).set({ lastSeenAt: at }).where(eq(sessions.id, id)).run(),
-  revokeSession: (db: Db, id: string, at: number) =>
-    db.update(sessions).set({ revokedAt: at }).where(eq(sessions.id, id)).run(),
+  touchSession: (db: Db, id: string, at: number) => db.update(sessions).set({ lastSeenAt: at }).where(eq(sessions.id, id)).run(),
+  revokeSession: (db: Db, id: string, at: number) => db.update(sessions).set({ revokedAt: at }).where(eq(sessions.id, id)).run(),
   revokeDeviceSessions: (db: Db, deviceId: string, at: number) =>
     db
       .update(sessions)

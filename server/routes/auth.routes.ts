@@ -27,7 +27,10 @@ export function registerAuthRoutes(api: Api, limits: SignInLimits) {
     before: [limits.password],
     body: loginBody,
     handler: async ({ body, req, res, deps }) => {
-      const session = await authService.login(deps, body.email, body.password, { address: req.ip ?? 'unknown', knownToken: req.cookies?.[KNOWN_CLIENT_COOKIE] });
+      const session = await authService.login(deps, body.email, body.password, {
+        address: req.ip ?? 'unknown',
+        knownToken: req.cookies?.[KNOWN_CLIENT_COOKIE],
+      });
       setSessionCookie(res, deps, session.token, session.expiresAt);
       // marks this browser as one that signed in to the account (its own failure counter)
       res.cookie(KNOWN_CLIENT_COOKIE, session.knownToken, {

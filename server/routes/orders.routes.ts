@@ -66,7 +66,13 @@ export function registerOrderRoutes(api: Api) {
     handler: ({ deps, body, user }) => orderImportService.importOrders(deps, body.csv, user!.id),
   });
 
-  api.route({ method: 'get', path: '/orders/:id', access: { roles: OFFICE }, params: idParams, handler: ({ deps, params }) => ordersService.get(deps, params.id) });
+  api.route({
+    method: 'get',
+    path: '/orders/:id',
+    access: { roles: OFFICE },
+    params: idParams,
+    handler: ({ deps, params }) => ordersService.get(deps, params.id),
+  });
   api.route({
     method: 'patch',
     path: '/orders/:id',
@@ -167,7 +173,8 @@ export function registerOrderRoutes(api: Api) {
     params: idParams,
     body: releaseBodySchema,
     status: 201,
-    handler: ({ deps, params, body, user }) => projectionHistoryService.afterRelease(deps, params.id, orderReleaseService.release(deps, params.id, body, user!.id)),
+    handler: ({ deps, params, body, user }) =>
+      projectionHistoryService.afterRelease(deps, params.id, orderReleaseService.release(deps, params.id, body, user!.id)),
   });
 
   api.route({

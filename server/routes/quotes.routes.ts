@@ -40,7 +40,13 @@ export function registerQuoteRoutes(api: Api) {
     status: 201,
     handler: ({ deps, body, user }) => quotesService.create(deps, body, user!.id),
   });
-  api.route({ method: 'get', path: '/quotes/:id', access: { roles: QUOTING }, params: quoteParams, handler: ({ deps, params }) => quotesService.get(deps, params.id) });
+  api.route({
+    method: 'get',
+    path: '/quotes/:id',
+    access: { roles: QUOTING },
+    params: quoteParams,
+    handler: ({ deps, params }) => quotesService.get(deps, params.id),
+  });
   api.route({
     method: 'put',
     path: '/quotes/:id',

@@ -120,9 +120,15 @@ export function registerScanRoutes(api: Api, limits: SignInLimits) {
     handler: ({ deps, req, user }) => {
       const file = req.file;
       if (!file) throw badInput('Attach the photo as the field "file".');
-      const fields = z.object({ code: z.string().trim().min(1).max(256), eventId: z.string().max(100).optional(), operatorId: z.string().max(64).optional() }).safeParse(req.body);
+      const fields = z
+        .object({ code: z.string().trim().min(1).max(256), eventId: z.string().max(100).optional(), operatorId: z.string().max(64).optional() })
+        .safeParse(req.body);
       if (!fields.success) throw badInput('Say which tray the photo belongs to (field "code").');
-      return scanPhotosService.addPhoto(deps, { code: fields.data.code, eventId: fields.data.eventId, file, operatorId: fields.data.operatorId }, user?.id ?? null);
+      return scanPhotosService.addPhoto(
+        deps,
+        { code: fields.data.code, eventId: fields.data.eventId, file, operatorId: fields.data.operatorId },
+        user?.id ?? null,
+      );
     },
   });
 

@@ -9,7 +9,13 @@ const idParams = z.object({ id: z.string().min(1).max(80) });
 const layoutQuery = z.object({ layout: z.enum(TRAVELLER_LAYOUT_VALUES).default('a6') });
 
 export function registerTrayRoutes(api: Api) {
-  api.route({ method: 'get', path: '/trays/:id', access: { roles: OFFICE }, params: idParams, handler: ({ deps, params }) => traysService.get(deps, params.id) });
+  api.route({
+    method: 'get',
+    path: '/trays/:id',
+    access: { roles: OFFICE },
+    params: idParams,
+    handler: ({ deps, params }) => traysService.get(deps, params.id),
+  });
   api.route({
     method: 'post',
     path: '/trays/:id/reprint',

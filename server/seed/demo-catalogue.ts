@@ -112,33 +112,86 @@ function processSpec(rng: Rng, process: Process) {
   switch (process) {
     case 'hard_enamel':
       return {
-        material: pickWeighted<Material>(rng, [['iron', 3], ['copper', 2], ['brass', 1]]),
-        colours: pickColours(rng, pickWeighted(rng, [[1, 1], [2, 3], [3, 4], [4, 3], [5, 2], [6, 1]])),
-        plating: pickWeighted<Plating>(rng, [['gold', 4], ['silver', 3], ['black_nickel', 2], ['nickel', 1], ['rainbow', 1], ['dyed', 1]]),
+        material: pickWeighted<Material>(rng, [
+          ['iron', 3],
+          ['copper', 2],
+          ['brass', 1],
+        ]),
+        colours: pickColours(
+          rng,
+          pickWeighted(rng, [
+            [1, 1],
+            [2, 3],
+            [3, 4],
+            [4, 3],
+            [5, 2],
+            [6, 1],
+          ]),
+        ),
+        plating: pickWeighted<Plating>(rng, [
+          ['gold', 4],
+          ['silver', 3],
+          ['black_nickel', 2],
+          ['nickel', 1],
+          ['rainbow', 1],
+          ['dyed', 1],
+        ]),
         printing: rng.chance(0.15),
         epoxy: false,
       };
     case 'soft_enamel':
       return {
         material: 'iron' as Material,
-        colours: pickColours(rng, pickWeighted(rng, [[2, 2], [3, 3], [4, 3], [5, 2], [6, 1], [7, 1], [8, 1]])),
-        plating: pickWeighted<Plating>(rng, [['gold', 3], ['silver', 3], ['black_nickel', 2], ['copper', 1]]),
+        colours: pickColours(
+          rng,
+          pickWeighted(rng, [
+            [2, 2],
+            [3, 3],
+            [4, 3],
+            [5, 2],
+            [6, 1],
+            [7, 1],
+            [8, 1],
+          ]),
+        ),
+        plating: pickWeighted<Plating>(rng, [
+          ['gold', 3],
+          ['silver', 3],
+          ['black_nickel', 2],
+          ['copper', 1],
+        ]),
         printing: rng.chance(0.2),
         epoxy: rng.chance(0.35),
       };
     case 'die_struck':
       return {
-        material: pickWeighted<Material>(rng, [['brass', 2], ['copper', 2], ['iron', 1]]),
+        material: pickWeighted<Material>(rng, [
+          ['brass', 2],
+          ['copper', 2],
+          ['iron', 1],
+        ]),
         colours: [] as ColourSpec[],
-        plating: pickWeighted<Plating>(rng, [['antique_gold', 2], ['antique_silver', 2], ['antique_bronze', 2], ['antique_copper', 1]]),
+        plating: pickWeighted<Plating>(rng, [
+          ['antique_gold', 2],
+          ['antique_silver', 2],
+          ['antique_bronze', 2],
+          ['antique_copper', 1],
+        ]),
         printing: false,
         epoxy: false,
       };
     case 'printed':
       return {
-        material: pickWeighted<Material>(rng, [['iron', 2], ['brass', 1]]),
+        material: pickWeighted<Material>(rng, [
+          ['iron', 2],
+          ['brass', 1],
+        ]),
         colours: pickColours(rng, rng.int(3, 8)),
-        plating: pickWeighted<Plating>(rng, [['gold', 2], ['silver', 2], ['nickel', 1]]),
+        plating: pickWeighted<Plating>(rng, [
+          ['gold', 2],
+          ['silver', 2],
+          ['nickel', 1],
+        ]),
         printing: true,
         epoxy: true,
       };
@@ -146,7 +199,12 @@ function processSpec(rng: Rng, process: Process) {
       return {
         material: 'zinc_alloy' as Material,
         colours: pickColours(rng, rng.int(1, 5)),
-        plating: pickWeighted<Plating>(rng, [['antique_gold', 2], ['antique_silver', 2], ['gold', 1], ['antique_bronze', 1]]),
+        plating: pickWeighted<Plating>(rng, [
+          ['antique_gold', 2],
+          ['antique_silver', 2],
+          ['gold', 1],
+          ['antique_bronze', 1],
+        ]),
         printing: false,
         epoxy: rng.chance(0.15),
       };
@@ -200,12 +258,28 @@ export function planOrders(rng: Rng, nowMs: number, historyDays: number): OrderP
     const title = rng.pick(TITLES[customer.kind]);
     const productType: ProductType = /coin/i.test(title) ? 'coin' : /medal/i.test(title) ? 'medal' : /key ring/i.test(title) ? 'key_ring' : 'pin';
     const sizeMm =
-      productType === 'coin' ? rng.pick([38, 40, 45, 50]) : productType === 'medal' ? rng.pick([50, 55, 60]) : process === 'die_cast_3d' ? rng.int(30, 50) : rng.pick([20, 22, 25, 25, 28, 30, 32, 35, 38, 45]);
+      productType === 'coin'
+        ? rng.pick([38, 40, 45, 50])
+        : productType === 'medal'
+          ? rng.pick([50, 55, 60])
+          : process === 'die_cast_3d'
+            ? rng.int(30, 50)
+            : rng.pick([20, 22, 25, 25, 28, 30, 32, 35, 38, 45]);
     const traySize = sizeMm >= 40 ? rng.pick([50, 60, 80]) : sizeMm >= 30 ? rng.pick([80, 100, 120]) : rng.pick([100, 150, 200]);
     const backing: OrderPlan['backing'] =
       process === 'die_cast_3d' && rng.chance(0.3)
         ? { type: 'none', count: 0 }
-        : { type: pickWeighted<BackingType>(rng, [['butterfly_clutch', 6], ['rubber_clutch', 3], ['locking_clutch', 2], ['magnet', 1], ['safety_pin', 1], ['screw_nut', 1]]), count: sizeMm >= 35 ? 2 : 1 };
+        : {
+            type: pickWeighted<BackingType>(rng, [
+              ['butterfly_clutch', 6],
+              ['rubber_clutch', 3],
+              ['locking_clutch', 2],
+              ['magnet', 1],
+              ['safety_pin', 1],
+              ['screw_nut', 1],
+            ]),
+            count: sizeMm >= 35 ? 2 : 1,
+          };
     let releasedAt: number | null = null;
     let createdAt: number;
     switch (target) {
@@ -257,8 +331,21 @@ export function planOrders(rng: Rng, nowMs: number, historyDays: number): OrderP
       // some die-struck designs have a sandblasted field, a few a second tone (fixed by design number, not drawn)
       sandblast: process === 'die_struck' && designNo % 3 === 0,
       secondPlating: process === 'die_struck' && designNo % 4 === 0 ? 'black_nickel' : null,
-      packaging: pickWeighted<Packaging>(rng, [['individual_bag', 5], ['bulk', 2], ['backing_card', 2], ['gift_box', 1]]),
-      notes: rng.chance(0.25) ? rng.pick(['Ship in one consignment.', 'Check the colour order against the proof.', 'Customer collects at the gate.', 'Pack by house: one carton each.', 'Repeat customer: match last year’s shade.']) : '',
+      packaging: pickWeighted<Packaging>(rng, [
+        ['individual_bag', 5],
+        ['bulk', 2],
+        ['backing_card', 2],
+        ['gift_box', 1],
+      ]),
+      notes: rng.chance(0.25)
+        ? rng.pick([
+            'Ship in one consignment.',
+            'Check the colour order against the proof.',
+            'Customer collects at the gate.',
+            'Pack by house: one carton each.',
+            'Repeat customer: match last year’s shade.',
+          ])
+        : '',
       designKey: `D-${String(designNo).padStart(4, '0')}`,
       reorderOf: null,
       traySize,

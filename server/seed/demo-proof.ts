@@ -63,7 +63,11 @@ export function demoProofPdf(spec: ProofSpec): Promise<Buffer> {
   y += 4;
   for (const c of spec.colours.slice(0, 8)) {
     doc.rect(175, y, 10, 8).fillAndStroke(c.hex ?? '#CCCCCC', '#444444');
-    doc.font('Helvetica').fontSize(7.5).fillColor('#111111').text(`${c.name}${c.ref ? ` (${c.ref})` : ''}  ${c.hex ?? ''}`, 190, y);
+    doc
+      .font('Helvetica')
+      .fontSize(7.5)
+      .fillColor('#111111')
+      .text(`${c.name}${c.ref ? ` (${c.ref})` : ''}  ${c.hex ?? ''}`, 190, y);
     y += 11;
   }
   doc.fontSize(6.5).fillColor('#555555').text('Demo artwork: colours on screen and paper differ from enamel; check swatches.', 18, 262);

@@ -62,7 +62,9 @@ const isoDate = (t: number) => new Date(t + FACTORY_UTC_OFFSET_MS).toISOString()
 
 function insertMany<T>(tx: Tx, table: Parameters<Tx['insert']>[0], rows: T[], chunk = 200) {
   for (let i = 0; i < rows.length; i += chunk) {
-    tx.insert(table).values(rows.slice(i, i + chunk) as any).run();
+    tx.insert(table)
+      .values(rows.slice(i, i + chunk) as any)
+      .run();
   }
 }
 
@@ -165,7 +167,14 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     insertMany(
       tx,
       customers,
-      DEMO_CUSTOMERS.map((c) => ({ id: customerIds.get(c.name)!, name: c.name, contactName: c.contactName, contactEmail: c.contactEmail, createdAt: now - (DEMO_HISTORY_DAYS + 30) * DAY, updatedAt: now - (DEMO_HISTORY_DAYS + 30) * DAY })),
+      DEMO_CUSTOMERS.map((c) => ({
+        id: customerIds.get(c.name)!,
+        name: c.name,
+        contactName: c.contactName,
+        contactEmail: c.contactEmail,
+        createdAt: now - (DEMO_HISTORY_DAYS + 30) * DAY,
+        updatedAt: now - (DEMO_HISTORY_DAYS + 30) * DAY,
+      })),
     ),
   );
   const at = (t: number): AppDeps => ({ ...deps, now: () => Math.round(t) });
@@ -201,16 +210,16 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     const files: { pdf: Buffer; decoded: DecodedUpload }[] = [];
     for (let rev = 1; rev <= revisions; rev++) {
       const pdf = await demoProofPdf({
-          number: plan.number,
-          customer: plan.customer.name,
-          title: plan.title,
-          process: plan.process,
-          sizeMm: plan.sizeMm,
-          plating: plan.plating,
-          colours: plan.colours,
-          backLogo: plan.backLogo,
-          revision: rev,
-          createdAt: rev === 1 ? st.proof1 : st.proof2,
+        number: plan.number,
+        customer: plan.customer.name,
+        title: plan.title,
+        process: plan.process,
+        sizeMm: plan.sizeMm,
+        plating: plan.plating,
+        colours: plan.colours,
+        backLogo: plan.backLogo,
+        revision: rev,
+        createdAt: rev === 1 ? st.proof1 : st.proof2,
       });
       // checked and drawn to a thumbnail exactly as an uploaded proof is
       files.push({ pdf, decoded: await decodeUpload(pdf, `proof-${plan.number}-r${rev}.pdf`, ['application/pdf']) });
@@ -256,7 +265,12 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       const pdfs = proofPdfs.get(plan) ?? [];
       if (pdfs.length) {
         pdfs.forEach(({ pdf, decoded }, i) => {
-          orderGatesService.storeProof(at(i === 0 ? st.proof1 : st.proof2), orderId, { buffer: pdf, name: `proof-${plan.number}-r${i + 1}.pdf`, decoded }, planner);
+          orderGatesService.storeProof(
+            at(i === 0 ? st.proof1 : st.proof2),
+            orderId,
+            { buffer: pdf, name: `proof-${plan.number}-r${i + 1}.pdf`, decoded },
+            planner,
+          );
         });
         if (proofApproved) {
           orderGatesService.approveProof(at(st.approved), orderId, pdfs.length, { note: `Approved by ${plan.customer.contactName} by e-mail` }, planner);
@@ -265,7 +279,12 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       if (paid) {
         const exception = released && plan.target === 'in_production' && plan.number.endsWith('7');
         if (exception) {
-          orderGatesService.recordPayment(at(st.paid), orderId, { exception: true, reason: 'Long-standing customer on 30-day terms' }, { id: manager, role: 'manager' });
+          orderGatesService.recordPayment(
+            at(st.paid),
+            orderId,
+            { exception: true, reason: 'Long-standing customer on 30-day terms' },
+            { id: manager, role: 'manager' },
+          );
         } else {
           const amount = Math.round(plan.quantity * UNIT_PRICE[plan.process] * (1 + plan.colours.length * 0.08) * 100) / 100;
           orderGatesService.recordPayment(at(st.paid), orderId, { amount, reference: `BANK-${ids.int(100000, 999999)}` }, { id: planner, role: 'planner' });
@@ -289,7 +308,17 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           const row = trayStatesRepository.byTrayId(db, t.id)!;
           const routing = trayRoutes[t.kind];
           routingOf.set(t.id, routing);
-          simTravellers.push({ id: t.id, number: t.number, kind: t.kind, orderId, mouldId: t.mouldId, quantity: t.quantity, releasedAt: t.releasedAt, routing, initial: stateFromRow(row) });
+          simTravellers.push({
+            id: t.id,
+            number: t.number,
+            kind: t.kind,
+            orderId,
+            mouldId: t.mouldId,
+            quantity: t.quantity,
+            releasedAt: t.releasedAt,
+            routing,
+            initial: stateFromRow(row),
+          });
         }
       }
     }
@@ -438,7 +467,8 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   db.transaction((tx) => {
     insertMany(tx, devices, [...deviceRows, wallDevice]);
     const shiftRows: (typeof calendarShifts.$inferInsert)[] = [];
-    for (const weekday of DEMO_WORKDAYS) for (const sh of DEMO_SHIFTS) shiftRows.push({ id: ids.uuid(), stationId: null, weekday, startMinute: sh.start, endMinute: sh.end });
+    for (const weekday of DEMO_WORKDAYS)
+      for (const sh of DEMO_SHIFTS) shiftRows.push({ id: ids.uuid(), stationId: null, weekday, startMinute: sh.start, endMinute: sh.end });
     insertMany(tx, calendarShifts, shiftRows);
     for (const [id, patch] of orderPatches) tx.update(orders).set(patch).where(eq(orders.id, id)).run();
     for (const [id, patch] of mouldPatches) tx.update(moulds).set(patch).where(eq(moulds.id, id)).run();
@@ -458,7 +488,11 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       });
     }
     trayStatesRepository.insertEvents(tx, sim.events);
-    insertMany(tx, scanRejections, sim.rejections.map((r) => ({ ...r, resolvedAt: null, resolvedBy: null, resolution: null })));
+    insertMany(
+      tx,
+      scanRejections,
+      sim.rejections.map((r) => ({ ...r, resolvedAt: null, resolvedBy: null, resolution: null })),
+    );
     insertMany(tx, shipments, shipmentRows);
     insertMany(tx, cartons, cartonRows);
   });
@@ -466,4 +500,3 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   calendarService.forget(deps);
   lap('written');
 }
-

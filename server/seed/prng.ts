@@ -34,8 +34,7 @@ export function makeRng(seed: number | string): Rng {
     },
     spread: (sigma) => Math.exp(rng.normal() * sigma),
     uuid: () => {
-      const hex = (n: number) =>
-        Array.from({ length: n }, () => Math.floor(next() * 16).toString(16)).join('');
+      const hex = (n: number) => Array.from({ length: n }, () => Math.floor(next() * 16).toString(16)).join('');
       const variant = (8 + Math.floor(next() * 4)).toString(16);
       return `${hex(8)}-${hex(4)}-4${hex(3)}-${variant}${hex(3)}-${hex(12)}`;
     },

@@ -319,7 +319,15 @@ export function simulateFloor(input: SimInput): SimResult {
   };
   const supervisor = () => rng.pick(people.supervisors);
 
-  function guardInput(t: Live, type: ScanType, at: number, station: SimStation, extra: Partial<GuardInput['event']>, userId: string, override: ValidOverride | null): GuardInput {
+  function guardInput(
+    t: Live,
+    type: ScanType,
+    at: number,
+    station: SimStation,
+    extra: Partial<GuardInput['event']>,
+    userId: string,
+    override: ValidOverride | null,
+  ): GuardInput {
     const o = orders.get(t.orderId)!;
     return {
       state: t.state,
@@ -345,9 +353,12 @@ export function simulateFloor(input: SimInput): SimResult {
     if (at < t.last) throw new Error(`demo history: ${t.number} ${type} at ${iso(at)} is before its last event ${iso(t.last)}`);
     const userId = opts.userId ?? operatorFor(station.kind);
     const extra: Partial<GuardInput['event']> = {};
-    if (type === 'finish') Object.assign(extra, { goodQty: opts.good, scrapQty: opts.scrap ?? 0, reworkQty: opts.rework ?? 0, scrapReason: opts.reason ?? null });
+    if (type === 'finish')
+      Object.assign(extra, { goodQty: opts.good, scrapQty: opts.scrap ?? 0, reworkQty: opts.rework ?? 0, scrapReason: opts.reason ?? null });
     if (type === 'hold') Object.assign(extra, { scrapReason: opts.reason ?? null, note: opts.note ?? null });
-    const override = opts.override ? { id: opts.override.id, supervisorId: opts.override.supervisorId, reason: opts.override.reason, kind: opts.override.kind } : null;
+    const override = opts.override
+      ? { id: opts.override.id, supervisorId: opts.override.supervisorId, reason: opts.override.reason, kind: opts.override.kind }
+      : null;
     const qtyIn = t.state.quantity;
     const res = evaluateScan(guardInput(t, type, at, station, extra, userId, override));
     if (!res.ok) {
@@ -477,7 +488,11 @@ export function simulateFloor(input: SimInput): SimResult {
         t.hadHold = true;
         const reason = rng.pick(holdReasons.filter((r) => r !== 'hold_customer'));
         const where = firstStation(step.stationKind);
-        emit(t, 'hold', holdAt, where, { userId: supervisor(), reason, note: reason === 'hold_material' ? 'Backing stock short; waiting for delivery' : 'Shade looks off against the proof' });
+        emit(t, 'hold', holdAt, where, {
+          userId: supervisor(),
+          reason,
+          note: reason === 'hold_material' ? 'Backing stock short; waiting for delivery' : 'Shade looks off against the proof',
+        });
         const releaseAt = sec(addWorking(holdAt, rng.int(60, 900)));
         if (releaseAt > now) {
           t.stopped = true;
@@ -586,7 +601,8 @@ export function simulateFloor(input: SimInput): SimResult {
       overrides.push(override);
     }
     const started = emit(t, 'start', start, slot.station, { override, userId: person });
-    if (started.ok && started.facts.stepSeq !== step.seq) throw new Error(`demo history: ${t.number} started step ${started.facts.stepSeq}, expected ${step.seq}`);
+    if (started.ok && started.facts.stepSeq !== step.seq)
+      throw new Error(`demo history: ${t.number} started step ${started.facts.stepSeq}, expected ${step.seq}`);
     t.nextSeq = step.seq;
 
     if (personHeld != null) busyUntil.set(person, sec(addWorking(start, personHeld)));

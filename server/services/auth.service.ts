@@ -183,7 +183,11 @@ async function startSession(deps: AppDeps, user: UserRow, idleMinutes: number, d
     .setIssuedAt(Math.floor(now / 1000))
     .setExpirationTime(Math.floor(expiresAt / 1000))
     .sign(deps.keys.session);
-  return { token, expiresAt, user: { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, mustChangePassword: user.mustChangePassword } };
+  return {
+    token,
+    expiresAt,
+    user: { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, mustChangePassword: user.mustChangePassword },
+  };
 }
 
 export const authService = {
@@ -277,7 +281,11 @@ export const authService = {
       throw badInput('The current password is not right.', [{ path: ['currentPassword'], message: 'Not right', code: 'wrong_password' }], 'wrong_password');
     }
     if (newPassword === currentPassword || newPassword === DEFAULT_ADMIN_PASSWORD) {
-      throw badInput('Choose a password other than the current one and the default.', [{ path: ['newPassword'], message: 'Same as before', code: 'password_reused' }], 'password_reused');
+      throw badInput(
+        'Choose a password other than the current one and the default.',
+        [{ path: ['newPassword'], message: 'Same as before', code: 'password_reused' }],
+        'password_reused',
+      );
     }
     const passwordHash = await hashSecretAsync(newPassword);
     const now = deps.now();

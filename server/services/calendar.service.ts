@@ -128,7 +128,8 @@ export const calendarService = {
     const shifts: { id: string; stationId: string | null; weekday: number; startMinute: number; endMinute: number }[] = [];
     const addWeek = (week: WeekBody, stationId: string | null) => {
       for (const d of WEEKDAYS)
-        for (const s of week[d]) shifts.push({ id: crypto.randomUUID(), stationId, weekday: DB_WEEKDAY[d], startMinute: parseHm(s.start), endMinute: parseHm(s.end) });
+        for (const s of week[d])
+          shifts.push({ id: crypto.randomUUID(), stationId, weekday: DB_WEEKDAY[d], startMinute: parseHm(s.start), endMinute: parseHm(s.end) });
     };
     addWeek(body.week, null);
     const days = body.daysOff.map((d) => ({ id: crypto.randomUUID(), date: d.date, stationId: null as string | null, name: d.name ?? '' }));
@@ -141,7 +142,13 @@ export const calendarService = {
       calendarRepository.replaceAll(tx, shifts, days);
       const current = calendarRepository.factorySettings(tx) ?? {};
       calendarRepository.saveFactorySettings(tx, { ...current, timeZone: body.timeZone });
-      auditRepository.record(tx, now, { userId: actorId, action: 'calendar.save', entity: 'calendar', entityId: null, detail: { timeZone: body.timeZone, shifts: shifts.length, daysOff: days.length } });
+      auditRepository.record(tx, now, {
+        userId: actorId,
+        action: 'calendar.save',
+        entity: 'calendar',
+        entityId: null,
+        detail: { timeZone: body.timeZone, shifts: shifts.length, daysOff: days.length },
+      });
     });
     calendarService.forget(deps);
     return readView(deps);

@@ -131,7 +131,13 @@ export const costingService = {
     if (!order) throw notFound('The order');
     reportFactsService.catchUp(deps);
     const runs = costingRepository.runsOfOrder(deps.db, orderId);
-    return costOrder(order, runs, deps.db, calendarService.calendar(deps), once(() => costingSettings(deps.db)));
+    return costOrder(
+      order,
+      runs,
+      deps.db,
+      calendarService.calendar(deps),
+      once(() => costingSettings(deps.db)),
+    );
   },
 
   /** GET /api/reports/costing: orders shipped in the window, summed by process and colour count */

@@ -40,7 +40,8 @@ export const devicesService = {
 
   /** Registers a tablet (bound to a station) or a wall display (no station); the token is shown once. */
   create(deps: AppDeps, input: CreateDeviceBody, actorId: string | null) {
-    if (input.stationId && !stationsRepository.byId(deps.db, input.stationId)) throw badInput('That station does not exist.', [{ path: ['stationId'], message: 'Unknown station' }]);
+    if (input.stationId && !stationsRepository.byId(deps.db, input.stationId))
+      throw badInput('That station does not exist.', [{ path: ['stationId'], message: 'Unknown station' }]);
     const now = deps.now();
     const id = crypto.randomUUID();
     const token = randomToken(24);
@@ -58,7 +59,13 @@ export const devicesService = {
       createdAt: now,
       updatedAt: now,
     });
-    auditRepository.record(deps.db, now, { userId: actorId, action: 'device.create', entity: 'device', entityId: id, detail: { name: input.name, stationId: input.stationId } });
+    auditRepository.record(deps.db, now, {
+      userId: actorId,
+      action: 'device.create',
+      entity: 'device',
+      entityId: id,
+      detail: { name: input.name, stationId: input.stationId },
+    });
     return { id, token, pairingCode: code, pairingExpiresAt: new Date(now + PAIRING_MINUTES * 60_000).toISOString() };
   },
 
@@ -69,7 +76,8 @@ export const devicesService = {
     const now = deps.now();
     devicesRepository.update(deps.db, id, { ...patch, updatedAt: now });
     // Switched off or moved to another station: the badge sign-ins on it end.
-    if (patch.active === false || (patch.stationId !== undefined && patch.stationId !== current.stationId)) usersRepository.revokeDeviceSessions(deps.db, id, now);
+    if (patch.active === false || (patch.stationId !== undefined && patch.stationId !== current.stationId))
+      usersRepository.revokeDeviceSessions(deps.db, id, now);
     auditRepository.record(deps.db, now, { userId: actorId, action: 'device.update', entity: 'device', entityId: id, detail: patch });
     return toDeviceView(devicesRepository.byId(deps.db, id)!);
   },

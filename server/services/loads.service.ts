@@ -135,16 +135,17 @@ export const loadsService = {
       chosen.push(p);
     }
     if (keys.size !== 1) {
-      throw conflict(
-        'mixed_load',
-        `${traits.loadName.charAt(0).toUpperCase()}${traits.loadName.slice(1)} takes trays of one ${traits.groupedBy} only.`,
-      );
+      throw conflict('mixed_load', `${traits.loadName.charAt(0).toUpperCase()}${traits.loadName.slice(1)} takes trays of one ${traits.groupedBy} only.`);
     }
     const id = crypto.randomUUID();
     const number = `${traits.numberPrefix}-${String(loadsRepository.count(deps.db) + 1).padStart(5, '0')}`;
     const load: LoadRow = { id, number, kind: body.kind, groupKey: [...keys][0], status: 'open', createdAt: now, splitAt: null };
     deps.db.transaction((tx) => {
-      loadsRepository.insert(tx, { ...load, createdBy: actorId }, chosen.map((p) => ({ trayId: p.row.trayId, orderId: p.row.orderId, quantity: p.row.quantity })));
+      loadsRepository.insert(
+        tx,
+        { ...load, createdBy: actorId },
+        chosen.map((p) => ({ trayId: p.row.trayId, orderId: p.row.orderId, quantity: p.row.quantity })),
+      );
       auditRepository.record(tx, now, { userId: actorId, action: 'load.create', entity: 'load', entityId: id, detail: { number, trays: ids.length } });
     });
     return loadView(load, loadsRepository.traysOf(deps.db, [id]));

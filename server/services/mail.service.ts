@@ -123,12 +123,25 @@ export async function processMailQueue(deps: AppDeps, limit = 20): Promise<{ sen
 export function lateRiskOrders(deps: AppDeps): DigestOrder[] {
   const { timeZone } = shippingRepository.factory(deps.db);
   const open = shippingRepository.openOrders(deps.db);
-  const progress = loadProgress(deps.db, open, deps.now(), timeZone, { shipDates: measuredShipDates(deps, open.map((o) => o.id)), calendar: calendarService.calendar(deps) });
+  const progress = loadProgress(deps.db, open, deps.now(), timeZone, {
+    shipDates: measuredShipDates(
+      deps,
+      open.map((o) => o.id),
+    ),
+    calendar: calendarService.calendar(deps),
+  });
   const out: DigestOrder[] = [];
   for (const o of open) {
     const p = progress.get(o.id)!;
     if (!p.late || p.status === 'shipped') continue;
-    out.push({ number: o.number, customer: o.customer, title: o.title, dueDate: o.dueDate, projectedAt: p.projection.expectedAt, stage: p.stageText.split(':')[0] });
+    out.push({
+      number: o.number,
+      customer: o.customer,
+      title: o.title,
+      dueDate: o.dueDate,
+      projectedAt: p.projection.expectedAt,
+      stage: p.stageText.split(':')[0],
+    });
   }
   return out.sort((a, b) => a.dueDate.localeCompare(b.dueDate) || a.number.localeCompare(b.number));
 }
@@ -144,7 +157,14 @@ export function queueLateDigest(deps: AppDeps, date?: string): { date: string; o
   let queued = 0;
   deps.db.transaction((tx) => {
     for (const person of people) {
-      const m = lateDigestMail({ factory: factory.name, timeZone: factory.timeZone, date: day, name: person.name, orders, appUrl: deps.env.publicUrl.replace(/\/$/, '') });
+      const m = lateDigestMail({
+        factory: factory.name,
+        timeZone: factory.timeZone,
+        date: day,
+        name: person.name,
+        orders,
+        appUrl: deps.env.publicUrl.replace(/\/$/, ''),
+      });
       if (enqueueMail(tx, now, { kind: 'late_digest', to: person.email, ...m, dedupeKey: `late-digest:${day}:${person.id}` })) queued++;
     }
   });
@@ -162,14 +182,21 @@ export function queueProofReady(deps: AppDeps, orderId: string, revision: number
   if (!order) throw notFound('That order');
   const proof = shippingRepository.proof(deps.db, orderId, revision);
   if (!proof) throw notFound(`Proof revision ${revision}`);
-  if (!order.contactEmail) throw new AppError(409, 'no_contact_email', `${order.customer} has no contact e-mail address yet. Add one on the order status page first.`);
+  if (!order.contactEmail)
+    throw new AppError(409, 'no_contact_email', `${order.customer} has no contact e-mail address yet. Add one on the order status page first.`);
   if (!readFile(deps.env.dataDir, proof.fileHash)) throw new AppError(409, 'proof_file_missing', 'The proof file is missing from the file store.');
   const factory = shippingRepository.factory(deps.db);
   const filename = `proof-${order.number}-rev${revision}.${proofExtension(proof.mime)}`;
   const m = proofReadyMail({ factory: factory.name, orderNumber: order.number, title: order.title, revision, contactName: order.contactName, filename });
   const now = deps.now();
   deps.db.transaction((tx) => {
-    enqueueMail(tx, now, { kind: 'proof_ready', to: order.contactEmail!, ...m, orderId, attachments: [{ filename, contentType: proof.mime, fileHash: proof.fileHash }] });
+    enqueueMail(tx, now, {
+      kind: 'proof_ready',
+      to: order.contactEmail!,
+      ...m,
+      orderId,
+      attachments: [{ filename, contentType: proof.mime, fileHash: proof.fileHash }],
+    });
     auditRepository.record(tx, now, { userId, action: 'mail.proof_ready', entity: 'order', entityId: orderId, detail: { revision, to: order.contactEmail } });
   });
   kickMail(deps);

@@ -29,18 +29,34 @@ export const orderGatesService = {
       if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled.`);
       const paymentId = crypto.randomUUID();
       if ('exception' in body) {
-        ordersRepository.insertPayment(tx, { id: paymentId, orderId: id, amount: null, reference: 'exception', isException: true, note: body.reason, recordedBy: actor.id, recordedAt: now });
+        ordersRepository.insertPayment(tx, {
+          id: paymentId,
+          orderId: id,
+          amount: null,
+          reference: 'exception',
+          isException: true,
+          note: body.reason,
+          recordedBy: actor.id,
+          recordedAt: now,
+        });
         auditOrder(tx, now, actor.id, 'order.payment_exception', id, `Release without payment allowed: ${body.reason}`);
       } else {
         const note = body.paidOn ? `paid on ${body.paidOn}` : '';
-        recordPaymentIn(tx, now, { orderId: id, amount: body.amount, currency: body.currency, reference: body.reference, source: 'manual', recordedBy: actor.id, note });
+        recordPaymentIn(tx, now, {
+          orderId: id,
+          amount: body.amount,
+          currency: body.currency,
+          reference: body.reference,
+          source: 'manual',
+          recordedBy: actor.id,
+          note,
+        });
         return;
       }
       refreshStatus(tx, order, now);
     });
     return ordersService.get(deps, id);
   },
-
 
   async uploadProof(deps: AppDeps, id: string, file: Express.Multer.File | undefined, actorId: string): Promise<{ revision: number }> {
     const { db } = deps;
@@ -53,7 +69,6 @@ export const orderGatesService = {
     const decoded = await decodeUpload(file.buffer, name, ['application/pdf', 'image/png', 'image/jpeg']);
     return orderGatesService.storeProof(deps, id, { buffer: file.buffer, name, decoded }, actorId);
   },
-
 
   /** Keeps a proof that decodeUpload has checked, with its thumbnail, as the next revision. */
   storeProof(deps: AppDeps, id: string, file: { buffer: Buffer; name: string; decoded: DecodedUpload }, actorId: string): { revision: number } {
@@ -85,7 +100,6 @@ export const orderGatesService = {
     });
   },
 
-
   proofFile(deps: AppDeps, id: string, revision: number) {
     const order = getOrder(deps.db, id);
     const proof = ordersRepository.proof(deps.db, id, revision);
@@ -96,7 +110,6 @@ export const orderGatesService = {
     return { content, mime: proof.mime, downloadName: `proof-${order.number}-rev${revision}.${ext}` };
   },
 
-
   approveProof(deps: AppDeps, id: string, revision: number, body: ProofApprovalBody, actorId: string) {
     const now = deps.now();
     if (body.approvedOn && body.approvedOn > today(now, shipDateService.timeZone(deps))) {
@@ -106,5 +119,4 @@ export const orderGatesService = {
     deps.db.transaction((tx) => approveProofIn(tx, now, { orderId: id, revision, approvedAt, userId: actorId, customerName: null, note: body.note ?? null }));
     return ordersService.get(deps, id);
   },
-
 };

@@ -111,7 +111,9 @@ export function recordPaymentIn(tx: DbLike, now: number, input: PaymentInput): b
     recordedAt: now,
   });
   const how = input.source === 'checkout' ? 'paid online' : 'recorded';
-  audit(tx, now, input.recordedBy, 'order.payment', order.id, `Payment of ${amount.toFixed(2)} ${currency} ${how} (${input.reference})`, { source: input.source });
+  audit(tx, now, input.recordedBy, 'order.payment', order.id, `Payment of ${amount.toFixed(2)} ${currency} ${how} (${input.reference})`, {
+    source: input.source,
+  });
   refreshStatus(tx, order, now);
   return true;
 }
@@ -134,10 +136,25 @@ export function approveProofIn(tx: DbLike, now: number, input: ApprovalInput) {
   refuseAfterRelease(order, 'its proof approval');
   const proof = latestProof(tx, order, input.revision);
   if (proof.approvedAt != null) throw conflict('already_approved', `Proof revision ${input.revision} is approved already.`);
-  ordersRepository.approveProof(tx, proof.id, { approvedAt: input.approvedAt, approvedBy: input.userId, approvedByName: input.customerName, approvalNote: input.note ?? null });
+  ordersRepository.approveProof(tx, proof.id, {
+    approvedAt: input.approvedAt,
+    approvedBy: input.userId,
+    approvedByName: input.customerName,
+    approvalNote: input.note ?? null,
+  });
   const day = new Date(input.approvedAt).toISOString().slice(0, 10);
-  const who = input.customerName ? `${input.customerName} approved proof revision ${input.revision} on the order page` : `Customer approved proof revision ${input.revision}`;
-  audit(tx, now, input.userId, 'order.proof_approve', order.id, `${who} on ${day}${input.note ? `: ${input.note}` : ''}`, input.customerName ? { via: 'portal', name: input.customerName } : { via: 'staff' });
+  const who = input.customerName
+    ? `${input.customerName} approved proof revision ${input.revision} on the order page`
+    : `Customer approved proof revision ${input.revision}`;
+  audit(
+    tx,
+    now,
+    input.userId,
+    'order.proof_approve',
+    order.id,
+    `${who} on ${day}${input.note ? `: ${input.note}` : ''}`,
+    input.customerName ? { via: 'portal', name: input.customerName } : { via: 'staff' },
+  );
   refreshStatus(tx, order, now);
 }
 
@@ -147,7 +164,8 @@ export function requestProofChangesIn(tx: DbLike, now: number, input: { orderId:
   if (!order) throw notFound('That order');
   refuseAfterRelease(order, 'its proof');
   const proof = latestProof(tx, order, input.revision);
-  if (proof.approvedAt != null) throw conflict('already_approved', `Proof revision ${input.revision} is approved already; ask the factory if something must still change.`);
+  if (proof.approvedAt != null)
+    throw conflict('already_approved', `Proof revision ${input.revision} is approved already; ask the factory if something must still change.`);
   ordersRepository.requestProofChanges(tx, proof.id, { changesRequestedAt: now, changesComment: input.comment });
   audit(tx, now, null, 'order.proof_changes', order.id, `Customer asked for changes to proof revision ${input.revision}: ${input.comment}`, { via: 'portal' });
   return { order, proof };

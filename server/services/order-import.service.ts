@@ -34,5 +34,4 @@ export const orderImportService = {
     );
     return { created, skipped: preview.rows.filter((r) => !r.spec).map((r) => r.line) };
   },
-
 };

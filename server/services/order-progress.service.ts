@@ -57,7 +57,14 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
   const ids = list.map((o) => o.id);
   const rows = shippingRepository.travellers(db, ids);
   const steps = shippingRepository.steps(db, ids);
-  const dispatch = new Map(shippingRepository.dispatchFinishes(db, rows.filter((r) => r.kind === 'tray').map((r) => r.id)).map((d) => [d.trayId, d.at]));
+  const dispatch = new Map(
+    shippingRepository
+      .dispatchFinishes(
+        db,
+        rows.filter((r) => r.kind === 'tray').map((r) => r.id),
+      )
+      .map((d) => [d.trayId, d.at]),
+  );
   const shipments = shippingRepository.shipments(db, ids);
   const stepsByOrder = groupBy(steps, (s) => s.orderId);
   const rowsByOrder = groupBy(rows, (r) => r.orderId);
@@ -70,46 +77,57 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
       mould: orderSteps.filter((s) => s.travellerKind === 'mould'),
     };
     const travellers: TravellerInfo[] = (rowsByOrder.get(order.id) ?? []).map((r) => {
-        const phase: TrayPhase = r.writtenOffAt != null ? 'scrapped' : ((r.phase ?? 'waiting') as TrayPhase);
-        const stepSeq = phase === 'done' || WRITTEN_OFF.includes(phase) ? null : (r.stepSeq ?? (r.phase ? null : 1));
-        const own = routing[r.kind];
-        const step = stepSeq == null ? undefined : own.find((s) => s.seq === stepSeq);
-        return {
-          id: r.id,
-          orderId: r.orderId,
-          number: r.number,
-          kind: r.kind,
-          phase,
-          stepSeq,
-          quantity: r.stateQuantity ?? r.quantity,
-          onHold: !!r.onHold,
-          startedAt: r.startedAt ?? null,
-          waitingSince: r.waitingSince ?? null,
-          cureReadyAt: r.cureReadyAt ?? null,
-          lastEventAt: r.lastEventAt ?? null,
-          routing: own.map((s) => ({ seq: s.seq, stationKind: s.stationKind as StationKind })),
-          stepName: step?.name ?? null,
-          stationKind: (step?.stationKind as StationKind | undefined) ?? null,
-        };
-      });
+      const phase: TrayPhase = r.writtenOffAt != null ? 'scrapped' : ((r.phase ?? 'waiting') as TrayPhase);
+      const stepSeq = phase === 'done' || WRITTEN_OFF.includes(phase) ? null : (r.stepSeq ?? (r.phase ? null : 1));
+      const own = routing[r.kind];
+      const step = stepSeq == null ? undefined : own.find((s) => s.seq === stepSeq);
+      return {
+        id: r.id,
+        orderId: r.orderId,
+        number: r.number,
+        kind: r.kind,
+        phase,
+        stepSeq,
+        quantity: r.stateQuantity ?? r.quantity,
+        onHold: !!r.onHold,
+        startedAt: r.startedAt ?? null,
+        waitingSince: r.waitingSince ?? null,
+        cureReadyAt: r.cureReadyAt ?? null,
+        lastEventAt: r.lastEventAt ?? null,
+        routing: own.map((s) => ({ seq: s.seq, stationKind: s.stationKind as StationKind })),
+        stepName: step?.name ?? null,
+        stationKind: (step?.stationKind as StationKind | undefined) ?? null,
+      };
+    });
     const trays = travellers.filter((t) => t.kind === 'tray');
     const verdict = orderShipped(
       trays.map((t) => ({ phase: t.phase, dispatchFinishedAt: dispatch.has(t.id) ? new Date(dispatch.get(t.id) as number).toISOString() : null })),
     );
     const stored = order.status as OrderStatus;
     const status: OrderStatus = stored !== 'cancelled' && verdict.shipped ? 'shipped' : stored;
-    const progressInput: TravellerProgress[] = travellers.map((t) => ({ kind: t.kind, phase: t.phase, stepSeq: t.stepSeq, routing: t.routing, onHold: t.onHold }));
+    const progressInput: TravellerProgress[] = travellers.map((t) => ({
+      kind: t.kind,
+      phase: t.phase,
+      stepSeq: t.stepSeq,
+      routing: t.routing,
+      onHold: t.onHold,
+    }));
     const stage = orderStage({ status, travellers: progressInput });
     const stageText = describeStage({ status, travellers: progressInput });
     const shippedAt = status === 'shipped' ? (order.shippedAt ?? (verdict.shippedAt ? Date.parse(verdict.shippedAt) : null)) : null;
     const measured = options.shipDates?.get(order.id);
     const open = status !== 'shipped' && status !== 'cancelled';
     const projection: ShipDate =
-      options.project === false ? { expectedAt: null, basis: '' } : open && measured ? measured : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone, options.calendar);
+      options.project === false
+        ? { expectedAt: null, basis: '' }
+        : open && measured
+          ? measured
+          : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone, options.calendar);
     const late =
       status === 'shipped'
         ? shippedAt != null && projectedPastDue(shippedAt, order.dueDate, timeZone)
-        : status !== 'cancelled' && (projection.expectedAt != null ? projectedPastDue(projection.expectedAt, order.dueDate, timeZone) : projectedPastDue(now, order.dueDate, timeZone));
+        : status !== 'cancelled' &&
+          (projection.expectedAt != null ? projectedPastDue(projection.expectedAt, order.dueDate, timeZone) : projectedPastDue(now, order.dueDate, timeZone));
     out.set(order.id, {
       order,
       status,

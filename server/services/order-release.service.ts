@@ -23,7 +23,15 @@ const GATE_MESSAGES: Record<OrderGate, string> = {
 };
 
 /** The first state of a traveller just released: waiting for `stepSeq` of its routing. */
-function releasedState(input: { trayId: string; kind: TravellerKind; quantity: number; releasedAt: number; stepSeq: number; routing: readonly RoutingStep[]; now: number }) {
+function releasedState(input: {
+  trayId: string;
+  kind: TravellerKind;
+  quantity: number;
+  releasedAt: number;
+  stepSeq: number;
+  routing: readonly RoutingStep[];
+  now: number;
+}) {
   const first = initialTrayState({ trayId: input.trayId, kind: input.kind, quantity: input.quantity, releasedAt: new Date(input.releasedAt).toISOString() });
   return rowFromState({ ...first, stepSeq: input.stepSeq }, input.routing, input.now);
 }
@@ -124,5 +132,4 @@ export const orderReleaseService = {
     });
     return created;
   },
-
 };

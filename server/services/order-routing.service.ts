@@ -14,14 +14,18 @@ export const orderRoutingService = {
     db.transaction((tx) => {
       const order = getOrder(tx, id);
       refuseIfReleased(order, 'its routing');
-      const steps: RoutingStep[] = body.steps.map((s, i) => ({ ...s, seq: i + 1, cureMinutes: cures(s.stationKind) ? (s.cureMinutes ?? null) : null, colour: s.colour ?? null }));
+      const steps: RoutingStep[] = body.steps.map((s, i) => ({
+        ...s,
+        seq: i + 1,
+        cureMinutes: cures(s.stationKind) ? (s.cureMinutes ?? null) : null,
+        colour: s.colour ?? null,
+      }));
       ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', steps));
       ordersRepository.update(tx, id, { updatedAt: now });
       auditOrder(tx, now, actorId, 'order.routing_edit', id, `Routing edited: ${steps.length} steps`);
     });
     return ordersService.get(deps, id);
   },
-
 
   resetRouting(deps: AppDeps, id: string, actorId: string) {
     const { db } = deps;
@@ -35,5 +39,4 @@ export const orderRoutingService = {
     });
     return ordersService.get(deps, id);
   },
-
 };

@@ -41,7 +41,17 @@ export function specColumns(spec: OrderSpecFields) {
 
 /** The spec fields that shape the routing: a change to one of them makes the routing again. */
 export function routingShape(spec: OrderSpecFields): string {
-  return JSON.stringify([spec.process, spec.colours.length, spec.backLogo, spec.printing, spec.epoxy, spec.backing, spec.plating, spec.secondPlating, spec.sandblast]);
+  return JSON.stringify([
+    spec.process,
+    spec.colours.length,
+    spec.backLogo,
+    spec.printing,
+    spec.epoxy,
+    spec.backing,
+    spec.plating,
+    spec.secondPlating,
+    spec.sandblast,
+  ]);
 }
 
 export function specOf(order: OrderRow): OrderSpecFields {

@@ -131,7 +131,14 @@ function progressOf(deps: AppDeps, rows: { order: OrderRow; customer: string }[]
     contactEmail: null,
   }));
   // ship dates from the projection service (measured queues on the working calendar)
-  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), { project: true, shipDates: shipDateService.measuredShipDates(deps, list.map((o) => o.id)), calendar: calendarService.calendar(deps) });
+  return loadProgress(deps.db, list, deps.now(), shipDateService.timeZone(deps), {
+    project: true,
+    shipDates: shipDateService.measuredShipDates(
+      deps,
+      list.map((o) => o.id),
+    ),
+    calendar: calendarService.calendar(deps),
+  });
 }
 
 // ---------------------------------------------------------------------------------------
@@ -201,16 +208,18 @@ export const ordersService = {
     const firstOfDesign = ordersRepository.firstWithDesign(db, order.designKey);
     const spec = specOf(order);
     const progress = progressOf(deps, [{ order, customer: customer.name }]).get(id);
-    const history = ordersRepository.history(
-      db,
-      id,
-      travellers.map((t) => t.tray.id),
-    ).map(({ entry, by }) => ({
-      at: iso(entry.at)!,
-      action: entry.action,
-      by: by ?? null,
-      text: (entry.detail as { text?: string } | null)?.text ?? entry.action,
-    }));
+    const history = ordersRepository
+      .history(
+        db,
+        id,
+        travellers.map((t) => t.tray.id),
+      )
+      .map(({ entry, by }) => ({
+        at: iso(entry.at)!,
+        action: entry.action,
+        by: by ?? null,
+        text: (entry.detail as { text?: string } | null)?.text ?? entry.action,
+      }));
     return {
       id: order.id,
       number: order.number,
@@ -382,5 +391,4 @@ export const ordersService = {
     });
     return ordersService.get(deps, id);
   },
-
 };

@@ -69,7 +69,8 @@ export const paymentsService = {
   async createCheckout(deps: AppDeps, order: OrderRow, returnUrl: string): Promise<CheckoutAnswer> {
     const payments = paymentsOf(deps);
     if (order.status === 'cancelled') throw conflict('order_cancelled', 'This order is cancelled; nothing is to be paid.');
-    if (!PRE_RELEASE_STATUSES.includes(order.status as OrderStatus) && order.releasedAt == null) throw conflict('not_payable', 'This order cannot be paid online now.');
+    if (!PRE_RELEASE_STATUSES.includes(order.status as OrderStatus) && order.releasedAt == null)
+      throw conflict('not_payable', 'This order cannot be paid online now.');
     const gate = paymentGateOf(deps.db, order);
     if (gate.required == null) throw conflict('no_price', 'This order has no agreed price here yet; your contact at the factory will tell you the amount.');
     if (!gate.amountDue || gate.amountDue <= 0) throw conflict('nothing_due', 'Nothing is due on this order: the payment is complete.');
@@ -149,7 +150,16 @@ export const paymentsService = {
       const recorded = deps.db.transaction((tx) => {
         if (paymentsRepository.byEventId(tx, event.id)) return false;
         if (!paymentsRepository.completeSession(tx, session.id, now)) return false;
-        return recordPaymentIn(tx, now, { orderId: ours.orderId, amount, currency, reference, source: 'checkout', eventId: event.id, recordedBy: null, note: `checkout session ${session.id}` });
+        return recordPaymentIn(tx, now, {
+          orderId: ours.orderId,
+          amount,
+          currency,
+          reference,
+          source: 'checkout',
+          eventId: event.id,
+          recordedBy: null,
+          note: `checkout session ${session.id}`,
+        });
       });
       return { received: true, recorded };
     } catch (err) {

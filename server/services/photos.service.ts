@@ -8,7 +8,6 @@ import { notFound } from '../errors';
 import { readFile } from '../lib/file-store';
 import type { TrayPhotoView } from '@shared/schemas/payments';
 
-
 export const photosService = {
   ofTray(deps: AppDeps, trayId: string): TrayPhotoView[] {
     if (!traysRepository.byId(deps.db, trayId)) throw notFound('That tray');
@@ -37,7 +36,13 @@ export const photosService = {
     const now = deps.now();
     deps.db.transaction((tx) => {
       portalRepository.setShareable(tx, id, shareable, actorId, now);
-      auditRepository.record(tx, now, { userId: actorId, action: shareable ? 'photo.share' : 'photo.unshare', entity: 'tray', entityId: photo.trayId, detail: { text: shareable ? 'QC photo shown to the customer' : 'QC photo no longer shown to the customer', photoId: id } });
+      auditRepository.record(tx, now, {
+        userId: actorId,
+        action: shareable ? 'photo.share' : 'photo.unshare',
+        entity: 'tray',
+        entityId: photo.trayId,
+        detail: { text: shareable ? 'QC photo shown to the customer' : 'QC photo no longer shown to the customer', photoId: id },
+      });
     });
     return photosService.ofTray(deps, photo.trayId).find((p) => p.id === id)!;
   },

@@ -91,7 +91,8 @@ export const portalService = {
         comment,
         orderUrl: `${deps.env.publicUrl.replace(/\/$/, '')}/orders/${row.id}`,
       });
-      for (const p of planners) enqueueMail(tx, now, { kind: 'proof_changes', to: p.email, ...m, orderId: row.id, dedupeKey: `proof-changes:${row.id}:${revision}:${now}:${p.id}` });
+      for (const p of planners)
+        enqueueMail(tx, now, { kind: 'proof_changes', to: p.email, ...m, orderId: row.id, dedupeKey: `proof-changes:${row.id}:${revision}:${now}:${p.id}` });
     });
     kickMail(deps);
     notifyFloorChanged(deps);

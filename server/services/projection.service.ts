@@ -60,7 +60,15 @@ export function floorSnapshot(deps: AppDeps, now: number): { snapshot: FloorSnap
   const routingOf = new Map<string, { tray: RoutingStep[]; mould: RoutingStep[] }>();
   for (const st of steps) {
     const r = routingOf.get(st.orderId) ?? routingOf.set(st.orderId, { tray: [], mould: [] }).get(st.orderId)!;
-    r[st.kind].push({ seq: st.seq, name: st.name, stationKind: st.stationKind as StationKind, trayMinutes: st.trayMinutes, pieceMinutes: st.pieceMinutes, cureMinutes: st.cureMinutes, colour: st.colour });
+    r[st.kind].push({
+      seq: st.seq,
+      name: st.name,
+      stationKind: st.stationKind as StationKind,
+      trayMinutes: st.trayMinutes,
+      pieceMinutes: st.pieceMinutes,
+      cureMinutes: st.cureMinutes,
+      colour: st.colour,
+    });
   }
   const since = now - HISTORY_DAYS * DAY;
   const runs = repo.runsSince(db, since).map((r) => ({
@@ -93,7 +101,19 @@ export function modelOf(deps: AppDeps, snapshot: FloorSnapshot, cal: WorkingCale
 const formatters = new Map<string, Intl.DateTimeFormat>();
 function fmt(tz: string, ms: number): string {
   let f = formatters.get(tz);
-  if (!f) formatters.set(tz, (f = new Intl.DateTimeFormat('en-GB', { timeZone: tz, weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })));
+  if (!f)
+    formatters.set(
+      tz,
+      (f = new Intl.DateTimeFormat('en-GB', {
+        timeZone: tz,
+        weekday: 'short',
+        day: 'numeric',
+        month: 'short',
+        hour: '2-digit',
+        minute: '2-digit',
+        hourCycle: 'h23',
+      })),
+    );
   return f.format(ms);
 }
 
@@ -105,7 +125,9 @@ function hours(min: number): string {
 function explain(tz: string, p: OrderOutlook): string {
   if (p.expectedAt === null) return 'No trays on the floor yet, so there is nothing to project.';
   if (p.traysOpen === 0) return 'Every tray has finished its steps.';
-  const waits = p.drivingKind ? ` The longest waiting is at ${STATION_KIND_NAMES[p.drivingKind as StationKind] ?? p.drivingKind} (about ${hours(p.drivingWaitMinutes)} a run).` : '';
+  const waits = p.drivingKind
+    ? ` The longest waiting is at ${STATION_KIND_NAMES[p.drivingKind as StationKind] ?? p.drivingKind} (about ${hours(p.drivingWaitMinutes)} a run).`
+    : '';
   return (
     `Expected ${fmt(tz, p.expectedAt)}, and by ${fmt(tz, p.p85At ?? p.expectedAt)} in 85 of ${p.runs} simulated runs of the whole floor: ` +
     `every open tray competes for the stations' places, with handover, hold and process times measured over the last ${HISTORY_DAYS} days, on the working calendar. ` +
@@ -160,7 +182,9 @@ function historyRow(p: OrderOutlook, reason: ProjectionHistoryRow['reason'], now
 function keepDaily(deps: AppDeps, outlooks: Map<string, OrderOutlook>, now: number, timeZone: string) {
   try {
     const kept = history.ordersWithDailyRow(deps.db, localDate(timeZone, now));
-    const rows = [...outlooks.values()].filter((p) => p.traysOpen > 0 && p.expectedAt != null && !kept.has(p.orderId)).map((p) => historyRow(p, 'daily', now, timeZone));
+    const rows = [...outlooks.values()]
+      .filter((p) => p.traysOpen > 0 && p.expectedAt != null && !kept.has(p.orderId))
+      .map((p) => historyRow(p, 'daily', now, timeZone));
     history.insertIgnoring(deps.db, rows);
   } catch (err) {
     // the dates on the screen matter more than their history: never fail a projection for it

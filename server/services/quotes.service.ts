@@ -24,7 +24,14 @@ import { priceQuote, type QuotePricing } from '@shared/domain/costing';
 import { expandRouting, requiredMoulds } from '@shared/domain/routing';
 import { DAY, localDate } from '@shared/domain/calendar';
 import type { RoutingStep } from '@shared/domain/vocabulary';
-import { costingSettingsPatchSchema, costingSettingsSchema, DEFAULT_COSTING_SETTINGS, mergeCostingSettings, type CostingSettings, type CostingSettingsPatch } from '@shared/schemas/costing';
+import {
+  costingSettingsPatchSchema,
+  costingSettingsSchema,
+  DEFAULT_COSTING_SETTINGS,
+  mergeCostingSettings,
+  type CostingSettings,
+  type CostingSettingsPatch,
+} from '@shared/schemas/costing';
 import {
   publicQuoteSchema,
   type AcceptQuoteBody,
@@ -162,13 +169,24 @@ function view(deps: AppDeps, q: QuoteRow): QuoteView {
     mouldCharge: pricing.mouldCharge,
     lines: pricing.lines.map((l, i): QuoteLineView => ({ ...l, shipDates: dates[i] })),
     shipDateBasis: SHIP_DATE_BASIS,
-    versions: quotesRepository.versions(db, q.id).map(({ v: x, by }) => ({ version: x.version, createdAt: iso(x.createdAt)!, createdBy: by ?? null, quantities: x.quantities, validUntil: x.validUntil })),
+    versions: quotesRepository
+      .versions(db, q.id)
+      .map(({ v: x, by }) => ({ version: x.version, createdAt: iso(x.createdAt)!, createdBy: by ?? null, quantities: x.quantities, validUntil: x.validUntil })),
     sentAt: iso(q.sentAt),
     accepted:
       q.orderId && order
-        ? { orderId: q.orderId, orderNumber: order.number, quantity: q.acceptedQuantity!, version: q.acceptedVersion!, name: q.acceptedName ?? '', at: iso(q.acceptedAt)! }
+        ? {
+            orderId: q.orderId,
+            orderNumber: order.number,
+            quantity: q.acceptedQuantity!,
+            version: q.acceptedVersion!,
+            name: q.acceptedName ?? '',
+            at: iso(q.acceptedAt)!,
+          }
         : null,
-    links: shareLinksRepository.forQuote(db, q.id).map((l) => ({ id: l.id, createdAt: iso(l.createdAt)!, revokedAt: iso(l.revokedAt), lastOpenedAt: iso(l.lastOpenedAt) })),
+    links: shareLinksRepository
+      .forQuote(db, q.id)
+      .map((l) => ({ id: l.id, createdAt: iso(l.createdAt)!, revokedAt: iso(l.revokedAt), lastOpenedAt: iso(l.lastOpenedAt) })),
     createdAt: iso(q.createdAt)!,
     updatedAt: iso(q.updatedAt)!,
   };
@@ -180,7 +198,11 @@ export const quotesService = {
   saveSettings(deps: AppDeps, patch: CostingSettingsPatch, userId: string): CostingSettings {
     const merged = mergeCostingSettings(costingSettings(deps.db), patch);
     const checked = costingSettingsSchema.safeParse(merged);
-    if (!checked.success) throw badInput('Those rates do not fit together.', checked.error.issues.map((i) => ({ path: i.path as (string | number)[], message: i.message })));
+    if (!checked.success)
+      throw badInput(
+        'Those rates do not fit together.',
+        checked.error.issues.map((i) => ({ path: i.path as (string | number)[], message: i.message })),
+      );
     const now = deps.now();
     deps.db.transaction((tx) => {
       quotesRepository.saveCostingSettings(tx, checked.data);
@@ -269,7 +291,8 @@ export const quotesService = {
     const q = getQuote(deps.db, id);
     const v = currentVersion(deps.db, q);
     if (q.orderId) throw conflict('quote_accepted', `Quote ${q.number} is already accepted.`);
-    if (v.validUntil < todayIn(deps)) throw conflict('quote_expired', `Quote ${q.number} expired on ${v.validUntil}. Make a new version with a later date first.`);
+    if (v.validUntil < todayIn(deps))
+      throw conflict('quote_expired', `Quote ${q.number} expired on ${v.validUntil}. Make a new version with a later date first.`);
     const pdf = await quotesService.pdf(deps, id);
     const stored = putFile(deps.env.dataDir, pdf);
     const factory = shippingRepository.factory(deps.db);
@@ -279,9 +302,20 @@ export const quotesService = {
       const l = createQuoteLinkIn(tx, deps, id, userId);
       const filename = `quote-${q.number}-v${q.currentVersion}.pdf`;
       const m = quoteSentMail({ factory: factory.name, number: q.number, title: spec.title, contactName: q.contactName, validUntil: v.validUntil, url: l.url });
-      enqueueMail(tx, now, { kind: 'quote_sent', to: q.contactEmail, ...m, attachments: [{ filename, contentType: 'application/pdf', fileHash: stored.hash }] });
+      enqueueMail(tx, now, {
+        kind: 'quote_sent',
+        to: q.contactEmail,
+        ...m,
+        attachments: [{ filename, contentType: 'application/pdf', fileHash: stored.hash }],
+      });
       quotesRepository.update(tx, id, { sentAt: now, updatedAt: now });
-      auditRepository.record(tx, now, { userId, action: 'quote.send', entity: 'quote', entityId: id, detail: { to: q.contactEmail, version: q.currentVersion } });
+      auditRepository.record(tx, now, {
+        userId,
+        action: 'quote.send',
+        entity: 'quote',
+        entityId: id,
+        detail: { to: q.contactEmail, version: q.currentVersion },
+      });
       return l;
     });
     kickMail(deps);
@@ -352,11 +386,19 @@ export const quotesService = {
     return deps.db.transaction((tx) => {
       const link = quoteLinkOf(tx, token);
       const q = getQuote(tx, link.quoteId);
-      if (q.orderId) throw conflict('quote_accepted', `Quote ${q.number} was already accepted${q.acceptedName ? ` by ${q.acceptedName}` : ''}. Use the order link you were given then.`);
+      if (q.orderId)
+        throw conflict(
+          'quote_accepted',
+          `Quote ${q.number} was already accepted${q.acceptedName ? ` by ${q.acceptedName}` : ''}. Use the order link you were given then.`,
+        );
       const v = currentVersion(tx, q);
       if (v.validUntil < todayIn(deps)) throw conflict('quote_expired', `This quote was valid until ${v.validUntil}. Ask us for a new one.`);
       if (!v.quantities.includes(body.quantity)) {
-        throw badInput(`Choose one of the quoted quantities: ${v.quantities.join(', ')}.`, [{ path: ['quantity'], message: 'Not a quoted quantity' }], 'quantity_not_quoted');
+        throw badInput(
+          `Choose one of the quoted quantities: ${v.quantities.join(', ')}.`,
+          [{ path: ['quantity'], message: 'Not a quoted quantity' }],
+          'quantity_not_quoted',
+        );
       }
       const spec = v.spec as QuoteSpec;
       const p85 = shipDates(deps, spec, [body.quantity])[0];
@@ -371,7 +413,16 @@ export const quotesService = {
         null,
       );
       const order = ordersRepository.byId(tx, orderId)!;
-      if (!quotesRepository.markAccepted(tx, q.id, { orderId, acceptedVersion: v.version, acceptedQuantity: body.quantity, acceptedName: body.name, acceptedAt: now, updatedAt: now })) {
+      if (
+        !quotesRepository.markAccepted(tx, q.id, {
+          orderId,
+          acceptedVersion: v.version,
+          acceptedQuantity: body.quantity,
+          acceptedName: body.name,
+          acceptedAt: now,
+          updatedAt: now,
+        })
+      ) {
         throw conflict('quote_accepted', `Quote ${q.number} was already accepted.`);
       }
       shippingRepository.setCustomerContact(tx, q.customerId, { contactEmail: q.contactEmail, ...(q.contactName ? { contactName: q.contactName } : {}) }, now);
@@ -382,9 +433,20 @@ export const quotesService = {
         action: 'quote.accept',
         entity: 'quote',
         entityId: q.id,
-        detail: { text: `Quote ${q.number} v${v.version} accepted by ${body.name} for ${body.quantity} pieces`, orderId, quantity: body.quantity, name: body.name },
+        detail: {
+          text: `Quote ${q.number} v${v.version} accepted by ${body.name} for ${body.quantity} pieces`,
+          orderId,
+          quantity: body.quantity,
+          name: body.name,
+        },
       });
-      auditRepository.record(tx, now, { userId: null, action: 'order.from_quote', entity: 'order', entityId: orderId, detail: { text: `Made from quote ${q.number} v${v.version}, accepted by ${body.name}`, quoteId: q.id } });
+      auditRepository.record(tx, now, {
+        userId: null,
+        action: 'order.from_quote',
+        entity: 'order',
+        entityId: orderId,
+        detail: { text: `Made from quote ${q.number} v${v.version}, accepted by ${body.name}`, quoteId: q.id },
+      });
       return { orderId, number: order.number, statusToken: status.token };
     });
   },

@@ -9,15 +9,7 @@ import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } fr
 import { countPerBucket, cumulativeFlowOfItems, flowEfficiency, makeBuckets, wipOverTime } from '@shared/domain/flow';
 import { pareto, rolledThroughputYield, stepYield, type StepCounts } from '@shared/domain/yield';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
-import type {
-  CycleTimeReport,
-  FlowReport,
-  LeadTimeReport,
-  OnTimeReport,
-  ReportQuery,
-  ReportWindow,
-  YieldReport,
-} from '@shared/schemas/reports';
+import type { CycleTimeReport, FlowReport, LeadTimeReport, OnTimeReport, ReportQuery, ReportWindow, YieldReport } from '@shared/schemas/reports';
 
 const H = 3_600_000;
 const MIN = 60_000;
@@ -110,7 +102,10 @@ export const reportsService = {
     type Pair = { calendar: Summary; working: Summary };
     const queue = new Map<string, Pair>();
     const process = new Map<string, Pair>();
-    const pair = (v: { calendar: Float64Array; working: Float64Array }): Pair => ({ calendar: roundSummary(summarize(v.calendar)), working: roundSummary(summarize(v.working)) });
+    const pair = (v: { calendar: Float64Array; working: Float64Array }): Pair => ({
+      calendar: roundSummary(summarize(v.calendar)),
+      working: roundSummary(summarize(v.working)),
+    });
     for (const kind of STATION_KINDS) {
       const q = repo.cycleValues(deps.db, w.filter, kind, 'queue');
       const p = repo.cycleValues(deps.db, w.filter, kind, 'process');
@@ -127,7 +122,13 @@ export const reportsService = {
       .map((stationKind) => {
         const p = process.get(stationKind);
         const q = queue.get(stationKind);
-        return { stationKind, process: p?.calendar ?? empty, queue: q?.calendar ?? empty, processWorking: p?.working ?? empty, queueWorking: q?.working ?? empty };
+        return {
+          stationKind,
+          process: p?.calendar ?? empty,
+          queue: q?.calendar ?? empty,
+          processWorking: p?.working ?? empty,
+          queueWorking: q?.working ?? empty,
+        };
       });
 
     // Flow efficiency in one unit at a time: process over flow in working minutes of the factory
@@ -145,7 +146,13 @@ export const reportsService = {
     }
     const figures = (processMinutes: number, cureMinutes: number, flowMinutes: number) => {
       const fe = flowEfficiency({ processMinutes, cureMinutes, flowMinutes });
-      return { processMinutes: r2(processMinutes), cureMinutes: r2(cureMinutes), flowMinutes: r2(flowMinutes), flowEfficiency: r4(fe.flowEfficiency), cureShare: r4(fe.cureShare) };
+      return {
+        processMinutes: r2(processMinutes),
+        cureMinutes: r2(cureMinutes),
+        flowMinutes: r2(flowMinutes),
+        flowEfficiency: r4(fe.flowEfficiency),
+        cureShare: r4(fe.cureShare),
+      };
     };
     return {
       window: w.info,
@@ -181,7 +188,14 @@ export const reportsService = {
       if (t.phase === 'merged' && t.mergedIntoId) {
         const target = byId.get(t.mergedIntoId);
         if (!target) return;
-        m = { ...t, started: t.started ?? target.started, inspected: t.inspected ?? target.inspected, packed: t.packed ?? target.packed, shipped: target.shipped, shippedQty: 0 };
+        m = {
+          ...t,
+          started: t.started ?? target.started,
+          inspected: t.inspected ?? target.inspected,
+          packed: t.packed ?? target.packed,
+          shipped: target.shipped,
+          shippedQty: 0,
+        };
       }
       rows.push(Float64Array.of(t.releasedAt, m.started ?? Number.NaN, m.inspected ?? Number.NaN, m.packed ?? Number.NaN, m.shipped ?? Number.NaN));
       if (m.shipped != null) {
@@ -189,7 +203,11 @@ export const reportsService = {
         exitQty[k] = m.shippedQty ?? 0;
       }
     });
-    const cfd = cumulativeFlowOfItems(rows, FLOW_STAGES.length, buckets.map((b) => Math.min(b.end, end)));
+    const cfd = cumulativeFlowOfItems(
+      rows,
+      FLOW_STAGES.length,
+      buckets.map((b) => Math.min(b.end, end)),
+    );
     // trays already shipped before the window are not in `trays`: every line starts from that base
     const shippedTimes = Array.from(exitAt).filter((x) => !Number.isNaN(x));
     const trayCounts = countPerBucket(shippedTimes, buckets);
@@ -206,7 +224,7 @@ export const reportsService = {
     const wip = wipOverTime(
       trays.map((t, k) => ({
         start: t.releasedAt,
-        end: !Number.isNaN(exitAt[k]) ? exitAt[k] : (t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null),
+        end: !Number.isNaN(exitAt[k]) ? exitAt[k] : t.phase === 'scrapped' || t.phase === 'done' || t.phase === 'merged' ? (t.lastEventAt ?? null) : null,
       })),
       buckets,
       end,
@@ -324,7 +342,18 @@ export const reportsCsv = {
   leadTime(r: LeadTimeReport): string {
     return csv(
       ['order', 'customer', 'title', 'process', 'released_at', 'shipped_at', 'calendar_hours', 'working_hours', 'due_date', 'on_time'],
-      r.orders.map((o) => [o.number, o.customer, o.title, o.process, o.releasedAt, o.shippedAt, o.calendarHours, o.workingHours, o.dueDate, o.onTime ? 'yes' : 'no']),
+      r.orders.map((o) => [
+        o.number,
+        o.customer,
+        o.title,
+        o.process,
+        o.releasedAt,
+        o.shippedAt,
+        o.calendarHours,
+        o.workingHours,
+        o.dueDate,
+        o.onTime ? 'yes' : 'no',
+      ]),
     );
   },
   cycleTime(r: CycleTimeReport): string {
@@ -348,12 +377,38 @@ export const reportsCsv = {
   },
   yield(r: YieldReport): string {
     const rows: Cell[][] = [
-      ...r.steps.map((x) => ['step', x.stationKind, x.inQty, x.firstPassQty, x.goodQty, x.scrapQty, x.reworkQty, x.firstPassYield, x.finalYield, null, null, null]),
+      ...r.steps.map((x) => [
+        'step',
+        x.stationKind,
+        x.inQty,
+        x.firstPassQty,
+        x.goodQty,
+        x.scrapQty,
+        x.reworkQty,
+        x.firstPassYield,
+        x.finalYield,
+        null,
+        null,
+        null,
+      ]),
       ...r.orders.map((o) => ['order', o.number, o.inQty, null, o.goodQty, null, o.reworkQty, null, o.finalYield, o.rolledThroughputYield, null, null]),
       ...r.scrap.map((x) => ['scrap', x.reason, null, null, null, x.qty, null, null, null, null, x.share, x.cumulativeShare]),
     ];
     return csv(
-      ['section', 'name', 'in_qty', 'first_pass_qty', 'good_qty', 'scrap_qty', 'rework_qty', 'first_pass_yield', 'final_yield', 'rolled_throughput_yield', 'scrap_share', 'cumulative_share'],
+      [
+        'section',
+        'name',
+        'in_qty',
+        'first_pass_qty',
+        'good_qty',
+        'scrap_qty',
+        'rework_qty',
+        'first_pass_yield',
+        'final_yield',
+        'rolled_throughput_yield',
+        'scrap_share',
+        'cumulative_share',
+      ],
       rows,
     );
   },

@@ -20,13 +20,18 @@ export const routingTemplatesService = {
     });
   },
 
-
   saveTemplate(deps: AppDeps, process: Process, template: RoutingTemplate, actorId: string) {
     if (template.process !== process) throw badInput('The template is for another process.', [{ path: ['process'], message: 'Does not match the path' }]);
     const now = deps.now();
     deps.db.transaction((tx) => {
       ordersRepository.saveTemplate(tx, { process, name: template.name, template, updatedAt: now, updatedBy: actorId });
-      auditRepository.record(tx, now, { userId: actorId, action: 'routing_template.update', entity: 'routing_template', entityId: process, detail: { steps: template.steps.length } });
+      auditRepository.record(tx, now, {
+        userId: actorId,
+        action: 'routing_template.update',
+        entity: 'routing_template',
+        entityId: process,
+        detail: { steps: template.steps.length },
+      });
     });
     return routingTemplatesService.listTemplates(deps).find((t) => t.process === process)!;
   },

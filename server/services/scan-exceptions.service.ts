@@ -17,30 +17,32 @@ export const scanExceptionsService = {
   /** Refused scans for supervisors (open first-class; `open=false` for the resolved history). */
   exceptions(deps: AppDeps, filter: { open?: boolean; deviceId?: string; sinceHours?: number; limit?: number }) {
     const since = filter.sinceHours ? deps.now() - filter.sinceHours * 3600_000 : undefined;
-    return scansRepository.rejections(deps.db, { open: filter.open, deviceId: filter.deviceId, since, limit: filter.limit ?? 200 }).map(({ r, trayNumber, stationName, stationKind, userName }) => {
-      const payload = (r.payload ?? {}) as { event?: Partial<ScanEvent>; params?: Record<string, string | number | null> };
-      return {
-        id: r.id,
-        eventId: r.eventId,
-        code: r.code as RejectionCode,
-        message: r.message,
-        params: payload.params ?? {},
-        type: payload.event?.type ?? null,
-        scannedCode: typeof payload.event?.code === 'string' ? payload.event.code : null,
-        trayId: r.trayId,
-        trayNumber,
-        stationId: r.stationId,
-        stationName,
-        stationKind,
-        operatorId: r.userId,
-        operatorName: userName,
-        deviceId: r.deviceId,
-        occurredAt: iso(r.occurredAt),
-        receivedAt: iso(r.receivedAt)!,
-        resolvedAt: iso(r.resolvedAt),
-        resolution: r.resolution,
-      };
-    });
+    return scansRepository
+      .rejections(deps.db, { open: filter.open, deviceId: filter.deviceId, since, limit: filter.limit ?? 200 })
+      .map(({ r, trayNumber, stationName, stationKind, userName }) => {
+        const payload = (r.payload ?? {}) as { event?: Partial<ScanEvent>; params?: Record<string, string | number | null> };
+        return {
+          id: r.id,
+          eventId: r.eventId,
+          code: r.code as RejectionCode,
+          message: r.message,
+          params: payload.params ?? {},
+          type: payload.event?.type ?? null,
+          scannedCode: typeof payload.event?.code === 'string' ? payload.event.code : null,
+          trayId: r.trayId,
+          trayNumber,
+          stationId: r.stationId,
+          stationName,
+          stationKind,
+          operatorId: r.userId,
+          operatorName: userName,
+          deviceId: r.deviceId,
+          occurredAt: iso(r.occurredAt),
+          receivedAt: iso(r.receivedAt)!,
+          resolvedAt: iso(r.resolvedAt),
+          resolution: r.resolution,
+        };
+      });
   },
 
   /** A supervisor closes a refused scan with what was done about it. */

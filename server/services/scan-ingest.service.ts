@@ -64,7 +64,6 @@ export function addScanHook(deps: Pick<AppDeps, 'db'>, hook: ScanHook): () => vo
   };
 }
 
-
 export function traySummary(tray: TrayRow, state: TrayState, routing: readonly RoutingStep[]): ScanTray {
   const step = state.stepSeq == null ? undefined : routing.find((r) => r.seq === state.stepSeq);
   return {
@@ -139,7 +138,11 @@ export class BatchData {
   }
 
   loadOverrides(ids: string[]) {
-    for (const o of scansRepository.overridesByIds(this.db, ids.filter((id) => !this.overrides.has(id)))) this.overrides.set(o.id, o);
+    for (const o of scansRepository.overridesByIds(
+      this.db,
+      ids.filter((id) => !this.overrides.has(id)),
+    ))
+      this.overrides.set(o.id, o);
   }
 
   routing(tray: TrayRow): RoutingStep[] {
@@ -181,7 +184,12 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
     const number = parseTravellerCode(event.code)?.number;
     const tray = number ? (data.traysByNumber.get(number) ?? null) : null;
     return {
-      result: { ok: false, code: 'station_not_allowed', params: { stationId: station.id, stationName: station.name, tabletStationId: p.tabletStation, tabletStationName: own?.name ?? null }, overridable: false },
+      result: {
+        ok: false,
+        code: 'station_not_allowed',
+        params: { stationId: station.id, stationName: station.name, tabletStationId: p.tabletStation, tabletStationName: own?.name ?? null },
+        overridable: false,
+      },
       tray,
       before: tray ? (data.states.get(tray.id) ?? null) : null,
       override: null,
@@ -195,7 +203,8 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
   if (!parsed || !tray) verdict = { status: 'unknown' };
   else {
     if (parsed.form === 'qr' && !macValid(data.travellerKey, event.code, parsed)) verdict = { status: 'forged' };
-    else if (parsed.form === 'qr' && parsed.revision !== tray.revision) verdict = { status: 'void', currentRevision: tray.revision, currentNumber: tray.number };
+    else if (parsed.form === 'qr' && parsed.revision !== tray.revision)
+      verdict = { status: 'void', currentRevision: tray.revision, currentNumber: tray.number };
   }
   const before = tray ? data.states.get(tray.id)! : null;
 
@@ -204,8 +213,21 @@ function evaluate(data: BatchData, p: PreparedEvent, now: number): Evaluated {
     const o = data.overrides.get(event.overrideId);
     // One traveller, one station, once, before it expires; the guard checks it names the guard passed.
     const usable =
-      o && tray && o.trayId === tray.id && o.stationId === event.stationId && o.expiresAt >= now && (!o.usedEventId || o.usedEventId === event.id) && !data.usedOverrides.has(o.id);
-    if (!usable) return { result: { ok: false, code: 'bad_override', params: { reason: 'invalid' }, overridable: false }, tray, before, override: null, stationKind: station.kind };
+      o &&
+      tray &&
+      o.trayId === tray.id &&
+      o.stationId === event.stationId &&
+      o.expiresAt >= now &&
+      (!o.usedEventId || o.usedEventId === event.id) &&
+      !data.usedOverrides.has(o.id);
+    if (!usable)
+      return {
+        result: { ok: false, code: 'bad_override', params: { reason: 'invalid' }, overridable: false },
+        tray,
+        before,
+        override: null,
+        stationKind: station.kind,
+      };
     override = { id: o.id, supervisorId: o.supervisorId, reason: o.reason, kind: o.kind };
   }
 
@@ -292,9 +314,18 @@ export function refusalResult(id: string, e: Evaluated, data: BatchData): ScanRe
   };
 }
 
-function rejectionRow(p: PreparedEvent | null, raw: unknown, e: Evaluated | null, code: RejectionCode, params: Record<string, unknown>, deviceId: string | null, userId: string | null, now: number): RejectionInsert {
+function rejectionRow(
+  p: PreparedEvent | null,
+  raw: unknown,
+  e: Evaluated | null,
+  code: RejectionCode,
+  params: Record<string, unknown>,
+  deviceId: string | null,
+  userId: string | null,
+  now: number,
+): RejectionInsert {
   const event = p?.event;
-  const rawId = typeof (raw as { id?: unknown })?.id === 'string' ? ((raw as { id: string }).id.slice(0, 100)) : '';
+  const rawId = typeof (raw as { id?: unknown })?.id === 'string' ? (raw as { id: string }).id.slice(0, 100) : '';
   const occurred = event ? Date.parse(event.occurredAt) : NaN;
   return {
     id: crypto.randomUUID(),
@@ -332,7 +363,6 @@ function resolveOperators(db: DbLike, events: ScanEvent[], caller: ScanCaller): 
   }
   return out;
 }
-
 
 type ParsedEvent = { raw: unknown; event: ScanEvent; issues?: undefined } | { raw: unknown; event: null; issues: string[] };
 
@@ -447,7 +477,14 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
           action: 'scan.override',
           entity: 'tray',
           entityId: e.tray!.id,
-          detail: { eventId: event.id, kind: e.override.kind, overridden: ok.facts.overridden, stationId: event.stationId, reason: e.override.reason, operatorId: prepared.operator!.id },
+          detail: {
+            eventId: event.id,
+            kind: e.override.kind,
+            overridden: ok.facts.overridden,
+            stationId: event.stationId,
+            reason: e.override.reason,
+            operatorId: prepared.operator!.id,
+          },
         });
       }
       accepted.push(acceptedScan(e.tray!, event, e.stationKind!, ok.next));
@@ -482,7 +519,16 @@ function processBatch(tx: DbLike, deps: AppDeps, parsed: ParsedEvent[], caller: 
 }
 
 function acceptedScan(tray: TrayRow, event: ScanEvent, stationKind: StationKind, state: TrayState): AcceptedScan {
-  return { eventId: event.id, trayId: tray.id, orderId: tray.orderId, type: event.type, stationId: event.stationId, stationKind, occurredAt: Date.parse(event.occurredAt), state };
+  return {
+    eventId: event.id,
+    trayId: tray.id,
+    orderId: tray.orderId,
+    type: event.type,
+    stationId: event.stationId,
+    stationKind,
+    occurredAt: Date.parse(event.occurredAt),
+    state,
+  };
 }
 
 /** The event a refusal kept, when it is a well-formed one. */

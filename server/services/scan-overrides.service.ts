@@ -15,7 +15,11 @@ export const OVERRIDE_MINUTES = 15;
 
 export const scanOverridesService = {
   /** A supervisor's badge and PIN on the tablet, and a reason: lets one scan of one tray through. */
-  async createOverride(deps: AppDeps, input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: OverrideKind }, caller: { device: DeviceAuth | null; userId: string | null }) {
+  async createOverride(
+    deps: AppDeps,
+    input: { badge: string; pin: string; reason: string; code: string; stationId: string; kind: OverrideKind },
+    caller: { device: DeviceAuth | null; userId: string | null },
+  ) {
     const supervisor = await authService.verifySupervisorBadge(deps, input.badge, input.pin, caller);
     if (caller.device && caller.device.stationId !== input.stationId) {
       throw conflict('station_not_allowed', 'This tablet can approve scans only at its own station. Approve it on the tablet at that station.');
@@ -36,8 +40,20 @@ export const scanOverridesService = {
         createdAt: now,
         expiresAt: now + OVERRIDE_MINUTES * 60_000,
       });
-      auditRepository.record(tx, now, { userId: supervisor.id, action: 'override.create', entity: 'tray', entityId: tray.id, detail: { kind: input.kind, reason: input.reason, stationId: input.stationId } });
+      auditRepository.record(tx, now, {
+        userId: supervisor.id,
+        action: 'override.create',
+        entity: 'tray',
+        entityId: tray.id,
+        detail: { kind: input.kind, reason: input.reason, stationId: input.stationId },
+      });
     });
-    return { id, kind: input.kind, stationId: input.stationId, supervisor: { id: supervisor.id, name: supervisor.name }, expiresAt: new Date(now + OVERRIDE_MINUTES * 60_000).toISOString() };
+    return {
+      id,
+      kind: input.kind,
+      stationId: input.stationId,
+      supervisor: { id: supervisor.id, name: supervisor.name },
+      expiresAt: new Date(now + OVERRIDE_MINUTES * 60_000).toISOString(),
+    };
   },
 };

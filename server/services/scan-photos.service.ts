@@ -16,13 +16,18 @@ export const scanPhotosService = {
    * read from its content and the picture decoded in full, like a proof; what the browser
    * declares is ignored. The operator named by a tablet with nobody signed in must be an active user.
    */
-  async addPhoto(deps: AppDeps, input: { code: string; eventId?: string; file: { buffer: Buffer; originalname?: string; size: number }; operatorId?: string }, userId: string | null) {
+  async addPhoto(
+    deps: AppDeps,
+    input: { code: string; eventId?: string; file: { buffer: Buffer; originalname?: string; size: number }; operatorId?: string },
+    userId: string | null,
+  ) {
     if (input.file.size === 0 || input.file.buffer.length === 0) throw badInput('The photo is empty: take it again.', undefined, 'empty_file');
     const name = checkUploadName(input.file.originalname || 'photo.jpg');
     let createdBy = userId;
     if (!createdBy && input.operatorId) {
       const operator = usersRepository.byId(deps.db, input.operatorId);
-      if (!operator || !operator.active) throw badInput('The operator named with this photo is not an active user. Sign in again and retake it.', undefined, 'unknown_operator');
+      if (!operator || !operator.active)
+        throw badInput('The operator named with this photo is not an active user. Sign in again and retake it.', undefined, 'unknown_operator');
       createdBy = operator.id;
     }
     const parsed = parseTravellerCode(input.code);
@@ -31,7 +36,16 @@ export const scanPhotosService = {
     const { mime } = await decodeUpload(input.file.buffer, name, ['image/jpeg', 'image/png']);
     const { hash, sizeBytes } = putFile(deps.env.dataDir, input.file.buffer);
     const id = crypto.randomUUID();
-    scansRepository.insertAttachment(deps.db, { id, trayId: tray.id, eventId: input.eventId ?? null, fileHash: hash, mime, sizeBytes, createdBy, createdAt: deps.now() });
+    scansRepository.insertAttachment(deps.db, {
+      id,
+      trayId: tray.id,
+      eventId: input.eventId ?? null,
+      fileHash: hash,
+      mime,
+      sizeBytes,
+      createdBy,
+      createdAt: deps.now(),
+    });
     return { id, trayId: tray.id, hash };
   },
 

@@ -41,7 +41,14 @@ export function statusUrl(deps: AppDeps, token: string): string {
 const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
 /** Makes a link inside the caller's transaction (the shipped mail makes one too). */
-export function createLinkIn(tx: DbLike, deps: AppDeps, orderId: string, userId: string | null, purpose: 'manual' | 'shipped_mail' | 'quote_accepted', options: { validDays?: number } = {}): ShareLink {
+export function createLinkIn(
+  tx: DbLike,
+  deps: AppDeps,
+  orderId: string,
+  userId: string | null,
+  purpose: 'manual' | 'shipped_mail' | 'quote_accepted',
+  options: { validDays?: number } = {},
+): ShareLink {
   const token = newToken();
   const now = deps.now();
   const id = crypto.randomUUID();
@@ -79,7 +86,10 @@ function contactAddress(deps: AppDeps): string | null {
 export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow, order: ShippingOrder): PublicStatus {
   const now = deps.now();
   const factory = shippingRepository.factory(deps.db);
-  const p = loadProgress(deps.db, [order], now, factory.timeZone, { shipDates: measuredShipDates(deps, [order.id]), calendar: calendarService.calendar(deps) }).get(order.id)!;
+  const p = loadProgress(deps.db, [order], now, factory.timeZone, {
+    shipDates: measuredShipDates(deps, [order.id]),
+    calendar: calendarService.calendar(deps),
+  }).get(order.id)!;
   const last = p.shipments.at(-1);
   const row = ordersRepository.byId(deps.db, order.id)!;
   const done = new Set(p.stage.stages.filter((s) => s.done).map((s) => s.key));
@@ -89,7 +99,9 @@ export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow,
     shippedAt: p.shippedAt,
     done,
     steps: portalRepository.stepTimes(deps.db, order.id).filter((s) => s.stationKind) as StepTimes[],
-    photos: portalRepository.sharedPhotos(deps.db, order.id).map((ph) => ({ id: ph.id, stationKind: (ph.stationKind as StationKind | null) ?? null, takenAt: ph.createdAt })),
+    photos: portalRepository
+      .sharedPhotos(deps.db, order.id)
+      .map((ph) => ({ id: ph.id, stationKind: (ph.stationKind as StationKind | null) ?? null, takenAt: ph.createdAt })),
   });
   const doneAt = new Map(story.filter((s) => s.doneAt != null).map((s) => [s.stage, s.doneAt!]));
   const base = `/api/public/status/${encodeURIComponent(token)}`;

@@ -27,10 +27,14 @@ export function cartonView(c: CartonRow): CartonView {
 
 function shipmentViews(db: DbLike, rows: ShipmentRow[], cartons: CartonRow[]): ShipmentView[] {
   const owners = shippingRepository.trackingOwners(db, [...new Set(rows.map((r) => r.trackingNumber))]);
-  const names = new Map(shippingRepository.usersByName(db, [...new Set(rows.map((r) => r.createdBy).filter((x): x is string => !!x))]).map((u) => [u.id, u.name]));
+  const names = new Map(
+    shippingRepository.usersByName(db, [...new Set(rows.map((r) => r.createdBy).filter((x): x is string => !!x))]).map((u) => [u.id, u.name]),
+  );
   return rows.map((s) => {
     const own = cartons.filter((c) => c.shipmentId === s.id);
-    const totals = own.length ? cartonTotals(own.map((c) => ({ count: c.count, piecesPerCarton: c.piecesPerCarton, weightKg: c.weightKg ?? 0 }))) : { cartons: 0, weightKg: 0 };
+    const totals = own.length
+      ? cartonTotals(own.map((c) => ({ count: c.count, piecesPerCarton: c.piecesPerCarton, weightKg: c.weightKg ?? 0 })))
+      : { cartons: 0, weightKg: 0 };
     return {
       id: s.id,
       orderId: s.orderId,
@@ -73,7 +77,11 @@ export function syncOrderStatus(tx: DbLike, orderId: string, now: number): 'ship
   const p = loadProgress(tx, [order], now, shippingRepository.factory(tx).timeZone, { project: false }).get(orderId)!;
   if (p.shipped.shipped && p.shipped.shippedAt) {
     const at = Date.parse(p.shipped.shippedAt);
-    const ok = shippingRepository.setOrderStatus(tx, orderId, ['released', 'in_production', 'packed', 'on_hold'], { status: 'shipped', shippedAt: at, updatedAt: now });
+    const ok = shippingRepository.setOrderStatus(tx, orderId, ['released', 'in_production', 'packed', 'on_hold'], {
+      status: 'shipped',
+      shippedAt: at,
+      updatedAt: now,
+    });
     return ok ? 'shipped' : null;
   }
   const live = p.trays.filter((t) => t.phase !== 'scrapped' && t.phase !== 'merged');
@@ -93,7 +101,9 @@ export function statusAfterScans(tx: DbLike, accepted: AcceptedScan[], deps: App
   // can change the order's status: other finishes skip the order's progress read.
   const orderIds = new Set(
     accepted
-      .filter((a) => a.type === 'finish' && (a.stationKind === 'pack' || a.stationKind === 'dispatch' || a.state.phase === 'done' || a.state.phase === 'scrapped'))
+      .filter(
+        (a) => a.type === 'finish' && (a.stationKind === 'pack' || a.stationKind === 'dispatch' || a.state.phase === 'done' || a.state.phase === 'scrapped'),
+      )
       .map((a) => a.orderId),
   );
   for (const orderId of orderIds) syncOrderStatus(tx, orderId, deps.now());
@@ -109,7 +119,9 @@ export const shippingService = {
       const p = progress.get(o.id)!;
       const cartons = shippingRepository.cartons(deps.db, o.id);
       const qv = quantities(p, unshippedCartonPieces(cartons));
-      const nearPacking = p.trays.some((t) => t.stationKind === 'bag' || t.stationKind === 'clutch' || t.stationKind === 'pack' || t.stationKind === 'dispatch');
+      const nearPacking = p.trays.some(
+        (t) => t.stationKind === 'bag' || t.stationKind === 'clutch' || t.stationKind === 'pack' || t.stationKind === 'dispatch',
+      );
       if (!q?.trim() && qv.availableToShip === 0 && !nearPacking) continue;
       rows.push({
         id: o.id,
@@ -135,7 +147,15 @@ export const shippingService = {
     const cartons = shippingRepository.cartons(deps.db, orderId);
     const { packed, onFloor } = packedAndOnFloor(p);
     return {
-      order: { id: p.order.id, number: p.order.number, title: p.order.title, customer: p.order.customer, status: p.status, quantity: p.order.quantity, dueDate: p.order.dueDate },
+      order: {
+        id: p.order.id,
+        number: p.order.number,
+        title: p.order.title,
+        customer: p.order.customer,
+        status: p.status,
+        quantity: p.order.quantity,
+        dueDate: p.order.dueDate,
+      },
       quantities: quantities(p, unshippedCartonPieces(cartons)),
       packedTrays: packed.map(trayView),
       onFloor: onFloor.map(trayView),
@@ -163,7 +183,16 @@ export const shippingService = {
     const now = deps.now();
     deps.db.transaction((tx) => {
       for (const c of body.cartons) {
-        shippingRepository.insertCarton(tx, { id: crypto.randomUUID(), orderId, shipmentId: null, count: c.count, piecesPerCarton: c.piecesPerCarton, weightKg: c.weightKg, createdBy: userId, createdAt: now });
+        shippingRepository.insertCarton(tx, {
+          id: crypto.randomUUID(),
+          orderId,
+          shipmentId: null,
+          count: c.count,
+          piecesPerCarton: c.piecesPerCarton,
+          weightKg: c.weightKg,
+          createdBy: userId,
+          createdAt: now,
+        });
       }
       auditRepository.record(tx, now, { userId, action: 'order.pack', entity: 'order', entityId: orderId, detail: { cartons: body.cartons } });
     });
@@ -199,7 +228,8 @@ export const shippingService = {
     for (const c of body.cartons) {
       if ('cartonId' in c) {
         const row = cartons.find((r) => r.id === c.cartonId);
-        if (!row || row.shipmentId != null) throw conflict('carton_not_open', 'A carton in this shipment is not a packed carton of this order waiting for dispatch.', { cartonId: c.cartonId });
+        if (!row || row.shipmentId != null)
+          throw conflict('carton_not_open', 'A carton in this shipment is not a packed carton of this order waiting for dispatch.', { cartonId: c.cartonId });
         if (packedIds.includes(row.id)) continue;
         packedIds.push(row.id);
         lines.push({ count: row.count, piecesPerCarton: row.piecesPerCarton, weightKg: row.weightKg ?? 0 });
@@ -259,14 +289,30 @@ export const shippingService = {
       }
       for (const c of body.cartons) {
         if ('cartonId' in c) continue;
-        shippingRepository.insertCarton(tx, { id: crypto.randomUUID(), orderId, shipmentId, count: c.count, piecesPerCarton: c.piecesPerCarton, weightKg: c.weightKg, createdBy: userId, createdAt: now });
+        shippingRepository.insertCarton(tx, {
+          id: crypto.randomUUID(),
+          orderId,
+          shipmentId,
+          count: c.count,
+          piecesPerCarton: c.piecesPerCarton,
+          weightKg: c.weightKg,
+          createdBy: userId,
+          createdAt: now,
+        });
       }
       auditRepository.record(tx, now, {
         userId,
         action: 'order.ship',
         entity: 'order',
         entityId: orderId,
-        detail: { shipment: n, carrier: body.carrier, trackingNumber: body.trackingNumber, pieces: totals.pieces, acceptShort: !!body.acceptShort, duplicateOf: others },
+        detail: {
+          shipment: n,
+          carrier: body.carrier,
+          trackingNumber: body.trackingNumber,
+          pieces: totals.pieces,
+          acceptShort: !!body.acceptShort,
+          duplicateOf: others,
+        },
       });
 
       // The shipped mail, queued in the same transaction: it goes out once the shipment is on record.

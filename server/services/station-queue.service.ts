@@ -60,7 +60,10 @@ export const stationQueueService = {
         safetyNotesZh: station.safetyNotesZh,
       },
       asOf: new Date(deps.now()).toISOString(),
-      trays: cards(deps.db, rows.map((r) => ({ tray: r.tray, state: stateFromRow(r.state) }))),
+      trays: cards(
+        deps.db,
+        rows.map((r) => ({ tray: r.tray, state: stateFromRow(r.state) })),
+      ),
     };
   },
 

@@ -75,7 +75,16 @@ function check(deps: AppDeps, hub: Hub) {
 function hubOf(deps: AppDeps): Hub {
   let hub = hubs.get(deps.db);
   if (!hub) {
-    hub = { clients: new Set(), access: new Map(), recheck: null, last: { events: 0, rejections: 0, states: 0 }, timer: null, heartbeat: null, unsubscribe: null, pending: null };
+    hub = {
+      clients: new Set(),
+      access: new Map(),
+      recheck: null,
+      last: { events: 0, rejections: 0, states: 0 },
+      timer: null,
+      heartbeat: null,
+      unsubscribe: null,
+      pending: null,
+    };
     hubs.set(deps.db, hub);
   }
   return hub;

@@ -132,7 +132,10 @@ export const traysService = {
       mergedFrom: related
         .filter((t) => t.mergedIntoId === tray.id)
         .map((t) => {
-          const ev = trayStatesRepository.eventsNamed(db, t.id).filter((e) => e.event.type === 'merge').pop();
+          const ev = trayStatesRepository
+            .eventsNamed(db, t.id)
+            .filter((e) => e.event.type === 'merge')
+            .pop();
           return { id: t.id, number: t.number, quantity: ev?.event.qtyIn ?? 0 };
         }),
       mould: mould ? { id: mould.id, number: mould.number, side: mould.side } : null,
@@ -160,12 +163,19 @@ export const traysService = {
       const tray = findTray(tx, idOrNumber);
       if (tray.kind !== 'tray') throw conflict('not_a_tray', 'A mould traveller cannot be split.');
       const state = stateOf(tx, tray);
-      const result = splitTray(stateFromRow(state), body.parts.map((p) => p.quantity));
+      const result = splitTray(
+        stateFromRow(state),
+        body.parts.map((p) => p.quantity),
+      );
       if (!result.ok) throw conflict(result.code, result.message);
       const routing = routingOf(tx, tray.orderId, 'tray');
       for (const p of body.parts) {
         if (p.stepSeq != null && (state.stepSeq == null || p.stepSeq > state.stepSeq || !routing.some((s) => s.seq === p.stepSeq))) {
-          throw badInput('A split-off tray can go back to an earlier step for rework, not skip ahead.', [{ path: ['parts'], message: `Step ${p.stepSeq} is not at or before step ${state.stepSeq}` }], 'bad_step');
+          throw badInput(
+            'A split-off tray can go back to an earlier step for rework, not skip ahead.',
+            [{ path: ['parts'], message: `Step ${p.stepSeq} is not at or before step ${state.stepSeq}` }],
+            'bad_step',
+          );
         }
       }
       const existingChildren = traysRepository.related(tx, tray).filter((t) => t.parentTrayId === tray.id).length;
@@ -174,27 +184,47 @@ export const traysService = {
         if (!TRAY_NUMBER_PATTERN.test(number)) throw conflict('number_too_long', `Tray ${tray.number} has been split too often to number another part.`);
         const id = crypto.randomUUID();
         const rework = p.stepSeq != null && p.stepSeq !== state.stepSeq;
-        traysRepository.insert(tx, { id, number, kind: 'tray', orderId: tray.orderId, parentTrayId: tray.id, revision: 1, quantity: p.quantity, releasedAt: tray.releasedAt, createdAt: now });
+        traysRepository.insert(tx, {
+          id,
+          number,
+          kind: 'tray',
+          orderId: tray.orderId,
+          parentTrayId: tray.id,
+          revision: 1,
+          quantity: p.quantity,
+          releasedAt: tray.releasedAt,
+          createdAt: now,
+        });
         const childState: TrayStateRow = {
           ...state,
           trayId: id,
           quantity: p.quantity,
-          ...(rework
-            ? { stepSeq: p.stepSeq!, stationKind: routing.find((s) => s.seq === p.stepSeq)!.stationKind, cureReadyAt: null, waitingSince: now }
-            : {}),
+          ...(rework ? { stepSeq: p.stepSeq!, stationKind: routing.find((s) => s.seq === p.stepSeq)!.stationKind, cureReadyAt: null, waitingSince: now } : {}),
           lastEventAt: now,
           updatedAt: now,
         };
         trayStatesRepository.insert(tx, childState);
         const stepName = routing.find((s) => s.seq === childState.stepSeq)?.name;
-        trayStatesRepository.insertEvents(tx, [splitEvent(id, 'split', childState, p.quantity, actorId, now, `Split from ${tray.number}${rework ? `; back to "${stepName}" for rework` : ''}${body.note ? `: ${body.note}` : ''}`)]);
+        trayStatesRepository.insertEvents(tx, [
+          splitEvent(
+            id,
+            'split',
+            childState,
+            p.quantity,
+            actorId,
+            now,
+            `Split from ${tray.number}${rework ? `; back to "${stepName}" for rework` : ''}${body.note ? `: ${body.note}` : ''}`,
+          ),
+        ]);
         return { id, number, quantity: p.quantity, revision: 1, code: travellerCode(deps, { number, revision: 1 }) };
       });
       const revision = tray.revision + 1;
       traysRepository.update(tx, tray.id, { revision });
       trayStatesRepository.patch(tx, tray.id, { quantity: result.remaining, lastEventAt: now, updatedAt: now });
       const moved = children.map((c) => `${c.quantity} to ${c.number}`).join(', ');
-      trayStatesRepository.insertEvents(tx, [splitEvent(tray.id, 'split', state, state.quantity, actorId, now, `Split: ${moved}; ${result.remaining} stay${body.note ? `: ${body.note}` : ''}`)]);
+      trayStatesRepository.insertEvents(tx, [
+        splitEvent(tray.id, 'split', state, state.quantity, actorId, now, `Split: ${moved}; ${result.remaining} stay${body.note ? `: ${body.note}` : ''}`),
+      ]);
       auditTray(tx, now, actorId, 'tray.split', tray.id, `Tray ${tray.number} split: ${moved}; ${result.remaining} stay (new traveller revision ${revision})`);
       return {
         tray: { id: tray.id, number: tray.number, quantity: result.remaining, revision, code: travellerCode(deps, { number: tray.number, revision }) },
@@ -231,12 +261,34 @@ export const traysService = {
         const s = states[i + 1];
         traysRepository.update(tx, t.id, { mergedIntoId: target.id });
         trayStatesRepository.patch(tx, t.id, { phase: 'merged', quantity: 0, stepSeq: null, stationKind: null, lastEventAt: now, updatedAt: now });
-        trayStatesRepository.insertEvents(tx, [splitEvent(t.id, 'merge', s, s.quantity, actorId, now, `Merged into ${target.number}${body.note ? `: ${body.note}` : ''}`)]);
+        trayStatesRepository.insertEvents(tx, [
+          splitEvent(t.id, 'merge', s, s.quantity, actorId, now, `Merged into ${target.number}${body.note ? `: ${body.note}` : ''}`),
+        ]);
       });
       const brought = others.map((t, i) => `${t.number} (${states[i + 1].quantity})`).join(', ');
-      trayStatesRepository.insertEvents(tx, [splitEvent(target.id, 'merge', states[0], result.quantity, actorId, now, `Merged in ${brought}; now ${result.quantity}${body.note ? `: ${body.note}` : ''}`)]);
-      auditTray(tx, now, actorId, 'tray.merge', target.id, `Trays ${brought} merged into ${target.number}: ${result.quantity} pieces (new traveller revision ${revision})`);
-      return { tray: { id: target.id, number: target.number, quantity: result.quantity, revision, code: travellerCode(deps, { number: target.number, revision }) }, merged: others.map((t) => t.id) };
+      trayStatesRepository.insertEvents(tx, [
+        splitEvent(
+          target.id,
+          'merge',
+          states[0],
+          result.quantity,
+          actorId,
+          now,
+          `Merged in ${brought}; now ${result.quantity}${body.note ? `: ${body.note}` : ''}`,
+        ),
+      ]);
+      auditTray(
+        tx,
+        now,
+        actorId,
+        'tray.merge',
+        target.id,
+        `Trays ${brought} merged into ${target.number}: ${result.quantity} pieces (new traveller revision ${revision})`,
+      );
+      return {
+        tray: { id: target.id, number: target.number, quantity: result.quantity, revision, code: travellerCode(deps, { number: target.number, revision }) },
+        merged: others.map((t) => t.id),
+      };
     });
   },
 
@@ -325,7 +377,10 @@ export const traysService = {
     const order = ordersRepository.byId(deps.db, tray.orderId)!;
     const state = trayStatesRepository.byTrayId(deps.db, tray.id) ?? null;
     if (state?.phase === 'merged') throw conflict('tray_merged', `Tray ${tray.number} was merged into another tray; print that one.`);
-    return renderTravellersPdf(traysService.cardsFor(deps, order, [{ tray, state }]), layout).then((pdf) => ({ pdf, name: `traveller-${tray.number}-rev${tray.revision}.pdf` }));
+    return renderTravellersPdf(traysService.cardsFor(deps, order, [{ tray, state }]), layout).then((pdf) => ({
+      pdf,
+      name: `traveller-${tray.number}-rev${tray.revision}.pdf`,
+    }));
   },
 
   // -------------------------------------------------------------------------------------
@@ -338,7 +393,15 @@ export const traysService = {
       const mine = travellers.filter((t) => t.mouldId === mould.id);
       const open = mine.find((t) => t.phase !== 'done' && t.phase !== 'scrapped' && t.phase !== 'merged');
       const status: MouldLibraryItem['status'] =
-        mould.status === 'retired' ? 'retired' : open ? (kindTraits(open.stationKind).mouldShop === 'make' ? 'engraving' : 'checking') : mine.length ? 'ready' : (mould.status as MouldLibraryItem['status']);
+        mould.status === 'retired'
+          ? 'retired'
+          : open
+            ? kindTraits(open.stationKind).mouldShop === 'make'
+              ? 'engraving'
+              : 'checking'
+            : mine.length
+              ? 'ready'
+              : (mould.status as MouldLibraryItem['status']);
       const lastUsed = mine.reduce<number | null>((m, t) => (m == null || t.releasedAt > m ? t.releasedAt : m), null);
       return {
         id: mould.id,
@@ -349,7 +412,8 @@ export const traysService = {
         storageLocation: mould.storageLocation,
         useCount: mould.useCount,
         readyAt: iso(mould.readyAt),
-        firstOrder: mould.firstOrderId && orderNumber ? { id: mould.firstOrderId, number: orderNumber, title: orderTitle ?? '', customer: customer ?? '' } : null,
+        firstOrder:
+          mould.firstOrderId && orderNumber ? { id: mould.firstOrderId, number: orderNumber, title: orderTitle ?? '', customer: customer ?? '' } : null,
         lastUsedAt: iso(lastUsed),
       };
     });

@@ -32,7 +32,15 @@ export const wallService = {
     const reasonNameZh = new Map(codes.map((r) => [r.code, r.nameZh]));
     const holds = snap.placements
       .filter((p) => p.row.onHold)
-      .map((p) => ({ trayId: p.row.trayId, number: p.row.number, orderNumber: p.row.orderNumber, stationKind: p.kind, reason: p.row.holdReason ? (reasonName.get(p.row.holdReason) ?? p.row.holdReason) : null, reasonZh: p.row.holdReason ? (reasonNameZh.get(p.row.holdReason) || null) : null, pieces: p.row.quantity }));
+      .map((p) => ({
+        trayId: p.row.trayId,
+        number: p.row.number,
+        orderNumber: p.row.orderNumber,
+        stationKind: p.kind,
+        reason: p.row.holdReason ? (reasonName.get(p.row.holdReason) ?? p.row.holdReason) : null,
+        reasonZh: p.row.holdReason ? reasonNameZh.get(p.row.holdReason) || null : null,
+        pieces: p.row.quantity,
+      }));
     const oldestByKind = new Map<string, { stationKind: string; trayNumber: string; orderNumber: string; minutes: number }>();
     for (const p of snap.placements) {
       if (p.phase !== 'waiting' || p.waitingSince == null) continue;
@@ -46,7 +54,8 @@ export const wallService = {
       const capacity = snap.stations.filter((s) => s.kind === k.stationKind && s.active).reduce((s, x) => s + x.capacityTrays, 0);
       if (capacity <= 0 || k.waiting.trays === 0) continue;
       const ratio = k.waiting.trays / capacity;
-      if (!bottleneck || ratio > bottleneck.ratio) bottleneck = { stationKind: k.stationKind, waitingTrays: k.waiting.trays, capacityTrays: capacity, ratio: Math.round(ratio * 100) / 100 };
+      if (!bottleneck || ratio > bottleneck.ratio)
+        bottleneck = { stationKind: k.stationKind, waitingTrays: k.waiting.trays, capacityTrays: capacity, ratio: Math.round(ratio * 100) / 100 };
     }
     const since = now - 24 * 60 * MIN;
     const refusals = floorRepository.openRejections(deps.db, since, 12).map((r) => ({
@@ -71,7 +80,16 @@ export const wallService = {
     const atRisk = projectionService
       .lateRisk(deps)
       .slice(0, 8)
-      .map((o) => ({ orderId: o.orderId, number: o.number, customer: o.customer, title: o.title, dueDate: o.dueDate, expectedAt: o.expectedAt, p85At: o.p85At, risk: o.risk }));
+      .map((o) => ({
+        orderId: o.orderId,
+        number: o.number,
+        customer: o.customer,
+        title: o.title,
+        dueDate: o.dueDate,
+        expectedAt: o.expectedAt,
+        p85At: o.p85At,
+        risk: o.risk,
+      }));
     return {
       asOf: iso(now),
       timeZone: calendarService.timeZone(deps),

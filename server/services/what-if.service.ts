@@ -94,7 +94,13 @@ export function projectQuantities(deps: AppDeps, spec: WhatIfSpec, quantities: r
   return value;
 }
 
-function projectQuantitiesNow(deps: AppDeps, spec: WhatIfSpec, quantities: readonly number[], o: { dueDate?: string; runs?: number }, now: number): QuantityDates {
+function projectQuantitiesNow(
+  deps: AppDeps,
+  spec: WhatIfSpec,
+  quantities: readonly number[],
+  o: { dueDate?: string; runs?: number },
+  now: number,
+): QuantityDates {
   const cal = calendarService.calendar(deps);
   const { snapshot } = floorSnapshot(deps, now);
   const model = modelOf(deps, snapshot, cal);
@@ -115,7 +121,8 @@ export const whatIfService = {
   project(deps: AppDeps, spec: WhatIfBody): WhatIfResult {
     const now = deps.now();
     const releaseAt = spec.releaseAt ? Math.max(now, Date.parse(spec.releaseAt)) : now;
-    if (releaseAt > now + 365 * DAY) throw badInput('The release time is more than a year ahead.', [{ path: ['releaseAt'], message: 'Too far ahead' }], 'bad_release_at');
+    if (releaseAt > now + 365 * DAY)
+      throw badInput('The release time is more than a year ahead.', [{ path: ['releaseAt'], message: 'Too far ahead' }], 'bad_release_at');
     const cal = calendarService.calendar(deps);
     const { snapshot, orders } = floorSnapshot(deps, now);
     const model = modelOf(deps, snapshot, cal);

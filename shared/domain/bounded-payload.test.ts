@@ -15,12 +15,25 @@ describe('what is kept of a refused event', () => {
   });
 
   it('a huge string or array is cut to the size budget', () => {
-    const kept = JSON.stringify(boundedPayload({ note: 'x'.repeat(1_000_000), list: Array.from({ length: 10_000 }, (_, i) => i) }, { maxDepth: 8, maxChars: 8_000 }));
+    const kept = JSON.stringify(
+      boundedPayload({ note: 'x'.repeat(1_000_000), list: Array.from({ length: 10_000 }, (_, i) => i) }, { maxDepth: 8, maxChars: 8_000 }),
+    );
     expect(kept.length).toBeLessThan(8_500);
   });
 
   it('an ordinary event is kept exactly', () => {
-    const event = { id: '0190a0a0-0000-7000-8000-000000000000', code: 'T-000123', stationId: 's1', type: 'finish', occurredAt: '2026-12-10T02:27:00.000Z', goodQty: 98, scrapQty: 2, scrapReason: 'scratch', note: null, ok: true };
+    const event = {
+      id: '0190a0a0-0000-7000-8000-000000000000',
+      code: 'T-000123',
+      stationId: 's1',
+      type: 'finish',
+      occurredAt: '2026-12-10T02:27:00.000Z',
+      goodQty: 98,
+      scrapQty: 2,
+      scrapReason: 'scratch',
+      note: null,
+      ok: true,
+    };
     expect(boundedPayload(event)).toEqual(event);
     expect(boundedPayload([1, 'a', [2, [3]]])).toEqual([1, 'a', [2, [3]]]);
   });

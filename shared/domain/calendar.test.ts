@@ -78,9 +78,7 @@ describe('working minutes between two instants (hand-worked)', () => {
   });
 
   it('lets the oven cure through the night and on days off: Tue 11:00 -> Thu 14:00 is 51 h', () => {
-    expect(cal.forStation('cure').workingMinutesBetween(local('2025-06-17T11:00'), local('2025-06-19T14:00'))).toBe(
-      51 * 60,
-    );
+    expect(cal.forStation('cure').workingMinutesBetween(local('2025-06-17T11:00'), local('2025-06-19T14:00'))).toBe(51 * 60);
   });
 
   it('counts a night shift that runs past midnight on the day it starts', () => {
@@ -145,7 +143,7 @@ describe('adding working minutes (hand-worked)', () => {
 
   it('is the inverse of workingMinutesBetween at random points', () => {
     let seed = 7;
-    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const rnd = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
     for (const t of [cal.factory, cal.forStation('plate')]) {
       for (let i = 0; i < 300; i++) {
         const from = local('2025-06-01T00:00') + Math.floor(rnd() * 40 * 1440) * 60_000;

@@ -402,8 +402,7 @@ export function compileCalendar(config: CalendarConfig): WorkingCalendar {
   const perKey = new Map<string, Timeline>();
   for (const [key, st] of Object.entries(config.stations ?? {})) {
     if (st.continuous) perKey.set(key, continuous);
-    else if (st.week || st.daysOff?.length)
-      perKey.set(key, new ShiftTimeline(tz, st.week ?? config.week, [...config.daysOff, ...(st.daysOff ?? [])]));
+    else if (st.week || st.daysOff?.length) perKey.set(key, new ShiftTimeline(tz, st.week ?? config.week, [...config.daysOff, ...(st.daysOff ?? [])]));
   }
   return {
     timeZone: tz,

@@ -8,8 +8,8 @@ describe('clock offset (RFC 5905 §8 on-wire arithmetic)', () => {
     const T2 = 5060;
     const T3 = T2;
     const T4 = 1120;
-    const rfcTheta = ((T2 - T1) + (T3 - T4)) / 2;
-    const rfcDelta = (T4 - T1) - (T3 - T2);
+    const rfcTheta = (T2 - T1 + (T3 - T4)) / 2;
+    const rfcDelta = T4 - T1 - (T3 - T2);
     expect(offsetFromSample({ sentAt: T1, serverTime: T2, receivedAt: T4 })).toEqual({ offsetMs: rfcTheta, roundTripMs: rfcDelta });
     expect(rfcTheta).toBe(4000);
   });

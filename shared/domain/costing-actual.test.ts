@@ -14,7 +14,12 @@ const step = (seq: number, name: string, stationKind: StationKind, cureMinutes: 
   cureMinutes,
   colour: null,
 });
-const ROUTING = [step(1, 'Die striking', 'strike'), step(2, 'Colour 1 of 1: fill', 'fill'), step(3, 'Colour 1 of 1: cure', 'cure', 120), step(4, 'Plating', 'plate')];
+const ROUTING = [
+  step(1, 'Die striking', 'strike'),
+  step(2, 'Colour 1 of 1: fill', 'fill'),
+  step(3, 'Colour 1 of 1: cure', 'cure', 120),
+  step(4, 'Plating', 'plate'),
+];
 const run = (stepSeq: number, stationKind: string, start: number, finish: number, over: Partial<StepRunFact> = {}): StepRunFact => ({
   stepSeq,
   stationKind,

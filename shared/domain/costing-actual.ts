@@ -26,9 +26,7 @@ export interface StepRunFact {
 
 /** Oven cycles of one cure step's runs: runs that overlap in time are one cycle. */
 export function cureCycles(runs: readonly Pick<StepRunFact, 'startedAt' | 'finishedAt'>[]): number {
-  const spans = runs
-    .map((r) => ({ from: r.startedAt ?? r.finishedAt, to: r.finishedAt }))
-    .sort((a, b) => a.from - b.from);
+  const spans = runs.map((r) => ({ from: r.startedAt ?? r.finishedAt, to: r.finishedAt })).sort((a, b) => a.from - b.from);
   let cycles = 0;
   let openUntil = -Infinity;
   for (const s of spans) {

@@ -1,15 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  compareCost,
-  costLine,
-  mouldCosts,
-  outlinePerimeterMm,
-  pieceMassGrams,
-  pieceVolumeCm3,
-  platedAreaDm2,
-  priceQuote,
-  type CostingSpec,
-} from './costing';
+import { compareCost, costLine, mouldCosts, outlinePerimeterMm, pieceMassGrams, pieceVolumeCm3, platedAreaDm2, priceQuote, type CostingSpec } from './costing';
 import { DEFAULT_ROUTING_TEMPLATES, expandRouting } from './routing';
 import { DEFAULT_COSTING_SETTINGS as S } from '@shared/schemas/costing';
 
@@ -73,7 +63,7 @@ describe('material of a hand-computed disc', () => {
 describe('colours', () => {
   // Common practice: every hard-enamel colour is one more fill and one more oven cure.
   it('every colour added raises labour, oven time and the unit price', () => {
-    let last = price(spec({ colours: [] , process: 'die_struck' }), [500]).lines[0];
+    let last = price(spec({ colours: [], process: 'die_struck' }), [500]).lines[0];
     for (let n = 1; n <= 8; n++) {
       const colours = Array.from({ length: n }, (_, i) => ({ name: `C${i + 1}` }));
       const line = price(spec({ colours }), [500]).lines[0];

@@ -103,17 +103,26 @@ const round = (x: number, places: number) => {
 export const roundMoney = (x: number) => round(x, 2);
 
 /** Outline area in mm²: the bounding box × the outline's share of it. */
-export function outlineAreaMm2(spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor'>, settings: Pick<CostingSettings, 'defaultOutlineFactor'>): number {
+export function outlineAreaMm2(
+  spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor'>,
+  settings: Pick<CostingSettings, 'defaultOutlineFactor'>,
+): number {
   return spec.sizeMm * spec.heightMm * (spec.outlineFactor ?? settings.defaultOutlineFactor);
 }
 
 /** Volume of one piece in cm³. */
-export function pieceVolumeCm3(spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor' | 'thicknessMm'>, settings: Pick<CostingSettings, 'defaultOutlineFactor'>): number {
+export function pieceVolumeCm3(
+  spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor' | 'thicknessMm'>,
+  settings: Pick<CostingSettings, 'defaultOutlineFactor'>,
+): number {
   return (outlineAreaMm2(spec, settings) * spec.thicknessMm) / 1000;
 }
 
 /** Grams of metal in one finished piece (volume × density), before any loss. */
-export function pieceMassGrams(spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor' | 'thicknessMm' | 'material'>, settings: Pick<CostingSettings, 'defaultOutlineFactor' | 'densities'>): number {
+export function pieceMassGrams(
+  spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor' | 'thicknessMm' | 'material'>,
+  settings: Pick<CostingSettings, 'defaultOutlineFactor' | 'densities'>,
+): number {
   return pieceVolumeCm3(spec, settings) * settings.densities[spec.material];
 }
 
@@ -128,7 +137,10 @@ export function outlinePerimeterMm(spec: Pick<CostingSpec, 'sizeMm' | 'heightMm'
 }
 
 /** Plated surface of one piece in dm²: both faces and the edge. */
-export function platedAreaDm2(spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor' | 'thicknessMm'>, settings: Pick<CostingSettings, 'defaultOutlineFactor'>): number {
+export function platedAreaDm2(
+  spec: Pick<CostingSpec, 'sizeMm' | 'heightMm' | 'outlineFactor' | 'thicknessMm'>,
+  settings: Pick<CostingSettings, 'defaultOutlineFactor'>,
+): number {
   const mm2 = 2 * outlineAreaMm2(spec, settings) + outlinePerimeterMm(spec) * spec.thicknessMm;
   return mm2 / 10_000;
 }
@@ -170,7 +182,13 @@ export function stepCosts(routing: readonly RoutingStep[], madePieces: number, s
   const trays = trayShare(madePieces, settings.traySize);
   return routing.map((s) => {
     const minutes = s.trayMinutes * trays + s.pieceMinutes * madePieces;
-    return { seq: s.seq, name: s.name, stationKind: s.stationKind, minutes: round(minutes, 2), cost: (minutes / 60) * settings.labourRatePerHour[s.stationKind] };
+    return {
+      seq: s.seq,
+      name: s.name,
+      stationKind: s.stationKind,
+      minutes: round(minutes, 2),
+      cost: (minutes / 60) * settings.labourRatePerHour[s.stationKind],
+    };
   });
 }
 
@@ -191,13 +209,7 @@ export function ovenCost(routing: readonly RoutingStep[], madePieces: number, se
 }
 
 /** The cost (and price) of one quantity of the spec. */
-export function costLine(
-  spec: CostingSpec,
-  routing: readonly RoutingStep[],
-  quantity: number,
-  mouldCharge: number,
-  settings: CostingSettings,
-): CostLine {
+export function costLine(spec: CostingSpec, routing: readonly RoutingStep[], quantity: number, mouldCharge: number, settings: CostingSettings): CostLine {
   if (!Number.isInteger(quantity) || quantity < 1) throw new RangeError('quantity must be a whole number above 0');
   // The allowance as a fraction of pieces: the price of a break never depends on rounding up one piece.
   const made = quantity * (1 + spec.overrunPct / 100);
@@ -235,7 +247,10 @@ export function costLine(
     margin: 0,
   };
   // the margin is what is left of the rounded price, so the parts add up to it
-  breakdown.margin = round(unitPrice - (breakdown.material + breakdown.labour + breakdown.oven + breakdown.plating + breakdown.fittings + breakdown.packaging), 4);
+  breakdown.margin = round(
+    unitPrice - (breakdown.material + breakdown.labour + breakdown.oven + breakdown.plating + breakdown.fittings + breakdown.packaging),
+    4,
+  );
   const goodsTotal = roundMoney(unitPrice * quantity);
   return {
     quantity,

@@ -13,8 +13,5 @@ export type CsvCell = string | number | boolean | null;
 
 /** The one way the product writes CSV: CRLF lines (RFC 4180), formula-like text cells escaped. */
 export function toCsv(fields: string[], rows: CsvCell[][]): string {
-  return Papa.unparse(
-    { fields, data: rows.map((r) => r.map((c) => (c === null ? '' : c))) },
-    { newline: '\r\n', escapeFormulae: true },
-  );
+  return Papa.unparse({ fields, data: rows.map((r) => r.map((c) => (c === null ? '' : c))) }, { newline: '\r\n', escapeFormulae: true });
 }

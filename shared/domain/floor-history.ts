@@ -216,7 +216,12 @@ export class FloorReplay {
     }
   }
 
-  private record(trav: HistoryTraveller, ev: HistoryEvent, queueMinutes: number | undefined, completed: readonly { seq: number; stationKind: StationKind; startedAt: string | null; finishedAt: string; quantityIn: number; implicit: boolean }[]) {
+  private record(
+    trav: HistoryTraveller,
+    ev: HistoryEvent,
+    queueMinutes: number | undefined,
+    completed: readonly { seq: number; stationKind: StationKind; startedAt: string | null; finishedAt: string; quantityIn: number; implicit: boolean }[],
+  ) {
     if (ev.type === 'hold') this.heldAt.set(trav.id, ev.occurredAt);
     if (ev.type === 'release') {
       const from = this.heldAt.get(trav.id);
@@ -332,7 +337,10 @@ export interface StepRunFact {
  * makes (waits net of holds, strikes and casts waiting from the moulds' readiness, the head of
  * each order's trays marked, one dispatch wait per order from its last packed tray).
  */
-export function measuredFromRuns(runs: readonly StepRunFact[], holdScans: readonly { trayId: string; type: 'hold' | 'release'; occurredAt: number }[]): MeasuredHistory {
+export function measuredFromRuns(
+  runs: readonly StepRunFact[],
+  holdScans: readonly { trayId: string; type: 'hold' | 'release'; occurredAt: number }[],
+): MeasuredHistory {
   const holds: HoldRecord[] = [];
   const open = new Map<string, number>();
   for (const h of holdScans) {
@@ -352,7 +360,8 @@ export function measuredFromRuns(runs: readonly StepRunFact[], holdScans: readon
   for (const r of runs) {
     if (r.travellerKind === 'mould' && r.stationKind === 'mould_check') mouldsDone.set(r.orderId, Math.max(mouldsDone.get(r.orderId) ?? 0, r.finishedAt));
     if (r.travellerKind === 'tray' && r.stationKind === 'pack') lastPack.set(r.orderId, Math.max(lastPack.get(r.orderId) ?? 0, r.finishedAt));
-    if (r.travellerKind === 'tray' && ORDER_LEVEL_KINDS.includes(r.stationKind)) firstDispatch.set(r.orderId, Math.min(firstDispatch.get(r.orderId) ?? Infinity, r.startedAt));
+    if (r.travellerKind === 'tray' && ORDER_LEVEL_KINDS.includes(r.stationKind))
+      firstDispatch.set(r.orderId, Math.min(firstDispatch.get(r.orderId) ?? Infinity, r.startedAt));
     const key = `${r.orderId}|${r.travellerKind}|${r.stepSeq}`;
     leadStart.set(key, Math.min(leadStart.get(key) ?? Infinity, r.startedAt));
   }
@@ -364,12 +373,29 @@ export function measuredFromRuns(runs: readonly StepRunFact[], holdScans: readon
     for (const h of holdsOf.get(r.trayId) ?? []) if (h.heldAt >= r.readyAt && h.releasedAt <= r.startedAt) held += h.releasedAt - h.heldAt;
     let readyAt = Math.min(r.startedAt, r.readyAt + held);
     const moulds = mouldsDone.get(r.orderId);
-    if (r.travellerKind === 'tray' && MOULD_USING_KINDS.includes(r.stationKind as StationKind) && moulds != null) readyAt = Math.min(r.startedAt, Math.max(readyAt, moulds));
+    if (r.travellerKind === 'tray' && MOULD_USING_KINDS.includes(r.stationKind as StationKind) && moulds != null)
+      readyAt = Math.min(r.startedAt, Math.max(readyAt, moulds));
     const key = `${r.orderId}|${r.travellerKind}|${r.stepSeq}`;
     const lead = !led.has(key) && leadStart.get(key) === r.startedAt;
     if (lead) led.add(key);
-    queues.push({ stationKind: r.stationKind, travellerKind: r.travellerKind, orderId: r.orderId, stationId: r.stationId, readyAt, startedAt: r.startedAt, lead });
-    if (!r.implicit && r.standardMinutes != null) processes.push({ stationKind: r.stationKind, stationId: r.stationId, startedAt: r.startedAt, finishedAt: r.finishedAt, standardMinutes: r.standardMinutes, cure: r.cure });
+    queues.push({
+      stationKind: r.stationKind,
+      travellerKind: r.travellerKind,
+      orderId: r.orderId,
+      stationId: r.stationId,
+      readyAt,
+      startedAt: r.startedAt,
+      lead,
+    });
+    if (!r.implicit && r.standardMinutes != null)
+      processes.push({
+        stationKind: r.stationKind,
+        stationId: r.stationId,
+        startedAt: r.startedAt,
+        finishedAt: r.finishedAt,
+        standardMinutes: r.standardMinutes,
+        cure: r.cure,
+      });
   }
   const dispatches: DispatchRecord[] = [];
   for (const [orderId, startedAt] of firstDispatch) {

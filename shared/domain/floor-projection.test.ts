@@ -17,7 +17,14 @@ const calendar = compileCalendar({
 const day: Shift[] = [{ start: '08:00', end: '16:00' }];
 const shifts = compileCalendar({ timeZone: 'UTC', week: { mon: day, tue: day, wed: day, thu: day, fri: day, sat: [], sun: [] }, daysOff: [], stations: {} });
 const none: MeasuredHistory = { queues: [], processes: [], dispatches: [], holds: [] };
-const step = (seq: number, stationKind: RoutingStep['stationKind'], minutes: number): RoutingStep => ({ seq, name: stationKind, stationKind, trayMinutes: minutes, pieceMinutes: 0, cureMinutes: null });
+const step = (seq: number, stationKind: RoutingStep['stationKind'], minutes: number): RoutingStep => ({
+  seq,
+  name: stationKind,
+  stationKind,
+  trayMinutes: minutes,
+  pieceMinutes: 0,
+  cureMinutes: null,
+});
 
 function order(id: string, trays: number, routing: RoutingStep[], arrivals?: number[], dueDate = '2025-07-01'): SnapshotOrder {
   return {
@@ -43,7 +50,9 @@ describe('finite-capacity runs against known answers', () => {
     expect(p.expectedAt).toBe(T0 + 300 * MIN);
     expect(p.p85At).toBe(T0 + 300 * MIN);
     // with two places the same work takes half as long; without capacity, one tray's time
-    expect(projectFloor(snap, { calendar, model: measureFloor(none, calendar, [{ kind: 'trim', capacityTrays: 2 }]), runs: 5 }).get('A')!.expectedAt).toBe(T0 + 150 * MIN);
+    expect(projectFloor(snap, { calendar, model: measureFloor(none, calendar, [{ kind: 'trim', capacityTrays: 2 }]), runs: 5 }).get('A')!.expectedAt).toBe(
+      T0 + 150 * MIN,
+    );
     expect(projectFloor(snap, { calendar, model, runs: 5, capacity: false }).get('A')!.expectedAt).toBe(T0 + 30 * MIN);
   });
 
@@ -69,7 +78,13 @@ describe('finite-capacity runs against known answers', () => {
     // given as the ratio measured ÷ standard at 4,000 evenly spaced exponential quantiles
     const processes = Array.from({ length: 4000 }, (_, i) => {
       const minutes = -Math.log(1 - (i + 0.5) / 4000) * 8;
-      return { stationKind: 'trim', stationId: null, startedAt: T0 - 10 * 86_400_000 + i * 1000, finishedAt: T0 - 10 * 86_400_000 + i * 1000 + minutes * MIN, standardMinutes: 8 };
+      return {
+        stationKind: 'trim',
+        stationId: null,
+        startedAt: T0 - 10 * 86_400_000 + i * 1000,
+        finishedAt: T0 - 10 * 86_400_000 + i * 1000 + minutes * MIN,
+        standardMinutes: 8,
+      };
     });
     const model = measureFloor({ ...none, processes }, calendar, [{ kind: 'trim', capacityTrays: 1 }], { perKind: 4000 });
     // one tray per order, all due the same day: a freed place goes to the one that asked first
@@ -97,7 +112,11 @@ describe('waits drawn from history', () => {
   it('counts the dispatch wait once per order, from its last packed tray', () => {
     // two trays pack 30 min each on one packer (finish 30 and 60); dispatch waits 120 min measured
     // once per order → ship at 60 + 120 + 5 = 185 min, however many trays the order has
-    const dispatches = Array.from({ length: 12 }, (_, i) => ({ orderId: `old${i}`, lastPackedAt: T0 - 86_400_000 + i * 1000, startedAt: T0 - 86_400_000 + i * 1000 + 120 * MIN }));
+    const dispatches = Array.from({ length: 12 }, (_, i) => ({
+      orderId: `old${i}`,
+      lastPackedAt: T0 - 86_400_000 + i * 1000,
+      startedAt: T0 - 86_400_000 + i * 1000 + 120 * MIN,
+    }));
     const model = measureFloor({ ...none, dispatches }, calendar, [{ kind: 'pack', capacityTrays: 1 }]);
     const snap: FloorSnapshot = { now: T0, orders: [order('D', 2, [step(1, 'pack', 30), step(2, 'dispatch', 5)])], measured: none };
     expect(projectFloor(snap, { calendar, model, runs: 10 }).get('D')!.expectedAt).toBe(T0 + 185 * MIN);
@@ -109,7 +128,10 @@ describe('waits drawn from history', () => {
     const alone = projectFloor({ now: T0, orders: [a], measured: none }, { calendar, model, runs: 10 });
     expect(projectFloor({ now: T0, orders: [a], measured: none }, { calendar, model, runs: 10 })).toEqual(alone);
     // the newcomer is due earlier, so it goes first and A waits behind its 5 trays
-    const both = projectFloor({ now: T0, orders: [a, order('N', 5, [step(1, 'trim', 30)], undefined, '2025-06-12')], measured: none }, { calendar, model, runs: 10 });
+    const both = projectFloor(
+      { now: T0, orders: [a, order('N', 5, [step(1, 'trim', 30)], undefined, '2025-06-12')], measured: none },
+      { calendar, model, runs: 10 },
+    );
     expect(both.get('A')!.expectedAt).toBe(T0 + 270 * MIN);
     expect(both.get('A')!.p85At!).toBeGreaterThanOrEqual(alone.get('A')!.p85At!);
   });
@@ -120,7 +142,15 @@ describe("the floor's day-to-day pace", () => {
   const queues = Array.from({ length: 120 }, (_, i) => {
     const d = Math.floor(i / 10);
     const readyAt = T0 - 20 * 86_400_000 + d * 86_400_000 + (i % 10) * 30 * MIN;
-    return { stationKind: 'trim', travellerKind: 'tray' as const, orderId: `p${i}`, stationId: null, readyAt, startedAt: readyAt + (d % 2 ? 40 : 20) * MIN, lead: true };
+    return {
+      stationKind: 'trim',
+      travellerKind: 'tray' as const,
+      orderId: `p${i}`,
+      stationId: null,
+      readyAt,
+      startedAt: readyAt + (d % 2 ? 40 : 20) * MIN,
+      lead: true,
+    };
   });
   const model = measureFloor({ ...none, queues }, calendar, [{ kind: 'trim', capacityTrays: 50 }]);
 

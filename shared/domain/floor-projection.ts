@@ -196,7 +196,11 @@ export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalenda
   );
 
   const ratioRaw = new Map<string, number[]>();
-  for (const p of latest(measured.processes.filter((x) => !x.cure && x.standardMinutes > 0), (x: ProcessRecord) => x.finishedAt, perKind * 20)) {
+  for (const p of latest(
+    measured.processes.filter((x) => !x.cure && x.standardMinutes > 0),
+    (x: ProcessRecord) => x.finishedAt,
+    perKind * 20,
+  )) {
     const list = ratioRaw.get(p.stationKind) ?? ratioRaw.set(p.stationKind, []).get(p.stationKind)!;
     if (list.length >= perKind) continue;
     const worked = calendar.forStation(p.stationId, p.stationKind).workingMinutesBetween(p.startedAt, p.finishedAt);
@@ -377,7 +381,11 @@ function hashU(a: number, b: number, c: number): number {
   return mulberry32Draw((t + MULBERRY32_STEP) >>> 0);
 }
 
-function stepsFrom(state: TrayState, routing: readonly RoutingStep[], now: number): { steps: RoutingStep[]; waitingSince: number | null; notBefore: number; startedAt: number | null } {
+function stepsFrom(
+  state: TrayState,
+  routing: readonly RoutingStep[],
+  now: number,
+): { steps: RoutingStep[]; waitingSince: number | null; notBefore: number; startedAt: number | null } {
   let from = state.stepSeq ?? 1;
   let waitingSince = ms(state.waitingSince);
   let startedAt = state.phase === 'in_process' || state.phase === 'curing' ? ms(state.startedAt) : null;
@@ -437,7 +445,22 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
       const line = calendar.forStation(first.stationKind);
       const waited = f.startedAt == null && f.waitingSince != null ? Math.max(0, line.workingMinutesBetween(f.waitingSince, now)) : 0;
       for (const s of f.steps) kindIdx(s.stationKind);
-      sims.push({ order: oi, kind: t.kind, steps: f.steps, qty: t.kind === 'mould' ? 1 : st.quantity, idx: 0, waited, notBefore: f.notBefore, startedAt: f.startedAt, seed: seedOf(t.id) ^ seed, rnd: 0, requestAt: 0, since: f.waitingSince ?? now, heldFor: st.onHold ? Math.max(0, calendar.factory.workingMinutesBetween(ms(st.lastEventAt) ?? now, now)) : -1, availableAt: ord.releasedAt });
+      sims.push({
+        order: oi,
+        kind: t.kind,
+        steps: f.steps,
+        qty: t.kind === 'mould' ? 1 : st.quantity,
+        idx: 0,
+        waited,
+        notBefore: f.notBefore,
+        startedAt: f.startedAt,
+        seed: seedOf(t.id) ^ seed,
+        rnd: 0,
+        requestAt: 0,
+        since: f.waitingSince ?? now,
+        heldFor: st.onHold ? Math.max(0, calendar.factory.workingMinutesBetween(ms(st.lastEventAt) ?? now, now)) : -1,
+        availableAt: ord.releasedAt,
+      });
       if (t.kind === 'tray') living[oi]++;
       else mouldsOpen[oi]++;
     }
@@ -486,7 +509,8 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
       const rs = ratios[k];
       const minutes = rs ? std * rs[Math.floor(nextU(s) * rs.length)] : std;
       let end = lines[k].addWorkingMinutes(at, minutes);
-      if (step.cureMinutes != null && step.cureMinutes > 0) end = Math.max(lines[k].addWorkingMinutes(at, std), ovens[k].addWorkingMinutes(at, step.cureMinutes));
+      if (step.cureMinutes != null && step.cureMinutes > 0)
+        end = Math.max(lines[k].addWorkingMinutes(at, std), ovens[k].addWorkingMinutes(at, step.cureMinutes));
       heap.push(end, si, FINISH);
     };
     const request = (si: number, at: number) => {
@@ -515,7 +539,8 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
           const end = line.addWorkingMinutes(line.addWorkingMinutes(t0, q), step.trayMinutes + step.pieceMinutes * s.qty);
           waitSum[oi][k] += q;
           let last = end;
-          for (let j = s.idx + 1; j < s.steps.length; j++) last = lines[kindOfStep[si][j]].addWorkingMinutes(last, s.steps[j].trayMinutes + s.steps[j].pieceMinutes * s.qty);
+          for (let j = s.idx + 1; j < s.steps.length; j++)
+            last = lines[kindOfStep[si][j]].addWorkingMinutes(last, s.steps[j].trayMinutes + s.steps[j].pieceMinutes * s.qty);
           ship[oi] = Math.max(ship[oi], last);
         }
         return;

@@ -1,14 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { compileCalendar, type Shift } from './calendar';
-import {
-  averageWip,
-  countPerBucket,
-  cumulativeFlowOfItems,
-  flowEfficiency,
-  makeBuckets,
-  wipOverTime,
-  type Interval,
-} from './flow';
+import { averageWip, countPerBucket, cumulativeFlowOfItems, flowEfficiency, makeBuckets, wipOverTime, type Interval } from './flow';
 import { seededRandom } from './stats';
 
 const H = 3_600_000;
@@ -67,8 +59,7 @@ describe('cumulative flow diagram (Reinertsen 2009 pp. 71-72; Anderson 2010 p. 2
   const cfd = cumulativeFlowOfItems(rows, STAGES, times);
 
   it('never lets a line fall', () => {
-    for (let s = 0; s < STAGES; s++)
-      for (let k = 1; k < times.length; k++) expect(cfd[k][s]).toBeGreaterThanOrEqual(cfd[k - 1][s]);
+    for (let s = 0; s < STAGES; s++) for (let k = 1; k < times.length; k++) expect(cfd[k][s]).toBeGreaterThanOrEqual(cfd[k - 1][s]);
   });
 
   it('keeps the lines nested: an earlier stage is never below a later one', () => {
@@ -156,8 +147,8 @@ describe("Little's Law, L = lambda W (Little 1961; Little & Graves 2008)", () =>
     for (let t = 0; t < 200 * month; t += month / 8) items.push({ start: t, end: t + 20 * month });
     const r = littlesLaw(items, 50 * month, 150 * month);
     expect(r.averageWip).toBeCloseTo(160, 6);
-    expect(r.throughputPerMinute * month / MIN).toBeCloseTo(8, 6);
-    expect(r.meanFlowMinutes).toBeCloseTo(20 * month / MIN, 6);
+    expect((r.throughputPerMinute * month) / MIN).toBeCloseTo(8, 6);
+    expect(r.meanFlowMinutes).toBeCloseTo((20 * month) / MIN, 6);
     expect(r.relativeGap).toBeCloseTo(0, 9);
   });
 

@@ -248,9 +248,7 @@ describe('cure interlock (2 h cure per colour: common practice)', () => {
   it('next colour exactly on time: accepted; the cure step closes on its own at its ready time', () => {
     const r = accepted(evaluateScan(input(inOven(), 'fill', { type: 'start', occurredAt: at(220) })));
     expect(r.next).toMatchObject({ phase: 'in_process', stepSeq: 6, stationId: 'st-fill-1', cureReadyAt: null });
-    expect(r.facts.completed).toEqual([
-      expect.objectContaining({ seq: 5, good: 100, scrap: 0, finishedAt: at(220), processMinutes: 120, implicit: true }),
-    ]);
+    expect(r.facts.completed).toEqual([expect.objectContaining({ seq: 5, good: 100, scrap: 0, finishedAt: at(220), processMinutes: 120, implicit: true })]);
     expect(r.facts.queueMinutes).toBe(0);
   });
 
@@ -313,8 +311,7 @@ describe('cure interlock (2 h cure per colour: common practice)', () => {
 
 describe('quantities', () => {
   const started = () => accepted(evaluateScan(input(fresh(100), 'strike', { type: 'start', occurredAt: at(10) }))).next;
-  const finishWith = (counts: Partial<GuardEvent>) =>
-    evaluateScan(input(started(), 'strike', { type: 'finish', occurredAt: at(20), ...counts }));
+  const finishWith = (counts: Partial<GuardEvent>) => evaluateScan(input(started(), 'strike', { type: 'finish', occurredAt: at(20), ...counts }));
 
   it('good + scrap below the quantity in is refused', () => {
     const r = refused(finishWith({ goodQty: 90, scrapQty: 5, scrapReason: 'die_crack' }), 'quantity_mismatch');
@@ -399,7 +396,8 @@ describe('hold and release', () => {
     expect(r.params.holdReason).toBe('artwork_query');
     expect(r.overridable).toBe(false);
     // an override does not lift a hold
-    for (const o of [WRONG_STATION, CURING, RELEASE]) refused(evaluateScan(input(held, 'strike', { type: 'start', occurredAt: at(6) }, { override: o })), 'on_hold');
+    for (const o of [WRONG_STATION, CURING, RELEASE])
+      refused(evaluateScan(input(held, 'strike', { type: 'start', occurredAt: at(6) }, { override: o })), 'on_hold');
     refused(evaluateScan(input(held, 'strike', { type: 'hold', occurredAt: at(6), scrapReason: 'x' })), 'on_hold');
 
     const byOperator = refused(evaluateScan(input(held, 'strike', { type: 'release', occurredAt: at(7) }, { actorRole: 'operator' })), 'bad_override');
@@ -524,14 +522,12 @@ describe('applyScans and plain-words messages', () => {
   });
 
   it('messages carry the numbers that matter', () => {
-    expect(refusalText('curing', { minutesLeft: 1, readyAt: at(220), cureName: 'Colour 1 of 2: cure', cureSeq: 5 })).toContain(
-      '1 more minute',
-    );
+    expect(refusalText('curing', { minutesLeft: 1, readyAt: at(220), cureName: 'Colour 1 of 2: cure', cureSeq: 5 })).toContain('1 more minute');
     expect(refusalText('curing', { minutesLeft: 45, readyAt: at(220) })).toContain('45 more minutes');
     expect(refusalText('quantity_mismatch', { quantityIn: 100, good: 90, scrap: 5, rework: 0 })).toContain('Good 90 + scrap 5 must equal the 100');
-    expect(refusalText('wrong_station', { expectedKind: 'strike', expectedSeq: 1, expectedName: 'Die striking', stationKind: 'polish', action: 'start' })).toContain(
-      'Take the tray to die striking',
-    );
+    expect(
+      refusalText('wrong_station', { expectedKind: 'strike', expectedSeq: 1, expectedName: 'Die striking', stationKind: 'polish', action: 'start' }),
+    ).toContain('Take the tray to die striking');
     expect(refusalText('void_traveller', { currentRevision: 2 })).toContain('revision 2');
   });
 });

@@ -64,10 +64,7 @@ export const RELEASE_ROLES: readonly Role[] = ['supervisor', 'admin'];
 
 /** What the traveller-code check found for the scanned code (decided outside this module). */
 export type TravellerVerdict =
-  | { status: 'valid' }
-  | { status: 'unknown' }
-  | { status: 'forged' }
-  | { status: 'void'; currentRevision?: number | null; currentNumber?: string | null };
+  { status: 'valid' } | { status: 'unknown' } | { status: 'forged' } | { status: 'void'; currentRevision?: number | null; currentNumber?: string | null };
 
 export interface GuardStation {
   id: string;
@@ -396,9 +393,7 @@ function start(input: GuardInput, state: TrayState, occurredMs: number, stamp: S
   if (state.phase === 'curing') {
     // The cure step closes on its own, every piece good, when its time ran out (or now, if overridden early).
     const closedMs = readyMs != null ? Math.min(readyMs, occurredMs) : occurredMs;
-    completed.push(
-      closeStep(current, state.quantity, { good: state.quantity, scrap: 0, rework: 0, reason: null }, state.startedAt, closedMs, true),
-    );
+    completed.push(closeStep(current, state.quantity, { good: state.quantity, scrap: 0, rework: 0, reason: null }, state.startedAt, closedMs, true));
     waitingFromMs = closedMs;
   }
 
@@ -445,7 +440,11 @@ function finish(input: GuardInput, state: TrayState, occurredMs: number, stamp: 
     // A cure is finished at its oven only; a wrong-station override cannot take a tray out of it.
     const overridable = state.phase !== 'curing';
     if (!overridable || input.override?.kind !== 'wrong_station') {
-      return refuse('wrong_station', { ...stepParams(current, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'finish' }, overridable);
+      return refuse(
+        'wrong_station',
+        { ...stepParams(current, 'expected'), stationKind: station.kind, stationName: station.name ?? null, action: 'finish' },
+        overridable,
+      );
     }
     overridden.push('wrong_station');
   }
@@ -497,10 +496,7 @@ function finish(input: GuardInput, state: TrayState, occurredMs: number, stamp: 
 }
 
 /** Apply a list of scans in order (the demo simulator and tests use it); refused scans leave the state as it was. */
-export function applyScans(
-  state: TrayState,
-  steps: ReadonlyArray<Omit<GuardInput, 'state'>>,
-): { state: TrayState; results: GuardResult[] } {
+export function applyScans(state: TrayState, steps: ReadonlyArray<Omit<GuardInput, 'state'>>): { state: TrayState; results: GuardResult[] } {
   let current = state;
   const results: GuardResult[] = [];
   for (const s of steps) {

@@ -1,12 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
-import {
-  IMPORT_COLUMNS,
-  IMPORT_EXAMPLE,
-  formatColoursCell,
-  parseColoursCell,
-  previewOrderImport,
-} from './order-import';
+import { IMPORT_COLUMNS, IMPORT_EXAMPLE, formatColoursCell, parseColoursCell, previewOrderImport } from './order-import';
 
 // files written before the second-finish and texture columns existed still import: those two are optional
 const header = IMPORT_COLUMNS.filter((c) => c !== 'secondPlating' && c !== 'sandblast').join(',');

@@ -143,7 +143,10 @@ const ENUM_ALIASES: Record<string, string> = {
 };
 
 function enumValue(v: string): string {
-  const k = v.trim().toLowerCase().replace(/[\s-]+/g, '_');
+  const k = v
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
   return ENUM_ALIASES[k] ?? k;
 }
 
@@ -172,7 +175,10 @@ export function parseColoursCell(cell: string): { name: string; ref?: string; he
     .map((part) => {
       const hex = /#[0-9a-fA-F]{6}\b/.exec(part)?.[0];
       const ref = /\(([^)]*)\)/.exec(part)?.[1]?.trim();
-      const name = part.replace(/#[0-9a-fA-F]{3,8}\b/, '').replace(/\([^)]*\)/, '').trim();
+      const name = part
+        .replace(/#[0-9a-fA-F]{3,8}\b/, '')
+        .replace(/\([^)]*\)/, '')
+        .trim();
       return { name, ...(ref ? { ref } : {}), ...(hex ? { hex: hex.toLowerCase() } : {}) };
     });
 }
@@ -245,14 +251,25 @@ const quote = (v: unknown) => `"${String(v ?? '').slice(0, 40)}"`;
 
 /** One schema issue as a planner would say it: what the cell holds and what to write instead. */
 export function describeImportIssue(
-  issue: { code: string; message: string; path: readonly PropertyKey[]; values?: readonly unknown[]; expected?: string; minimum?: unknown; maximum?: unknown; origin?: string; format?: string },
+  issue: {
+    code: string;
+    message: string;
+    path: readonly PropertyKey[];
+    values?: readonly unknown[];
+    expected?: string;
+    minimum?: unknown;
+    maximum?: unknown;
+    origin?: string;
+    format?: string;
+  },
   column: ImportColumn | null,
   cell: string,
 ): Omit<ImportCellError, 'column'> {
   const what = column ? COLUMN_WORDS[column] : 'value';
   const value = cell.trim();
   const mk = (code: ImportIssueCode, message: string, params: Record<string, string | number> = {}) => ({ code, message, params: { value, ...params } });
-  if (column === 'colours' && issue.path.includes('hex')) return mk('bad_swatch', `The swatch in ${quote(value)} is not a colour code; write it as # and six digits or letters, for example #1b2a4a.`);
+  if (column === 'colours' && issue.path.includes('hex'))
+    return mk('bad_swatch', `The swatch in ${quote(value)} is not a colour code; write it as # and six digits or letters, for example #1b2a4a.`);
   if (value === '' && (issue.code === 'too_small' || issue.code === 'invalid_type' || issue.code === 'invalid_value' || issue.code === 'invalid_format'))
     return mk('missing', `The ${what} is empty; fill it in.`);
   switch (issue.code) {
@@ -285,7 +302,10 @@ export function describeImportIssue(
 /** Due dates already past, or so close the order cannot be made in time: warn, do not block. */
 function dueWarnings(spec: OrderSpec, today: string | undefined): ImportRowWarning[] {
   if (!today) return [];
-  if (spec.dueDate < today) return [{ code: 'due_in_past', message: `The due date ${spec.dueDate} has already passed; check the date before importing.`, params: { due: spec.dueDate } }];
+  if (spec.dueDate < today)
+    return [
+      { code: 'due_in_past', message: `The due date ${spec.dueDate} has already passed; check the date before importing.`, params: { due: spec.dueDate } },
+    ];
   return [];
 }
 
@@ -298,19 +318,27 @@ export function previewOrderImport(csv: string, today?: string): ImportPreview {
     fileErrors.push(message);
   };
   const text = csv.replace(/^\uFEFF/, '');
-  if (text.trim() === '') return { fileErrors: ['The file is empty'], fileIssues: [{ code: 'empty', params: {} }], unknownColumns: [], rows: [], validCount: 0 };
+  if (text.trim() === '')
+    return { fileErrors: ['The file is empty'], fileIssues: [{ code: 'empty', params: {} }], unknownColumns: [], rows: [], validCount: 0 };
   // spreadsheets in some locales save with ';' — let the parser guess between ',' ';' and tab
   const parsed = Papa.parse<string[]>(text, { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t'] });
   const [header, ...body] = parsed.data;
   if (!header || header.length < 2) {
-    return { fileErrors: ['This does not look like a CSV file with a header row'], fileIssues: [{ code: 'not_csv', params: {} }], unknownColumns: [], rows: [], validCount: 0 };
+    return {
+      fileErrors: ['This does not look like a CSV file with a header row'],
+      fileIssues: [{ code: 'not_csv', params: {} }],
+      unknownColumns: [],
+      rows: [],
+      validCount: 0,
+    };
   }
   const columns = header.map((h) => COLUMN_BY_KEY.get(key(h)) ?? null);
   const unknownColumns = header.filter((_, i) => columns[i] === null).map((h) => h.trim());
   const missing = REQUIRED_IMPORT_COLUMNS.filter((c) => !columns.includes(c));
   if (missing.length) fail('missing_columns', `Missing columns: ${missing.join(', ')}`, { columns: missing.join(', ') });
   if (body.length === 0) fail('no_rows', 'The file has a header but no orders');
-  if (body.length > MAX_IMPORT_ROWS) fail('too_many_rows', `At most ${MAX_IMPORT_ROWS} orders per file (this one has ${body.length})`, { max: MAX_IMPORT_ROWS, count: body.length });
+  if (body.length > MAX_IMPORT_ROWS)
+    fail('too_many_rows', `At most ${MAX_IMPORT_ROWS} orders per file (this one has ${body.length})`, { max: MAX_IMPORT_ROWS, count: body.length });
   if (fileErrors.length) return { fileErrors, fileIssues, unknownColumns, rows: [], validCount: 0 };
 
   const rows: ImportRow[] = body.map((cells, i) => {
@@ -332,7 +360,8 @@ export function previewOrderImport(csv: string, today?: string): ImportPreview {
       for (const issue of result.error.issues) {
         const column = columnOf(issue.path);
         // one message per cell is enough for a planner
-        if (!errors.some((e) => e.column === column)) errors.push({ column, ...describeImportIssue(issue as Parameters<typeof describeImportIssue>[0], column, column ? (raw[column] ?? '') : '') });
+        if (!errors.some((e) => e.column === column))
+          errors.push({ column, ...describeImportIssue(issue as Parameters<typeof describeImportIssue>[0], column, column ? (raw[column] ?? '') : '') });
       }
     }
     const spec = errors.length === 0 && result.success ? result.data : null;
@@ -348,7 +377,9 @@ export function previewOrderImport(csv: string, today?: string): ImportPreview {
           ]
         : [],
     );
-    const warnings: ImportRowWarning[] = spec ? [...dueWarnings(spec, today), ...specWarnings(spec).map((w) => ({ code: w.code, message: w.message, params: w.params ?? {} }))] : [];
+    const warnings: ImportRowWarning[] = spec
+      ? [...dueWarnings(spec, today), ...specWarnings(spec).map((w) => ({ code: w.code, message: w.message, params: w.params ?? {} }))]
+      : [];
     return { line: i + 2, raw, spec, errors, warnings, formulaCells };
   });
   const validCount = rows.filter((r) => r.spec).length;

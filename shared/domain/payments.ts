@@ -12,7 +12,24 @@ export const DEFAULT_CURRENCY = 'USD';
  * hundredths. The three-decimal ones (BHD, JOD, KWD, OMR, TND) are refused by `minorUnitsOf`:
  * the service takes them only in multiples of ten, which the product does not handle.
  */
-export const ZERO_DECIMAL_CURRENCIES = new Set(['BIF', 'CLP', 'DJF', 'GNF', 'JPY', 'KMF', 'KRW', 'MGA', 'PYG', 'RWF', 'UGX', 'VND', 'VUV', 'XAF', 'XOF', 'XPF']);
+export const ZERO_DECIMAL_CURRENCIES = new Set([
+  'BIF',
+  'CLP',
+  'DJF',
+  'GNF',
+  'JPY',
+  'KMF',
+  'KRW',
+  'MGA',
+  'PYG',
+  'RWF',
+  'UGX',
+  'VND',
+  'VUV',
+  'XAF',
+  'XOF',
+  'XPF',
+]);
 export const THREE_DECIMAL_CURRENCIES = new Set(['BHD', 'JOD', 'KWD', 'OMR', 'TND']);
 
 export function decimalsOf(currency: string): 0 | 2 {

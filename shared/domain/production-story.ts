@@ -46,14 +46,17 @@ const BY_PROCESS: Record<StoryLang, Partial<Record<Process, StageWords>>> = {
     soft_enamel: {
       // common practice: soft enamel is plated first, then filled and cured; it stays below the metal lines
       finishing_plating: 'For soft enamel the metal is polished and plated first, before any colour goes in.',
-      colour: 'The colours are filled in by hand into the plated badge and cured in an oven; the enamel stays a little below the raised metal lines, which gives soft enamel its textured feel.',
+      colour:
+        'The colours are filled in by hand into the plated badge and cured in an oven; the enamel stays a little below the raised metal lines, which gives soft enamel its textured feel.',
     },
     die_struck: {
-      metal_forming: 'Your design is struck into the metal with a heavy press, one blank at a time, so the raised and recessed areas come out crisp; the outline is then trimmed.',
+      metal_forming:
+        'Your design is struck into the metal with a heavy press, one blank at a time, so the raised and recessed areas come out crisp; the outline is then trimmed.',
     },
     die_cast_3d: {
       // common practice: irregular and 3D shapes are zinc die cast
-      metal_forming: 'Molten zinc alloy is injected into your mould, which lets the badge have a 3D shape and cut-outs; each casting is then trimmed and its edges cleaned.',
+      metal_forming:
+        'Molten zinc alloy is injected into your mould, which lets the badge have a 3D shape and cut-outs; each casting is then trimmed and its edges cleaned.',
     },
     printed: {
       finishing_plating: 'The badge is polished and plated, then your design is printed onto it and sealed so the colours last.',

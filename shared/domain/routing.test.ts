@@ -403,5 +403,4 @@ describe('edited routings', () => {
     expect(routingProblems([])).toHaveLength(1);
     expect(routingProblems([{ ...moved[0], trayMinutes: -1 }])[0].message).toMatch(/negative/);
   });
-
 });

@@ -234,12 +234,41 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   hard_enamel: {
     process: 'hard_enamel',
     name: 'Hard enamel',
-    steps: [STRIKE, TRIM, POSTS, SAFETY_PIN, hardColours, STONE, POLISH, SANDBLAST, CHECK_BEFORE_PLATING, ...PLATING, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [
+      STRIKE,
+      TRIM,
+      POSTS,
+      SAFETY_PIN,
+      hardColours,
+      STONE,
+      POLISH,
+      SANDBLAST,
+      CHECK_BEFORE_PLATING,
+      ...PLATING,
+      PRINT_OPTIONAL,
+      EPOXY_OPTIONAL,
+      EPOXY_CURE_OPTIONAL,
+      ...FINISH,
+    ],
   },
   soft_enamel: {
     process: 'soft_enamel',
     name: 'Soft enamel',
-    steps: [STRIKE, TRIM, POSTS, SAFETY_PIN, POLISH, SANDBLAST, CHECK_BEFORE_PLATING, ...PLATING, softColours, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [
+      STRIKE,
+      TRIM,
+      POSTS,
+      SAFETY_PIN,
+      POLISH,
+      SANDBLAST,
+      CHECK_BEFORE_PLATING,
+      ...PLATING,
+      softColours,
+      PRINT_OPTIONAL,
+      EPOXY_OPTIONAL,
+      EPOXY_CURE_OPTIONAL,
+      ...FINISH,
+    ],
   },
   die_struck: {
     process: 'die_struck',
@@ -268,7 +297,21 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   die_cast_3d: {
     process: 'die_cast_3d',
     name: '3D die-cast',
-    steps: [CAST, TRIM, POSTS, SAFETY_PIN, POLISH, SANDBLAST, CHECK_BEFORE_PLATING, ...PLATING, softColours, PRINT_OPTIONAL, EPOXY_OPTIONAL, EPOXY_CURE_OPTIONAL, ...FINISH],
+    steps: [
+      CAST,
+      TRIM,
+      POSTS,
+      SAFETY_PIN,
+      POLISH,
+      SANDBLAST,
+      CHECK_BEFORE_PLATING,
+      ...PLATING,
+      softColours,
+      PRINT_OPTIONAL,
+      EPOXY_OPTIONAL,
+      EPOXY_CURE_OPTIONAL,
+      ...FINISH,
+    ],
   },
 };
 
@@ -387,4 +430,3 @@ export function routingProblems(steps: readonly RoutingStep[]): RoutingProblem[]
   });
   return problems;
 }
-

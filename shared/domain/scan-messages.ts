@@ -34,11 +34,7 @@ function stepLabel(name: unknown, seq: unknown): string {
 }
 
 /** What to say about a refused scan. `formatTime` lets a caller show times in its own zone. */
-export function refusalMessage(
-  code: RejectionCode,
-  params: RefusalParams = {},
-  formatTime: (iso: unknown) => string = defaultTime,
-): PlainMessage {
+export function refusalMessage(code: RejectionCode, params: RefusalParams = {}, formatTime: (iso: unknown) => string = defaultTime): PlainMessage {
   const p = params;
   switch (code) {
     case 'unknown_tray':
@@ -51,9 +47,7 @@ export function refusalMessage(
       return {
         title: 'Old traveller',
         detail:
-          p.currentRevision != null
-            ? `This traveller was replaced by a reprint (revision ${p.currentRevision}).`
-            : 'This traveller was replaced by a reprint.',
+          p.currentRevision != null ? `This traveller was replaced by a reprint (revision ${p.currentRevision}).` : 'This traveller was replaced by a reprint.',
         next: 'Use the newest traveller for this tray and throw this one away; ask the planner if you do not have it.',
       };
     case 'bad_signature':

@@ -94,7 +94,12 @@ describe('carton arithmetic', () => {
     expect(planCartons(400, 100)).toEqual({ full: 4, partPieces: 0, cartons: 4 });
     expect(planCartons(0, 100)).toEqual({ full: 0, partPieces: 0, cartons: 0 });
     // Identity: full × per carton + part = pieces, for a spread of values.
-    for (const [p, per] of [[1, 1], [999, 50], [1001, 250], [37, 40]]) {
+    for (const [p, per] of [
+      [1, 1],
+      [999, 50],
+      [1001, 250],
+      [37, 40],
+    ]) {
       const r = planCartons(p, per);
       expect(r.full * per + r.partPieces).toBe(p);
       expect(r.partPieces).toBeLessThan(per);
@@ -147,7 +152,10 @@ describe('packing progress', () => {
     expect(trayIsPacked(t(null, 100))).toBe(true);
   });
   it('without a pack step, a tray is packed when it reaches dispatch', () => {
-    const r = [{ seq: 1, stationKind: 'inspect' as const }, { seq: 2, stationKind: 'dispatch' as const }];
+    const r = [
+      { seq: 1, stationKind: 'inspect' as const },
+      { seq: 2, stationKind: 'dispatch' as const },
+    ];
     expect(trayIsPacked({ phase: 'waiting', stepSeq: 1, quantity: 5, routing: r })).toBe(false);
     expect(trayIsPacked({ phase: 'waiting', stepSeq: 2, quantity: 5, routing: r })).toBe(true);
   });

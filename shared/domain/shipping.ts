@@ -43,8 +43,7 @@ export function checkFinishedQuantity(input: { ordered: number; overrunPct: numb
 }
 
 export type ShipmentQuantityResult =
-  | { ok: true; pieces: number; remainingAfter: number }
-  | { ok: false; code: 'more_than_made'; pieces: number; available: number };
+  { ok: true; pieces: number; remainingAfter: number } | { ok: false; code: 'more_than_made'; pieces: number; available: number };
 
 /** A shipment may not carry more pieces than were made and not yet shipped. */
 export function checkShipmentQuantity(input: { made: number; alreadyShipped: number; pieces: number }): ShipmentQuantityResult {
@@ -169,7 +168,7 @@ export function trayIsPacked(t: TrayPackState): boolean {
   const pack = t.routing.filter((s) => s.stationKind === 'pack').map((s) => s.seq);
   // Without a pack step the tray is packed once it reaches dispatch.
   const dispatch = t.routing.find((s) => s.stationKind === 'dispatch')?.seq;
-  const packedFrom = pack.length > 0 ? Math.max(...pack) + 1 : dispatch ?? Number.POSITIVE_INFINITY;
+  const packedFrom = pack.length > 0 ? Math.max(...pack) + 1 : (dispatch ?? Number.POSITIVE_INFINITY);
   return t.stepSeq >= packedFrom;
 }
 
@@ -185,7 +184,9 @@ export function trayReachedPacking(t: TrayPackState): boolean {
 }
 
 /** How much of an order is packed and what is still on the floor. */
-export function packingProgress<T extends TrayPackState>(trays: readonly T[]): {
+export function packingProgress<T extends TrayPackState>(
+  trays: readonly T[],
+): {
   packed: T[];
   onFloor: T[];
   packedPieces: number;
@@ -208,7 +209,10 @@ export function packingProgress<T extends TrayPackState>(trays: readonly T[]): {
  */
 export function normaliseTrackingNumber(raw: string): string {
   // Control characters (line ends, the GS1 group separator) are dropped one by one.
-  let s = [...raw].filter((c) => c.charCodeAt(0) > 0x1f && c.charCodeAt(0) !== 0x7f).join('').trim();
+  let s = [...raw]
+    .filter((c) => c.charCodeAt(0) > 0x1f && c.charCodeAt(0) !== 0x7f)
+    .join('')
+    .trim();
   if (/^\][A-Za-z][0-9A-Za-z]/.test(s)) s = s.slice(3);
   return s.replace(/\s+/g, '').toUpperCase();
 }

@@ -1,14 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { RoutingStep, StationKind, TrayPhase } from './vocabulary';
 import { STATION_KINDS } from './vocabulary';
-import {
-  CUSTOMER_STAGES,
-  CUSTOMER_STAGE_NAMES,
-  STAGE_OF_STATION_KIND,
-  describeStage,
-  orderStage,
-  type TravellerProgress,
-} from './stages';
+import { CUSTOMER_STAGES, CUSTOMER_STAGE_NAMES, STAGE_OF_STATION_KIND, describeStage, orderStage, type TravellerProgress } from './stages';
 
 type Step = Pick<RoutingStep, 'seq' | 'stationKind'>;
 
@@ -20,15 +13,25 @@ function routing(kinds: StationKind[]): Step[] {
 // colours filled and cured one at a time, ground flush, polished, plated, screen printed,
 // inspected, clutches fitted, bagged, packed, shipped.
 const HARD_ENAMEL: StationKind[] = [
-  'strike', 'trim', 'post',
-  'fill', 'cure', 'fill', 'cure',
-  'stone', 'polish', 'plate', 'print',
-  'inspect', 'clutch', 'bag', 'pack', 'dispatch',
+  'strike',
+  'trim',
+  'post',
+  'fill',
+  'cure',
+  'fill',
+  'cure',
+  'stone',
+  'polish',
+  'plate',
+  'print',
+  'inspect',
+  'clutch',
+  'bag',
+  'pack',
+  'dispatch',
 ];
 // Soft enamel (product brief rule 2): plated first, then filled and cured.
-const SOFT_ENAMEL: StationKind[] = [
-  'strike', 'trim', 'post', 'plate', 'fill', 'fill', 'cure', 'epoxy', 'inspect', 'clutch', 'bag', 'pack', 'dispatch',
-];
+const SOFT_ENAMEL: StationKind[] = ['strike', 'trim', 'post', 'plate', 'fill', 'fill', 'cure', 'epoxy', 'inspect', 'clutch', 'bag', 'pack', 'dispatch'];
 const MOULD: StationKind[] = ['engrave', 'mould_check'];
 
 function tray(kinds: StationKind[], stepSeq: number | null, phase: TrayPhase = 'waiting'): TravellerProgress {
@@ -94,19 +97,10 @@ describe('customer stages', () => {
   it('ignores trays written off or merged into another', () => {
     const s = orderStage({
       status: 'in_production',
-      travellers: [
-        { ...tray(HARD_ENAMEL, 2), phase: 'scrapped' },
-        { ...tray(HARD_ENAMEL, 3), phase: 'merged' },
-        tray(HARD_ENAMEL, 12),
-      ],
+      travellers: [{ ...tray(HARD_ENAMEL, 2), phase: 'scrapped' }, { ...tray(HARD_ENAMEL, 3), phase: 'merged' }, tray(HARD_ENAMEL, 12)],
     });
     expect(s.stage).toBe('inspection');
-    expect(s.stages.filter((x) => x.done).map((x) => x.name)).toEqual([
-      'Artwork and moulds',
-      'Metal forming',
-      'Colour',
-      'Finishing and plating',
-    ]);
+    expect(s.stages.filter((x) => x.done).map((x) => x.name)).toEqual(['Artwork and moulds', 'Metal forming', 'Colour', 'Finishing and plating']);
   });
 
   it('before release the order is at artwork and moulds', () => {
@@ -142,13 +136,7 @@ describe('stage in plain words', () => {
   it('names the stage and where the trays stand', () => {
     const text = describeStage({
       status: 'in_production',
-      travellers: [
-        tray(HARD_ENAMEL, 4),
-        tray(HARD_ENAMEL, 4),
-        tray(HARD_ENAMEL, 5, 'curing'),
-        tray(HARD_ENAMEL, 9),
-        tray(HARD_ENAMEL, null),
-      ],
+      travellers: [tray(HARD_ENAMEL, 4), tray(HARD_ENAMEL, 4), tray(HARD_ENAMEL, 5, 'curing'), tray(HARD_ENAMEL, 9), tray(HARD_ENAMEL, null)],
     });
     expect(text).toBe(
       'Colour: enamel colours are being filled and cured. 2 trays at colour fill, 1 tray at curing oven, 1 tray at polishing, 1 tray dispatched.',
@@ -177,8 +165,6 @@ describe('stage in plain words', () => {
         tray(HARD_ENAMEL, 1),
       ],
     });
-    expect(text).toBe(
-      'Artwork and moulds: the artwork proof and the moulds are being prepared. 1 tray at die striking, 1 mould in the making.',
-    );
+    expect(text).toBe('Artwork and moulds: the artwork proof and the moulds are being prepared. 1 tray at die striking, 1 mould in the making.');
   });
 });

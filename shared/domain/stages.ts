@@ -3,15 +3,7 @@
 import { STATION_KIND_TRAITS } from './traveller/station-kinds';
 import { STATION_KINDS, STATION_KIND_NAMES, type OrderStatus, type RoutingStep, type StationKind, type TrayPhase, type TravellerKind } from './vocabulary';
 
-export const CUSTOMER_STAGES = [
-  'artwork_moulds',
-  'metal_forming',
-  'colour',
-  'finishing_plating',
-  'inspection',
-  'packing',
-  'shipped',
-] as const;
+export const CUSTOMER_STAGES = ['artwork_moulds', 'metal_forming', 'colour', 'finishing_plating', 'inspection', 'packing', 'shipped'] as const;
 export type CustomerStage = (typeof CUSTOMER_STAGES)[number];
 
 /** The names a customer reads on the status page. */
@@ -42,9 +34,10 @@ const STAGE_EXPLANATIONS: Record<CustomerStage, string> = {
  * plating in hard enamel work, so they belong with finishing. Dispatch is the last packing
  * step: the order only counts as shipped when that step has finished.
  */
-export const STAGE_OF_STATION_KIND = Object.fromEntries(
-  Object.entries(STATION_KIND_TRAITS).map(([k, t]) => [k, t.stage]),
-) as Record<StationKind, CustomerStage>;
+export const STAGE_OF_STATION_KIND = Object.fromEntries(Object.entries(STATION_KIND_TRAITS).map(([k, t]) => [k, t.stage])) as Record<
+  StationKind,
+  CustomerStage
+>;
 
 /** What the stage computation needs to know about one traveller (tray or mould). */
 export interface TravellerProgress {

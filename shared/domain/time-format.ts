@@ -50,7 +50,12 @@ function toMs(at: string | number | Date | null | undefined): number | null {
  * An instant in the factory's zone. `zoneName` adds the zone ("GMT+8") where a reader could take
  * the time for their own (a customer abroad, a report read elsewhere). No time: "—".
  */
-export function formatInstant(at: string | number | Date | null | undefined, settings: TimeSettings, style: InstantStyle = 'dateTime', zoneName = false): string {
+export function formatInstant(
+  at: string | number | Date | null | undefined,
+  settings: TimeSettings,
+  style: InstantStyle = 'dateTime',
+  zoneName = false,
+): string {
   const ms = toMs(at);
   if (ms == null) return '—';
   return formatter(settings.locale, settings.timeZone, style, zoneName).format(ms);

@@ -3,13 +3,7 @@ import QRCode from 'qrcode';
 import { hmac } from '@noble/hashes/hmac';
 import { sha256 } from '@noble/hashes/sha2';
 import { createHmac } from 'node:crypto';
-import {
-  MAX_CODE_LENGTH,
-  makeTravellerCode,
-  parseTravellerCode,
-  travellerCheckMessage,
-  verifyTravellerCode,
-} from './traveller-code';
+import { MAX_CODE_LENGTH, makeTravellerCode, parseTravellerCode, travellerCheckMessage, verifyTravellerCode } from './traveller-code';
 import { TRAY_NUMBER_MAX_LENGTH, childTrayNumber, mouldNumber, trayNumber } from './trays';
 
 const KEY = 'test-key-0123456789abcdef-0123456789';

@@ -67,9 +67,7 @@ export function makeTravellerCode(input: { number: string; revision: number }, k
   return `${CODE_PREFIX}:${input.number}:${input.revision}:${mac(input.number, input.revision, key)}`;
 }
 
-export type ParsedTravellerCode =
-  | { form: 'qr'; number: string; revision: number; mac: string }
-  | { form: 'typed'; number: string };
+export type ParsedTravellerCode = { form: 'qr'; number: string; revision: number; mac: string } | { form: 'typed'; number: string };
 
 const CODE_PATTERN = new RegExp(`^${CODE_PREFIX}:([0-9A-Z.-]{1,${TRAY_NUMBER_MAX_LENGTH}}):([1-9][0-9]{0,2}):([A-Z2-7]{${MAC_CHARS}})$`);
 
@@ -106,11 +104,7 @@ export type TravellerCheck =
  * Verifies a scanned code against the server key and the tray's current revision.
  * A typed tray number carries no MAC: it is accepted as the current revision (typed: true).
  */
-export function verifyTravellerCode(
-  text: string | ParsedTravellerCode,
-  key: TravellerKey,
-  currentRevision: number,
-): TravellerCheck {
+export function verifyTravellerCode(text: string | ParsedTravellerCode, key: TravellerKey, currentRevision: number): TravellerCheck {
   const parsed = typeof text === 'string' ? parseTravellerCode(text) : text;
   if (!parsed) return { status: 'unreadable' };
   if (parsed.form === 'typed') return { status: 'ok', number: parsed.number, revision: currentRevision, typed: true };

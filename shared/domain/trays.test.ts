@@ -139,17 +139,11 @@ describe('canMerge: same order, same next step', () => {
   });
 
   it('merges and adds the pieces', () => {
-    const r = canMerge([
-      cand('a', 100, { waitingSince: '2026-03-03T10:00:00Z' }),
-      cand('b', 45, { waitingSince: '2026-03-03T09:00:00Z' }),
-    ]);
+    const r = canMerge([cand('a', 100, { waitingSince: '2026-03-03T10:00:00Z' }), cand('b', 45, { waitingSince: '2026-03-03T09:00:00Z' })]);
     expect(r).toMatchObject({ ok: true, quantity: 145, waitingSince: '2026-03-03T09:00:00Z' });
   });
   it('the merged tray waits for the later cure', () => {
-    const r = canMerge([
-      cand('a', 10, { cureReadyAt: '2026-03-03T12:00:00Z' }),
-      cand('b', 10, { cureReadyAt: '2026-03-03T13:30:00Z' }),
-    ]);
+    const r = canMerge([cand('a', 10, { cureReadyAt: '2026-03-03T12:00:00Z' }), cand('b', 10, { cureReadyAt: '2026-03-03T13:30:00Z' })]);
     expect(r).toMatchObject({ ok: true, cureReadyAt: '2026-03-03T13:30:00Z' });
   });
   it('refuses other orders, other steps, busy, held, moulds, a single tray', () => {

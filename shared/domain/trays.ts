@@ -57,17 +57,13 @@ export function normaliseTrayNumber(text: string): string {
 // Split
 
 export type SplitResult =
-  | { ok: true; remaining: number; parts: number[] }
-  | { ok: false; code: 'bad_quantity' | 'nothing_left' | 'not_waiting' | 'on_hold'; message: string };
+  { ok: true; remaining: number; parts: number[] } | { ok: false; code: 'bad_quantity' | 'nothing_left' | 'not_waiting' | 'on_hold'; message: string };
 
 /**
  * Takes `parts` pieces off a tray into new trays; the rest stays on the original.
  * Only a tray that waits for its next step (not in process, not curing, not on hold) can be split.
  */
-export function splitTray(
-  tray: Pick<TrayState, 'quantity' | 'phase' | 'onHold'>,
-  parts: readonly number[],
-): SplitResult {
+export function splitTray(tray: Pick<TrayState, 'quantity' | 'phase' | 'onHold'>, parts: readonly number[]): SplitResult {
   if (tray.phase !== 'waiting') {
     return { ok: false, code: 'not_waiting', message: 'Only a tray waiting for its next step can be split' };
   }

@@ -34,9 +34,7 @@ export const STATION_KINDS = [
 export type StationKind = (typeof STATION_KINDS)[number];
 
 /** Plain English names of the station kinds (the tablet has its own translations). */
-export const STATION_KIND_NAMES = Object.fromEntries(
-  Object.entries(STATION_KIND_TRAITS).map(([k, t]) => [k, t.name]),
-) as Record<StationKind, string>;
+export const STATION_KIND_NAMES = Object.fromEntries(Object.entries(STATION_KIND_TRAITS).map(([k, t]) => [k, t.name])) as Record<StationKind, string>;
 
 export const PROCESSES = ['hard_enamel', 'soft_enamel', 'die_struck', 'printed', 'die_cast_3d'] as const;
 export type Process = (typeof PROCESSES)[number];
@@ -62,15 +60,7 @@ export type Plating = (typeof PLATINGS)[number];
 /** Antique finishes: plated, darkened by oxidising, then relief-polished so the raised metal shines (common practice). */
 export const ANTIQUE_PLATINGS: readonly Plating[] = ['antique_gold', 'antique_silver', 'antique_copper', 'antique_bronze'];
 
-export const BACKING_TYPES = [
-  'butterfly_clutch',
-  'rubber_clutch',
-  'locking_clutch',
-  'magnet',
-  'safety_pin',
-  'screw_nut',
-  'none',
-] as const;
+export const BACKING_TYPES = ['butterfly_clutch', 'rubber_clutch', 'locking_clutch', 'magnet', 'safety_pin', 'screw_nut', 'none'] as const;
 export type BackingType = (typeof BACKING_TYPES)[number];
 
 export const PACKAGINGS = ['bulk', 'individual_bag', 'backing_card', 'gift_box'] as const;
@@ -168,12 +158,7 @@ export interface TrayState {
 }
 
 /** The state of a traveller just released to the floor: waiting for its first step. */
-export function initialTrayState(input: {
-  trayId: string;
-  kind: TravellerKind;
-  quantity: number;
-  releasedAt: string;
-}): TrayState {
+export function initialTrayState(input: { trayId: string; kind: TravellerKind; quantity: number; releasedAt: string }): TrayState {
   return {
     trayId: input.trayId,
     kind: input.kind,

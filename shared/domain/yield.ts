@@ -145,9 +145,7 @@ export interface ParetoRow {
 export function pareto(rows: readonly { reason: string; qty: number }[]): ParetoRow[] {
   const byReason = new Map<string, number>();
   for (const r of rows) byReason.set(r.reason, (byReason.get(r.reason) ?? 0) + r.qty);
-  const sorted = [...byReason.entries()]
-    .filter(([, q]) => q > 0)
-    .sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]));
+  const sorted = [...byReason.entries()].filter(([, q]) => q > 0).sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]));
   const total = sorted.reduce((s, [, q]) => s + q, 0);
   let run = 0;
   return sorted.map(([reason, qty]) => {

@@ -33,7 +33,10 @@ export const sessionUser = z.object({ id: z.string(), name: z.string(), role: ro
 export type SessionUserWire = z.infer<typeof sessionUser>;
 export const meResponse = z.object({
   user: sessionUser,
-  device: z.object({ id: z.string(), name: z.string(), kind: z.enum(['tablet', 'wall']), stationId: z.string().nullable() }).nullable().optional(),
+  device: z
+    .object({ id: z.string(), name: z.string(), kind: z.enum(['tablet', 'wall']), stationId: z.string().nullable() })
+    .nullable()
+    .optional(),
   /** the factory's time zone (IANA name): every time on screen is shown in it */
   timeZone: z.string().optional(),
 });

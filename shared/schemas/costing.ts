@@ -62,15 +62,17 @@ export const costingSettingsSchema = z.strictObject({
 export type CostingSettings = z.infer<typeof costingSettingsSchema>;
 
 /** PUT /api/admin/costing: any part of the settings; what is left out keeps its value. */
-export const costingSettingsPatchSchema = z.strictObject({
-  ...costingSettingsSchema.shape,
-  densities: costingSettingsSchema.shape.densities.partial(),
-  materialPricePerKg: costingSettingsSchema.shape.materialPricePerKg.partial(),
-  labourRatePerHour: costingSettingsSchema.shape.labourRatePerHour.partial(),
-  platingPerDm2: costingSettingsSchema.shape.platingPerDm2.partial(),
-  fittingPrice: costingSettingsSchema.shape.fittingPrice.partial(),
-  packagingPrice: costingSettingsSchema.shape.packagingPrice.partial(),
-}).partial();
+export const costingSettingsPatchSchema = z
+  .strictObject({
+    ...costingSettingsSchema.shape,
+    densities: costingSettingsSchema.shape.densities.partial(),
+    materialPricePerKg: costingSettingsSchema.shape.materialPricePerKg.partial(),
+    labourRatePerHour: costingSettingsSchema.shape.labourRatePerHour.partial(),
+    platingPerDm2: costingSettingsSchema.shape.platingPerDm2.partial(),
+    fittingPrice: costingSettingsSchema.shape.fittingPrice.partial(),
+    packagingPrice: costingSettingsSchema.shape.packagingPrice.partial(),
+  })
+  .partial();
 export type CostingSettingsPatch = z.infer<typeof costingSettingsPatchSchema>;
 
 export const DEFAULT_COSTING_SETTINGS: CostingSettings = {

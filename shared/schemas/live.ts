@@ -21,7 +21,25 @@ export interface WallView {
   holds: { trayId: string; number: string; orderNumber: string; stationKind: string; reason: string | null; reasonZh: string | null; pieces: number }[];
   oldest: { stationKind: string; trayNumber: string; orderNumber: string; minutes: number }[];
   refusals: { id: string; code: string; message: string; at: string; trayNumber: string | null; stationName: string | null; userName: string | null }[];
-  overrides: { id: string; kind: string; reason: string; at: string; trayNumber: string; stationName: string | null; supervisorName: string | null; used: boolean }[];
-  atRisk: { orderId: string; number: string; customer: string; title: string; dueDate: string | null; expectedAt: string | null; p85At: string | null; risk: 'late' | 'at_risk' }[];
+  overrides: {
+    id: string;
+    kind: string;
+    reason: string;
+    at: string;
+    trayNumber: string;
+    stationName: string | null;
+    supervisorName: string | null;
+    used: boolean;
+  }[];
+  atRisk: {
+    orderId: string;
+    number: string;
+    customer: string;
+    title: string;
+    dueDate: string | null;
+    expectedAt: string | null;
+    p85At: string | null;
+    risk: 'late' | 'at_risk';
+  }[];
   bottleneck: { stationKind: string; waitingTrays: number; capacityTrays: number; ratio: number } | null;
 }

@@ -1,12 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  checkReleasedAt,
-  orderSpecSchema,
-  paymentBodySchema,
-  releaseBodySchema,
-  specWarnings,
-  type OrderSpecInput,
-} from './orders';
+import { checkReleasedAt, orderSpecSchema, paymentBodySchema, releaseBodySchema, specWarnings, type OrderSpecInput } from './orders';
 
 const base: OrderSpecInput = {
   customer: 'Harbour Rowing Club',

@@ -4,15 +4,7 @@ import { z } from 'zod';
 import type { RoutingStep, TrayPhase, TravellerKind, OrderStatus } from '@shared/domain/vocabulary';
 import type { MouldTool } from '@shared/domain/routing';
 import { currencySchema, type OrderPayment, type OrderPaymentSummary } from './payments';
-import {
-  BACKING_TYPES,
-  MATERIALS,
-  PACKAGINGS,
-  PLATINGS,
-  PROCESSES,
-  type Plating,
-  type Process,
-} from '@shared/domain/vocabulary';
+import { BACKING_TYPES, MATERIALS, PACKAGINGS, PLATINGS, PROCESSES, type Plating, type Process } from '@shared/domain/vocabulary';
 
 /** What the badge is; decides which size bounds apply to the warning. */
 export const PRODUCT_TYPES = ['pin', 'coin', 'medal', 'key_ring'] as const;
@@ -98,7 +90,10 @@ export function specContradictions(spec: Omit<SpecShape, 'customer' | 'customerI
     out.push({ path: 'colours', message: 'A die-struck badge has no enamel colours: remove the colours, or choose hard or soft enamel' });
   }
   if (process === 'printed' && spec.backLogo) {
-    out.push({ path: 'backLogo', message: 'A printed badge is cut from a printed sheet and has no struck back logo: switch the back logo off, or choose a struck process' });
+    out.push({
+      path: 'backLogo',
+      message: 'A printed badge is cut from a printed sheet and has no struck back logo: switch the back logo off, or choose a struck process',
+    });
   }
   if (process === 'printed' && spec.sandblast) {
     out.push({ path: 'sandblast', message: 'A printed badge’s face is covered by the print: it cannot be sandblasted' });

@@ -187,7 +187,12 @@ export type StationQueue = z.infer<typeof stationQueueSchema>;
 
 export const exceptionsQuery = z.object({
   open: z.enum(['true', 'false', 'all']).default('true'),
-  sinceHours: z.coerce.number().int().min(1).max(24 * 90).optional(),
+  sinceHours: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 90)
+    .optional(),
   limit: z.coerce.number().int().min(1).max(1000).default(200),
 });
 

@@ -1,12 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  cartonLineSchema,
-  createShipmentSchema,
-  emailAddressSchema,
-  publicStatusSchema,
-  statusTokenSchema,
-  trackingNumberSchema,
-} from './shipping';
+import { cartonLineSchema, createShipmentSchema, emailAddressSchema, publicStatusSchema, statusTokenSchema, trackingNumberSchema } from './shipping';
 
 describe('e-mail addresses at entry', () => {
   it('accepts ordinary addresses and trims them', () => {
@@ -72,9 +65,7 @@ describe('public status', () => {
   };
   it('accepts the documented fields', () => {
     expect(publicStatusSchema.parse(ok)).toEqual(ok);
-    expect(
-      publicStatusSchema.safeParse({ ...ok, shippedAt: '2025-04-02T10:00:00Z', carrier: 'X', trackingNumber: 'Y' }).success,
-    ).toBe(true);
+    expect(publicStatusSchema.safeParse({ ...ok, shippedAt: '2025-04-02T10:00:00Z', carrier: 'X', trackingNumber: 'Y' }).success).toBe(true);
   });
   it('refuses any other field, top level or inside a stage', () => {
     expect(publicStatusSchema.safeParse({ ...ok, price: 10 }).success).toBe(false);

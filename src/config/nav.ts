@@ -1,5 +1,27 @@
 import type { LucideIcon } from 'lucide-react';
-import { CalendarClock, ShieldAlert, ScanLine, LayoutDashboard, MonitorPlay, ClipboardList, Boxes, Flame, LineChart, Search, Users, Factory, TabletSmartphone, Tags, DatabaseBackup, Settings, Route, Truck, Mail, FileText, Calculator } from 'lucide-react';
+import {
+  CalendarClock,
+  ShieldAlert,
+  ScanLine,
+  LayoutDashboard,
+  MonitorPlay,
+  ClipboardList,
+  Boxes,
+  Flame,
+  LineChart,
+  Search,
+  Users,
+  Factory,
+  TabletSmartphone,
+  Tags,
+  DatabaseBackup,
+  Settings,
+  Route,
+  Truck,
+  Mail,
+  FileText,
+  Calculator,
+} from 'lucide-react';
 import type { Role } from '@shared/domain/vocabulary';
 import { QUOTING } from '@shared/domain/access';
 import type { CommonStrings } from '@/lib/i18n/common/en';

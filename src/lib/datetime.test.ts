@@ -19,35 +19,110 @@ import { TrayPanel } from '@/features/station/components/tray-panel';
 const INSTANT = '2026-12-10T02:27:00.000Z';
 const DUE = '2026-12-10';
 
-const text = (html: string) => html.replace(/<[^>]+>/g, ' ').replace(/&nbsp;/g, ' ').replace(/\s+/g, ' ');
+const text = (html: string) =>
+  html
+    .replace(/<[^>]+>/g, ' ')
+    .replace(/&nbsp;/g, ' ')
+    .replace(/\s+/g, ' ');
 
 const order = {
   id: 'o1',
   number: '1066',
   customer: { id: 'c1', name: 'Invented Rowing Club' },
   spec: {
-    productType: 'lapel_pin', process: 'hard_enamel', material: 'iron', sizeMm: 25, quantity: 100, overrunPct: 5,
-    plating: 'gold', secondPlating: null, backing: { type: 'butterfly_clutch', count: 1 }, backLogo: false, printing: false, epoxy: false, sandblast: false,
-    packaging: 'individual_bag', dueDate: DUE, colours: [], notes: '',
+    productType: 'lapel_pin',
+    process: 'hard_enamel',
+    material: 'iron',
+    sizeMm: 25,
+    quantity: 100,
+    overrunPct: 5,
+    plating: 'gold',
+    secondPlating: null,
+    backing: { type: 'butterfly_clutch', count: 1 },
+    backLogo: false,
+    printing: false,
+    epoxy: false,
+    sandblast: false,
+    packaging: 'individual_bag',
+    dueDate: DUE,
+    colours: [],
+    notes: '',
   },
-  status: 'in_production', holdReason: null, reorderOf: null, releasedQuantity: 105, traySize: 50, releasedAt: INSTANT, shippedAt: null, createdAt: INSTANT,
-  late: false, projectedShipAt: INSTANT, projectionNote: null, warnings: [], openGates: [], payments: [], paidTotal: 0, proofs: [], routing: [], mouldRouting: [],
-  mouldPlan: [], trays: [], moulds: [], history: [],
+  status: 'in_production',
+  holdReason: null,
+  reorderOf: null,
+  releasedQuantity: 105,
+  traySize: 50,
+  releasedAt: INSTANT,
+  shippedAt: null,
+  createdAt: INSTANT,
+  late: false,
+  projectedShipAt: INSTANT,
+  projectionNote: null,
+  warnings: [],
+  openGates: [],
+  payments: [],
+  paidTotal: 0,
+  proofs: [],
+  routing: [],
+  mouldRouting: [],
+  mouldPlan: [],
+  trays: [],
+  moulds: [],
+  history: [],
 } as unknown as OrderDetail;
 
 const listItem: OrderListItem = {
-  id: 'o1', number: '1066', customer: 'Invented Rowing Club', customerId: 'c1', title: 'Crest', process: 'hard_enamel', quantity: 100, status: 'in_production',
-  openGates: [], dueDate: DUE, projectedShipAt: INSTANT, late: false, releasedAt: INSTANT, trays: 3, createdAt: INSTANT,
+  id: 'o1',
+  number: '1066',
+  customer: 'Invented Rowing Club',
+  customerId: 'c1',
+  title: 'Crest',
+  process: 'hard_enamel',
+  quantity: 100,
+  status: 'in_production',
+  openGates: [],
+  dueDate: DUE,
+  projectedShipAt: INSTANT,
+  late: false,
+  releasedAt: INSTANT,
+  trays: 3,
+  createdAt: INSTANT,
 };
 
 const station = { id: 's1', name: 'Die striking', nameZh: '冲压', kind: 'strike' as const, instructions: '', safetyNotes: '' };
 const state: TrayState = {
-  trayId: 't1', kind: 'tray', phase: 'in_process', stepSeq: 1, quantity: 50, stationId: 's1', startedAt: INSTANT, waitingSince: INSTANT,
-  cureReadyAt: null, onHold: false, holdReason: null, releasedAt: INSTANT,
+  trayId: 't1',
+  kind: 'tray',
+  phase: 'in_process',
+  stepSeq: 1,
+  quantity: 50,
+  stationId: 's1',
+  startedAt: INSTANT,
+  waitingSince: INSTANT,
+  cureReadyAt: null,
+  onHold: false,
+  holdReason: null,
+  releasedAt: INSTANT,
 };
 const card = {
   tray: { id: 't1', number: '1066-01', kind: 'tray', revision: 1, releasedQuantity: 50 },
-  order: { id: 'o1', number: '1066', title: 'Crest', customer: 'Invented Rowing Club', process: 'die_struck', material: 'brass', sizeMm: 25, colours: [], plating: 'gold', backingType: 'butterfly_clutch', backingCount: 1, packaging: 'individual_bag', dueDate: DUE, notes: '' },
+  order: {
+    id: 'o1',
+    number: '1066',
+    title: 'Crest',
+    customer: 'Invented Rowing Club',
+    process: 'die_struck',
+    material: 'brass',
+    sizeMm: 25,
+    colours: [],
+    plating: 'gold',
+    backingType: 'butterfly_clutch',
+    backingCount: 1,
+    packaging: 'individual_bag',
+    dueDate: DUE,
+    notes: '',
+  },
   state,
   routing: [{ seq: 1, stationKind: 'strike', name: 'Die striking' }],
   mouldReady: true,
@@ -60,7 +135,17 @@ function screens(lang: 'en' | 'zh-CN') {
   const list = text(renderToStaticMarkup(createElement(MemoryRouter, null, createElement(OrdersTable, { orders: [listItem] }))));
   const tablet = text(
     renderToStaticMarkup(
-      createElement(TrayPanel, { number: '1066-01', card, state, station, lang, reasonName: (c: string) => c, now: Date.parse(INSTANT) + 60_000, onAction: () => {}, onClose: () => {} }),
+      createElement(TrayPanel, {
+        number: '1066-01',
+        card,
+        state,
+        station,
+        lang,
+        reasonName: (c: string) => c,
+        now: Date.parse(INSTANT) + 60_000,
+        onAction: () => {},
+        onClose: () => {},
+      }),
     ),
   );
   return { spec, list, tablet };

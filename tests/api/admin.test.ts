@@ -14,7 +14,9 @@ afterAll(() => t.close());
 
 describe('reason codes', () => {
   it('adds a reason in both languages, switches it off, and never deletes it', async () => {
-    const created = await admin.post('/api/admin/reason-codes').send({ code: 'pin_missing', name: 'Post missing', nameZh: '缺针', kind: 'scrap', stationKind: 'post' });
+    const created = await admin
+      .post('/api/admin/reason-codes')
+      .send({ code: 'pin_missing', name: 'Post missing', nameZh: '缺针', kind: 'scrap', stationKind: 'post' });
     expect(created.status).toBe(201);
     expect((await admin.get('/api/reason-codes')).body.map((r: { code: string }) => r.code)).toContain('pin_missing');
     expect((await admin.patch('/api/admin/reason-codes/pin_missing').send({ active: false })).status).toBe(200);
@@ -44,7 +46,11 @@ describe('stations in two languages', () => {
     const saved = await admin.patch(`/api/stations/${id}`).send({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
     expect(saved.status).toBe(200);
     expect(saved.body).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
-    expect(stationQueueService.stationQueue(t.deps, id).station).toMatchObject({ nameZh: '填色二号台', instructionsZh: '只填写明的颜色。', safetyNotesZh: '戴手套。' });
+    expect(stationQueueService.stationQueue(t.deps, id).station).toMatchObject({
+      nameZh: '填色二号台',
+      instructionsZh: '只填写明的颜色。',
+      safetyNotesZh: '戴手套。',
+    });
     const bad = await admin.patch(`/api/stations/${id}`).send({ nameZh: '长'.repeat(81) });
     expect(bad.status).toBe(400);
     expect((await admin.get('/api/stations')).body.find((s: { id: string }) => s.id === id).nameZh).toBe('填色二号台');

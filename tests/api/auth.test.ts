@@ -14,7 +14,10 @@ beforeEach(() => {
 });
 afterEach(() => t.close());
 
-const login = (body: unknown) => request(t.app).post('/api/auth/login').send(body as object);
+const login = (body: unknown) =>
+  request(t.app)
+    .post('/api/auth/login')
+    .send(body as object);
 
 describe('sign-in', () => {
   it('signs the first admin in with an HttpOnly SameSite cookie and answers /me', async () => {
@@ -122,7 +125,10 @@ describe('sign-in', () => {
   it('signs an operator in with badge and PIN only on a registered tablet', async () => {
     const admin = await t.agentAs('admin');
     const station = (await admin.get('/api/stations')).body[0];
-    await admin.post('/api/users').send({ name: 'Op One', email: 'op1@test.trayce.local', role: 'operator', password: 'operator-pw-1', badge: 'B-1001', pin: '4321' }).expect(201);
+    await admin
+      .post('/api/users')
+      .send({ name: 'Op One', email: 'op1@test.trayce.local', role: 'operator', password: 'operator-pw-1', badge: 'B-1001', pin: '4321' })
+      .expect(201);
     const device = (await admin.post('/api/devices').send({ name: 'Tablet A', stationId: station.id })).body;
     expect(device.token).toBeTruthy();
     // without a tablet: not allowed
@@ -139,7 +145,7 @@ describe('sign-in', () => {
   });
 });
 
-describe('each person\'s language', () => {
+describe("each person's language", () => {
   it('starts in English, is set by the person themselves and comes back with /me and the next sign-in', async () => {
     const planner = await t.agentAs('planner');
     expect((await planner.get('/api/auth/me')).body.user.locale).toBe('en');
@@ -159,7 +165,7 @@ describe('each person\'s language', () => {
     expect((await sales.get('/api/auth/me')).body.user.locale).toBe('en');
   });
 
-  it('lets an admin set someone\'s language', async () => {
+  it("lets an admin set someone's language", async () => {
     const admin = await t.agentAs('admin');
     const op = await t.agentAs('operator', { badge: 'B-7001', pin: '2580' });
     const res = await admin.patch(`/api/users/${op.user.id}`).send({ locale: 'zh-CN' });

@@ -40,7 +40,9 @@ function pdf(): Promise<Buffer> {
 beforeAll(async () => {
   t = makeTestApp();
   planner = await t.agentAs('planner');
-  goodJpeg = await sharp({ create: { width: 120, height: 80, channels: 3, background: '#c0392b' } }).jpeg().toBuffer();
+  goodJpeg = await sharp({ create: { width: 120, height: 80, channels: 3, background: '#c0392b' } })
+    .jpeg()
+    .toBuffer();
   truncatedJpeg = goodJpeg.subarray(0, Math.floor(goodJpeg.length * 0.6));
   goodPdf = await pdf();
 });
@@ -111,7 +113,12 @@ describe('uploads are decoded before they are kept', () => {
   it('accepts a real PDF proof, and draws its first page to a thumbnail', async () => {
     const res = await planner.post(`/api/orders/${orderId}/proofs`).attach('file', goodPdf, { filename: 'proof.pdf', contentType: 'application/pdf' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    const row = t.deps.db.select().from(proofs).where(eq(proofs.orderId, orderId)).all().find((p) => p.revision === res.body.revision)!;
+    const row = t.deps.db
+      .select()
+      .from(proofs)
+      .where(eq(proofs.orderId, orderId))
+      .all()
+      .find((p) => p.revision === res.body.revision)!;
     const thumb = path.join(t.dataDir, 'files', row.fileHash.slice(0, 2), `${row.fileHash}.thumb.png`);
     const { data, info } = await sharp(fs.readFileSync(thumb)).raw().toBuffer({ resolveWithObject: true });
     // the page's blue square is in the picture (not a blank page)
@@ -129,7 +136,11 @@ describe('uploads are decoded before they are kept', () => {
       const id = await releasedOrder();
       // approve a damaged revision put straight into the store, as an old upload would be
       insertProof(t.deps, id, 2, file(), mime, (await planner.get('/api/auth/me')).body.user.id);
-      t.deps.db.update(proofs).set({ approvedAt: Date.now() }).where(and(eq(proofs.orderId, id), eq(proofs.revision, 2))).run();
+      t.deps.db
+        .update(proofs)
+        .set({ approvedAt: Date.now() })
+        .where(and(eq(proofs.orderId, id), eq(proofs.revision, 2)))
+        .run();
       for (let i = 0; i < 2; i++) {
         const res = await planner.get(`/api/orders/${id}/travellers.pdf`).buffer(true);
         expect(res.status).toBe(200);

@@ -54,7 +54,9 @@ beforeAll(async () => {
   sales = await t.agentAs('sales');
   const admin = await t.agentAs('admin');
   const day = [{ start: '08:00', end: '16:00' }];
-  const cal = await admin.put('/api/calendar').send({ timeZone: 'UTC', week: { mon: day, tue: day, wed: day, thu: day, fri: day, sat: day, sun: day }, daysOff: [], stations: [] });
+  const cal = await admin
+    .put('/api/calendar')
+    .send({ timeZone: 'UTC', week: { mon: day, tue: day, wed: day, thu: day, fri: day, sat: day, sun: day }, daysOff: [], stations: [] });
   expect(cal.status, JSON.stringify(cal.body)).toBe(200);
   small = insertFloorOrder(t.deps, { trays: 2, quantity: 100, releasedAt: at(480), routing: ROUTING });
   customerId = t.deps.db.select().from(orders).where(eq(orders.id, small.orderId)).get()!.customerId;
@@ -115,7 +117,16 @@ describe('an order priced at the standard rates against its scans', () => {
     const res = await manager.get(`/api/orders/${small.orderId}/costing`);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const c = res.body as OrderCosting;
-    expect(c).toMatchObject({ number: small.number, basis: 'standard', quoteNumber: null, currency: 'USD', quantity: 200, colours: 2, complete: true, scrapPieces: 6 });
+    expect(c).toMatchObject({
+      number: small.number,
+      basis: 'standard',
+      quoteNumber: null,
+      currency: 'USD',
+      quantity: 200,
+      colours: 2,
+      complete: true,
+      scrapPieces: 6,
+    });
     expect(c.steps.map((s) => [s.seq, s.stationKind, s.actualMinutes, s.scrap])).toEqual([
       [1, 'strike', 120, 2],
       [2, 'fill', 110, 0],
@@ -157,8 +168,20 @@ describe('the report across orders', () => {
     const r = res.body as CostingReport;
     const one = (await manager.get(`/api/orders/${small.orderId}/costing`)).body as OrderCosting;
     expect(r.currency).toBe('USD');
-    expect(r.orders).toEqual([expect.objectContaining({ number: small.number, process: 'hard_enamel', colours: 2, quantity: 200, basis: 'standard', quoted: one.quoted, actual: one.actual })]);
-    expect(r.rows).toEqual([{ process: 'hard_enamel', colours: 2, orders: 1, quoted: one.quoted, actual: one.actual, variance: one.variance, variancePct: one.variancePct }]);
+    expect(r.orders).toEqual([
+      expect.objectContaining({
+        number: small.number,
+        process: 'hard_enamel',
+        colours: 2,
+        quantity: 200,
+        basis: 'standard',
+        quoted: one.quoted,
+        actual: one.actual,
+      }),
+    ]);
+    expect(r.rows).toEqual([
+      { process: 'hard_enamel', colours: 2, orders: 1, quoted: one.quoted, actual: one.actual, variance: one.variance, variancePct: one.variancePct },
+    ]);
     // a window before the order shipped has none
     const early = await manager.get('/api/reports/costing').query({ from: new Date(D0 - 10 * 24 * 60 * MIN).toISOString(), to: new Date(D0).toISOString() });
     expect(early.body.rows).toEqual([]);
@@ -207,7 +230,10 @@ describe('an order made from an accepted quote', () => {
     const sent = await sales.post(`/api/quotes/${quote.id}/send`).send({});
     expect(sent.status).toBe(200);
     const token = (sent.body.url as string).split('/quote/')[1];
-    const acc = await request(t.app).post(`/api/public/quotes/${token}/accept`).set('X-Forwarded-For', '10.77.0.1').send({ quantity: 500, name: 'Nell Garrow' });
+    const acc = await request(t.app)
+      .post(`/api/public/quotes/${token}/accept`)
+      .set('X-Forwarded-For', '10.77.0.1')
+      .send({ quantity: 500, name: 'Nell Garrow' });
     expect(acc.status, JSON.stringify(acc.body)).toBe(201);
     const res = await manager.get(`/api/orders/${acc.body.orderId}/costing`);
     expect(res.status).toBe(200);

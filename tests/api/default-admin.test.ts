@@ -52,7 +52,11 @@ afterEach(() => {
 });
 
 const activeUsers = (deps: AppDeps) =>
-  deps.db.$client.prepare('select email, password_hash, must_change_password from users where active = 1').all() as { email: string; password_hash: string; must_change_password: number }[];
+  deps.db.$client.prepare('select email, password_hash, must_change_password from users where active = 1').all() as {
+    email: string;
+    password_hash: string;
+    must_change_password: number;
+  }[];
 
 describe('the documented default admin password', () => {
   it('is not the demo people’s password (README lists both)', () => {

@@ -7,7 +7,16 @@ import { makeTestApp, type TestApp } from '../support/test-app';
 import { seedDemo } from '../../server/seed/demo';
 import { evaluateScan, type GuardInput, type OverrideKind, type ValidOverride } from '@shared/domain/guards';
 import { compileCalendar, WEEKDAYS, type WeekSchedule } from '@shared/domain/calendar';
-import { ORDER_STATUSES, PROCESSES, REJECTION_CODES, initialTrayState, type Role, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
+import {
+  ORDER_STATUSES,
+  PROCESSES,
+  REJECTION_CODES,
+  initialTrayState,
+  type Role,
+  type RoutingStep,
+  type StationKind,
+  type TrayState,
+} from '@shared/domain/vocabulary';
 import { replayTravellers, stepRunYieldCounts, trayFlowOf, type ReplayEvent, type ReplayTraveller, type StepRun } from '@shared/domain/traveller';
 import { reportFactsService } from '../../server/services/report-facts.service';
 import { reportsService } from '../../server/services/reports.service';
@@ -73,13 +82,21 @@ describe('demo factory seed', () => {
   });
 
   it('released orders have a payment (or a manager exception) and an approved proof stored as a PDF', () => {
-    const released = q<{ id: string }>(a, "select id from orders where released_at is not null");
+    const released = q<{ id: string }>(a, 'select id from orders where released_at is not null');
     expect(released.length).toBeGreaterThan(30);
     for (const o of released) {
-      const pay = q<{ is_exception: number; recorded_by_role: Role }>(a, 'select p.is_exception, u.role recorded_by_role from payments p join users u on u.id = p.recorded_by where order_id = ?', o.id);
+      const pay = q<{ is_exception: number; recorded_by_role: Role }>(
+        a,
+        'select p.is_exception, u.role recorded_by_role from payments p join users u on u.id = p.recorded_by where order_id = ?',
+        o.id,
+      );
       expect(pay.length).toBeGreaterThan(0);
       for (const p of pay) if (p.is_exception) expect(p.recorded_by_role).toBe('manager');
-      const proofs = q<{ approved_at: number | null; mime: string; file_hash: string }>(a, 'select approved_at, mime, file_hash from proofs where order_id = ?', o.id);
+      const proofs = q<{ approved_at: number | null; mime: string; file_hash: string }>(
+        a,
+        'select approved_at, mime, file_hash from proofs where order_id = ?',
+        o.id,
+      );
       expect(proofs.some((p) => p.approved_at != null)).toBe(true);
       expect(proofs.every((p) => p.mime === 'application/pdf' && /^[0-9a-f]{64}$/.test(p.file_hash))).toBe(true);
     }
@@ -91,16 +108,33 @@ describe('demo factory seed', () => {
     const roles = new Map(q<{ id: string; role: Role }>(a, 'select id, role from users').map((u) => [u.id, u.role]));
     const reasonCodes = q<{ code: string }>(a, 'select code from reason_codes').map((r) => r.code);
     const overrides = new Map(
-      q<{ id: string; tray_id: string; station_id: string; kind: OverrideKind; supervisor_id: string; reason: string; used_event_id: string | null }>(a, 'select * from overrides').map((o) => [o.id, o]),
+      q<{ id: string; tray_id: string; station_id: string; kind: OverrideKind; supervisor_id: string; reason: string; used_event_id: string | null }>(
+        a,
+        'select * from overrides',
+      ).map((o) => [o.id, o]),
     );
-    const steps = q<RoutingStep & { order_id: string; traveller_kind: string; station_kind: StationKind; tray_minutes: number; piece_minutes: number; cure_minutes: number | null }>(
-      a,
-      'select order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour from order_steps order by seq',
-    );
+    const steps = q<
+      RoutingStep & {
+        order_id: string;
+        traveller_kind: string;
+        station_kind: StationKind;
+        tray_minutes: number;
+        piece_minutes: number;
+        cure_minutes: number | null;
+      }
+    >(a, 'select order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour from order_steps order by seq');
     const routing = (orderId: string, kind: string): RoutingStep[] =>
       steps
         .filter((s) => s.order_id === orderId && s.traveller_kind === kind)
-        .map((s) => ({ seq: s.seq, name: s.name, stationKind: s.station_kind, trayMinutes: s.tray_minutes, pieceMinutes: s.piece_minutes, cureMinutes: s.cure_minutes, colour: s.colour }));
+        .map((s) => ({
+          seq: s.seq,
+          name: s.name,
+          stationKind: s.station_kind,
+          trayMinutes: s.tray_minutes,
+          pieceMinutes: s.piece_minutes,
+          cureMinutes: s.cure_minutes,
+          colour: s.colour,
+        }));
     const travellers = q<{ id: string; kind: 'tray' | 'mould'; order_id: string; quantity: number; released_at: number; order_released_at: number }>(
       a,
       'select t.id, t.kind, t.order_id, t.quantity, t.released_at, o.released_at order_released_at from trays t join orders o on o.id = t.order_id',
@@ -144,7 +178,15 @@ describe('demo factory seed', () => {
           state,
           routing: route,
           station: { id: station.id, kind: station.kind, name: station.name },
-          event: { type: e.type, occurredAt: new Date(e.occurred_at).toISOString(), goodQty: e.good_qty, scrapQty: e.scrap_qty, reworkQty: e.rework_qty, scrapReason: e.scrap_reason, note: e.note },
+          event: {
+            type: e.type,
+            occurredAt: new Date(e.occurred_at).toISOString(),
+            goodQty: e.good_qty,
+            scrapQty: e.scrap_qty,
+            reworkQty: e.rework_qty,
+            scrapReason: e.scrap_reason,
+            note: e.note,
+          },
           now: e.occurred_at,
           mouldReady: moulds.every((m) => (mouldDoneAt.get(m) ?? Infinity) <= e.occurred_at),
           override,
@@ -206,19 +248,50 @@ describe('demo factory seed', () => {
     // The core (shared/domain/traveller/replay.ts) reads every order's events back through the scan
     // guards. Its states must be the stored tray_states field for field, and its step runs and tray
     // flows the rows the server derived for the reports (step_runs, tray_flows).
-    const steps = q<RoutingStep & { order_id: string; traveller_kind: string; station_kind: StationKind; tray_minutes: number; piece_minutes: number; cure_minutes: number | null }>(
-      a,
-      'select order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour from order_steps order by seq',
-    );
+    const steps = q<
+      RoutingStep & {
+        order_id: string;
+        traveller_kind: string;
+        station_kind: StationKind;
+        tray_minutes: number;
+        piece_minutes: number;
+        cure_minutes: number | null;
+      }
+    >(a, 'select order_id, traveller_kind, seq, name, station_kind, tray_minutes, piece_minutes, cure_minutes, colour from order_steps order by seq');
     const routing = new Map<string, RoutingStep[]>();
     for (const s of steps) {
       const key = `${s.order_id}|${s.traveller_kind}`;
-      routing.set(key, [...(routing.get(key) ?? []), { seq: s.seq, name: s.name, stationKind: s.station_kind, trayMinutes: s.tray_minutes, pieceMinutes: s.piece_minutes, cureMinutes: s.cure_minutes, colour: s.colour }]);
+      routing.set(key, [
+        ...(routing.get(key) ?? []),
+        {
+          seq: s.seq,
+          name: s.name,
+          stationKind: s.station_kind,
+          trayMinutes: s.tray_minutes,
+          pieceMinutes: s.piece_minutes,
+          cureMinutes: s.cure_minutes,
+          colour: s.colour,
+        },
+      ]);
     }
-    const travellers: ReplayTraveller[] = q<{ id: string; order_id: string; kind: 'tray' | 'mould'; quantity: number; released_at: number; parent_tray_id: string | null; merged_into_id: string | null }>(
-      a,
-      'select id, order_id, kind, quantity, released_at, parent_tray_id, merged_into_id from trays',
-    ).map((t) => ({ id: t.id, orderId: t.order_id, kind: t.kind, quantity: t.quantity, releasedAt: t.released_at, parentId: t.parent_tray_id, mergedIntoId: t.merged_into_id, routing: routing.get(`${t.order_id}|${t.kind}`) ?? [] }));
+    const travellers: ReplayTraveller[] = q<{
+      id: string;
+      order_id: string;
+      kind: 'tray' | 'mould';
+      quantity: number;
+      released_at: number;
+      parent_tray_id: string | null;
+      merged_into_id: string | null;
+    }>(a, 'select id, order_id, kind, quantity, released_at, parent_tray_id, merged_into_id from trays').map((t) => ({
+      id: t.id,
+      orderId: t.order_id,
+      kind: t.kind,
+      quantity: t.quantity,
+      releasedAt: t.released_at,
+      parentId: t.parent_tray_id,
+      mergedIntoId: t.merged_into_id,
+      routing: routing.get(`${t.order_id}|${t.kind}`) ?? [],
+    }));
     const events = q<ReplayEvent>(
       a,
       `select e.tray_id trayId, e.type, e.step_seq stepSeq, e.station_id stationId, e.station_kind stationKind, e.occurred_at occurredAt, e.qty_in qtyIn,
@@ -234,9 +307,33 @@ describe('demo factory seed', () => {
     for (const row of stored) {
       const s = replay.states.get(row.tray_id as string)!;
       expect(
-        { phase: row.phase, stepSeq: row.step_seq, quantity: row.quantity, stationId: row.station_id, startedAt: iso(row.started_at as number | null), waitingSince: iso(row.waiting_since as number | null), cureReadyAt: iso(row.cure_ready_at as number | null), onHold: !!row.on_hold, holdReason: row.hold_reason, releasedAt: iso(row.released_at as number), lastEventAt: iso(row.last_event_at as number | null) },
+        {
+          phase: row.phase,
+          stepSeq: row.step_seq,
+          quantity: row.quantity,
+          stationId: row.station_id,
+          startedAt: iso(row.started_at as number | null),
+          waitingSince: iso(row.waiting_since as number | null),
+          cureReadyAt: iso(row.cure_ready_at as number | null),
+          onHold: !!row.on_hold,
+          holdReason: row.hold_reason,
+          releasedAt: iso(row.released_at as number),
+          lastEventAt: iso(row.last_event_at as number | null),
+        },
         `state of ${row.tray_id}`,
-      ).toEqual({ phase: s.phase, stepSeq: s.stepSeq, quantity: s.quantity, stationId: s.stationId, startedAt: s.startedAt, waitingSince: s.waitingSince, cureReadyAt: s.cureReadyAt, onHold: s.onHold, holdReason: s.holdReason, releasedAt: s.releasedAt, lastEventAt: s.lastEventAt ?? null });
+      ).toEqual({
+        phase: s.phase,
+        stepSeq: s.stepSeq,
+        quantity: s.quantity,
+        stationId: s.stationId,
+        startedAt: s.startedAt,
+        waitingSince: s.waitingSince,
+        cureReadyAt: s.cureReadyAt,
+        onHold: s.onHold,
+        holdReason: s.holdReason,
+        releasedAt: s.releasedAt,
+        lastEventAt: s.lastEventAt ?? null,
+      });
     }
 
     // the report facts the server derives, row for row
@@ -246,7 +343,10 @@ describe('demo factory seed', () => {
     const runs: StepRun[] = [...replay.runs.values()].flat();
     const key = (r: { trayId: string; stepSeq: number; finishedAt: number }) => `${r.trayId}|${r.stepSeq}|${r.finishedAt}`;
     const storedRuns = new Map(
-      q<Record<string, number | string | null>>(a, 'select * from step_runs').map((r) => [key({ trayId: r.tray_id as string, stepSeq: r.step_seq as number, finishedAt: r.finished_at as number }), r]),
+      q<Record<string, number | string | null>>(a, 'select * from step_runs').map((r) => [
+        key({ trayId: r.tray_id as string, stepSeq: r.step_seq as number, finishedAt: r.finished_at as number }),
+        r,
+      ]),
     );
     expect(storedRuns.size).toBe(runs.length);
     expect(runs.length).toBeGreaterThan(5000);
@@ -301,19 +401,33 @@ describe('demo factory seed', () => {
     for (const r of runs.filter((x) => x.travellerKind === 'tray')) {
       const c = stepRunYieldCounts(r);
       const sum = byKind.get(r.stationKind) ?? { inQty: 0, goodQty: 0, scrapQty: 0, reworkQty: 0 };
-      byKind.set(r.stationKind, { inQty: sum.inQty + c.inQty, goodQty: sum.goodQty + c.goodQty, scrapQty: sum.scrapQty + c.scrapQty, reworkQty: sum.reworkQty + c.reworkQty });
+      byKind.set(r.stationKind, {
+        inQty: sum.inQty + c.inQty,
+        goodQty: sum.goodQty + c.goodQty,
+        scrapQty: sum.scrapQty + c.scrapQty,
+        reworkQty: sum.reworkQty + c.reworkQty,
+      });
     }
-    expect(new Map(report.steps.map((s) => [s.stationKind, { inQty: s.inQty, goodQty: s.goodQty, scrapQty: s.scrapQty, reworkQty: s.reworkQty }]))).toEqual(byKind);
+    expect(new Map(report.steps.map((s) => [s.stationKind, { inQty: s.inQty, goodQty: s.goodQty, scrapQty: s.scrapQty, reworkQty: s.reworkQty }]))).toEqual(
+      byKind,
+    );
   });
 
   it('leaves travellers on the floor in every phase, some on hold, and shipped orders with tracking numbers', () => {
     const phases = new Set(q<{ phase: string }>(a, "select distinct phase from tray_states where kind = 'tray'").map((r) => r.phase));
     for (const p of ['waiting', 'in_process', 'curing', 'done']) expect(phases).toContain(p);
     expect(q<{ n: number }>(a, 'select count(*) n from tray_states where on_hold = 1')[0].n).toBeGreaterThan(0);
-    const shipped = q<{ id: string; shipped_at: number; released_at: number; packed_at: number | null }>(a, "select id, shipped_at, released_at, packed_at from orders where status = 'shipped'");
+    const shipped = q<{ id: string; shipped_at: number; released_at: number; packed_at: number | null }>(
+      a,
+      "select id, shipped_at, released_at, packed_at from orders where status = 'shipped'",
+    );
     expect(shipped.length).toBeGreaterThan(10);
     for (const o of shipped) {
-      const [s] = q<{ carrier: string; tracking_number: string; shipped_at: number }>(a, 'select carrier, tracking_number, shipped_at from shipments where order_id = ?', o.id);
+      const [s] = q<{ carrier: string; tracking_number: string; shipped_at: number }>(
+        a,
+        'select carrier, tracking_number, shipped_at from shipments where order_id = ?',
+        o.id,
+      );
       expect(s.tracking_number).toMatch(/^[A-Z]{2}\d{10}$/);
       // shipped when the dispatch of its last tray finished
       const [d] = q<{ last: number }>(
@@ -327,7 +441,10 @@ describe('demo factory seed', () => {
       expect(o.packed_at!).toBeLessThanOrEqual(o.shipped_at);
     }
     // a few late: due date (factory local day) before the day it shipped
-    const late = q<{ n: number }>(a, "select count(*) n from orders where status = 'shipped' and due_date < date((shipped_at + 8*3600000)/1000, 'unixepoch')")[0].n;
+    const late = q<{ n: number }>(
+      a,
+      "select count(*) n from orders where status = 'shipped' and due_date < date((shipped_at + 8*3600000)/1000, 'unixepoch')",
+    )[0].n;
     expect(late).toBeGreaterThan(0);
     expect(late).toBeLessThan(shipped.length / 2);
   });
@@ -339,7 +456,10 @@ describe('demo factory seed', () => {
     const week = Object.fromEntries(WEEKDAYS.map((d) => [d, []])) as unknown as WeekSchedule;
     const hm = (m: number) => `${String(Math.floor(m / 60)).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`;
     const dbDay = ['sun', 'mon', 'tue', 'wed', 'thu', 'fri', 'sat'] as const;
-    for (const r of q<{ weekday: number; start_minute: number; end_minute: number }>(a, 'select weekday, start_minute, end_minute from calendar_shifts where station_id is null')) {
+    for (const r of q<{ weekday: number; start_minute: number; end_minute: number }>(
+      a,
+      'select weekday, start_minute, end_minute from calendar_shifts where station_id is null',
+    )) {
       week[dbDay[r.weekday]].push({ start: hm(r.start_minute), end: hm(r.end_minute) });
     }
     expect(week.sun).toEqual([]);
@@ -355,7 +475,10 @@ describe('demo factory seed', () => {
       "select e.tray_id, e.type, e.step_seq, e.station_id, e.occurred_at from scan_events e where e.type in ('start', 'finish') order by e.occurred_at, e.rowid",
     );
     const cureMinutes = new Map(
-      q<{ tray_id: string; seq: number; cure_minutes: number | null }>(a, 'select t.id tray_id, s.seq, s.cure_minutes from trays t join order_steps s on s.order_id = t.order_id and s.traveller_kind = t.kind').map((r) => [`${r.tray_id}:${r.seq}`, r.cure_minutes]),
+      q<{ tray_id: string; seq: number; cure_minutes: number | null }>(
+        a,
+        'select t.id tray_id, s.seq, s.cure_minutes from trays t join order_steps s on s.order_id = t.order_id and s.traveller_kind = t.kind',
+      ).map((r) => [`${r.tray_id}:${r.seq}`, r.cure_minutes]),
     );
     const open = new Map<string, number>();
     const intervals: { station: string; from: number; to: number }[] = [];
@@ -391,7 +514,10 @@ describe('demo factory seed', () => {
   });
 
   it('keeps a few refused scans open for the supervisor and recorded overrides', () => {
-    const rejections = q<{ code: string; message: string; resolved_at: number | null; occurred_at: number }>(a, 'select code, message, resolved_at, occurred_at from scan_rejections');
+    const rejections = q<{ code: string; message: string; resolved_at: number | null; occurred_at: number }>(
+      a,
+      'select code, message, resolved_at, occurred_at from scan_rejections',
+    );
     expect(rejections.length).toBeGreaterThanOrEqual(3);
     for (const r of rejections) {
       expect(REJECTION_CODES).toContain(r.code);
@@ -399,7 +525,10 @@ describe('demo factory seed', () => {
       expect(r.resolved_at).toBeNull();
       expect(r.occurred_at).toBeLessThanOrEqual(NOW);
     }
-    const overrides = q<{ used_event_id: string | null; role: Role }>(a, 'select o.used_event_id, u.role from overrides o join users u on u.id = o.supervisor_id');
+    const overrides = q<{ used_event_id: string | null; role: Role }>(
+      a,
+      'select o.used_event_id, u.role from overrides o join users u on u.id = o.supervisor_id',
+    );
     expect(overrides.length).toBeGreaterThanOrEqual(1);
     for (const o of overrides) {
       expect(o.role).toBe('supervisor');

@@ -58,7 +58,9 @@ describe('mail through the local catcher', () => {
       salesOwnerId: sales.user.id,
       trays: [{ quantity: 60, at: SEQ.dispatch }],
     });
-    const res = await sales.post(`/api/orders/${o.orderId}/shipments`).send({ carrier: 'Invented Parcel Co', trackingNumber: 'IPC-4410-7788', cartons: [{ count: 1, piecesPerCarton: 60, weightKg: 1.9 }] });
+    const res = await sales
+      .post(`/api/orders/${o.orderId}/shipments`)
+      .send({ carrier: 'Invented Parcel Co', trackingNumber: 'IPC-4410-7788', cartons: [{ count: 1, piecesPerCarton: 60, weightKg: 1.9 }] });
     expect(res.status).toBe(201);
     expect(res.body.mail).toEqual({ queued: 2, missing: [] });
 
@@ -152,7 +154,9 @@ describe('the queue never lets a send fail the work', () => {
       };
       const s2 = await t2.agentAs('sales');
       const o = insertShippingOrder(t2.deps, { contactEmail: 'buyer@example.org', trays: [{ quantity: 5, at: SEQ.dispatch }] });
-      const res = await s2.post(`/api/orders/${o.orderId}/shipments`).send({ carrier: 'X', trackingNumber: 'RETRY-1', cartons: [{ count: 1, piecesPerCarton: 5, weightKg: 0.2 }] });
+      const res = await s2
+        .post(`/api/orders/${o.orderId}/shipments`)
+        .send({ carrier: 'X', trackingNumber: 'RETRY-1', cartons: [{ count: 1, piecesPerCarton: 5, weightKg: 0.2 }] });
       expect(res.status).toBe(201);
       let now = Date.now();
       t2.setNow(now);

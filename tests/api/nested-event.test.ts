@@ -21,7 +21,10 @@ describe('a deeply nested event in a scan batch', () => {
     const nested = `${'{"a":'.repeat(depth)}1${'}'.repeat(depth)}`;
     const good = JSON.stringify(scan(trays[0].code, stationId(t.deps, 'STR-1'), 'start', Date.now()));
     const body = `{"events":[{"id":"deep-1","code":${JSON.stringify(trays[0].code)},"extra":${nested}},${good}]}`;
-    const before = t.deps.db.select({ n: sql<number>`count(*)` }).from(scanRejections).get()!.n;
+    const before = t.deps.db
+      .select({ n: sql<number>`count(*)` })
+      .from(scanRejections)
+      .get()!.n;
     const res = await operator.post('/api/scans').set('content-type', 'application/json').send(body);
     // either the whole body is refused up front as bad input (400) or the event alone is refused;
     // never a 500, and never at the cost of the good event when the batch is read
@@ -30,7 +33,12 @@ describe('a deeply nested event in a scan batch', () => {
       expect(res.body.results[0]).toMatchObject({ id: 'deep-1', status: 'rejected', code: 'invalid_event' });
       expect(res.body.results[1].status).toBe('accepted');
       const rows = t.deps.db.$client.prepare('select length(payload) n from scan_rejections order by rowid desc limit 1').all() as { n: number }[];
-      expect(t.deps.db.select({ n: sql<number>`count(*)` }).from(scanRejections).get()!.n).toBe(before + 1);
+      expect(
+        t.deps.db
+          .select({ n: sql<number>`count(*)` })
+          .from(scanRejections)
+          .get()!.n,
+      ).toBe(before + 1);
       expect(rows[0].n).toBeLessThan(20_000);
     } else {
       expect(res.status).toBe(400);

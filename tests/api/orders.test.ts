@@ -54,7 +54,10 @@ const spec = (over: Partial<OrderSpecInput> = {}): OrderSpecInput => ({
   material: 'iron',
   sizeMm: 25,
   quantity: 1000,
-  colours: [{ name: 'Navy', hex: '#1b2a4a' }, { name: 'White', hex: '#ffffff' }],
+  colours: [
+    { name: 'Navy', hex: '#1b2a4a' },
+    { name: 'White', hex: '#ffffff' },
+  ],
   plating: 'gold',
   backing: { type: 'butterfly_clutch', count: 1 },
   packaging: 'individual_bag',
@@ -167,7 +170,17 @@ describe('orders: entry', () => {
 
   it('the routing follows the finish, the texture and the backing; a printed order gets a cutting die', async () => {
     const d = await detail(
-      (await createOrder({ process: 'die_struck', material: 'brass', colours: [], plating: 'antique_bronze', secondPlating: 'black_nickel', sandblast: true, backing: { type: 'safety_pin', count: 1 } })).id,
+      (
+        await createOrder({
+          process: 'die_struck',
+          material: 'brass',
+          colours: [],
+          plating: 'antique_bronze',
+          secondPlating: 'black_nickel',
+          sandblast: true,
+          backing: { type: 'safety_pin', count: 1 },
+        })
+      ).id,
     );
     expect(d.spec).toMatchObject({ plating: 'antique_bronze', secondPlating: 'black_nickel', sandblast: true });
     const kinds = d.routing.map((s: { stationKind: string }) => s.stationKind);
@@ -175,7 +188,18 @@ describe('orders: entry', () => {
     // a change to the finish makes the routing again
     const changed = await planner.patch(`/api/orders/${d.id}`).send({ secondPlating: null, plating: 'gold' });
     expect(changed.status).toBe(200);
-    expect(changed.body.routing.map((s: { stationKind: string }) => s.stationKind)).toEqual(['strike', 'trim', 'solder', 'polish', 'sandblast', 'plate', 'inspect', 'bag', 'pack', 'dispatch']);
+    expect(changed.body.routing.map((s: { stationKind: string }) => s.stationKind)).toEqual([
+      'strike',
+      'trim',
+      'solder',
+      'polish',
+      'sandblast',
+      'plate',
+      'inspect',
+      'bag',
+      'pack',
+      'dispatch',
+    ]);
 
     const printed = await readyOrder({ process: 'printed', colours: [{ name: 'Navy' }], epoxy: false });
     const pd = await detail(printed.id);
@@ -187,7 +211,7 @@ describe('orders: entry', () => {
     expect(after.moulds[0]).toMatchObject({ tool: 'cutting_die', stepName: 'Make cutting die' });
   });
 
-  it('the back mould\'s traveller is engraved and checked as the back mould', async () => {
+  it("the back mould's traveller is engraved and checked as the back mould", async () => {
     const order = await readyOrder({ backLogo: true, quantity: 100, title: 'Two-sided crest' });
     expect((await planner.post(`/api/orders/${order.id}/release`).send({ traySize: 100 })).status).toBe(201);
     const d = await detail(order.id);
@@ -355,7 +379,10 @@ describe('proof uploads: checked by content, size, name (each refusal stores not
   it('an SVG (could carry script) is refused though it calls itself an image', async () => {
     const res = await planner
       .post(`/api/orders/${orderId}/proofs`)
-      .attach('file', Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), { filename: 'proof.jpg', contentType: 'image/jpeg' });
+      .attach('file', Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), {
+        filename: 'proof.jpg',
+        contentType: 'image/jpeg',
+      });
     await refused(res, 400, 'bad_file_type');
   });
 
@@ -373,7 +400,9 @@ describe('proof uploads: checked by content, size, name (each refusal stores not
   it('a path-like file name is refused', async () => {
     for (const filename of ['../../etc/passwd.png', '..\\..\\boot.png', 'art/../../x.pdf', 'C:\\proofs\\a.png']) {
       // filepath: the multipart writer would otherwise cut the name down to its last part
-      const res = await planner.post(`/api/orders/${orderId}/proofs`).attach('file', png(), { filepath: filename, contentType: 'image/png' } as unknown as { filename: string });
+      const res = await planner
+        .post(`/api/orders/${orderId}/proofs`)
+        .attach('file', png(), { filepath: filename, contentType: 'image/png' } as unknown as { filename: string });
       await refused(res, 400, 'bad_file_name');
     }
   });
@@ -385,7 +414,9 @@ describe('proof uploads: checked by content, size, name (each refusal stores not
 
   it('a real PNG is stored by content hash and served back with its sniffed type', async () => {
     const content = png();
-    const res = await planner.post(`/api/orders/${orderId}/proofs`).attach('file', content, { filename: 'crest final.png', contentType: 'application/octet-stream' });
+    const res = await planner
+      .post(`/api/orders/${orderId}/proofs`)
+      .attach('file', content, { filename: 'crest final.png', contentType: 'application/octet-stream' });
     expect(res.status).toBe(201);
     const d = await detail(orderId);
     expect(d.proofs[0]).toMatchObject({ revision: 1, mime: 'image/png', originalName: 'crest final.png', sizeBytes: content.length });
@@ -421,7 +452,16 @@ describe('release: trays, moulds, codes', () => {
     // a released order gets a projected ship date after now (the shared projection)
     expect(Date.parse(d.projectedShipAt)).toBeGreaterThan(Date.now());
     const tray = await planner.get(`/api/trays/${trays[0].id}`);
-    expect(tray.body).toMatchObject({ id: trays[0].id, number: trays[0].number, code: trays[0].code, kind: 'tray', orderId: order.id, quantity: 100, status: 'waiting', nextStep: { seq: 1, stationKind: 'strike' } });
+    expect(tray.body).toMatchObject({
+      id: trays[0].id,
+      number: trays[0].number,
+      code: trays[0].code,
+      kind: 'tray',
+      orderId: order.id,
+      quantity: 100,
+      status: 'waiting',
+      nextStep: { seq: 1, stationKind: 'strike' },
+    });
     expect(tray.body.routing.length).toBe(d.routing.length);
   });
 
@@ -540,11 +580,15 @@ describe('routing edits before release only', () => {
 
     const templates = (await admin.get('/api/routing-templates')).body;
     const hard = templates.find((x: { process: string }) => x.process === 'hard_enamel').template;
-    hard.steps = hard.steps.map((e: { type: string; cureStep?: object }) => (e.type === 'colours' ? { ...e, cureStep: { ...e.cureStep, cureMinutes: 180 } } : e));
+    hard.steps = hard.steps.map((e: { type: string; cureStep?: object }) =>
+      e.type === 'colours' ? { ...e, cureStep: { ...e.cureStep, cureMinutes: 180 } } : e,
+    );
     expect((await planner.put('/api/routing-templates/hard_enamel').send(hard)).status).toBe(403);
     expect((await admin.put('/api/routing-templates/hard_enamel').send(hard)).status).toBe(200);
     const next = await createOrder();
-    expect((await detail(next.id)).routing.filter((s: { stationKind: string }) => s.stationKind === 'cure').map((s: { cureMinutes: number }) => s.cureMinutes)).toEqual([180, 180]);
+    expect(
+      (await detail(next.id)).routing.filter((s: { stationKind: string }) => s.stationKind === 'cure').map((s: { cureMinutes: number }) => s.cureMinutes),
+    ).toEqual([180, 180]);
     expect((await admin.put('/api/routing-templates/hard_enamel').send({ ...hard, process: 'printed' })).status).toBe(400);
   });
 });

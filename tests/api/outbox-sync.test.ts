@@ -66,11 +66,14 @@ beforeEach(async () => {
   await engine.init();
 });
 
-const trayScan = (code: string, type: 'start' | 'finish', at: number): ScanEvent =>
-  scan(code, tablet.stationId, type, at, { operatorId }) as ScanEvent;
+const trayScan = (code: string, type: 'start' | 'finish', at: number): ScanEvent => scan(code, tablet.stationId, type, at, { operatorId }) as ScanEvent;
 
 function serverEvents(trayIds: string[]) {
-  return t.deps.db.select({ n: sql<number>`count(*)` }).from(scanEvents).where(inArray(scanEvents.trayId, trayIds)).get()!.n;
+  return t.deps.db
+    .select({ n: sql<number>`count(*)` })
+    .from(scanEvents)
+    .where(inArray(scanEvents.trayId, trayIds))
+    .get()!.n;
 }
 
 describe('the tablet outbox', () => {
@@ -92,7 +95,16 @@ describe('the tablet outbox', () => {
     expect(engine.getStatus()).toMatchObject({ online: true, pending: 0, refusedUnseen: 0 });
     expect(await db.outbox.where('status').equals('accepted').count()).toBe(50);
     expect(serverEvents(trays.map((x) => x.id))).toBe(50);
-    const states = t.deps.db.select().from(trayStates).where(inArray(trayStates.trayId, trays.map((x) => x.id))).all();
+    const states = t.deps.db
+      .select()
+      .from(trayStates)
+      .where(
+        inArray(
+          trayStates.trayId,
+          trays.map((x) => x.id),
+        ),
+      )
+      .all();
     expect(states.every((s) => s.phase === 'waiting' && s.stepSeq === 3)).toBe(true);
   });
 
@@ -115,7 +127,9 @@ describe('the tablet outbox', () => {
   });
 
   it('marks a refused scan with the server’s code and words, and keeps it until the operator has seen it', async () => {
-    const { trays: [tr] } = insertFloorOrder(t.deps, { trays: 1, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
+    const {
+      trays: [tr],
+    } = insertFloorOrder(t.deps, { trays: 1, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
     await engine.add(trayScan(tr.code, 'finish', Date.now() - MIN), { trayNumber: tr.number, local: null });
     await engine.syncNow(); // (the add already started a sync; this waits for it)
     const [entry] = await db.outbox.toArray();
@@ -129,7 +143,17 @@ describe('the tablet outbox', () => {
   it('sends a backlog of 1,200 scans in batches of at most 500, in the order they were made', async () => {
     const { trays } = insertFloorOrder(t.deps, { trays: 1200, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
     const events = trays.map((tr, i) => trayScan(tr.code, 'start', Date.now() - 20 * MIN + i));
-    await db.outbox.bulkAdd(events.map((event, i) => ({ id: event.id, event, trayNumber: trays[i].number, status: 'pending' as const, local: { ok: true }, createdAt: Date.now(), attempts: 0 })));
+    await db.outbox.bulkAdd(
+      events.map((event, i) => ({
+        id: event.id,
+        event,
+        trayNumber: trays[i].number,
+        status: 'pending' as const,
+        local: { ok: true },
+        createdAt: Date.now(),
+        attempts: 0,
+      })),
+    );
     await engine.refreshCounts();
     await engine.syncNow();
     expect(net.posts).toBe(3);

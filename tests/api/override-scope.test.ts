@@ -38,7 +38,9 @@ async function post(events: unknown[]) {
 }
 
 async function override(code: string, station: string, kind: 'wrong_station' | 'curing' | 'release') {
-  const res = await operator.post('/api/scans/overrides').send({ badge: supervisor.badge, pin: supervisor.pin, reason: 'Agreed on the floor', code, stationId: station, kind });
+  const res = await operator
+    .post('/api/scans/overrides')
+    .send({ badge: supervisor.badge, pin: supervisor.pin, reason: 'Agreed on the floor', code, stationId: station, kind });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
   expect(res.body.kind).toBe(kind);
   return res.body.id as string;

@@ -51,7 +51,10 @@ const spec = (over: Partial<OrderSpecInput> = {}): OrderSpecInput => ({
   material: 'iron',
   sizeMm: 30,
   quantity: 500,
-  colours: [{ name: 'Ember', hex: '#c8502a' }, { name: 'Night', hex: '#1b2a4a' }],
+  colours: [
+    { name: 'Ember', hex: '#c8502a' },
+    { name: 'Night', hex: '#1b2a4a' },
+  ],
   plating: 'gold',
   backing: { type: 'butterfly_clutch', count: 1 },
   packaging: 'individual_bag',
@@ -113,7 +116,11 @@ async function payOnFake(url: string): Promise<Response> {
 }
 
 const webhook = (payload: string | Buffer, signature: string) =>
-  request(t.app).post('/api/payments/webhook').set('Content-Type', 'application/json; charset=utf-8').set('Stripe-Signature', signature).send(typeof payload === 'string' ? payload : payload.toString('utf8'));
+  request(t.app)
+    .post('/api/payments/webhook')
+    .set('Content-Type', 'application/json; charset=utf-8')
+    .set('Stripe-Signature', signature)
+    .send(typeof payload === 'string' ? payload : payload.toString('utf8'));
 
 describe('from awaiting payment to release through the customer page', () => {
   let order: Awaited<ReturnType<typeof orderAwaitingPayment>>;
@@ -124,7 +131,15 @@ describe('from awaiting payment to release through the customer page', () => {
     expect(res.status).toBe(200);
     expect(res.headers['x-robots-tag']).toMatch(/noindex/);
     expect(res.headers['cache-control']).toBe('no-store');
-    expect(res.body).toMatchObject({ number: order.number, status: 'awaiting_payment', amountDue: 1250, currency: 'EUR', paidTotal: 0, depositPct: 100, canPay: true });
+    expect(res.body).toMatchObject({
+      number: order.number,
+      status: 'awaiting_payment',
+      amountDue: 1250,
+      currency: 'EUR',
+      paidTotal: 0,
+      depositPct: 100,
+      canPay: true,
+    });
     expect(res.body.proofs).toEqual([expect.objectContaining({ revision: 1, fileUrl: `/api/public/orders/${order.token}/proofs/1/file`, latest: true })]);
     expect(res.body.proofs[0].approvedAt).toBeUndefined();
     const text = JSON.stringify(res.body);
@@ -153,7 +168,9 @@ describe('from awaiting payment to release through the customer page', () => {
     expect(payments.fake!.sent[0]!.status).toBe(200);
 
     const d = await detail(order.id);
-    expect(d.payments).toEqual([expect.objectContaining({ amount: 1250, currency: 'EUR', source: 'checkout', reference: expect.stringMatching(/^pi_test_/), at: expect.any(String) })]);
+    expect(d.payments).toEqual([
+      expect.objectContaining({ amount: 1250, currency: 'EUR', source: 'checkout', reference: expect.stringMatching(/^pi_test_/), at: expect.any(String) }),
+    ]);
     expect(d.paidTotal).toBe(1250);
     expect(d.openGates).toEqual(['proof_not_approved']);
     expect(d.status).toBe('awaiting_proof');
@@ -208,7 +225,12 @@ describe('from awaiting payment to release through the customer page', () => {
   it('the webhook alone is let through from another origin, and only its signature lets it change anything', async () => {
     const before = dbDigest();
     const { payload } = payments.fake!.sent[0]!;
-    const cross = await request(t.app).post('/api/payments/webhook').set('Origin', 'https://payments.example').set('Content-Type', 'application/json').set('Stripe-Signature', 't=1,v1=00').send(payload);
+    const cross = await request(t.app)
+      .post('/api/payments/webhook')
+      .set('Origin', 'https://payments.example')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', 't=1,v1=00')
+      .send(payload);
     expect(cross.status).toBe(400);
     expect(cross.body.error.code).toBe('bad_signature');
     // the customer's own writes keep the same-origin rule
@@ -226,7 +248,9 @@ describe('from awaiting payment to release through the customer page', () => {
     const d = await detail(order.id);
     expect(d.openGates).toEqual([]);
     expect(d.proofs[0]).toMatchObject({ approvedBy: 'Mira Quell (on the order page)', approvedAt: expect.any(String) });
-    expect(d.history.map((h: { text: string }) => h.text)).toEqual(expect.arrayContaining([expect.stringMatching(/^Mira Quell approved proof revision 1 on the order page/)]));
+    expect(d.history.map((h: { text: string }) => h.text)).toEqual(
+      expect.arrayContaining([expect.stringMatching(/^Mira Quell approved proof revision 1 on the order page/)]),
+    );
     // approving twice is refused and changes nothing
     const before = dbDigest();
     const twice = await pubPost(`/api/public/orders/${order.token}/proofs/1/approve`).send({ name: 'Mira Quell' });
@@ -345,7 +369,11 @@ describe('changes asked for on the customer page', () => {
     const d = await detail(o.id);
     expect(d.proofs[0]).toMatchObject({ changesComment: 'Please make the ember colour darker', approvedAt: null });
     expect(d.openGates).toContain('proof_not_approved');
-    const mails = t.deps.db.$client.prepare(`SELECT "to", subject, text FROM mail_queue WHERE kind = 'proof_changes' AND order_id = ?`).all(o.id) as { to: string; subject: string; text: string }[];
+    const mails = t.deps.db.$client.prepare(`SELECT "to", subject, text FROM mail_queue WHERE kind = 'proof_changes' AND order_id = ?`).all(o.id) as {
+      to: string;
+      subject: string;
+      text: string;
+    }[];
     expect(mails.map((m) => m.to)).toContain(planner.user.email);
     expect(mails[0]!.text).toContain('Please make the ember colour darker');
     // an empty comment is refused and changes nothing
@@ -377,7 +405,12 @@ describe('QC photos on the customer page', () => {
     expect(await photosOnPage()).toEqual([]);
     expect((await pubGet(`/api/public/status/${token}/photos/${p1}`)).status).toBe(404);
     const list = await supervisor.get(`/api/trays/${mine.trays[0]!.id}/photos`);
-    expect(list.body.map((p: { id: string; shareable: boolean }) => [p.id, p.shareable]).sort()).toEqual([[p1, false], [p2, false]].sort());
+    expect(list.body.map((p: { id: string; shareable: boolean }) => [p.id, p.shareable]).sort()).toEqual(
+      [
+        [p1, false],
+        [p2, false],
+      ].sort(),
+    );
 
     // sales may not decide it; the supervisor may
     expect((await sales.patch(`/api/photos/${p1}`).send({ shareable: true })).status).toBe(403);

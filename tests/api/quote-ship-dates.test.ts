@@ -36,7 +36,13 @@ beforeAll(async () => {
   for (const p of plans) {
     const routing = expandRouting(DEFAULT_ROUTING_TEMPLATES[p.process], p);
     const trays = splitIntoTrays(releasedQuantity(p.quantity, p.overrunPct), p.traySize);
-    insertFloorOrder(t.deps, { trays: trays.length, quantity: p.traySize, releasedAt: NOW - rng.int(2, 120) * HOUR, routing, stepSeq: routing[rng.int(0, routing.length - 1)].seq });
+    insertFloorOrder(t.deps, {
+      trays: trays.length,
+      quantity: p.traySize,
+      releasedAt: NOW - rng.int(2, 120) * HOUR,
+      routing,
+      stepSeq: routing[rng.int(0, routing.length - 1)].seq,
+    });
   }
 });
 afterAll(() => t.close());
@@ -55,7 +61,9 @@ describe('quote ship dates', { timeout: 120_000 }, () => {
     const lines = res.body.lines as Line[];
     for (const l of lines) {
       // without a due date the quoted order queues behind the open orders' latest due date (the fixture's 2099-01-01)
-      const w = await sales.post('/api/projections/what-if').send({ ...spec, customer: 'Invented Harbour Rowing Club', quantity: l.quantity, dueDate: '2099-01-01' });
+      const w = await sales
+        .post('/api/projections/what-if')
+        .send({ ...spec, customer: 'Invented Harbour Rowing Club', quantity: l.quantity, dueDate: '2099-01-01' });
       expect(w.status, JSON.stringify(w.body)).toBe(200);
       const answer = w.body as WhatIfResult;
       expect(answer.expectedAt).not.toBeNull();

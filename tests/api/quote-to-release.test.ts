@@ -104,7 +104,13 @@ const quoteBody = (over: Record<string, unknown> = {}) => ({
 });
 
 describe('quote → accept → pay → approve → release', () => {
-  const s: { quote?: { id: string; number: string; lines: { quantity: number; total: number }[] }; token?: string; orderId?: string; statusToken?: string; checkoutUrl?: string } = {};
+  const s: {
+    quote?: { id: string; number: string; lines: { quantity: number; total: number }[] };
+    token?: string;
+    orderId?: string;
+    statusToken?: string;
+    checkoutUrl?: string;
+  } = {};
 
   it('sales prices and sends the quote; the mail carrying the link is caught', async () => {
     const created = await sales.post('/api/quotes').send(quoteBody());
@@ -158,11 +164,18 @@ describe('quote → accept → pay → approve → release', () => {
     s.checkoutUrl = checkout.body.url;
     const page = await fetch(s.checkoutUrl!);
     expect(page.status).toBe(200);
-    const paid = await fetch(s.checkoutUrl!, { method: 'POST', headers: { 'Content-Type': 'application/x-www-form-urlencoded' }, body: '', redirect: 'manual' });
+    const paid = await fetch(s.checkoutUrl!, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/x-www-form-urlencoded' },
+      body: '',
+      redirect: 'manual',
+    });
     expect(paid.status).toBe(303);
     expect(payments.fake!.sent.at(-1)!.status).toBe(200);
     const order = (await planner.get(`/api/orders/${s.orderId}`)).body;
-    expect(order.payments).toEqual([expect.objectContaining({ source: 'checkout', amount: s.quote!.lines[1]!.total, currency: 'USD', reference: expect.stringMatching(/^pi_test_/) })]);
+    expect(order.payments).toEqual([
+      expect.objectContaining({ source: 'checkout', amount: s.quote!.lines[1]!.total, currency: 'USD', reference: expect.stringMatching(/^pi_test_/) }),
+    ]);
     expect(order.openGates).toEqual(['proof_not_approved']);
   });
 
@@ -174,7 +187,11 @@ describe('quote → accept → pay → approve → release', () => {
     expect(replay.body).toEqual({ received: true, recorded: false });
     const forged = JSON.parse(payload);
     forged.id = 'evt_forged_quote_path';
-    const bad = await request(t.app).post('/api/payments/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', signature).send(JSON.stringify(forged));
+    const bad = await request(t.app)
+      .post('/api/payments/webhook')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', signature)
+      .send(JSON.stringify(forged));
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('bad_signature');
     expect(dbDigest()).toBe(before);

@@ -83,7 +83,13 @@ describe('quotes', () => {
     const res = await sales.post('/api/quotes').send(body());
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ number: 'Q-2001', version: 1, status: 'draft', currency: 'USD' });
-    const lines = res.body.lines as { quantity: number; unitPrice: number; total: number; breakdown: Record<string, number>; shipDates: { expectedAt: string | null; p85At: string | null } }[];
+    const lines = res.body.lines as {
+      quantity: number;
+      unitPrice: number;
+      total: number;
+      breakdown: Record<string, number>;
+      shipDates: { expectedAt: string | null; p85At: string | null };
+    }[];
     expect(lines.map((l) => l.quantity)).toEqual([100, 250, 500, 1000]);
     for (let i = 1; i < lines.length; i++) expect(lines[i].unitPrice).toBeLessThan(lines[i - 1].unitPrice);
     for (const l of lines) {
@@ -118,17 +124,49 @@ describe('quotes', () => {
     expect(res.status).toBe(200);
     expect(res.body.version).toBe(2);
     expect(res.body.versions.map((v: { version: number }) => v.version)).toEqual([2, 1]);
-    const rows = t.deps.db.select().from(quoteVersions).all().filter((v) => v.quoteId === created.id);
-    expect(rows.map((r) => r.quantities)).toEqual(expect.arrayContaining([[100, 250, 500, 1000], [500, 1000, 2000]]));
+    const rows = t.deps.db
+      .select()
+      .from(quoteVersions)
+      .all()
+      .filter((v) => v.quoteId === created.id);
+    expect(rows.map((r) => r.quantities)).toEqual(
+      expect.arrayContaining([
+        [100, 250, 500, 1000],
+        [500, 1000, 2000],
+      ]),
+    );
     const list = (await sales.get('/api/quotes')).body as { id: string; version: number }[];
     expect(list.find((q) => q.id === created.id)?.version).toBe(2);
   });
 
   it('a reorder reusing its stored mould pays no mould charge', async () => {
     // an earlier order with a front mould in the library
-    const order = (await (await t.agentAs('planner')).post('/api/orders').send({ ...body().spec, heightMm: undefined, thicknessMm: undefined, customer: 'Invented Lantern Society', quantity: 200, dueDate: day(40) })).body;
+    const order = (
+      await (
+        await t.agentAs('planner')
+      )
+        .post('/api/orders')
+        .send({ ...body().spec, heightMm: undefined, thicknessMm: undefined, customer: 'Invented Lantern Society', quantity: 200, dueDate: day(40) })
+    ).body;
     const { moulds } = await import('../../server/db/schema/moulds');
-    t.deps.db.insert(moulds).values({ id: 'm-lantern', number: 'M-LANTERN-F', designKey: t.deps.db.select().from(orders).all().find((o) => o.id === order.id)!.designKey, side: 'front', firstOrderId: order.id, status: 'stored', storageLocation: 'Shelf 3', createdAt: Date.now(), updatedAt: Date.now() } as never).run();
+    t.deps.db
+      .insert(moulds)
+      .values({
+        id: 'm-lantern',
+        number: 'M-LANTERN-F',
+        designKey: t.deps.db
+          .select()
+          .from(orders)
+          .all()
+          .find((o) => o.id === order.id)!.designKey,
+        side: 'front',
+        firstOrderId: order.id,
+        status: 'stored',
+        storageLocation: 'Shelf 3',
+        createdAt: Date.now(),
+        updatedAt: Date.now(),
+      } as never)
+      .run();
     const res = await sales.post('/api/quotes').send(body({ spec: { ...body().spec, reorderOf: order.id } }));
     expect(res.status).toBe(201);
     expect(res.body.mouldCharge).toBe(0);
@@ -137,11 +175,14 @@ describe('quotes', () => {
 
   it('the PDF names the factory and carries both languages', async () => {
     const q = (await sales.post('/api/quotes').send(body())).body;
-    const res = await sales.get(`/api/quotes/${q.id}/quote.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await sales
+      .get(`/api/quotes/${q.id}/quote.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const file = path.join(os.tmpdir(), `quote-${q.id}.pdf`);
@@ -176,7 +217,15 @@ describe('quotes', () => {
     expect(view.body.factory).toBe('Trayce factory');
     expect(JSON.stringify(view.body)).not.toContain('breakdown');
     expect(JSON.stringify(view.body)).not.toContain('labour');
-    expect(view.body.lines[0]).toEqual({ quantity: 100, unitPrice: q.lines[0].unitPrice, goodsTotal: q.lines[0].goodsTotal, mouldCharge: q.mouldCharge, total: q.lines[0].total, expectedShipAt: expect.any(String), p85ShipAt: expect.any(String) });
+    expect(view.body.lines[0]).toEqual({
+      quantity: 100,
+      unitPrice: q.lines[0].unitPrice,
+      goodsTotal: q.lines[0].goodsTotal,
+      mouldCharge: q.mouldCharge,
+      total: q.lines[0].total,
+      expectedShipAt: expect.any(String),
+      p85ShipAt: expect.any(String),
+    });
 
     const acc = await pubPost(`/api/public/quotes/${token}/accept`, { quantity: 500, name: 'Ida Marlow' });
     expect(acc.status).toBe(201);

@@ -269,7 +269,9 @@ describe('trays curing and on hold', () => {
   it('counts a tray in the oven as curing at the oven, and a held tray also as held', async () => {
     const other = insertFloorOrder(t.deps, { trays: 1, quantity: 40, releasedAt: T0 - 600 * MIN, routing: ROUTING, stepSeq: 3 });
     await post([scan(other.trays[0].code, ST['OVN-1'], 'start', T0 - 30 * MIN)]);
-    const hold = await operator.post('/api/scans').send({ events: [scan(other.trays[0].code, ST['OVN-1'], 'hold', T0 - 20 * MIN, { scrapReason: 'hold_quality' })] });
+    const hold = await operator
+      .post('/api/scans')
+      .send({ events: [scan(other.trays[0].code, ST['OVN-1'], 'hold', T0 - 20 * MIN, { scrapReason: 'hold_quality' })] });
     expect(hold.body.results[0].status).toBe('accepted');
     const w = await wip();
     const cure = kindOf(w, 'cure');
@@ -357,7 +359,9 @@ describe('oven and plating loads', () => {
 describe('the working calendar', () => {
   it('refuses an unknown time zone and keeps what was saved', async () => {
     const admin = await t.agentAs('admin');
-    const bad = await admin.put('/api/calendar').send({ timeZone: 'Nowhere/Else', week: { mon: [], tue: [], wed: [], thu: [], fri: [], sat: [], sun: [] }, daysOff: [] });
+    const bad = await admin
+      .put('/api/calendar')
+      .send({ timeZone: 'Nowhere/Else', week: { mon: [], tue: [], wed: [], thu: [], fri: [], sat: [], sun: [] }, daysOff: [] });
     expect(bad.status).toBe(400);
     const view = await admin.get('/api/calendar');
     expect(view.body.timeZone).toBe('UTC');
@@ -376,7 +380,10 @@ describe('GET /api/stream', () => {
         headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ email: manager.user.email, password: manager.user.password }),
       });
-      const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+      const cookie = login.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .join('; ');
       const received: { event: string; data: string }[] = [];
       const req = http.get(`http://127.0.0.1:${port}/api/stream`, { headers: { cookie, accept: 'text/event-stream' } });
       const opened = new Promise<http.IncomingMessage>((resolve) => req.on('response', resolve));

@@ -26,7 +26,9 @@ describe('sessions end when access is taken away', () => {
     const op = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
     const tablet = await tabletAgent(t, device.token, op);
     const tray = insertFloorOrder(t.deps, { releasedAt: Date.now() - 3600_000, trays: 2 }).trays;
-    expect((await tablet.post('/api/scans').send({ events: [scan(tray[0].code, device.stationId, 'start', Date.now())] })).body.results[0].status).toBe('accepted');
+    expect((await tablet.post('/api/scans').send({ events: [scan(tray[0].code, device.stationId, 'start', Date.now())] })).body.results[0].status).toBe(
+      'accepted',
+    );
     expect((await admin.patch(`/api/devices/${device.deviceId}`).send({ active: false })).status).toBe(200);
     const after = await tablet.post('/api/scans').send({ events: [scan(tray[1].code, device.stationId, 'start', Date.now())] });
     expect(after.status).toBe(401);

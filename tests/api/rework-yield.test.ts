@@ -10,7 +10,15 @@ import type { YieldReport } from '@shared/schemas/reports';
 const MIN = 60_000;
 const T0 = Math.floor(Date.now() / MIN) * MIN - 2 * 24 * 60 * MIN;
 const at = (minutes: number) => T0 + minutes * MIN;
-const step = (seq: number, stationKind: StationKind): RoutingStep => ({ seq, name: `Step ${seq}`, stationKind, trayMinutes: 10, pieceMinutes: 0.1, cureMinutes: null, colour: null });
+const step = (seq: number, stationKind: StationKind): RoutingStep => ({
+  seq,
+  name: `Step ${seq}`,
+  stationKind,
+  trayMinutes: 10,
+  pieceMinutes: 0.1,
+  cureMinutes: null,
+  colour: null,
+});
 
 let t: TestApp;
 beforeAll(async () => {

@@ -53,7 +53,11 @@ describe('every registered write route', () => {
   });
 
   it('exempts exactly one signed route from the origin rule', () => {
-    expect(writes().filter((r) => r.signed).map((r) => `${r.method} ${r.path}`)).toEqual(['post /payments/webhook']);
+    expect(
+      writes()
+        .filter((r) => r.signed)
+        .map((r) => `${r.method} ${r.path}`),
+    ).toEqual(['post /payments/webhook']);
   });
 
   it('refuses a foreign Origin with 403 cross_origin and changes nothing', async () => {
@@ -109,7 +113,12 @@ describe('the rule in practice', () => {
     const asForm = await admin.post('/api/users').type('form').send(body);
     expect(asForm.status).toBe(415);
     expect(count()).toBe(n);
-    const same = await admin.post('/api/users').set('Host', 'trayce.test:5180').set('Origin', 'http://trayce.test:5180').set('Sec-Fetch-Site', 'same-origin').send(body);
+    const same = await admin
+      .post('/api/users')
+      .set('Host', 'trayce.test:5180')
+      .set('Origin', 'http://trayce.test:5180')
+      .set('Sec-Fetch-Site', 'same-origin')
+      .send(body);
     expect(same.status).toBe(201);
     expect(count()).toBe(n + 1);
   });

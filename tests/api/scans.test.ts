@@ -45,12 +45,22 @@ async function post(events: unknown[], agent: TestAgent = operator) {
 function stateOf(trayId: string) {
   return t.deps.db.select().from(trayStates).where(eq(trayStates.trayId, trayId)).get()!;
 }
-const countEvents = () => t.deps.db.select({ n: sql<number>`count(*)` }).from(scanEvents).get()!.n;
-const countRejections = () => t.deps.db.select({ n: sql<number>`count(*)` }).from(scanRejections).get()!.n;
+const countEvents = () =>
+  t.deps.db
+    .select({ n: sql<number>`count(*)` })
+    .from(scanEvents)
+    .get()!.n;
+const countRejections = () =>
+  t.deps.db
+    .select({ n: sql<number>`count(*)` })
+    .from(scanRejections)
+    .get()!.n;
 
 describe('POST /api/scans: accepted events', () => {
   it('starts and finishes a tray, answers in order and updates the tray state', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const a = now() - 30 * MIN;
     const body = await post([
       scan(tray.code, ST['STR-1'], 'start', a),
@@ -70,13 +80,17 @@ describe('POST /api/scans: accepted events', () => {
   });
 
   it('accepts a typed tray number as well as the QR text', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const body = await post([scan(tray.number.toLowerCase(), ST['STR-1'], 'start', now() - MIN)]);
     expect(body.results[0].status).toBe('accepted');
   });
 
   it('the next colour starts exactly when the cure has run its time, not a minute before (cure 120 min: common practice)', async () => {
-    const { trays: [tray] } = floor({ stepSeq: 5 });
+    const {
+      trays: [tray],
+    } = floor({ stepSeq: 5 });
     const inOven = now() - 300 * MIN;
     await post([scan(tray.code, ST['OVN-1'], 'start', inOven)]);
     expect(stateOf(tray.id)).toMatchObject({ phase: 'curing', cureReadyAt: inOven + 120 * MIN });
@@ -99,7 +113,9 @@ describe('POST /api/scans: every rejection code', () => {
   }
 
   it('unknown_tray, void_traveller, bad_signature', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     await expectRefused(scan('99999-999', ST['STR-1'], 'start', now()), 'unknown_tray');
     await expectRefused(scan('not a traveller at all', ST['STR-1'], 'start', now()), 'unknown_tray');
     const forged = tray.code.slice(0, -4) + (tray.code.endsWith('AAAA') ? 'BBBB' : 'AAAA');
@@ -112,32 +128,47 @@ describe('POST /api/scans: every rejection code', () => {
   });
 
   it('wrong_station, not_started, already_started, finished', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     await expectRefused(scan(tray.code, ST['POL-1'], 'start', now() - 10 * MIN), 'wrong_station');
     await expectRefused(scan(tray.code, ST['STR-1'], 'finish', now() - 9 * MIN), 'not_started');
     await post([scan(tray.code, ST['STR-1'], 'start', now() - 8 * MIN)]);
     await expectRefused(scan(tray.code, ST['STR-1'], 'start', now() - 7 * MIN), 'already_started');
-    const { trays: [last] } = floor({ stepSeq: 10 });
+    const {
+      trays: [last],
+    } = floor({ stepSeq: 10 });
     await post([scan(last.code, ST['PLT-1'], 'start', now() - 6 * MIN), scan(last.code, ST['PLT-1'], 'finish', now() - 5 * MIN)]);
     expect(stateOf(last.id).phase).toBe('done');
     await expectRefused(scan(last.code, ST['PLT-1'], 'start', now() - 4 * MIN), 'finished');
   });
 
   it('curing with minutesLeft, quantity_mismatch, scrap_reason_missing', async () => {
-    const { trays: [tray] } = floor({ stepSeq: 5 });
+    const {
+      trays: [tray],
+    } = floor({ stepSeq: 5 });
     await post([scan(tray.code, ST['OVN-1'], 'start', now() - 30 * MIN)]);
     const r = await expectRefused(scan(tray.code, ST['FIL-2'], 'start', now()), 'curing');
     expect(r.minutesLeft).toBe(90);
-    const { trays: [b] } = floor();
+    const {
+      trays: [b],
+    } = floor();
     await post([scan(b.code, ST['STR-1'], 'start', now() - 10 * MIN)]);
     await expectRefused(scan(b.code, ST['STR-1'], 'finish', now() - 5 * MIN, { goodQty: 90, scrapQty: 5, scrapReason: 'misstrike' }), 'quantity_mismatch');
     await expectRefused(scan(b.code, ST['STR-1'], 'finish', now() - 5 * MIN, { goodQty: 95, scrapQty: 5 }), 'scrap_reason_missing');
-    await expectRefused(scan(b.code, ST['STR-1'], 'finish', now() - 5 * MIN, { goodQty: 95, scrapQty: 5, scrapReason: 'no_such_reason' }), 'scrap_reason_missing');
-    expect((await post([scan(b.code, ST['STR-1'], 'finish', now() - 5 * MIN, { goodQty: 95, scrapQty: 5, scrapReason: 'misstrike' })])).results[0].status).toBe('accepted');
+    await expectRefused(
+      scan(b.code, ST['STR-1'], 'finish', now() - 5 * MIN, { goodQty: 95, scrapQty: 5, scrapReason: 'no_such_reason' }),
+      'scrap_reason_missing',
+    );
+    expect((await post([scan(b.code, ST['STR-1'], 'finish', now() - 5 * MIN, { goodQty: 95, scrapQty: 5, scrapReason: 'misstrike' })])).results[0].status).toBe(
+      'accepted',
+    );
   });
 
   it('on_hold, not_on_hold, bad_override (release without a supervisor)', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     await expectRefused(scan(tray.code, ST['STR-1'], 'release', now() - 9 * MIN), 'not_on_hold');
     await post([scan(tray.code, ST['STR-1'], 'hold', now() - 8 * MIN, { scrapReason: 'hold_quality', note: 'burr on the edge' })]);
     expect(stateOf(tray.id)).toMatchObject({ onHold: true, holdReason: 'hold_quality' });
@@ -152,17 +183,25 @@ describe('POST /api/scans: every rejection code', () => {
   });
 
   it('mould_not_ready', async () => {
-    const { trays: [tray] } = floor({ mould: 'engraving' });
+    const {
+      trays: [tray],
+    } = floor({ mould: 'engraving' });
     await expectRefused(scan(tray.code, ST['STR-1'], 'start', now()), 'mould_not_ready');
-    const { trays: [ok] } = floor({ mould: 'ready' });
+    const {
+      trays: [ok],
+    } = floor({ mould: 'ready' });
     expect((await post([scan(ok.code, ST['STR-1'], 'start', now())])).results[0].status).toBe('accepted');
   });
 
   it('bad_time: 2 min ahead of the server clock is the limit, 7 days back is the limit, not before release or the last event', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     expect((await expectRefused(scan(tray.code, ST['STR-1'], 'start', now() + 2 * MIN + 1000), 'bad_time')).params).toMatchObject({ reason: 'future' });
     expect((await expectRefused(scan(tray.code, ST['STR-1'], 'start', RELEASED - MIN), 'bad_time')).params).toMatchObject({ reason: 'before_release' });
-    const { trays: [old] } = floor({ releasedAt: now() - 8 * 24 * 60 * MIN });
+    const {
+      trays: [old],
+    } = floor({ releasedAt: now() - 8 * 24 * 60 * MIN });
     const week = 7 * 24 * 60 * MIN;
     expect((await expectRefused(scan(old.code, ST['STR-1'], 'start', now() - week - 1000), 'bad_time')).params).toMatchObject({ reason: 'too_old' });
     expect((await post([scan(old.code, ST['STR-1'], 'start', now() - week)])).results[0].status).toBe('accepted');
@@ -171,7 +210,9 @@ describe('POST /api/scans: every rejection code', () => {
   });
 
   it('invalid_event: a malformed event is answered on its own', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const body = await post([{ id: 'x', code: tray.code }, scan(tray.code, ST['STR-1'], 'start', now())]);
     expect(body.results[0]).toMatchObject({ id: 'x', status: 'rejected', code: 'invalid_event' });
     expect(body.results[1].status).toBe('accepted');
@@ -181,7 +222,9 @@ describe('POST /api/scans: every rejection code', () => {
   });
 
   it('station_not_allowed: a tablet paired to one station cannot record a scan at another, and says why and what to do', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const striking = pairTablet(t, 'STR-1');
     const agent = await tabletAgent(t, striking.token, insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '7531'));
     const r = await expectRefused(scan(tray.code, ST['POL-1'], 'start', now()), 'station_not_allowed', agent as typeof operator);
@@ -194,13 +237,26 @@ describe('POST /api/scans: every rejection code', () => {
 
   it('bad_override: an override for another tray, expired or used up', async () => {
     const supervisor = insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '2468');
-    const { trays: [a, b] } = floor({ trays: 2 });
-    const ov = await operator.post('/api/scans/overrides').send({ badge: supervisor.badge, pin: supervisor.pin, reason: 'Striking press down, trim first', code: a.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
+    const {
+      trays: [a, b],
+    } = floor({ trays: 2 });
+    const ov = await operator.post('/api/scans/overrides').send({
+      badge: supervisor.badge,
+      pin: supervisor.pin,
+      reason: 'Striking press down, trim first',
+      code: a.code,
+      stationId: ST['TRM-1'],
+      kind: 'wrong_station',
+    });
     expect(ov.status).toBe(201);
     await expectRefused(scan(b.code, ST['TRM-1'], 'start', now(), { overrideId: ov.body.id }), 'bad_override');
     expect((await post([scan(a.code, ST['TRM-1'], 'start', now() - MIN, { overrideId: ov.body.id })])).results[0].status).toBe('accepted');
-    const { trays: [c] } = floor();
-    const ov2 = await operator.post('/api/scans/overrides').send({ badge: supervisor.badge, pin: supervisor.pin, reason: 'Move on', code: c.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
+    const {
+      trays: [c],
+    } = floor();
+    const ov2 = await operator
+      .post('/api/scans/overrides')
+      .send({ badge: supervisor.badge, pin: supervisor.pin, reason: 'Move on', code: c.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
     t.setNow(now() + 16 * MIN);
     await expectRefused(scan(c.code, ST['TRM-1'], 'start', now(), { overrideId: ov2.body.id }), 'bad_override');
   });
@@ -276,7 +332,9 @@ describe('POST /api/scans: batches', () => {
   });
 
   it('the same event twice in one batch counts once', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const e = scan(tray.code, ST['STR-1'], 'start', now());
     const body = await post([e, e]);
     expect(body.results.map((r) => r.status)).toEqual(['accepted', 'duplicate']);
@@ -290,14 +348,18 @@ describe('POST /api/scans: batches', () => {
   });
 
   it('events, refusals and tray states are written in one transaction: a failure leaves nothing behind', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const before = { events: countEvents(), rejections: countRejections(), state: stateOf(tray.id) };
     const boom = () => {
       throw new Error('simulated failure inside the batch');
     };
     const removeBoom = addScanHook(t.deps, boom);
     try {
-      const res = await operator.post('/api/scans').send({ events: [scan(tray.code, ST['STR-1'], 'start', now()), scan('nothing', ST['STR-1'], 'start', now())] });
+      const res = await operator
+        .post('/api/scans')
+        .send({ events: [scan(tray.code, ST['STR-1'], 'start', now()), scan('nothing', ST['STR-1'], 'start', now())] });
       expect(res.status).toBe(500);
     } finally {
       removeBoom();
@@ -328,7 +390,9 @@ describe('group commit', () => {
 
 describe('two tablets, events out of order', () => {
   it('an oven scan that arrives before the fill bench’s offline scans is accepted once they arrive', async () => {
-    const { trays: [tray] } = floor({ stepSeq: 4 });
+    const {
+      trays: [tray],
+    } = floor({ stepSeq: 4 });
     const fillTablet = pairTablet(t, 'FIL-1');
     const ovenTablet = pairTablet(t, 'OVN-1');
     const filler = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
@@ -338,7 +402,10 @@ describe('two tablets, events out of order', () => {
     const n = now();
     // The fill bench was offline: its start and finish wait in its outbox.
     // Tablets name the operator on every event (sessions time out while a tablet is offline).
-    const queued = [scan(tray.code, ST['FIL-1'], 'start', n + 1 * MIN, { operatorId: filler.id }), scan(tray.code, ST['FIL-1'], 'finish', n + 20 * MIN, { operatorId: filler.id })];
+    const queued = [
+      scan(tray.code, ST['FIL-1'], 'start', n + 1 * MIN, { operatorId: filler.id }),
+      scan(tray.code, ST['FIL-1'], 'finish', n + 20 * MIN, { operatorId: filler.id }),
+    ];
     t.setNow(n + 25 * MIN);
     const ovenEvent = scan(tray.code, ST['OVN-1'], 'start', n + 25 * MIN, { operatorId: ovenHand.id });
     const ovenFirst = await post([ovenEvent], ovenAgent);
@@ -363,7 +430,9 @@ describe('two tablets, events out of order', () => {
   });
 
   it('two benches start the same tray: the one that arrives late but happened earlier is refused as bad_time', async () => {
-    const { trays: [tray] } = floor({ stepSeq: 4 });
+    const {
+      trays: [tray],
+    } = floor({ stepSeq: 4 });
     const a = pairTablet(t, 'FIL-1');
     const b = pairTablet(t, 'FIL-2');
     const pa = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1111');
@@ -381,7 +450,9 @@ describe('two tablets, events out of order', () => {
   });
 
   it('scans queued on a tablet count for the operator who made them, even when another person is signed in at sync', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     const tablet = pairTablet(t, 'STR-1');
     const first = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '3691');
     const second = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '4702');
@@ -404,14 +475,27 @@ describe('overrides, exceptions and station screens', () => {
   it('a supervisor override lets a wrong-station start through once, and records who and why', async () => {
     const supervisor = insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '8024');
     const op = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '9999');
-    const { trays: [tray] } = floor();
-    const refused = await operator.post('/api/scans/overrides').send({ badge: op.badge, pin: op.pin, reason: 'I say so', code: tray.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
+    const {
+      trays: [tray],
+    } = floor();
+    const refused = await operator
+      .post('/api/scans/overrides')
+      .send({ badge: op.badge, pin: op.pin, reason: 'I say so', code: tray.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
     // an operator's right PIN is answered like a wrong one
     expect(refused.status).toBe(401);
     expect(refused.body.error.code).toBe('invalid_credentials');
-    const wrongPin = await operator.post('/api/scans/overrides').send({ badge: supervisor.badge, pin: '0000', reason: 'x y z', code: tray.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
+    const wrongPin = await operator
+      .post('/api/scans/overrides')
+      .send({ badge: supervisor.badge, pin: '0000', reason: 'x y z', code: tray.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
     expect(wrongPin.status).toBe(401);
-    const ov = await operator.post('/api/scans/overrides').send({ badge: supervisor.badge, pin: supervisor.pin, reason: 'Struck on the old press last night', code: tray.code, stationId: ST['TRM-1'], kind: 'wrong_station' });
+    const ov = await operator.post('/api/scans/overrides').send({
+      badge: supervisor.badge,
+      pin: supervisor.pin,
+      reason: 'Struck on the old press last night',
+      code: tray.code,
+      stationId: ST['TRM-1'],
+      kind: 'wrong_station',
+    });
     expect(ov.status).toBe(201);
     expect(ov.body.supervisor).toMatchObject({ id: supervisor.id });
     const ok = await post([scan(tray.code, ST['TRM-1'], 'start', now(), { overrideId: ov.body.id })]);
@@ -424,7 +508,9 @@ describe('overrides, exceptions and station screens', () => {
   });
 
   it('a supervisor retries a refused scan after the cause is gone, or resolves it with a note', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     await post([scan(tray.code, ST['STR-1'], 'hold', now() - 10 * MIN, { scrapReason: 'hold_material' })]);
     const refused = await post([scan(tray.code, ST['STR-1'], 'start', now() - 9 * MIN)]);
     expect(refused.results[0].code).toBe('on_hold');
@@ -446,13 +532,21 @@ describe('overrides, exceptions and station screens', () => {
 
   it('the station queue lists what waits for the station, what is in process there and what cures before it', async () => {
     const { trays: waiting } = floor({ trays: 2, stepSeq: 6 });
-    const { trays: [curing] } = floor({ stepSeq: 5 });
+    const {
+      trays: [curing],
+    } = floor({ stepSeq: 5 });
     await post([scan(curing.code, ST['OVN-1'], 'start', now() - 10 * MIN)]);
     await post([scan(waiting[0].code, ST['FIL-1'], 'start', now() - 5 * MIN)]);
     const res = await operator.get(`/api/stations/${ST['FIL-1']}/queue`);
     expect(res.status).toBe(200);
     const numbers = (res.body.trays as { tray: { number: string }; state: { phase: string } }[]).map((c) => [c.tray.number, c.state.phase]);
-    expect(numbers).toEqual(expect.arrayContaining([[waiting[0].number, 'in_process'], [waiting[1].number, 'waiting'], [curing.number, 'curing']]));
+    expect(numbers).toEqual(
+      expect.arrayContaining([
+        [waiting[0].number, 'in_process'],
+        [waiting[1].number, 'waiting'],
+        [curing.number, 'curing'],
+      ]),
+    );
     const other = await operator.get(`/api/stations/${ST['FIL-2']}/queue`);
     const otherNumbers = (other.body.trays as { tray: { number: string } }[]).map((c) => c.tray.number);
     expect(otherNumbers).not.toContain(waiting[0].number); // in process at bench 1 only
@@ -465,13 +559,20 @@ describe('overrides, exceptions and station screens', () => {
   });
 
   it('keeps a QC photo with the tray', async () => {
-    const { trays: [tray] } = floor();
+    const {
+      trays: [tray],
+    } = floor();
     // a real picture: photos are decoded in full before they are kept
-    const jpeg = await sharp({ create: { width: 32, height: 24, channels: 3, background: '#8899aa' } }).jpeg().toBuffer();
+    const jpeg = await sharp({ create: { width: 32, height: 24, channels: 3, background: '#8899aa' } })
+      .jpeg()
+      .toBuffer();
     const res = await operator.post('/api/scans/photos').field('code', tray.code).attach('file', jpeg, { filename: 'qc.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     expect(res.body.hash).toBe(crypto.createHash('sha256').update(jpeg).digest('hex'));
-    const text = await operator.post('/api/scans/photos').field('code', tray.code).attach('file', Buffer.from('hello'), { filename: 'a.txt', contentType: 'text/plain' });
+    const text = await operator
+      .post('/api/scans/photos')
+      .field('code', tray.code)
+      .attach('file', Buffer.from('hello'), { filename: 'a.txt', contentType: 'text/plain' });
     expect(text.status).toBe(400);
   });
 });

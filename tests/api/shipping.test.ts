@@ -25,7 +25,14 @@ const carton = (count: number, piecesPerCarton: number, weightKg = 2.5) => ({ co
 
 describe('packing', () => {
   it('shows what is packed and what is still on the floor of a partly packed order', async () => {
-    const o = insertShippingOrder(t.deps, { quantity: 300, trays: [{ quantity: 100, at: SEQ.dispatch }, { quantity: 100, at: SEQ.pack }, { quantity: 105, at: SEQ.polish }] });
+    const o = insertShippingOrder(t.deps, {
+      quantity: 300,
+      trays: [
+        { quantity: 100, at: SEQ.dispatch },
+        { quantity: 100, at: SEQ.pack },
+        { quantity: 105, at: SEQ.polish },
+      ],
+    });
     const res = await supervisor.get(`/api/orders/${o.orderId}/packing`);
     expect(res.status).toBe(200);
     expect(res.body.packedTrays.map((x: { number: string }) => x.number)).toEqual([o.trays[0].number]);
@@ -38,7 +45,13 @@ describe('packing', () => {
   });
 
   it('records cartons, and refuses more pieces in cartons than are finished', async () => {
-    const o = insertShippingOrder(t.deps, { quantity: 200, trays: [{ quantity: 120, at: SEQ.pack }, { quantity: 90, at: SEQ.inspect }] });
+    const o = insertShippingOrder(t.deps, {
+      quantity: 200,
+      trays: [
+        { quantity: 120, at: SEQ.pack },
+        { quantity: 90, at: SEQ.inspect },
+      ],
+    });
     const ok = await supervisor.post(`/api/orders/${o.orderId}/cartons`).send({ cartons: [carton(1, 100), carton(1, 20, 0.6)] });
     expect(ok.status).toBe(201);
     expect(ok.body.cartons).toHaveLength(2);
@@ -55,7 +68,13 @@ describe('packing', () => {
 
 describe('shipments', () => {
   it('records carrier, normalised tracking number and carton arithmetic; partial shipments allowed', async () => {
-    const o = insertShippingOrder(t.deps, { quantity: 400, trays: [{ quantity: 210, at: SEQ.dispatch }, { quantity: 210, at: SEQ.polish }] });
+    const o = insertShippingOrder(t.deps, {
+      quantity: 400,
+      trays: [
+        { quantity: 210, at: SEQ.dispatch },
+        { quantity: 210, at: SEQ.polish },
+      ],
+    });
     const packed = await supervisor.post(`/api/orders/${o.orderId}/cartons`).send({ cartons: [carton(1, 100, 3.1), carton(1, 100, 3.1)] });
     const packedIds = packed.body.cartons.map((c: { id: string }) => c.id);
     // a hand scanner sends a symbology prefix and a line end; people type lower case
@@ -69,13 +88,21 @@ describe('shipments', () => {
     const view = await supervisor.get(`/api/orders/${o.orderId}/packing`);
     expect(view.body.cartons.map((c: { id: string }) => c.id)).toEqual([packedIds[1]]);
     expect(view.body.quantities).toMatchObject({ shipped: 110, availableToShip: 100, inCartons: 100 });
-    const second = await sales.post(`/api/orders/${o.orderId}/shipments`).send({ carrier: 'Invented Parcel Co', trackingNumber: 'IPC77810043', cartons: [{ cartonId: packedIds[1] }] });
+    const second = await sales
+      .post(`/api/orders/${o.orderId}/shipments`)
+      .send({ carrier: 'Invented Parcel Co', trackingNumber: 'IPC77810043', cartons: [{ cartonId: packedIds[1] }] });
     expect(second.status).toBe(201);
     expect(second.body.number).toBe(2);
   });
 
   it('refuses shipping more than was made', async () => {
-    const o = insertShippingOrder(t.deps, { quantity: 200, trays: [{ quantity: 100, at: SEQ.dispatch }, { quantity: 100, at: SEQ.fill }] });
+    const o = insertShippingOrder(t.deps, {
+      quantity: 200,
+      trays: [
+        { quantity: 100, at: SEQ.dispatch },
+        { quantity: 100, at: SEQ.fill },
+      ],
+    });
     const res = await sales.post(`/api/orders/${o.orderId}/shipments`).send({ carrier: 'X Freight', trackingNumber: 'XF00001', cartons: [carton(1, 101)] });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatchObject({ code: 'more_than_made', pieces: 101, available: 100 });
@@ -101,7 +128,14 @@ describe('shipments', () => {
 
   it('flags an under-quantity order for a decision before it ships', async () => {
     // 300 ordered; 20 scrapped along the way leave 280 made (short by 20)
-    const o = insertShippingOrder(t.deps, { quantity: 300, trays: [{ quantity: 140, at: SEQ.dispatch }, { quantity: 140, at: SEQ.dispatch }, { quantity: 20, at: 'scrapped' }] });
+    const o = insertShippingOrder(t.deps, {
+      quantity: 300,
+      trays: [
+        { quantity: 140, at: SEQ.dispatch },
+        { quantity: 140, at: SEQ.dispatch },
+        { quantity: 20, at: 'scrapped' },
+      ],
+    });
     const view = await sales.get(`/api/orders/${o.orderId}/packing`);
     expect(view.body.quantities).toMatchObject({ verdict: 'under', shortBy: 20, needsDecision: true });
     const body = { carrier: 'X Freight', trackingNumber: 'XF-SHORT-1', cartons: [carton(2, 140)] };
@@ -146,11 +180,14 @@ describe('shipments', () => {
       .post(`/api/orders/${o.orderId}/shipments`)
       .send({ carrier: 'Invented Parcel Co', trackingNumber: 'IPC-PL-0425', cartons: [carton(4, 100, 2.35), carton(1, 25, 0.7)] });
     expect(ship.status).toBe(201);
-    const res = await sales.get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await sales
+      .get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;
@@ -168,14 +205,24 @@ describe('shipments', () => {
 
 describe('packing list in Chinese', () => {
   it('prints a Chinese customer, contact and title (read back by pdftotext) with an embedded CJK face', async () => {
-    const o = insertShippingOrder(t.deps, { customer: '星河徽章俱乐部', contactName: '李明', title: '深蓝星河徽章', trays: [{ quantity: 120, at: SEQ.dispatch }] });
-    const ship = await sales.post(`/api/orders/${o.orderId}/shipments`).send({ carrier: '顺达快运', trackingNumber: 'SD-0001-CN', cartons: [carton(1, 120, 1.2)] });
-    expect(ship.status).toBe(201);
-    const res = await sales.get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    const o = insertShippingOrder(t.deps, {
+      customer: '星河徽章俱乐部',
+      contactName: '李明',
+      title: '深蓝星河徽章',
+      trays: [{ quantity: 120, at: SEQ.dispatch }],
     });
+    const ship = await sales
+      .post(`/api/orders/${o.orderId}/shipments`)
+      .send({ carrier: '顺达快运', trackingNumber: 'SD-0001-CN', cartons: [carton(1, 120, 1.2)] });
+    expect(ship.status).toBe(201);
+    const res = await sales
+      .get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     const file = path.join(t.dataDir, 'packing-list-zh.pdf');
     fs.writeFileSync(file, res.body as Buffer);
@@ -187,7 +234,14 @@ describe('packing list in Chinese', () => {
 
 describe('when an order counts as shipped', () => {
   it('ships when the dispatch step of its last tray finishes; a written-off tray counts as done', async () => {
-    const o = insertShippingOrder(t.deps, { quantity: 200, trays: [{ quantity: 100, at: SEQ.dispatch }, { quantity: 95, at: SEQ.dispatch }, { quantity: 5, at: 'scrapped' }] });
+    const o = insertShippingOrder(t.deps, {
+      quantity: 200,
+      trays: [
+        { quantity: 100, at: SEQ.dispatch },
+        { quantity: 95, at: SEQ.dispatch },
+        { quantity: 5, at: 'scrapped' },
+      ],
+    });
     const t1 = Date.parse('2025-05-06T09:30:00.000Z');
     const t2 = Date.parse('2025-05-07T15:45:00.000Z');
     finishDispatch(t.deps, o.trays[0].id, t1);
@@ -205,7 +259,12 @@ describe('when an order counts as shipped', () => {
   });
 
   it('marks the order packed once every tray has finished packing', async () => {
-    const o = insertShippingOrder(t.deps, { trays: [{ quantity: 10, at: SEQ.dispatch }, { quantity: 10, at: SEQ.pack }] });
+    const o = insertShippingOrder(t.deps, {
+      trays: [
+        { quantity: 10, at: SEQ.dispatch },
+        { quantity: 10, at: SEQ.pack },
+      ],
+    });
     expect(syncOrderStatus(t.deps.db, o.orderId, Date.now())).toBeNull();
     moveTray(t.deps, o.trays[1].id, SEQ.dispatch);
     expect(syncOrderStatus(t.deps.db, o.orderId, Date.now())).toBe('packed');
@@ -214,7 +273,12 @@ describe('when an order counts as shipped', () => {
 
 describe('through the station tablets', () => {
   it('the dispatch finish scan of the last tray ships the order, at that scan’s time', async () => {
-    const o = insertShippingOrder(t.deps, { trays: [{ quantity: 30, at: SEQ.dispatch }, { quantity: 30, at: SEQ.dispatch }] });
+    const o = insertShippingOrder(t.deps, {
+      trays: [
+        { quantity: 30, at: SEQ.dispatch },
+        { quantity: 30, at: SEQ.dispatch },
+      ],
+    });
     const tablet = pairTablet(t, 'DSP-1');
     const person = insertBadgeUser(t, 'operator', `B-9${Math.floor(Math.random() * 900 + 100)}`, '4711');
     const agent = await tabletAgent(t, tablet.token, person);

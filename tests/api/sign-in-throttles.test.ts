@@ -16,7 +16,8 @@ beforeEach(() => {
 });
 afterEach(() => t.close());
 
-const tablet = (token: string, address = '10.1.0.1') => request(t.app).post('/api/auth/badge').set('Authorization', `Device ${token}`).set('X-Forwarded-For', address);
+const tablet = (token: string, address = '10.1.0.1') =>
+  request(t.app).post('/api/auth/badge').set('Authorization', `Device ${token}`).set('X-Forwarded-For', address);
 const badgeSignIn = (token: string, badge: string, pin: string, address?: string) => tablet(token, address).send({ badge, pin });
 
 function approve(token: string, body: { badge: string; pin: string; code: string; stationId: string }) {
@@ -123,9 +124,18 @@ describe('badge sign-in on a tablet', () => {
     // and five wrong passwords from another address leave badge sign-in from it alone
     const address2 = '10.2.0.8';
     for (let i = 0; i < 5; i++) {
-      expect((await request(t.app).post('/api/auth/login').set('X-Forwarded-For', address2).send({ email: `nobody${i}@test.trayce.local`, password: 'wrong-password' })).status).toBe(401);
+      expect(
+        (
+          await request(t.app)
+            .post('/api/auth/login')
+            .set('X-Forwarded-For', address2)
+            .send({ email: `nobody${i}@test.trayce.local`, password: 'wrong-password' })
+        ).status,
+      ).toBe(401);
     }
-    expect((await request(t.app).post('/api/auth/login').set('X-Forwarded-For', address2).send({ email: office.user.email, password: office.user.password })).status).toBe(429);
+    expect(
+      (await request(t.app).post('/api/auth/login').set('X-Forwarded-For', address2).send({ email: office.user.email, password: office.user.password })).status,
+    ).toBe(429);
     expect((await badgeSignIn(fresh.token, op.badge, op.pin, address2)).status).toBe(200);
   });
 });

@@ -16,19 +16,46 @@ let b: ShippingOrderFixture;
 // The public answer: exactly these fields (api.md, "Sales and customers").
 // `process` is ours: it picks the plain-words story of how her pins are made; `contact` too: the
 // factory's order mail address, where she writes about the order.
-const DOCUMENTED = ['factory', 'number', 'title', 'customer', 'quantity', 'process', 'stage', 'stages', 'story', 'projectedShipAt', 'updatedAt', 'contact', 'shippedAt', 'carrier', 'trackingNumber', 'trackingUrl'];
+const DOCUMENTED = [
+  'factory',
+  'number',
+  'title',
+  'customer',
+  'quantity',
+  'process',
+  'stage',
+  'stages',
+  'story',
+  'projectedShipAt',
+  'updatedAt',
+  'contact',
+  'shippedAt',
+  'carrier',
+  'trackingNumber',
+  'trackingUrl',
+];
 
 beforeAll(async () => {
   t = makeTestApp();
   sales = await t.agentAs('sales');
-  a = insertShippingOrder(t.deps, { customer: 'Invented Kite Club', title: 'Kite festival pin', trays: [{ quantity: 100, at: SEQ.fill }, { quantity: 100, at: SEQ.polish }] });
+  a = insertShippingOrder(t.deps, {
+    customer: 'Invented Kite Club',
+    title: 'Kite festival pin',
+    trays: [
+      { quantity: 100, at: SEQ.fill },
+      { quantity: 100, at: SEQ.polish },
+    ],
+  });
   b = insertShippingOrder(t.deps, { customer: 'Invented Choir Guild', title: 'Choir anniversary coin', trays: [{ quantity: 50, at: SEQ.inspect }] });
 });
 afterAll(() => t.close());
 
 /** Every request from its own address, so the rate limit only bites where a test wants it. */
 let ip = 1;
-const pub = (path: string) => request(t.app).get(path).set('X-Forwarded-For', `10.0.${Math.floor(ip / 250)}.${(ip++ % 250) + 1}`);
+const pub = (path: string) =>
+  request(t.app)
+    .get(path)
+    .set('X-Forwarded-For', `10.0.${Math.floor(ip / 250)}.${(ip++ % 250) + 1}`);
 
 describe('customer status link', () => {
   it('gives a token of at least 128 bits, stored only as its hash', async () => {
@@ -51,7 +78,20 @@ describe('customer status link', () => {
     expect(ra.status).toBe(200);
     expect(rb.status).toBe(200);
     for (const key of Object.keys(ra.body)) expect(DOCUMENTED).toContain(key);
-    expect(Object.keys(ra.body).sort()).toEqual(['contact', 'customer', 'factory', 'number', 'process', 'projectedShipAt', 'quantity', 'stage', 'stages', 'story', 'title', 'updatedAt']);
+    expect(Object.keys(ra.body).sort()).toEqual([
+      'contact',
+      'customer',
+      'factory',
+      'number',
+      'process',
+      'projectedShipAt',
+      'quantity',
+      'stage',
+      'stages',
+      'story',
+      'title',
+      'updatedAt',
+    ]);
     // the page's header facts: the factory, the order's number and quantity, when it last changed, whom to write to
     expect(ra.body).toMatchObject({ factory: expect.any(String), number: a.number, quantity: expect.any(Number), contact: expect.stringMatching(/^orders@/) });
     expect(Number.isFinite(Date.parse(ra.body.updatedAt))).toBe(true);
@@ -114,13 +154,25 @@ describe('customer status link', () => {
     const res = await pub(`/api/public/status/${token}`);
     expect(res.status).toBe(200);
     expect(Object.keys(res.body).sort()).toEqual(DOCUMENTED.filter((k) => k !== 'trackingUrl').sort());
-    expect(res.body).toMatchObject({ stage: 'Shipped', shippedAt: '2025-03-05T14:02:00.000Z', carrier: 'Invented Parcel Co', trackingNumber: 'IPC-2288-0041', projectedShipAt: null });
+    expect(res.body).toMatchObject({
+      stage: 'Shipped',
+      shippedAt: '2025-03-05T14:02:00.000Z',
+      carrier: 'Invented Parcel Co',
+      trackingNumber: 'IPC-2288-0041',
+      projectedShipAt: null,
+    });
     expect(res.body.stages.every((s: { done: boolean }) => s.done)).toBe(true);
   });
 
   it('links the tracking number to the carrier’s own tracking page when the carrier is known', async () => {
     const d = insertShippingOrder(t.deps, { trays: [{ quantity: 30, at: SEQ.dispatch }], contactEmail: null });
-    expect((await sales.post(`/api/orders/${d.orderId}/shipments`).send({ carrier: 'DHL Express', trackingNumber: '1234567890', cartons: [{ count: 1, piecesPerCarton: 30, weightKg: 1 }] })).status).toBe(201);
+    expect(
+      (
+        await sales
+          .post(`/api/orders/${d.orderId}/shipments`)
+          .send({ carrier: 'DHL Express', trackingNumber: '1234567890', cartons: [{ count: 1, piecesPerCarton: 30, weightKg: 1 }] })
+      ).status,
+    ).toBe(201);
     finishDispatch(t.deps, d.trays[0].id, Date.parse('2025-03-06T09:00:00.000Z'));
     const token = (await sales.post(`/api/orders/${d.orderId}/share`).send({})).body.token as string;
     const res = await pub(`/api/public/status/${token}`);
@@ -139,7 +191,10 @@ describe('customer status link', () => {
 
   it('is rate-limited per address', async () => {
     const token = (await sales.post(`/api/orders/${a.orderId}/share`).send({})).body.token as string;
-    const from = (n: number) => request(t.app).get(`/api/public/status/${n % 2 ? token : 'x'.repeat(43)}`).set('X-Forwarded-For', '10.9.9.9');
+    const from = (n: number) =>
+      request(t.app)
+        .get(`/api/public/status/${n % 2 ? token : 'x'.repeat(43)}`)
+        .set('X-Forwarded-For', '10.9.9.9');
     for (let i = 0; i < PUBLIC_STATUS_PER_MINUTE; i++) expect((await from(i)).status).not.toBe(429);
     const res = await from(1);
     expect(res.status).toBe(429);

@@ -27,7 +27,10 @@ describe('GET /api/stream scan notices', () => {
         headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ email: manager.user.email, password: manager.user.password }),
       });
-      const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+      const cookie = login.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .join('; ');
       const ids = new Map<string, number>();
       let text = '';
       let sent = false;

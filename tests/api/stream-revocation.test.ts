@@ -23,7 +23,10 @@ describe('GET /api/stream after access ends', () => {
         body: JSON.stringify({ email: manager.user.email, password: manager.user.password }),
       });
       expect(login.status).toBe(200);
-      const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+      const cookie = login.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .join('; ');
       let text = '';
       let switched = false;
       const ended = new Promise<void>((resolve, reject) => {
@@ -35,7 +38,10 @@ describe('GET /api/stream after access ends', () => {
             // once the stream is live, the admin switches the person off
             if (text.includes('event:') && !switched) {
               switched = true;
-              void admin.patch(`/api/users/${manager.user.id}`).send({ active: false }).then((r) => expect(r.status).toBe(200), reject);
+              void admin
+                .patch(`/api/users/${manager.user.id}`)
+                .send({ active: false })
+                .then((r) => expect(r.status).toBe(200), reject);
             }
           });
           res.on('end', resolve);

@@ -27,7 +27,9 @@ beforeAll(async () => {
   const o = insertFloorOrder(t.deps, { trays: 1, quantity: 50, releasedAt: Date.now() });
   code = o.trays[0].code;
   orderId = o.orderId;
-  jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#778899' } }).jpeg().toBuffer();
+  jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#778899' } })
+    .jpeg()
+    .toBuffer();
 });
 afterAll(() => t.close());
 
@@ -53,7 +55,10 @@ describe('broken multipart bodies answer 400', () => {
   });
 
   it('a body cut off in the middle of the file', async () => {
-    const body = Buffer.concat([Buffer.from(`--${B}\r\nContent-Disposition: form-data; name="file"; filename="proof.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`), jpeg.subarray(0, 100)]);
+    const body = Buffer.concat([
+      Buffer.from(`--${B}\r\nContent-Disposition: form-data; name="file"; filename="proof.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`),
+      jpeg.subarray(0, 100),
+    ]);
     const res = await planner.post(`/api/orders/${orderId}/proofs`).set('Content-Type', `multipart/form-data; boundary=${B}`).send(body);
     shape(res, 400);
     expect(res.body.error.code).toBe('bad_upload');
@@ -71,26 +76,46 @@ describe('QC photos are checked like proofs', () => {
 
   it('reads the type from the content, not from what the client declares', async () => {
     const before = photos();
-    const html = await operator.post('/api/scans/photos').field('code', code).attach('file', Buffer.from('<html><script>alert(1)</script></html>'), { filename: 'qc.jpg', contentType: 'image/jpeg' });
+    const html = await operator
+      .post('/api/scans/photos')
+      .field('code', code)
+      .attach('file', Buffer.from('<html><script>alert(1)</script></html>'), { filename: 'qc.jpg', contentType: 'image/jpeg' });
     shape(html, 400);
     expect(html.body.error.code).toBe('bad_file_type');
-    const cut = await operator.post('/api/scans/photos').field('code', code).attach('file', jpeg.subarray(0, 200), { filename: 'qc.jpg', contentType: 'image/jpeg' });
+    const cut = await operator
+      .post('/api/scans/photos')
+      .field('code', code)
+      .attach('file', jpeg.subarray(0, 200), { filename: 'qc.jpg', contentType: 'image/jpeg' });
     shape(cut, 400);
     expect(cut.body.error.code).toBe('bad_file_content');
     expect(photos()).toBe(before);
     // a real PNG declared as JPEG is kept as what it is
-    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#fff' } }).png().toBuffer();
+    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#fff' } })
+      .png()
+      .toBuffer();
     const ok = await operator.post('/api/scans/photos').field('code', code).attach('file', png, { filename: 'qc.jpg', contentType: 'image/jpeg' });
     expect(ok.status, ok.text).toBe(201);
-    expect(t.deps.db.select().from(attachments).all().find((a) => a.id === ok.body.id)!.mime).toBe('image/png');
+    expect(
+      t.deps.db
+        .select()
+        .from(attachments)
+        .all()
+        .find((a) => a.id === ok.body.id)!.mime,
+    ).toBe('image/png');
   });
 
   it('refuses an operatorId that is not an active user', async () => {
     const before = photos();
-    const res = await operator.post('/api/scans/photos').field('code', code).field('operatorId', 'no-such-user').attach('file', jpeg, { filename: 'qc.jpg', contentType: 'image/jpeg' });
+    const res = await operator
+      .post('/api/scans/photos')
+      .field('code', code)
+      .field('operatorId', 'no-such-user')
+      .attach('file', jpeg, { filename: 'qc.jpg', contentType: 'image/jpeg' });
     // a signed-in operator is recorded as themselves; the check matters when nobody is signed in
     expect([201, 400]).toContain(res.status);
-    await expect(scanPhotosService.addPhoto(t.deps, { code, file: { buffer: jpeg, size: jpeg.length, originalname: 'qc.jpg' }, operatorId: 'no-such-user' }, null)).rejects.toMatchObject({
+    await expect(
+      scanPhotosService.addPhoto(t.deps, { code, file: { buffer: jpeg, size: jpeg.length, originalname: 'qc.jpg' }, operatorId: 'no-such-user' }, null),
+    ).rejects.toMatchObject({
       status: 400,
       code: 'unknown_operator',
     });
@@ -108,9 +133,14 @@ describe('a full disk', () => {
         throw Object.assign(new Error(errno), { code: errCode });
       });
       // a picture not stored yet, so the store has to write it
-      const fresh = await sharp({ create: { width: 20, height: 20, channels: 3, background: errCode === 'ENOSPC' ? '#102030' : '#302010' } }).jpeg().toBuffer();
+      const fresh = await sharp({ create: { width: 20, height: 20, channels: 3, background: errCode === 'ENOSPC' ? '#102030' : '#302010' } })
+        .jpeg()
+        .toBuffer();
       const before = photos();
-      const res = await operator.post('/api/scans/photos').field('code', code).attach('file', fresh, { filename: `full-${errCode}.jpg`, contentType: 'image/jpeg' });
+      const res = await operator
+        .post('/api/scans/photos')
+        .field('code', code)
+        .attach('file', fresh, { filename: `full-${errCode}.jpg`, contentType: 'image/jpeg' });
       spy.mockRestore();
       shape(res, 507);
       expect(res.body.error.code).toBe('disk_full');
@@ -122,7 +152,16 @@ describe('a full disk', () => {
 
 describe('file modes', () => {
   it('keeps the database, keys, stored files and backups private to the server user (0600 files, 0700 folders)', async () => {
-    const up = await operator.post('/api/scans/photos').field('code', code).attach('file', await sharp({ create: { width: 9, height: 9, channels: 3, background: '#123456' } }).jpeg().toBuffer(), { filename: 'qc.jpg', contentType: 'image/jpeg' });
+    const up = await operator
+      .post('/api/scans/photos')
+      .field('code', code)
+      .attach(
+        'file',
+        await sharp({ create: { width: 9, height: 9, channels: 3, background: '#123456' } })
+          .jpeg()
+          .toBuffer(),
+        { filename: 'qc.jpg', contentType: 'image/jpeg' },
+      );
     expect(up.status).toBe(201);
     const file = path.join(t.dataDir, 'files', up.body.hash.slice(0, 2), up.body.hash);
     expect(fs.statSync(file).mode & 0o777).toBe(0o600);
@@ -137,7 +176,16 @@ describe('file modes', () => {
 
   it('a first start makes the data folder 0700 and the database and keys 0600', async () => {
     const dataDir = path.join(path.dirname(t.dataDir), `boot-${Date.now()}-${process.pid}`);
-    const deps = await boot(loadEnv({ TRAYCE_DATA_DIR: dataDir, TRAYCE_SEED: 'none', TRAYCE_ADMIN_EMAIL: 'first.admin@example.test', TRAYCE_ADMIN_PASSWORD: 'a-long-first-password', NODE_ENV: 'test', LOG_LEVEL: 'silent' }));
+    const deps = await boot(
+      loadEnv({
+        TRAYCE_DATA_DIR: dataDir,
+        TRAYCE_SEED: 'none',
+        TRAYCE_ADMIN_EMAIL: 'first.admin@example.test',
+        TRAYCE_ADMIN_PASSWORD: 'a-long-first-password',
+        NODE_ENV: 'test',
+        LOG_LEVEL: 'silent',
+      }),
+    );
     try {
       expect(fs.statSync(dataDir).mode & 0o777).toBe(0o700);
       expect(fs.statSync(path.join(dataDir, 'trayce.db')).mode & 0o777).toBe(0o600);

@@ -46,7 +46,19 @@ function routesOf(role: Exclude<Role, 'operator'>, ids: DemoIds): string[] {
   const dispatch = [paths.dispatch, ...(ids.dispatchOrderId ? [paths.dispatchOrder(ids.dispatchOrderId)] : [])];
   switch (role) {
     case 'planner':
-      return [...floor, ...orders, paths.newOrder, paths.importOrders, paths.loads, paths.reports, ...reports, ...sales, paths.salesWhatIf, ...quotes, ...dispatch];
+      return [
+        ...floor,
+        ...orders,
+        paths.newOrder,
+        paths.importOrders,
+        paths.loads,
+        paths.reports,
+        ...reports,
+        ...sales,
+        paths.salesWhatIf,
+        ...quotes,
+        ...dispatch,
+      ];
     case 'supervisor':
       return [...floor, ...orders, paths.loads, ...dispatch];
     case 'manager':
@@ -54,7 +66,25 @@ function routesOf(role: Exclude<Role, 'operator'>, ids: DemoIds): string[] {
     case 'sales':
       return ['/reports/lead-time', '/reports/on-time', ...sales, paths.salesWhatIf, ...quotes, ...dispatch];
     case 'admin':
-      return [paths.adminUsers, paths.adminStations, paths.adminDevices, paths.adminReasonCodes, paths.adminBackups, paths.adminOutbox, paths.adminCalendar, paths.adminRoutingTemplates, paths.adminCosting, ...floor, ...orders, paths.reports, ...reports, '/reports/costing', ...sales, ...quotes, ...dispatch];
+      return [
+        paths.adminUsers,
+        paths.adminStations,
+        paths.adminDevices,
+        paths.adminReasonCodes,
+        paths.adminBackups,
+        paths.adminOutbox,
+        paths.adminCalendar,
+        paths.adminRoutingTemplates,
+        paths.adminCosting,
+        ...floor,
+        ...orders,
+        paths.reports,
+        ...reports,
+        '/reports/costing',
+        ...sales,
+        ...quotes,
+        ...dispatch,
+      ];
   }
 }
 
@@ -121,7 +151,13 @@ async function demoIds(): Promise<DemoIds> {
     const onFloor = orders.find((o) => o.status === 'in_production') ?? orders[0];
     const detail = await get<{ trays: { id: string }[] }>(`/orders/${onFloor.id}`);
     const dispatch = await get<{ id: string }[]>('/dispatch/orders');
-    return { orderId: onFloor.id, trayId: detail.trays[0].id, salesOrderId: onFloor.id, dispatchOrderId: dispatch[0]?.id ?? null, quoteId: (await makeQuote()).id };
+    return {
+      orderId: onFloor.id,
+      trayId: detail.trays[0].id,
+      salesOrderId: onFloor.id,
+      dispatchOrderId: dispatch[0]?.id ?? null,
+      quoteId: (await makeQuote()).id,
+    };
   } finally {
     await context.close();
   }
@@ -129,9 +165,13 @@ async function demoIds(): Promise<DemoIds> {
 
 /** Waits until the page has drawn its content: a top heading, and no loading placeholder left. */
 async function settled(page: Page, label: string) {
-  await page.getByRole('heading').first().waitFor({ timeout: 30_000 }).catch((e: Error) => {
-    throw new Error(`${label}: no heading drawn (${e.message.split('\n')[0]})`);
-  });
+  await page
+    .getByRole('heading')
+    .first()
+    .waitFor({ timeout: 30_000 })
+    .catch((e: Error) => {
+      throw new Error(`${label}: no heading drawn (${e.message.split('\n')[0]})`);
+    });
   await page.waitForFunction(() => !document.querySelector('[aria-busy="true"], [data-testid="loading"]'), undefined, { polling: 100 });
 }
 
@@ -151,26 +191,30 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
   // one test per language and role, so a slow machine gets the whole time budget for each
   const officeRoles = ['planner', 'supervisor', 'manager', 'sales', 'admin'] as const;
   let ids: Promise<DemoIds> | undefined;
-  it.each(OFFICE_LOCALES.flatMap((locale) => officeRoles.map((role) => [locale, role] as const)))('every route of the %s office for %s', async (locale, role) => {
-    ids ??= demoIds();
-    const context = await browser.newContext({ bypassCSP: true, viewport: DESKTOP, locale });
-    await apiAs(context, `${role}@tallowmere.test`);
-    // the person's own language decides the screens; the demo people read English, so put it back after
-    await setLocale(context, locale);
-    try {
-      const page = await context.newPage();
-      for (const route of routesOf(role, await ids)) {
-        await page.goto(`${base()}${route}`);
-        await settled(page, `${route} as ${role}`);
-        if (route === paths.floor) await page.locator('section[data-kind]').first().waitFor();
-        expect(new URL(page.url()).pathname, `${role} stays on ${route}`).toBe(route);
-        await expectNoAxeViolations(page, `${route} as ${role} (${locale})`);
+  it.each(OFFICE_LOCALES.flatMap((locale) => officeRoles.map((role) => [locale, role] as const)))(
+    'every route of the %s office for %s',
+    async (locale, role) => {
+      ids ??= demoIds();
+      const context = await browser.newContext({ bypassCSP: true, viewport: DESKTOP, locale });
+      await apiAs(context, `${role}@tallowmere.test`);
+      // the person's own language decides the screens; the demo people read English, so put it back after
+      await setLocale(context, locale);
+      try {
+        const page = await context.newPage();
+        for (const route of routesOf(role, await ids)) {
+          await page.goto(`${base()}${route}`);
+          await settled(page, `${route} as ${role}`);
+          if (route === paths.floor) await page.locator('section[data-kind]').first().waitFor();
+          expect(new URL(page.url()).pathname, `${role} stays on ${route}`).toBe(route);
+          await expectNoAxeViolations(page, `${route} as ${role} (${locale})`);
+        }
+      } finally {
+        await setLocale(context, 'en');
+        await context.close();
       }
-    } finally {
-      await setLocale(context, 'en');
-      await context.close();
-    }
-  }, 600_000);
+    },
+    600_000,
+  );
 
   it('the wall in its dark and light themes, with screenshots at 1920 x 1080 and a quarter of that', async () => {
     const context = await browser.newContext({ bypassCSP: true, viewport: WALL });
@@ -231,14 +275,40 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
 
   for (const locale of TABLET_LOCALES) {
     it(`the station tablet in ${locale}: paired, signed in, a tray open, a refusal, offline`, async () => {
-      const t = locale === 'en'
-        ? { pairCode: 'Pairing code', pairSubmit: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in', finish: 'Finish', notStarted: /not started/i, operator: { badge: 'B-201', pin: '1357' } }
-        : { pairCode: '配对码', pairSubmit: '配对', paired: '已配对为', badge: '工牌', confirm: '确认', pin: '密码', signIn: '登录', finish: '完成', notStarted: /尚未开始/, operator: { badge: 'B-202', pin: '2580' } };
+      const t =
+        locale === 'en'
+          ? {
+              pairCode: 'Pairing code',
+              pairSubmit: 'Pair tablet',
+              paired: 'Paired as',
+              badge: 'Badge',
+              confirm: 'Confirm',
+              pin: 'PIN',
+              signIn: 'Sign in',
+              finish: 'Finish',
+              notStarted: /not started/i,
+              operator: { badge: 'B-201', pin: '1357' },
+            }
+          : {
+              pairCode: '配对码',
+              pairSubmit: '配对',
+              paired: '已配对为',
+              badge: '工牌',
+              confirm: '确认',
+              pin: '密码',
+              signIn: '登录',
+              finish: '完成',
+              notStarted: /尚未开始/,
+              operator: { badge: 'B-202', pin: '2580' },
+            };
       const admin = await browser.newContext({ bypassCSP: true });
       await apiAs(admin, 'admin@tallowmere.test');
       const stations = (await (await admin.request.get(`${base()}/api/stations`)).json()) as { id: string; code: string }[];
       const station = stations.find((s) => s.code === 'PST-1') ?? stations[0];
-      const created = await admin.request.post(`${base()}/api/devices`, { headers: { origin: base() }, data: { name: `A11y tablet ${crypto.randomUUID().slice(0, 6)}`, stationId: station.id, locale, idleMinutes: 30 } });
+      const created = await admin.request.post(`${base()}/api/devices`, {
+        headers: { origin: base() },
+        data: { name: `A11y tablet ${crypto.randomUUID().slice(0, 6)}`, stationId: station.id, locale, idleMinutes: 30 },
+      });
       expect(created.status()).toBe(201);
       const { pairingCode } = (await created.json()) as { pairingCode: string };
       await admin.close();

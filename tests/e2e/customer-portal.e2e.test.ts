@@ -44,7 +44,10 @@ describe('customer order page on a phone', () => {
         material: 'iron',
         sizeMm: 28,
         quantity: 300,
-        colours: [{ name: 'Ember', hex: '#c8502a' }, { name: 'Night', hex: '#1b2a4a' }],
+        colours: [
+          { name: 'Ember', hex: '#c8502a' },
+          { name: 'Night', hex: '#1b2a4a' },
+        ],
         plating: 'gold',
         backing: { type: 'butterfly_clutch', count: 1 },
         packaging: 'individual_bag',
@@ -56,7 +59,9 @@ describe('customer order page on a phone', () => {
     });
     expect(created.status(), await created.text()).toBe(201);
     const order = (await created.json()) as { id: string; number: string };
-    const up = await office.request.post(`${base()}/api/orders/${order.id}/proofs`, { multipart: { file: { name: 'heron-proof.png', mimeType: 'image/png', buffer: proofPng() } } });
+    const up = await office.request.post(`${base()}/api/orders/${order.id}/proofs`, {
+      multipart: { file: { name: 'heron-proof.png', mimeType: 'image/png', buffer: proofPng() } },
+    });
     expect(up.status()).toBe(201);
     const link = await office.request.post(`${base()}/api/orders/${order.id}/share`, { data: {} });
     const { url } = (await link.json()) as { url: string };
@@ -83,7 +88,10 @@ describe('customer order page on a phone', () => {
     await page.waitForURL(/\/status\/[A-Za-z0-9_-]+\?paid=1$/);
     await page.getByTestId('paid').waitFor();
     await expect(page.getByTestId('paid').textContent()).resolves.toContain('€860.00');
-    const detail = (await (await office.request.get(`${base()}/api/orders/${order.id}`)).json()) as { payments: { source: string; amount: number }[]; openGates: string[] };
+    const detail = (await (await office.request.get(`${base()}/api/orders/${order.id}`)).json()) as {
+      payments: { source: string; amount: number }[];
+      openGates: string[];
+    };
     expect(detail.payments).toEqual([expect.objectContaining({ source: 'checkout', amount: 860 })]);
     expect(detail.openGates).toEqual(['proof_not_approved']);
 

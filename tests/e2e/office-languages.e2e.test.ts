@@ -78,7 +78,7 @@ async function settled(page: Page) {
   await page.waitForFunction(() => !document.querySelector('[aria-busy="true"], [role="progressbar"]'), undefined, { polling: 100 });
 }
 
-describe('office screens in each person\'s language', () => {
+describe("office screens in each person's language", () => {
   it('the sign-in page follows its language switch and remembers it', async () => {
     const context = await browser.newContext({ viewport: DESKTOP, locale: 'en-GB' });
     const page = await context.newPage();

@@ -24,7 +24,13 @@ afterAll(async () => {
 
 // `percentiles`: the report shows percentiles, so it names their method (only those do)
 const REPORTS = [
-  { tab: 'Lead time', path: 'lead-time', table: 'Lead time summary', header: 'order,customer,title,process,released_at,shipped_at,calendar_hours,working_hours,due_date,on_time', percentiles: true },
+  {
+    tab: 'Lead time',
+    path: 'lead-time',
+    table: 'Lead time summary',
+    header: 'order,customer,title,process,released_at,shipped_at,calendar_hours,working_hours,due_date,on_time',
+    percentiles: true,
+  },
   { tab: 'Cycle time', path: 'cycle-time', table: 'Cycle time table', header: 'station_kind,process_n,process_p50_min', percentiles: true },
   { tab: 'Flow & throughput', path: 'flow', table: 'Cumulative flow table', header: 'bucket_start,cumulative_released,cumulative_started', percentiles: false },
   { tab: 'On-time delivery', path: 'on-time', table: 'On-time table', header: 'bucket_start,shipped,on_time,on_time_share', percentiles: false },
@@ -32,7 +38,7 @@ const REPORTS = [
 ] as const;
 
 describe('reports', () => {
-  it('the manager\'s home is one summary page: WIP, on-time, yield and scrap, late orders, throughput, each linking to its report', async () => {
+  it("the manager's home is one summary page: WIP, on-time, yield and scrap, late orders, throughput, each linking to its report", async () => {
     await page.goto(`${base()}/`);
     await page.waitForURL((u) => u.pathname === '/reports');
     for (const id of ['summary-wip', 'summary-on-time', 'summary-late', 'summary-yield', 'summary-throughput']) {

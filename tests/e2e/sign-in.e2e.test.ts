@@ -22,7 +22,12 @@ describe('each demo role signs in and lands on its home', () => {
       await page.waitForURL((url) => url.pathname.startsWith(roleHome[role]));
       await page.waitForLoadState('networkidle');
       expect(new URL(page.url()).pathname.startsWith(roleHome[role])).toBe(true);
-      await expect(page.getByRole('alert').filter({ hasText: /went wrong|could not be shown/i }).count()).resolves.toBe(0);
+      await expect(
+        page
+          .getByRole('alert')
+          .filter({ hasText: /went wrong|could not be shown/i })
+          .count(),
+      ).resolves.toBe(0);
       await screenshot(page, `home-${role}`);
       await context.close();
     });
@@ -30,7 +35,11 @@ describe('each demo role signs in and lands on its home', () => {
 
   it('the demo leaves no account that opens with the documented default admin password', async () => {
     // README: admin@trayce.local / trayce-admin is the first admin of a non-demo start
-    const res = await fetch(`${base()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'admin@trayce.local', password: 'trayce-admin' }) });
+    const res = await fetch(`${base()}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: 'admin@trayce.local', password: 'trayce-admin' }),
+    });
     expect(res.status).toBe(401);
   });
 

@@ -32,9 +32,21 @@ beforeAll(async () => {
   browser = await launchBrowser();
   server = await startServer({ seed: 'none', dataDir: path.join(PROJECT_ROOT, '.tmp', 'station-e2e', crypto.randomUUID()) });
   s = serverDb(server.dataDir);
-  usersService.create(s.deps, { name: 'Chen Xiuying', email: 'chen@e2e.test', role: 'operator', password: 'operator-password-1', badge: 'B-201', pin: '1357' }, null);
-  usersService.create(s.deps, { name: 'Huang Yimin', email: 'huang@e2e.test', role: 'operator', password: 'operator-password-2', badge: 'B-202', pin: '2580' }, null);
-  usersService.create(s.deps, { name: 'Dario Okonjo', email: 'dario@e2e.test', role: 'supervisor', password: 'supervisor-password-1', badge: 'S-100', pin: '2468' }, null);
+  usersService.create(
+    s.deps,
+    { name: 'Chen Xiuying', email: 'chen@e2e.test', role: 'operator', password: 'operator-password-1', badge: 'B-201', pin: '1357' },
+    null,
+  );
+  usersService.create(
+    s.deps,
+    { name: 'Huang Yimin', email: 'huang@e2e.test', role: 'operator', password: 'operator-password-2', badge: 'B-202', pin: '2580' },
+    null,
+  );
+  usersService.create(
+    s.deps,
+    { name: 'Dario Okonjo', email: 'dario@e2e.test', role: 'supervisor', password: 'supervisor-password-1', badge: 'S-100', pin: '2468' },
+    null,
+  );
 });
 afterAll(async () => {
   await browser?.close();
@@ -53,17 +65,34 @@ function serverDb(dataDir: string) {
     station: (code: string) => stationsRepository.byCode(db, code)!,
     pairingCode(stationCode: string, locale: 'en' | 'zh-CN' = 'en') {
       const s = stationsRepository.byCode(db, stationCode)!;
-      return devicesService.create(deps, { name: `E2E tablet ${stationCode} ${Date.now() % 100000}`, stationId: s.id, locale, idleMinutes: 30 }, null).pairingCode;
+      return devicesService.create(deps, { name: `E2E tablet ${stationCode} ${Date.now() % 100000}`, stationId: s.id, locale, idleMinutes: 30 }, null)
+        .pairingCode;
     },
     close: () => db.$client.close(),
   };
 }
 
 function eventsOf(db: Db, trays: FloorTray[]) {
-  return db.select().from(scanEvents).where(inArray(scanEvents.trayId, trays.map((t) => t.id))).all();
+  return db
+    .select()
+    .from(scanEvents)
+    .where(
+      inArray(
+        scanEvents.trayId,
+        trays.map((t) => t.id),
+      ),
+    )
+    .all();
 }
 
-async function pairAndSignIn(context: BrowserContext, baseUrl: string, code: string, badge: string, pin: string, labels = { pair: 'Pairing code', pairButton: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in' }): Promise<Page> {
+async function pairAndSignIn(
+  context: BrowserContext,
+  baseUrl: string,
+  code: string,
+  badge: string,
+  pin: string,
+  labels = { pair: 'Pairing code', pairButton: 'Pair tablet', paired: 'Paired as', badge: 'Badge', confirm: 'Confirm', pin: 'PIN', signIn: 'Sign in' },
+): Promise<Page> {
   const page = await context.newPage();
   await page.goto(`${baseUrl}/pair`);
   await page.getByLabel(labels.pair).fill(code);
@@ -145,8 +174,23 @@ describe('station tablet', () => {
     const rows = eventsOf(s.db, trays);
     expect(rows).toHaveLength(100);
     expect(new Set(rows.map((r) => r.id)).size).toBe(100);
-    for (const tray of trays) expect(rows.filter((r) => r.trayId === tray.id).map((r) => r.type).sort()).toEqual(['finish', 'start']);
-    const states = s.db.select().from(trayStates).where(inArray(trayStates.trayId, trays.map((t) => t.id))).all();
+    for (const tray of trays)
+      expect(
+        rows
+          .filter((r) => r.trayId === tray.id)
+          .map((r) => r.type)
+          .sort(),
+      ).toEqual(['finish', 'start']);
+    const states = s.db
+      .select()
+      .from(trayStates)
+      .where(
+        inArray(
+          trayStates.trayId,
+          trays.map((t) => t.id),
+        ),
+      )
+      .all();
     expect(states.every((st) => st.phase === 'waiting' && st.stepSeq === 4 && st.quantity === 40)).toBe(true);
     await screenshot(page, 'station-back-online');
     await context.close();
@@ -182,7 +226,9 @@ describe('station tablet', () => {
   });
 
   it('a wrong-station scan goes through with a supervisor’s badge, PIN and reason, and is recorded', async () => {
-    const { trays: [tray] } = insertFloorOrder(s.deps, { trays: 1, quantity: 30, releasedAt: Date.now() - 24 * 3600_000, stepSeq: 3 });
+    const {
+      trays: [tray],
+    } = insertFloorOrder(s.deps, { trays: 1, quantity: 30, releasedAt: Date.now() - 24 * 3600_000, stepSeq: 3 });
     const context = await browser.newContext({ viewport: TABLET });
     const page = await pairAndSignIn(context, server.url, s.pairingCode('TRM-1'), 'B-201', '1357');
     await wedgeScan(page, tray.code);
@@ -199,7 +245,10 @@ describe('station tablet', () => {
     await page.getByTestId('net-status').and(page.locator('[data-pending="0"]')).waitFor();
     const [row] = eventsOf(s.db, [tray]);
     expect(row.overrideId).toBeTruthy();
-    const audit = s.db.$client.prepare("select user_id as userId, detail from audit_log where action = 'scan.override' and entity_id = ?").get(tray.id) as { userId: string; detail: string };
+    const audit = s.db.$client.prepare("select user_id as userId, detail from audit_log where action = 'scan.override' and entity_id = ?").get(tray.id) as {
+      userId: string;
+      detail: string;
+    };
     expect(JSON.parse(audit.detail)).toMatchObject({ overridden: ['wrong_station'], reason: 'Posts fitted on the trimming bench today' });
     await context.close();
   });
@@ -238,10 +287,16 @@ describe('station tablet', () => {
     // the station's own texts show in Chinese (seeded with the base stations)
     expect(await page.getByTestId('station-name').innerText()).toBe(queue.station.nameZh);
     await page.getByText(queue.station.safetyNotesZh).waitFor();
-    const data: string[] = [queue.station.nameZh, queue.station.instructionsZh, queue.station.safetyNotesZh, await page.getByTestId('operator-name').innerText()];
+    const data: string[] = [
+      queue.station.nameZh,
+      queue.station.instructionsZh,
+      queue.station.safetyNotesZh,
+      await page.getByTestId('operator-name').innerText(),
+    ];
     for (const c of queue.trays) {
       data.push(c.tray.number);
-      if (c.order) data.push(c.order.number, c.order.title, c.order.customer, ...c.order.colours.flatMap((x: { name: string; ref?: string }) => [x.name, x.ref ?? '']));
+      if (c.order)
+        data.push(c.order.number, c.order.title, c.order.customer, ...c.order.colours.flatMap((x: { name: string; ref?: string }) => [x.name, x.ref ?? '']));
     }
     let text = await page.locator('body').innerText();
     for (const d of data.filter(Boolean).sort((a, b) => b.length - a.length)) text = text.split(d).join(' ');
@@ -251,7 +306,8 @@ describe('station tablet', () => {
     const english: string[] = [];
     const walk = (o: object) => Object.values(o).forEach((v) => (typeof v === 'string' ? english.push(v) : walk(v)));
     walk(en);
-    for (const phrase of english.filter((e) => e.length > 4 && !e.includes('{{') && e !== 'English' && e !== '简体中文')) expect(text.includes(phrase), phrase).toBe(false);
+    for (const phrase of english.filter((e) => e.length > 4 && !e.includes('{{') && e !== 'English' && e !== '简体中文'))
+      expect(text.includes(phrase), phrase).toBe(false);
     await context.close();
   });
 
@@ -265,7 +321,9 @@ describe('station tablet', () => {
         const [held, first, second] = trays;
         s.db.update(trayStates).set({ onHold: true, holdReason: 'hold_customer' }).where(eq(trayStates.trayId, held.id)).run();
         // and one for trimming, scanned here by mistake
-        const { trays: [elsewhere] } = insertFloorOrder(s.deps, { trays: 1, quantity: 10, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
+        const {
+          trays: [elsewhere],
+        } = insertFloorOrder(s.deps, { trays: 1, quantity: 10, releasedAt: Date.now() - 3600_000, stepSeq: 2 });
 
         // the person starts in English (an earlier run may have chosen Chinese for them)
         setLocale(s.db, 'B-202', 'en');
@@ -300,7 +358,10 @@ describe('station tablet', () => {
 
         // header: the station name whole, the language and sign-out controls each on one line
         for (const label of [lang === 'en' ? w.app.chinese : w.app.english, w.top.signOut]) {
-          const box = (await page.getByRole('button', { name: new RegExp(label) }).first().boundingBox())!;
+          const box = (await page
+            .getByRole('button', { name: new RegExp(label) })
+            .first()
+            .boundingBox())!;
           expect(box.height, `${label} on one line`).toBeLessThan(60);
         }
         const nameBox = await page.getByTestId('station-name').evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth }));

@@ -58,7 +58,10 @@ describe('customer status link', () => {
     // Sales withdraws the link; the customer's page says so.
     page.once('dialog', (d) => void d.accept());
     await page.getByRole('button', { name: 'Withdraw all links' }).click();
-    await page.getByText(/^Withdrawn /).first().waitFor();
+    await page
+      .getByText(/^Withdrawn /)
+      .first()
+      .waitFor();
     await customer.reload();
     await customer.getByRole('heading', { name: 'This link does not work any more' }).waitFor();
     await screenshot(customer, 'status-link-withdrawn');

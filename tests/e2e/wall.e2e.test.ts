@@ -20,11 +20,22 @@ afterAll(async () => browser?.close());
 
 /** A signed-in API client (cookie jar of one). */
 async function client(url: string, email: string) {
-  const login = await fetch(`${url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: DEMO_PASSWORD }) });
+  const login = await fetch(`${url}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
   expect(login.status).toBe(200);
-  const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const cookie = login.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   const call = async <T>(method: string, path: string, body?: unknown): Promise<{ status: number; body: T }> => {
-    const res = await fetch(`${url}/api${path}`, { method, headers: { cookie, 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
+    const res = await fetch(`${url}/api${path}`, {
+      method,
+      headers: { cookie, 'content-type': 'application/json' },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
     const text = await res.text();
     return { status: res.status, body: (text ? JSON.parse(text) : undefined) as T };
   };
@@ -55,7 +66,13 @@ async function startableTray(url: string) {
     for (const st of stations.filter((s) => s.kind === kind.stationKind)) {
       const queue = (await sup<StationQueue>('GET', `/stations/${st.id}/queue`)).body;
       const card = queue.trays.find(
-        (c) => c.tray.kind === 'tray' && c.state.phase === 'waiting' && c.routing.find((r) => r.seq === c.state.stepSeq)?.stationKind === kind.stationKind && !c.state.onHold && c.mouldReady && (!c.state.cureReadyAt || Date.parse(c.state.cureReadyAt) < Date.now()),
+        (c) =>
+          c.tray.kind === 'tray' &&
+          c.state.phase === 'waiting' &&
+          c.routing.find((r) => r.seq === c.state.stepSeq)?.stationKind === kind.stationKind &&
+          !c.state.onHold &&
+          c.mouldReady &&
+          (!c.state.cureReadyAt || Date.parse(c.state.cureReadyAt) < Date.now()),
       );
       if (card) return { sup, kind: kind.stationKind, station: st, tray: card.tray };
     }

@@ -13,7 +13,13 @@ export default function setup() {
   fs.mkdirSync(TEST_ROOT, { recursive: true });
   const db = openDb(path.join(TEST_ROOT, 'template.db'));
   migrateDb(db);
-  const env = loadEnv({ TRAYCE_DATA_DIR: TEST_ROOT, TRAYCE_SEED: 'none', TRAYCE_ADMIN_EMAIL: TEST_ADMIN.email, TRAYCE_ADMIN_PASSWORD: TEST_ADMIN.password, NODE_ENV: 'test' });
+  const env = loadEnv({
+    TRAYCE_DATA_DIR: TEST_ROOT,
+    TRAYCE_SEED: 'none',
+    TRAYCE_ADMIN_EMAIL: TEST_ADMIN.email,
+    TRAYCE_ADMIN_PASSWORD: TEST_ADMIN.password,
+    NODE_ENV: 'test',
+  });
   seedBase({
     db,
     env,

@@ -26,11 +26,14 @@ interface AxeViolation {
 /* Runs axe on the page as it is now and returns its violations, one printable line per element. */
 export async function axeViolations(page: Page): Promise<{ count: number; lines: string[] }> {
   if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ path: AXE_SCRIPT });
-  const violations = await page.evaluate(async (tags) => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: unknown[] }> } }).axe;
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: tags }, resultTypes: ['violations'] });
-    return result.violations;
-  }, [...WCAG_TAGS]) as AxeViolation[];
+  const violations = (await page.evaluate(
+    async (tags) => {
+      const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: unknown[] }> } }).axe;
+      const result = await axe.run(document, { runOnly: { type: 'tag', values: tags }, resultTypes: ['violations'] });
+      return result.violations;
+    },
+    [...WCAG_TAGS],
+  )) as AxeViolation[];
   const lines: string[] = [];
   for (const v of violations) {
     for (const n of v.nodes) {
@@ -52,7 +55,11 @@ export async function namelessControls(page: Page): Promise<string[]> {
   for (const role of ['button', 'link'] as const) {
     for (const el of await page.getByRole(role).all()) {
       if (!(await el.isVisible())) continue;
-      const name = await el.evaluate((e) => (e.getAttribute('aria-label') ?? e.getAttribute('title') ?? (e as HTMLElement).innerText ?? '').trim() || (e.getAttribute('aria-labelledby') ? document.getElementById(e.getAttribute('aria-labelledby')!)?.textContent?.trim() ?? '' : ''));
+      const name = await el.evaluate(
+        (e) =>
+          (e.getAttribute('aria-label') ?? e.getAttribute('title') ?? (e as HTMLElement).innerText ?? '').trim() ||
+          (e.getAttribute('aria-labelledby') ? (document.getElementById(e.getAttribute('aria-labelledby')!)?.textContent?.trim() ?? '') : ''),
+      );
       if (!name) out.push(`${role}: ${(await el.evaluate((e) => e.outerHTML)).slice(0, 160)}`);
     }
   }
@@ -66,7 +73,8 @@ export async function smallTargets(page: Page, min = 44): Promise<string[]> {
     if (!(await el.isVisible())) continue;
     const box = await el.boundingBox();
     if (!box) continue;
-    if (box.width < min - 0.5 || box.height < min - 0.5) out.push(`${Math.round(box.width)}x${Math.round(box.height)}: ${(await el.evaluate((e) => e.outerHTML)).replace(/\s+/g, ' ').slice(0, 140)}`);
+    if (box.width < min - 0.5 || box.height < min - 0.5)
+      out.push(`${Math.round(box.width)}x${Math.round(box.height)}: ${(await el.evaluate((e) => e.outerHTML)).replace(/\s+/g, ' ').slice(0, 140)}`);
   }
   return out;
 }
@@ -83,7 +91,11 @@ export async function focusOutlines(page: Page, presses: number): Promise<{ elem
         if (!e || e === document.body) return { element: 'body', outline: 'none', visible: true };
         const s = getComputedStyle(e);
         const width = parseFloat(s.outlineWidth);
-        return { element: e.outerHTML.slice(0, 100), outline: `${s.outlineStyle} ${s.outlineWidth} ${s.outlineColor}`, visible: e.matches(':focus-visible') && s.outlineStyle !== 'none' && width >= 2 };
+        return {
+          element: e.outerHTML.slice(0, 100),
+          outline: `${s.outlineStyle} ${s.outlineWidth} ${s.outlineColor}`,
+          visible: e.matches(':focus-visible') && s.outlineStyle !== 'none' && width >= 2,
+        };
       }),
     );
   }

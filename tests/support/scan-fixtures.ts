@@ -75,7 +75,9 @@ export function insertFloorOrder(
   const t = options.releasedAt;
   const out: FloorTray[] = [];
   db.transaction((tx) => {
-    tx.insert(customers).values({ id: customerId, name: `Invented Rowing Club ${number}`, createdAt: t, updatedAt: t }).run();
+    tx.insert(customers)
+      .values({ id: customerId, name: `Invented Rowing Club ${number}`, createdAt: t, updatedAt: t })
+      .run();
     tx.insert(orders)
       .values({
         id: orderId,
@@ -103,12 +105,25 @@ export function insertFloorOrder(
       .run();
     for (const s of routing) {
       tx.insert(orderSteps)
-        .values({ id: crypto.randomUUID(), orderId, travellerKind: 'tray', seq: s.seq, name: s.name, stationKind: s.stationKind, trayMinutes: s.trayMinutes, pieceMinutes: s.pieceMinutes, cureMinutes: s.cureMinutes ?? null, colour: s.colour ?? null })
+        .values({
+          id: crypto.randomUUID(),
+          orderId,
+          travellerKind: 'tray',
+          seq: s.seq,
+          name: s.name,
+          stationKind: s.stationKind,
+          trayMinutes: s.trayMinutes,
+          pieceMinutes: s.pieceMinutes,
+          cureMinutes: s.cureMinutes ?? null,
+          colour: s.colour ?? null,
+        })
         .run();
     }
     if (options.mould) {
       const mouldId = crypto.randomUUID();
-      tx.insert(moulds).values({ id: mouldId, number: `${number}-MF`, designKey: `design-${number}`, side: 'front', status: options.mould, createdAt: t, updatedAt: t }).run();
+      tx.insert(moulds)
+        .values({ id: mouldId, number: `${number}-MF`, designKey: `design-${number}`, side: 'front', status: options.mould, createdAt: t, updatedAt: t })
+        .run();
       tx.insert(orderMoulds).values({ orderId, mouldId }).run();
     }
     const seq = options.stepSeq ?? 1;
@@ -141,7 +156,18 @@ export function pairTablet(t: TestApp, stationCode: string): { deviceId: string;
 
 /** A person with a badge and PIN. */
 export function insertBadgeUser(t: TestApp, role: Role, badge: string, pin: string) {
-  const created = usersService.create(t.deps, { name: `Badge ${badge}`, email: `${badge.toLowerCase()}-${crypto.randomUUID().slice(0, 6)}@test.trayce.local`, role, password: `pw-${crypto.randomUUID()}`, badge, pin }, null);
+  const created = usersService.create(
+    t.deps,
+    {
+      name: `Badge ${badge}`,
+      email: `${badge.toLowerCase()}-${crypto.randomUUID().slice(0, 6)}@test.trayce.local`,
+      role,
+      password: `pw-${crypto.randomUUID()}`,
+      badge,
+      pin,
+    },
+    null,
+  );
   return { id: created.id, badge, pin };
 }
 

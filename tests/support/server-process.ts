@@ -42,7 +42,9 @@ async function waitForHealth(url: string, child: ChildProcess, log: () => string
 }
 
 /** Runs the real server (built client, real SQLite file) in a child process. */
-export async function startServer(options: { seed?: 'demo' | 'none'; dataDir?: string; port?: number; env?: Record<string, string> } = {}): Promise<ServerProcess> {
+export async function startServer(
+  options: { seed?: 'demo' | 'none'; dataDir?: string; port?: number; env?: Record<string, string> } = {},
+): Promise<ServerProcess> {
   const port = options.port ?? (await freePort());
   const dataDir = options.dataDir ?? path.join(PROJECT_ROOT, '.tmp', 'e2e', `server-${crypto.randomUUID()}`);
   fs.mkdirSync(dataDir, { recursive: true });
@@ -54,7 +56,15 @@ export async function startServer(options: { seed?: 'demo' | 'none'; dataDir?: s
     // the production bundle (npm run build), as `npm start` runs it
     child = spawn(process.execPath, ['--enable-source-maps', 'dist-server/index.mjs'], {
       cwd: PROJECT_ROOT,
-      env: { ...process.env, NODE_ENV: 'production', PORT: String(port), TRAYCE_DATA_DIR: dataDir, TRAYCE_SEED: options.seed ?? 'demo', LOG_LEVEL: 'warn', ...options.env },
+      env: {
+        ...process.env,
+        NODE_ENV: 'production',
+        PORT: String(port),
+        TRAYCE_DATA_DIR: dataDir,
+        TRAYCE_SEED: options.seed ?? 'demo',
+        LOG_LEVEL: 'warn',
+        ...options.env,
+      },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     child.stdout?.on('data', (d) => (output += d));

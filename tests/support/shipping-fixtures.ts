@@ -68,7 +68,14 @@ export function insertShippingOrder(
   const out: ShippingOrderFixture = { orderId, number, customerId, customer, title, trays: [] };
   deps.db.transaction((tx) => {
     tx.insert(customers)
-      .values({ id: customerId, name: customer, contactName: options.contactName ?? null, contactEmail: options.contactEmail ?? null, createdAt: t, updatedAt: t })
+      .values({
+        id: customerId,
+        name: customer,
+        contactName: options.contactName ?? null,
+        contactEmail: options.contactEmail ?? null,
+        createdAt: t,
+        updatedAt: t,
+      })
       .run();
     tx.insert(orders)
       .values({
@@ -97,7 +104,17 @@ export function insertShippingOrder(
       .run();
     PACKING_ROUTING.forEach((s, i) => {
       tx.insert(orderSteps)
-        .values({ id: crypto.randomUUID(), orderId, travellerKind: 'tray', seq: i + 1, name: s.name, stationKind: s.stationKind, trayMinutes: 5, pieceMinutes: 0.05, cureMinutes: s.stationKind === 'cure' ? 120 : null })
+        .values({
+          id: crypto.randomUUID(),
+          orderId,
+          travellerKind: 'tray',
+          seq: i + 1,
+          name: s.name,
+          stationKind: s.stationKind,
+          trayMinutes: 5,
+          pieceMinutes: 0.05,
+          cureMinutes: s.stationKind === 'cure' ? 120 : null,
+        })
         .run();
     });
     options.trays.forEach((plan, i) => {
@@ -106,25 +123,36 @@ export function insertShippingOrder(
       const phase: TrayPhase = plan.at === 'done' ? 'done' : plan.at === 'scrapped' ? 'scrapped' : 'waiting';
       const stepSeq = typeof plan.at === 'number' ? plan.at : null;
       tx.insert(trays)
-        .values({ id, number: trayNumber, kind: 'tray', orderId, revision: 1, quantity: plan.quantity, releasedAt: t, createdAt: t, writtenOffAt: plan.at === 'scrapped' ? t : null, writeOffReason: plan.at === 'scrapped' ? 'scratch' : null })
+        .values({
+          id,
+          number: trayNumber,
+          kind: 'tray',
+          orderId,
+          revision: 1,
+          quantity: plan.quantity,
+          releasedAt: t,
+          createdAt: t,
+          writtenOffAt: plan.at === 'scrapped' ? t : null,
+          writeOffReason: plan.at === 'scrapped' ? 'scratch' : null,
+        })
         .run();
       trayStatesRepository.insert(tx, {
-          trayId: id,
-          kind: 'tray',
-          phase,
-          stepSeq,
-          stationKind: stepSeq ? PACKING_ROUTING[stepSeq - 1].stationKind : null,
-          quantity: plan.quantity,
-          stationId: null,
-          startedAt: null,
-          waitingSince: t,
-          cureReadyAt: null,
-          onHold: !!plan.onHold,
-          holdReason: null,
-          releasedAt: t,
-          lastEventAt: t,
-          updatedAt: t,
-        });
+        trayId: id,
+        kind: 'tray',
+        phase,
+        stepSeq,
+        stationKind: stepSeq ? PACKING_ROUTING[stepSeq - 1].stationKind : null,
+        quantity: plan.quantity,
+        stationId: null,
+        startedAt: null,
+        waitingSince: t,
+        cureReadyAt: null,
+        onHold: !!plan.onHold,
+        holdReason: null,
+        releasedAt: t,
+        lastEventAt: t,
+        updatedAt: t,
+      });
       out.trays.push({ id, number: trayNumber });
     });
   });
@@ -137,8 +165,28 @@ export function finishDispatch(deps: Pick<AppDeps, 'db'>, trayId: string, at: nu
   const qty = quantity ?? state.quantity;
   deps.db.transaction((tx) => {
     trayStatesRepository.insertEvents(tx, [
-      { id: crypto.randomUUID(), trayId, type: 'start', stepSeq: SEQ.dispatch, stationKind: 'dispatch', occurredAt: at - 60_000, receivedAt: at - 60_000, qtyIn: qty },
-      { id: crypto.randomUUID(), trayId, type: 'finish', stepSeq: SEQ.dispatch, stationKind: 'dispatch', occurredAt: at, receivedAt: at + 1000, qtyIn: qty, goodQty: qty, scrapQty: 0 },
+      {
+        id: crypto.randomUUID(),
+        trayId,
+        type: 'start',
+        stepSeq: SEQ.dispatch,
+        stationKind: 'dispatch',
+        occurredAt: at - 60_000,
+        receivedAt: at - 60_000,
+        qtyIn: qty,
+      },
+      {
+        id: crypto.randomUUID(),
+        trayId,
+        type: 'finish',
+        stepSeq: SEQ.dispatch,
+        stationKind: 'dispatch',
+        occurredAt: at,
+        receivedAt: at + 1000,
+        qtyIn: qty,
+        goodQty: qty,
+        scrapQty: 0,
+      },
     ]);
     trayStatesRepository.patch(tx, trayId, { phase: 'done', stepSeq: null, stationKind: null, quantity: qty, lastEventAt: at, updatedAt: at });
   });
@@ -146,7 +194,13 @@ export function finishDispatch(deps: Pick<AppDeps, 'db'>, trayId: string, at: nu
 
 /** Moves a tray to another step (as the scan service would after a finish). */
 export function moveTray(deps: Pick<AppDeps, 'db'>, trayId: string, stepSeq: number, quantity?: number) {
-  trayStatesRepository.patch(deps.db, trayId, { phase: 'waiting', stepSeq, stationKind: PACKING_ROUTING[stepSeq - 1].stationKind, ...(quantity != null ? { quantity } : {}), updatedAt: Date.now() });
+  trayStatesRepository.patch(deps.db, trayId, {
+    phase: 'waiting',
+    stepSeq,
+    stationKind: PACKING_ROUTING[stepSeq - 1].stationKind,
+    ...(quantity != null ? { quantity } : {}),
+    updatedAt: Date.now(),
+  });
 }
 
 /** A proof revision stored in the file store, as the proofs upload stores it. */
@@ -154,7 +208,17 @@ export function insertProof(deps: Pick<AppDeps, 'db' | 'env'>, orderId: string, 
   const { hash, sizeBytes } = putFile(deps.env.dataDir, content);
   deps.db
     .insert(proofs)
-    .values({ id: crypto.randomUUID(), orderId, revision, fileHash: hash, mime, sizeBytes, originalName: `proof-${revision}`, uploadedBy, uploadedAt: Date.now() })
+    .values({
+      id: crypto.randomUUID(),
+      orderId,
+      revision,
+      fileHash: hash,
+      mime,
+      sizeBytes,
+      originalName: `proof-${revision}`,
+      uploadedBy,
+      uploadedAt: Date.now(),
+    })
     .run();
   return hash;
 }

@@ -31,7 +31,14 @@ export function makeTestApp(overrides: Partial<AppDeps> = {}): TestApp {
   fs.copyFileSync(templateDb(), path.join(dataDir, 'trayce.db'));
   const db = openDb(path.join(dataDir, 'trayce.db'));
   let pinned: number | null = null;
-  const env = loadEnv({ TRAYCE_DATA_DIR: dataDir, TRAYCE_SEED: 'none', TRAYCE_ADMIN_EMAIL: TEST_ADMIN.email, TRAYCE_ADMIN_PASSWORD: TEST_ADMIN.password, NODE_ENV: 'test', LOG_LEVEL: 'silent' });
+  const env = loadEnv({
+    TRAYCE_DATA_DIR: dataDir,
+    TRAYCE_SEED: 'none',
+    TRAYCE_ADMIN_EMAIL: TEST_ADMIN.email,
+    TRAYCE_ADMIN_PASSWORD: TEST_ADMIN.password,
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'silent',
+  });
   const deps: AppDeps = {
     db,
     env,

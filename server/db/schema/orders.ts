@@ -100,7 +100,9 @@ export const payments = sqliteTable(
     currency: text('currency'),
     reference: text('reference').notNull(),
     /** typed in by staff (a bank transfer) or paid through the hosted checkout */
-    source: text('source', { enum: ['manual', 'checkout'] }).notNull().default('manual'),
+    source: text('source', { enum: ['manual', 'checkout'] })
+      .notNull()
+      .default('manual'),
     /** the payment service's event id: the same event delivered twice records one payment */
     eventId: text('event_id').unique(),
     /** a manager's recorded exception: released without payment */

@@ -14,7 +14,9 @@ export const checkoutSessions = sqliteTable(
     amount: real('amount').notNull(),
     currency: text('currency').notNull(),
     url: text('url').notNull(),
-    status: text('status', { enum: ['open', 'complete', 'expired'] }).notNull().default('open'),
+    status: text('status', { enum: ['open', 'complete', 'expired'] })
+      .notNull()
+      .default('open'),
     createdAt: ms('created_at').notNull(),
     expiresAt: ms('expires_at').notNull(),
     completedAt: ms('completed_at'),

@@ -33,7 +33,9 @@ export const stepRuns = sqliteTable(
     /** a cure step closed on its own when the next step started */
     implicit: flag('implicit').notNull().default(false),
     /** how the run counts for yield: 'first', 'rework' (the step a split sent pieces back to) or 'repeat' (a step done again after it) */
-    pass: text('pass', { enum: ['first', 'rework', 'repeat'] }).notNull().default('first'),
+    pass: text('pass', { enum: ['first', 'rework', 'repeat'] })
+      .notNull()
+      .default('first'),
     /** queue and process time in working minutes of the station's calendar */
     queueWorkingMinutes: real('queue_working_minutes'),
     processWorkingMinutes: real('process_working_minutes'),

@@ -58,7 +58,9 @@ export const shareLinks = sqliteTable(
     quoteId: text('quote_id').references(() => quotes.id),
     tokenHash: text('token_hash').notNull().unique(),
     /** why it was made: by a person, for the shipped mail, sent with a quote, or made when a quote was accepted */
-    purpose: text('purpose', { enum: ['manual', 'shipped_mail', 'quote', 'quote_accepted'] }).notNull().default('manual'),
+    purpose: text('purpose', { enum: ['manual', 'shipped_mail', 'quote', 'quote_accepted'] })
+      .notNull()
+      .default('manual'),
     createdBy: text('created_by'),
     createdAt: ms('created_at').notNull(),
     revokedAt: ms('revoked_at'),
@@ -82,7 +84,9 @@ export const mailQueue = sqliteTable('mail_queue', {
   text: text('text').notNull(),
   html: text('html'),
   attachments: text('attachments', { mode: 'json' }),
-  status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull().default('queued'),
+  status: text('status', { enum: ['queued', 'sent', 'failed'] })
+    .notNull()
+    .default('queued'),
   attempts: integer('attempts').notNull().default(0),
   nextAttemptAt: ms('next_attempt_at').notNull(),
   lastError: text('last_error'),

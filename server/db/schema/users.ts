@@ -11,7 +11,9 @@ export const users = sqliteTable(
     passwordHash: text('password_hash').notNull(),
     badge: text('badge').unique(),
     pinHash: text('pin_hash'),
-    locale: text('locale', { enum: ['en', 'zh-CN'] }).notNull().default('en'),
+    locale: text('locale', { enum: ['en', 'zh-CN'] })
+      .notNull()
+      .default('en'),
     active: flag('active').notNull().default(true),
     /** set on a first admin made with the documented default password: nothing else works until it is changed */
     mustChangePassword: flag('must_change_password').notNull().default(false),

@@ -18,7 +18,15 @@ const step = (seq: number, stationKind: StationKind, cureMinutes: number | null 
   colour: null,
 });
 const ROUTING = [step(1, 'fill'), step(2, 'cure', 120), step(3, 'plate'), step(4, 'inspect'), step(5, 'pack')];
-const tray = (id: string, extra: Partial<ReplayTraveller> = {}): ReplayTraveller => ({ id, orderId: 'o', kind: 'tray', quantity: 100, releasedAt: at(0), routing: ROUTING, ...extra });
+const tray = (id: string, extra: Partial<ReplayTraveller> = {}): ReplayTraveller => ({
+  id,
+  orderId: 'o',
+  kind: 'tray',
+  quantity: 100,
+  releasedAt: at(0),
+  routing: ROUTING,
+  ...extra,
+});
 const ev = (trayId: string, type: string, m: number, kind: StationKind | null, extra: Partial<ReplayEvent> = {}): ReplayEvent => ({
   trayId,
   type,
@@ -55,7 +63,13 @@ describe('replay: a traveller’s history through the scan guards', () => {
     const inputs: Omit<GuardInput, 'state'>[] = history.map((e) => ({
       routing: ROUTING,
       station: { id: e.stationId!, kind: e.stationKind as StationKind },
-      event: { type: e.type as 'start', occurredAt: new Date(e.occurredAt).toISOString(), goodQty: e.goodQty, scrapQty: e.scrapQty, scrapReason: e.scrapReason },
+      event: {
+        type: e.type as 'start',
+        occurredAt: new Date(e.occurredAt).toISOString(),
+        goodQty: e.goodQty,
+        scrapQty: e.scrapQty,
+        scrapReason: e.scrapReason,
+      },
       now: e.occurredAt,
     }));
     const direct = applyScans(initialTrayState({ trayId: 'a', kind: 'tray', quantity: 100, releasedAt: new Date(at(0)).toISOString() }), inputs);
@@ -74,7 +88,14 @@ describe('replay: a traveller’s history through the scan guards', () => {
     expect(runs[1]).toMatchObject({ cureMinutes: 120, readyAt: at(120), startedAt: at(130), finishedAt: at(250), stationId: 'cure-1' });
     // the tray's flow: cure time apart from process time, in each unit the clock given measures
     const flow = trayFlowOf(tray('a'), runs, (from, to) => (to - from) / MIN / 2);
-    expect(flow).toMatchObject({ processMinutes: 120, cureMinutes: 120, processWorkingMinutes: 60, cureWorkingMinutes: 60, startedAt: at(60), lastFinishAt: at(360) });
+    expect(flow).toMatchObject({
+      processMinutes: 120,
+      cureMinutes: 120,
+      processWorkingMinutes: 60,
+      cureWorkingMinutes: 60,
+      startedAt: at(60),
+      lastFinishAt: at(360),
+    });
   });
 
   it('leaves out, and reports, a stored event the guards refuse', () => {
@@ -112,7 +133,10 @@ describe('rework by a split counts as not first pass for the step it went back t
   ];
 
   it('10 of 100 re-plated: plating first-pass yield 0.9, final yield 1.0; the re-plated pieces are not new pieces in', () => {
-    const r = replayTravellers([parent, child], [...common, ev('c', 'finish', 380, 'plate', { goodQty: 10 }), ev('c', 'start', 390, 'inspect'), ev('c', 'finish', 400, 'inspect', { goodQty: 10 })]);
+    const r = replayTravellers(
+      [parent, child],
+      [...common, ev('c', 'finish', 380, 'plate', { goodQty: 10 }), ev('c', 'start', 390, 'inspect'), ev('c', 'finish', 400, 'inspect', { goodQty: 10 })],
+    );
     expect(r.refused).toEqual([]);
     expect(r.states.get('p')).toMatchObject({ phase: 'waiting', stepSeq: 5, quantity: 90 });
     expect(r.states.get('c')).toMatchObject({ phase: 'waiting', stepSeq: 5, quantity: 10 });

@@ -249,8 +249,10 @@ export function replayTravellers(travellers: Iterable<ReplayTraveller>, events: 
       } else {
         const parts = [state, ...(mergedIn.get(t.id) ?? [])];
         mergedIn.delete(t.id);
-        const latest = (xs: (string | null)[]) => xs.filter((x): x is string => !!x).reduce<string | null>((a, b) => (a == null || Date.parse(b) > Date.parse(a) ? b : a), null);
-        const earliest = (xs: (string | null)[]) => xs.filter((x): x is string => !!x).reduce<string | null>((a, b) => (a == null || Date.parse(b) < Date.parse(a) ? b : a), null);
+        const latest = (xs: (string | null)[]) =>
+          xs.filter((x): x is string => !!x).reduce<string | null>((a, b) => (a == null || Date.parse(b) > Date.parse(a) ? b : a), null);
+        const earliest = (xs: (string | null)[]) =>
+          xs.filter((x): x is string => !!x).reduce<string | null>((a, b) => (a == null || Date.parse(b) < Date.parse(a) ? b : a), null);
         states.set(t.id, {
           ...state,
           quantity: ev.qtyIn ?? parts.reduce((s, p) => s + p.quantity, 0),
@@ -274,7 +276,12 @@ export function replayTravellers(travellers: Iterable<ReplayTraveller>, events: 
  * Pieces are conserved over a step's runs: in = good + scrap.
  * reports.repository.ts sums the same in SQL (`yieldSums`); its tests hold both to this.
  */
-export function stepRunYieldCounts(r: Pick<StepRun, 'pass' | 'qtyIn' | 'goodQty' | 'scrapQty' | 'reworkQty'>): { inQty: number; goodQty: number; scrapQty: number; reworkQty: number } {
+export function stepRunYieldCounts(r: Pick<StepRun, 'pass' | 'qtyIn' | 'goodQty' | 'scrapQty' | 'reworkQty'>): {
+  inQty: number;
+  goodQty: number;
+  scrapQty: number;
+  reworkQty: number;
+} {
   if (r.pass === 'first') return { inQty: r.qtyIn, goodQty: r.goodQty, scrapQty: r.scrapQty, reworkQty: r.reworkQty };
   return { inQty: 0, goodQty: r.goodQty - r.qtyIn, scrapQty: r.scrapQty, reworkQty: r.pass === 'rework' ? r.goodQty : r.reworkQty };
 }
@@ -302,7 +309,11 @@ export interface TrayFlow {
  * The flow of one tray from its runs. `working(from, to)` gives the factory's working minutes
  * between two instants (the unit flow time is measured in); without it they are 0.
  */
-export function trayFlowOf(tray: { id: string; orderId: string; releasedAt: number }, runs: readonly StepRun[], working?: (from: number, to: number) => number): TrayFlow {
+export function trayFlowOf(
+  tray: { id: string; orderId: string; releasedAt: number },
+  runs: readonly StepRun[],
+  working?: (from: number, to: number) => number,
+): TrayFlow {
   const f: TrayFlow = {
     trayId: tray.id,
     orderId: tray.orderId,
@@ -340,4 +351,3 @@ export function trayFlowOf(tray: { id: string; orderId: string; releasedAt: numb
   }
   return f;
 }
-

@@ -52,7 +52,11 @@ describe('station kind traits: one row per kind', () => {
 
 describe('effective phase and the floor reading: a cured tray waits for its next step', () => {
   const t0 = Date.parse('2026-06-01T08:00:00Z');
-  const curing = { ...initialTrayState({ trayId: 't', kind: 'tray', quantity: 10, releasedAt: new Date(t0).toISOString() }), phase: 'curing' as const, cureReadyAt: new Date(t0 + 60_000).toISOString() };
+  const curing = {
+    ...initialTrayState({ trayId: 't', kind: 'tray', quantity: 10, releasedAt: new Date(t0).toISOString() }),
+    phase: 'curing' as const,
+    cureReadyAt: new Date(t0 + 60_000).toISOString(),
+  };
 
   it('curing until the cure has run, waiting from then on', () => {
     expect(effectivePhase(curing, t0 + 59_999)).toBe('curing');

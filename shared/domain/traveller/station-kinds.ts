@@ -64,7 +64,7 @@ const UNKNOWN: StationKindTraits = { ...base, name: 'another station', stage: 'm
 
 /** The traits of a kind read from storage or the wire (an unknown kind has none of the special traits). */
 export function kindTraits(kind: string | null | undefined): StationKindTraits {
-  return (kind != null && Object.hasOwn(STATION_KIND_TRAITS, kind) ? STATION_KIND_TRAITS[kind as StationKind] : UNKNOWN);
+  return kind != null && Object.hasOwn(STATION_KIND_TRAITS, kind) ? STATION_KIND_TRAITS[kind as StationKind] : UNKNOWN;
 }
 
 /** True for an oven kind: its steps carry a cure time and hold the next step until it has run. */

@@ -33,7 +33,10 @@ export function AppShell() {
     if (locale) applyLocale(locale);
   }, [locale]);
   if (!user) return null;
-  const required = matches.map((m) => (m.handle as RouteHandle | undefined)?.roles).filter(Boolean).at(-1);
+  const required = matches
+    .map((m) => (m.handle as RouteHandle | undefined)?.roles)
+    .filter(Boolean)
+    .at(-1);
   const allowed = !required || required.includes(user.role);
 
   return (

@@ -1,13 +1,5 @@
 import { useState, type ReactNode } from 'react';
-import {
-  flexRender,
-  getCoreRowModel,
-  getFilteredRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type SortingState,
-} from '@tanstack/react-table';
+import { flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
 import { useTranslation } from 'react-i18next';
 import { EmptyState } from './panels';
@@ -82,11 +74,22 @@ export function DataTable<T>({
                   const sorted = header.column.getIsSorted();
                   const canSort = header.column.getCanSort();
                   return (
-                    <th key={header.id} scope="col" className="px-3 py-2 font-bold" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
+                    <th
+                      key={header.id}
+                      scope="col"
+                      className="px-3 py-2 font-bold"
+                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+                    >
                       {canSort ? (
                         <button type="button" className="inline-flex min-h-11 items-center gap-1" onClick={header.column.getToggleSortingHandler()}>
                           {flexRender(header.column.columnDef.header, header.getContext())}
-                          {sorted === 'asc' ? <ArrowUp className="h-4 w-4" aria-hidden /> : sorted === 'desc' ? <ArrowDown className="h-4 w-4" aria-hidden /> : <ArrowUpDown className="h-4 w-4 opacity-50" aria-hidden />}
+                          {sorted === 'asc' ? (
+                            <ArrowUp className="h-4 w-4" aria-hidden />
+                          ) : sorted === 'desc' ? (
+                            <ArrowDown className="h-4 w-4" aria-hidden />
+                          ) : (
+                            <ArrowUpDown className="h-4 w-4 opacity-50" aria-hidden />
+                          )}
                         </button>
                       ) : (
                         flexRender(header.column.columnDef.header, header.getContext())

@@ -1,6 +1,7 @@
 import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
-const control = 'w-full min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-3 text-base text-ink focus:border-harbour-600 aria-[invalid=true]:border-stop-700';
+const control =
+  'w-full min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-3 text-base text-ink focus:border-harbour-600 aria-[invalid=true]:border-stop-700';
 
 interface FieldShell {
   label: string;

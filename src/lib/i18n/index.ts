@@ -21,7 +21,7 @@ export function browserLocale(): Locale {
   } catch {
     // storage switched off: fall through to the browser's language
   }
-  const langs = typeof navigator === 'undefined' ? [] : navigator.languages ?? [navigator.language];
+  const langs = typeof navigator === 'undefined' ? [] : (navigator.languages ?? [navigator.language]);
   for (const l of langs) {
     if (/^zh\b/i.test(l)) return 'zh-CN';
     if (/^en\b/i.test(l)) return 'en';

@@ -31,8 +31,16 @@ describe('every namespace in both languages', () => {
 
     it(`${ns}: no English words left in the Chinese strings`, () => {
       for (const [key, text] of Object.entries(z)) {
-        const words = text.replace(/\{\{\w+\}\}/g, '').replace(/<code>.*?<\/code>/g, '').replace(/<\/?\w+>/g, '').match(/[A-Za-z_]{3,}/g) ?? [];
-        expect(words.filter((w) => !KEEP.has(w)), key).toEqual([]);
+        const words =
+          text
+            .replace(/\{\{\w+\}\}/g, '')
+            .replace(/<code>.*?<\/code>/g, '')
+            .replace(/<\/?\w+>/g, '')
+            .match(/[A-Za-z_]{3,}/g) ?? [];
+        expect(
+          words.filter((w) => !KEEP.has(w)),
+          key,
+        ).toEqual([]);
       }
     });
   }

@@ -37,7 +37,25 @@ import { zhCN as mouldsZh } from '@/features/moulds/i18n/zh-CN';
 
 export const resources = {
   en: { common, station, orders, users, portal, projections, costing, quotes, reports, live, scanExceptions, trays, admin, sales, shipping, loads, moulds },
-  'zh-CN': { common: commonZh, station: stationZh, orders: ordersZh, users: usersZh, portal: portalZh, projections: projectionsZh, costing: costingZh, quotes: quotesZh, reports: reportsZh, live: liveZh, scanExceptions: scanExceptionsZh, trays: traysZh, admin: adminZh, sales: salesZh, shipping: shippingZh, loads: loadsZh, moulds: mouldsZh },
+  'zh-CN': {
+    common: commonZh,
+    station: stationZh,
+    orders: ordersZh,
+    users: usersZh,
+    portal: portalZh,
+    projections: projectionsZh,
+    costing: costingZh,
+    quotes: quotesZh,
+    reports: reportsZh,
+    live: liveZh,
+    scanExceptions: scanExceptionsZh,
+    trays: traysZh,
+    admin: adminZh,
+    sales: salesZh,
+    shipping: shippingZh,
+    loads: loadsZh,
+    moulds: mouldsZh,
+  },
 } as const;
 
 export type Namespace = keyof (typeof resources)['en'];

@@ -28,9 +28,7 @@ function WeekEditor({ week, onChange, label }: { week: WeekBody; onChange: (w: W
   const { t } = useTranslation('admin');
   return (
     <fieldset className="flex flex-col gap-2">
-      <legend className="mb-2 font-bold">
-        {t('calendar.weekHours', { label, hours: Math.round(hoursOf(week) * 10) / 10 })}
-      </legend>
+      <legend className="mb-2 font-bold">{t('calendar.weekHours', { label, hours: Math.round(hoursOf(week) * 10) / 10 })}</legend>
       {WEEKDAYS.map((d) => (
         <div key={d} className="flex flex-wrap items-end gap-3 border-b border-harbour-50 pb-2">
           <span className="w-28 pb-3 font-bold">{t(`calendar.day.${d}`)}</span>
@@ -49,7 +47,11 @@ function WeekEditor({ week, onChange, label }: { week: WeekBody; onChange: (w: W
                 value={s.end}
                 onChange={(e) => onChange({ ...week, [d]: week[d].map((x, j) => (j === i ? { ...x, end: e.target.value } : x)) })}
               />
-              <Button variant="ghost" aria-label={t('calendar.removeShift', { day: t(`calendar.day.${d}`), n: i + 1 })} onClick={() => onChange({ ...week, [d]: week[d].filter((_, j) => j !== i) })}>
+              <Button
+                variant="ghost"
+                aria-label={t('calendar.removeShift', { day: t(`calendar.day.${d}`), n: i + 1 })}
+                onClick={() => onChange({ ...week, [d]: week[d].filter((_, j) => j !== i) })}
+              >
                 <Trash2 className="h-5 w-5" aria-hidden />
               </Button>
             </div>
@@ -64,15 +66,32 @@ function WeekEditor({ week, onChange, label }: { week: WeekBody; onChange: (w: W
   );
 }
 
-function DaysOff({ days, onChange, label }: { days: { date: string; name: string }[]; onChange: (d: { date: string; name: string }[]) => void; label: string }) {
+function DaysOff({
+  days,
+  onChange,
+  label,
+}: {
+  days: { date: string; name: string }[];
+  onChange: (d: { date: string; name: string }[]) => void;
+  label: string;
+}) {
   const { t } = useTranslation('admin');
   return (
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-2 font-bold">{label}</legend>
       {days.map((d, i) => (
         <div key={i} className="flex flex-wrap items-end gap-2">
-          <TextField label={t('calendar.dayOff', { n: i + 1 })} type="date" value={d.date} onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, date: e.target.value } : x)))} />
-          <TextField label={t('calendar.whatItIs')} value={d.name} onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, name: e.target.value } : x)))} />
+          <TextField
+            label={t('calendar.dayOff', { n: i + 1 })}
+            type="date"
+            value={d.date}
+            onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, date: e.target.value } : x)))}
+          />
+          <TextField
+            label={t('calendar.whatItIs')}
+            value={d.name}
+            onChange={(e) => onChange(days.map((x, j) => (j === i ? { ...x, name: e.target.value } : x)))}
+          />
           <Button variant="ghost" aria-label={t('calendar.removeDayOff', { n: i + 1 })} onClick={() => onChange(days.filter((_, j) => j !== i))}>
             <Trash2 className="h-5 w-5" aria-hidden />
           </Button>
@@ -177,7 +196,11 @@ function Editor({ view }: { view: CalendarView }) {
                 </div>
                 {o && !s.continuous && (
                   <div className="mt-3 grid gap-4 xl:grid-cols-2">
-                    <WeekEditor label={t('calendar.stationWeek', { name: s.name })} week={o.week ?? draft.week} onChange={(week) => setOwn(s.stationId, { week })} />
+                    <WeekEditor
+                      label={t('calendar.stationWeek', { name: s.name })}
+                      week={o.week ?? draft.week}
+                      onChange={(week) => setOwn(s.stationId, { week })}
+                    />
                     <DaysOff label={t('calendar.stationDaysOff', { name: s.name })} days={o.daysOff} onChange={(daysOff) => setOwn(s.stationId, { daysOff })} />
                   </div>
                 )}
@@ -187,7 +210,11 @@ function Editor({ view }: { view: CalendarView }) {
         </ul>
       </Card>
       {(problem || save.error) && <ErrorPanel title={t('notSaved')} message={problem ?? save.error!.message} />}
-      {save.isSuccess && !save.isPending && <p role="status" className="font-bold text-ok-700">{t('calendar.saved')}</p>}
+      {save.isSuccess && !save.isPending && (
+        <p role="status" className="font-bold text-ok-700">
+          {t('calendar.saved')}
+        </p>
+      )}
       <div>
         <Button type="submit" size="lg" disabled={save.isPending}>
           {t('calendar.save')}

@@ -50,7 +50,11 @@ export function Component() {
     col.accessor('stationId', { header: t('devices.station'), cell: (c) => stationName(c.getValue()) }),
     col.accessor('locale', { header: t('devices.language'), cell: (c) => (c.getValue() === 'zh-CN' ? '简体中文' : 'English') }),
     col.accessor('idleMinutes', { header: t('devices.idle') }),
-    col.accessor('paired', { header: t('devices.paired'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('devices.paired')}</Pill> : <Pill tone="warn">{t('devices.waiting', { code: c.row.original.pairingCode })}</Pill>) }),
+    col.accessor('paired', {
+      header: t('devices.paired'),
+      cell: (c) =>
+        c.getValue() ? <Pill tone="ok">{t('devices.paired')}</Pill> : <Pill tone="warn">{t('devices.waiting', { code: c.row.original.pairingCode })}</Pill>,
+    }),
     col.accessor('lastSeenAt', { header: t('devices.lastSeen'), cell: (c) => formatDateTime(c.getValue()) }),
     col.display({
       id: 'actions',
@@ -103,7 +107,13 @@ export function Component() {
           <PairingNotice device={fresh} />
         </div>
       )}
-      {devices.isPending ? <Loading /> : devices.error ? <ErrorPanel message={devices.error.message} /> : <DataTable data={devices.data} columns={columns} caption={t('devices.caption')} />}
+      {devices.isPending ? (
+        <Loading />
+      ) : devices.error ? (
+        <ErrorPanel message={devices.error.message} />
+      ) : (
+        <DataTable data={devices.data} columns={columns} caption={t('devices.caption')} />
+      )}
     </>
   );
 }

@@ -58,7 +58,9 @@ export function Component() {
       />
       {digest.data && (
         <p role="status" className="mb-4 font-bold text-ok-700">
-          {digest.data.orders === 0 ? t('outbox.noDigest') : t('outbox.queued', { queued: digest.data.queued, date: digest.data.date, orders: digest.data.orders })}
+          {digest.data.orders === 0
+            ? t('outbox.noDigest')
+            : t('outbox.queued', { queued: digest.data.queued, date: digest.data.date, orders: digest.data.orders })}
         </p>
       )}
       {waiting.length > 0 && (

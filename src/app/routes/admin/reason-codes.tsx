@@ -19,7 +19,10 @@ export const loader = () => queryClient.ensureQueryData(reasonCodesAdminQueryOpt
 function ReasonForm({ existing, onDone }: { existing?: ReasonCodeAdminView; onDone: () => void }) {
   const { t } = useTranslation(['admin', 'common']);
   const save = useSaveReasonCode();
-  const form = useForm({ resolver: zodResolver(reasonCodeBody), defaultValues: existing ?? { code: '', name: '', nameZh: '', kind: 'scrap', stationKind: null, active: true } });
+  const form = useForm({
+    resolver: zodResolver(reasonCodeBody),
+    defaultValues: existing ?? { code: '', name: '', nameZh: '', kind: 'scrap', stationKind: null, active: true },
+  });
   const e = form.formState.errors;
   return (
     <form
@@ -74,23 +77,42 @@ export function Component() {
     col.accessor('name', { header: t('name') }),
     col.accessor('nameZh', { header: t('reasons.nameZhCol'), cell: (c) => <span lang="zh-CN">{c.getValue()}</span> }),
     col.accessor('kind', { header: t('reasons.usedFor'), cell: (c) => t(`reasons.kind.${c.getValue()}`) }),
-    col.accessor('stationKind', { header: t('reasons.stationKind'), cell: (c) => { const k = c.getValue(); return k ? t(`common:kind.${k}`) : t('reasons.any'); } }),
-    col.accessor('active', { header: t('state'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('reasons.offered')}</Pill> : <Pill>{t('reasons.switchedOff')}</Pill>) }),
-    col.display({ id: 'edit', header: '', cell: (c) => <Button variant="ghost" onClick={() => setEditing(c.row.original)}>{t('edit')}</Button> }),
+    col.accessor('stationKind', {
+      header: t('reasons.stationKind'),
+      cell: (c) => {
+        const k = c.getValue();
+        return k ? t(`common:kind.${k}`) : t('reasons.any');
+      },
+    }),
+    col.accessor('active', {
+      header: t('state'),
+      cell: (c) => (c.getValue() ? <Pill tone="ok">{t('reasons.offered')}</Pill> : <Pill>{t('reasons.switchedOff')}</Pill>),
+    }),
+    col.display({
+      id: 'edit',
+      header: '',
+      cell: (c) => (
+        <Button variant="ghost" onClick={() => setEditing(c.row.original)}>
+          {t('edit')}
+        </Button>
+      ),
+    }),
   ];
   return (
     <>
-      <PageHeader
-        title={t('reasons.title')}
-        subtitle={t('reasons.subtitle')}
-        actions={<Button onClick={() => setEditing('new')}>{t('reasons.add')}</Button>}
-      />
+      <PageHeader title={t('reasons.title')} subtitle={t('reasons.subtitle')} actions={<Button onClick={() => setEditing('new')}>{t('reasons.add')}</Button>} />
       {editing && (
         <Card className="mb-6">
           <ReasonForm key={editing === 'new' ? 'new' : editing.code} existing={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
         </Card>
       )}
-      {codes.isPending ? <Loading /> : codes.error ? <ErrorPanel message={codes.error.message} /> : <DataTable data={codes.data} columns={columns} filterLabel={t('reasons.find')} caption={t('reasons.caption')} />}
+      {codes.isPending ? (
+        <Loading />
+      ) : codes.error ? (
+        <ErrorPanel message={codes.error.message} />
+      ) : (
+        <DataTable data={codes.data} columns={columns} filterLabel={t('reasons.find')} caption={t('reasons.caption')} />
+      )}
     </>
   );
 }

@@ -23,7 +23,11 @@ export function Component() {
         actions={
           <label className="flex flex-col gap-1 text-sm font-bold">
             {t('templates.process')}
-            <select className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2 font-normal" value={process} onChange={(e) => setProcess(e.target.value as Process)}>
+            <select
+              className="min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2 font-normal"
+              value={process}
+              onChange={(e) => setProcess(e.target.value as Process)}
+            >
               {PROCESSES.map((p) => (
                 <option key={p} value={p}>
                   {t(`common:process.${p}`)}
@@ -33,7 +37,15 @@ export function Component() {
           </label>
         }
       />
-      {templates.isPending ? <Loading /> : templates.error ? <ErrorPanel message={templates.error.message} /> : current ? <TemplateEditor key={process} template={current.template} /> : <ErrorPanel message={t('templates.none')} />}
+      {templates.isPending ? (
+        <Loading />
+      ) : templates.error ? (
+        <ErrorPanel message={templates.error.message} />
+      ) : current ? (
+        <TemplateEditor key={process} template={current.template} />
+      ) : (
+        <ErrorPanel message={t('templates.none')} />
+      )}
     </>
   );
 }

@@ -21,7 +21,19 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
   const save = useSaveStation();
   const form = useForm({
     resolver: zodResolver(stationBody),
-    defaultValues: station ?? { code: '', name: '', nameZh: '', kind: 'fill', capacityTrays: 1, continuous: false, instructions: '', safetyNotes: '', instructionsZh: '', safetyNotesZh: '', active: true },
+    defaultValues: station ?? {
+      code: '',
+      name: '',
+      nameZh: '',
+      kind: 'fill',
+      capacityTrays: 1,
+      continuous: false,
+      instructions: '',
+      safetyNotes: '',
+      instructionsZh: '',
+      safetyNotesZh: '',
+      active: true,
+    },
   });
   const e = form.formState.errors;
   return (
@@ -39,7 +51,13 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
           </option>
         ))}
       </SelectField>
-      <TextField label={t('stations.capacity')} type="number" min={1} {...form.register('capacityTrays', { valueAsNumber: true })} error={e.capacityTrays?.message} />
+      <TextField
+        label={t('stations.capacity')}
+        type="number"
+        min={1}
+        {...form.register('capacityTrays', { valueAsNumber: true })}
+        error={e.capacityTrays?.message}
+      />
       <TextField label={t('stations.nameZh')} lang="zh-CN" {...form.register('nameZh')} error={e.nameZh?.message} hint={t('stations.nameZhHint')} />
       <div className="md:col-span-2">
         <TextAreaField label={t('stations.instructions')} rows={3} {...form.register('instructions')} />
@@ -51,7 +69,14 @@ function StationForm({ station, onDone }: { station?: StationView; onDone: () =>
         <TextAreaField label={t('stations.instructionsZh')} lang="zh-CN" rows={3} {...form.register('instructionsZh')} error={e.instructionsZh?.message} />
       </div>
       <div className="md:col-span-2">
-        <TextAreaField label={t('stations.safetyNotesZh')} lang="zh-CN" rows={3} {...form.register('safetyNotesZh')} error={e.safetyNotesZh?.message} hint={t('stations.safetyHint')} />
+        <TextAreaField
+          label={t('stations.safetyNotesZh')}
+          lang="zh-CN"
+          rows={3}
+          {...form.register('safetyNotesZh')}
+          error={e.safetyNotesZh?.message}
+          hint={t('stations.safetyHint')}
+        />
       </div>
       <CheckboxField label={t('stations.continuous')} {...form.register('continuous')} />
       <CheckboxField label={t('stations.inUse')} {...form.register('active')} />
@@ -84,18 +109,39 @@ export function Component() {
     col.accessor('kind', { header: t('stations.kind'), cell: (c) => t(`common:kind.${c.getValue()}`) }),
     col.accessor('capacityTrays', { header: t('stations.capacity') }),
     col.accessor('continuous', { header: t('stations.hours'), cell: (c) => (c.getValue() ? t('stations.roundTheClock') : t('stations.shifts')) }),
-    col.accessor('active', { header: t('state'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('stations.inUse')}</Pill> : <Pill>{t('stations.notInUse')}</Pill>) }),
-    col.display({ id: 'edit', header: '', cell: (c) => <Button variant="ghost" onClick={() => setEditing(c.row.original)}>{t('edit')}</Button> }),
+    col.accessor('active', {
+      header: t('state'),
+      cell: (c) => (c.getValue() ? <Pill tone="ok">{t('stations.inUse')}</Pill> : <Pill>{t('stations.notInUse')}</Pill>),
+    }),
+    col.display({
+      id: 'edit',
+      header: '',
+      cell: (c) => (
+        <Button variant="ghost" onClick={() => setEditing(c.row.original)}>
+          {t('edit')}
+        </Button>
+      ),
+    }),
   ];
   return (
     <>
-      <PageHeader title={t('stations.title')} subtitle={t('stations.subtitle')} actions={<Button onClick={() => setEditing('new')}>{t('stations.add')}</Button>} />
+      <PageHeader
+        title={t('stations.title')}
+        subtitle={t('stations.subtitle')}
+        actions={<Button onClick={() => setEditing('new')}>{t('stations.add')}</Button>}
+      />
       {editing && (
         <Card className="mb-6">
           <StationForm key={editing === 'new' ? 'new' : editing.id} station={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
         </Card>
       )}
-      {stations.isPending ? <Loading /> : stations.error ? <ErrorPanel message={stations.error.message} /> : <DataTable data={stations.data} columns={columns} filterLabel={t('stations.find')} caption={t('stations.caption')} />}
+      {stations.isPending ? (
+        <Loading />
+      ) : stations.error ? (
+        <ErrorPanel message={stations.error.message} />
+      ) : (
+        <DataTable data={stations.data} columns={columns} filterLabel={t('stations.find')} caption={t('stations.caption')} />
+      )}
     </>
   );
 }

@@ -28,7 +28,12 @@ function RoleSelect({ user }: { user: UserView }) {
   const [pending, setPending] = useState<Role | null>(null);
   return (
     <div className="flex flex-col gap-2" onClick={(e) => e.stopPropagation()}>
-      <select aria-label={t('roleOf', { name: user.name })} className={select} value={pending ?? user.role} onChange={(e) => setPending(e.target.value === user.role ? null : (e.target.value as Role))}>
+      <select
+        aria-label={t('roleOf', { name: user.name })}
+        className={select}
+        value={pending ?? user.role}
+        onChange={(e) => setPending(e.target.value === user.role ? null : (e.target.value as Role))}
+      >
         {ROLES.map((r) => (
           <option key={r} value={r}>
             {t(`common:role.${r}`)}
@@ -41,7 +46,9 @@ function RoleSelect({ user }: { user: UserView }) {
           <div className="flex flex-wrap gap-2">
             <Button
               disabled={update.isPending}
-              onClick={() => update.mutate({ id: user.id, patch: { role: pending } }, { onSuccess: () => setPending(null), onError: (err) => alert(errorText(err)) })}
+              onClick={() =>
+                update.mutate({ id: user.id, patch: { role: pending } }, { onSuccess: () => setPending(null), onError: (err) => alert(errorText(err)) })
+              }
             >
               {t('confirm')}
             </Button>
@@ -121,19 +128,32 @@ export function Component() {
     col.accessor('role', { header: t('col.role'), cell: (c) => <RoleSelect user={c.row.original} /> }),
     col.accessor('locale', { header: t('col.language'), cell: (c) => <LanguageSelect user={c.row.original} /> }),
     col.accessor('badge', { header: t('col.badge'), cell: (c) => c.getValue() ?? '—' }),
-    col.accessor('active', { header: t('col.state'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('active')}</Pill> : <Pill tone="stop">{t('off')}</Pill>) }),
+    col.accessor('active', {
+      header: t('col.state'),
+      cell: (c) => (c.getValue() ? <Pill tone="ok">{t('active')}</Pill> : <Pill tone="stop">{t('off')}</Pill>),
+    }),
     col.accessor('lastLoginAt', { header: t('col.lastSignIn'), cell: (c) => (c.getValue() ? formatDateTime(c.getValue()) : t('never')) }),
     col.display({ id: 'actions', header: t('col.actions'), cell: (c) => <UserActions user={c.row.original} /> }),
   ];
   return (
     <>
-      <PageHeader title={t('title')} subtitle={t('subtitle')} actions={<Button onClick={() => setAdding((a) => !a)}>{adding ? t('close') : t('add')}</Button>} />
+      <PageHeader
+        title={t('title')}
+        subtitle={t('subtitle')}
+        actions={<Button onClick={() => setAdding((a) => !a)}>{adding ? t('close') : t('add')}</Button>}
+      />
       {adding && (
         <Card className="mb-6">
           <UserForm onDone={() => setAdding(false)} />
         </Card>
       )}
-      {users.isPending ? <Loading /> : users.error ? <ErrorPanel message={errorText(users.error)} /> : <DataTable data={users.data} columns={columns} filterLabel={t('find')} caption={t('caption')} />}
+      {users.isPending ? (
+        <Loading />
+      ) : users.error ? (
+        <ErrorPanel message={errorText(users.error)} />
+      ) : (
+        <DataTable data={users.data} columns={columns} filterLabel={t('find')} caption={t('caption')} />
+      )}
     </>
   );
 }

@@ -66,8 +66,20 @@ export function Component() {
             {...f.register('currentPassword')}
             error={errors.currentPassword && t('changePassword.enterCurrent')}
           />
-          <TextField label={t('changePassword.next')} type="password" autoComplete="new-password" {...f.register('newPassword')} error={errors.newPassword && t('changePassword.tooShort')} />
-          <TextField label={t('changePassword.repeat')} type="password" autoComplete="new-password" {...f.register('repeat')} error={errors.repeat && t('changePassword.mismatch')} />
+          <TextField
+            label={t('changePassword.next')}
+            type="password"
+            autoComplete="new-password"
+            {...f.register('newPassword')}
+            error={errors.newPassword && t('changePassword.tooShort')}
+          />
+          <TextField
+            label={t('changePassword.repeat')}
+            type="password"
+            autoComplete="new-password"
+            {...f.register('repeat')}
+            error={errors.repeat && t('changePassword.mismatch')}
+          />
           {change.error && <ErrorPanel title={t('changePassword.failed')} message={errorText(change.error)} />}
           <Button type="submit" size="lg" disabled={change.isPending}>
             {change.isPending ? t('changePassword.working') : t('changePassword.submit')}

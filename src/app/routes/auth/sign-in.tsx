@@ -69,8 +69,20 @@ export function Component() {
           </div>
         </div>
         <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-          <TextField label={t('signIn.email')} type="email" autoComplete="username" {...form.register('email')} error={form.formState.errors.email && t('signIn.enterEmail')} />
-          <TextField label={t('signIn.password')} type="password" autoComplete="current-password" {...form.register('password')} error={form.formState.errors.password && t('signIn.enterPassword')} />
+          <TextField
+            label={t('signIn.email')}
+            type="email"
+            autoComplete="username"
+            {...form.register('email')}
+            error={form.formState.errors.email && t('signIn.enterEmail')}
+          />
+          <TextField
+            label={t('signIn.password')}
+            type="password"
+            autoComplete="current-password"
+            {...form.register('password')}
+            error={form.formState.errors.password && t('signIn.enterPassword')}
+          />
           {signIn.error && <ErrorPanel title={t('signIn.notSignedIn')} message={errorText(signIn.error)} />}
           <Button type="submit" size="lg" disabled={signIn.isPending}>
             {signIn.isPending ? t('signIn.working') : t('signIn.submit')}

@@ -36,7 +36,10 @@ export function Component() {
         }
         actions={
           <>
-            <Link to={paths.loads} className="flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50">
+            <Link
+              to={paths.loads}
+              className="flex min-h-11 items-center gap-2 rounded-lg border-2 border-harbour-800 px-4 font-bold text-harbour-800 hover:bg-harbour-50"
+            >
               <Flame className="h-5 w-5" aria-hidden /> {t('floor.loads')}
             </Link>
             <a href={paths.wall} className="flex min-h-11 items-center gap-2 rounded-lg bg-harbour-800 px-4 font-bold text-white hover:bg-harbour-700">
@@ -45,7 +48,11 @@ export function Component() {
           </>
         }
       />
-      {wall.isPending ? <Loading /> : wall.error ? <ErrorPanel message={wall.error.message} /> : (
+      {wall.isPending ? (
+        <Loading />
+      ) : wall.error ? (
+        <ErrorPanel message={wall.error.message} />
+      ) : (
         // the wall is drawn for 3 m away; at a desk the same picture is shown smaller
         <div style={{ zoom: 0.62 }}>
           <WallBoard view={wall.data} theme="light" compact />

@@ -36,7 +36,13 @@ export function Component() {
           </SelectField>
         }
       />
-      {list.isPending ? <Loading /> : list.error ? <ErrorPanel message={list.error.message} /> : <ScanExceptionsList items={list.data} canDecide={canDecide} describe={describe} />}
+      {list.isPending ? (
+        <Loading />
+      ) : list.error ? (
+        <ErrorPanel message={list.error.message} />
+      ) : (
+        <ScanExceptionsList items={list.data} canDecide={canDecide} describe={describe} />
+      )}
     </>
   );
 }

@@ -34,7 +34,12 @@ function TravellerActions({ t, onChanged }: { t: TravellerSummary; onChanged: ()
   if (t.phase === 'merged') return <span className="text-sm text-harbour-700">merged</span>;
   return (
     <span className="flex flex-wrap gap-1">
-      <a className="inline-flex min-h-11 items-center gap-1 rounded-lg px-2 font-bold text-harbour-800 hover:bg-harbour-50" href={trayPdfUrl(t.id)} download aria-label={`Print ${t.number}`}>
+      <a
+        className="inline-flex min-h-11 items-center gap-1 rounded-lg px-2 font-bold text-harbour-800 hover:bg-harbour-50"
+        href={trayPdfUrl(t.id)}
+        download
+        aria-label={`Print ${t.number}`}
+      >
         <Printer className="h-5 w-5" aria-hidden /> Print
       </a>
       <Button
@@ -115,7 +120,10 @@ export function Component() {
                   <Ban className="h-5 w-5" aria-hidden /> Cancel order
                 </Button>
               )}
-              <Link className="inline-flex min-h-11 items-center gap-2 rounded-lg px-4 font-bold text-harbour-800 hover:bg-harbour-50" to={`${paths.newOrder}?repeat=${o.id}`}>
+              <Link
+                className="inline-flex min-h-11 items-center gap-2 rounded-lg px-4 font-bold text-harbour-800 hover:bg-harbour-50"
+                to={`${paths.newOrder}?repeat=${o.id}`}
+              >
                 <Copy className="h-5 w-5" aria-hidden /> Repeat order
               </Link>
             </>

@@ -15,7 +15,8 @@ export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(ordersQueryOptions());
 
 const action = 'inline-flex min-h-11 items-center gap-2 rounded-lg px-4 font-bold';
-const tab = (on: boolean) => `-mb-0.5 flex min-h-11 items-center border-b-4 px-3 font-bold ${on ? 'border-brass-400 text-harbour-900' : 'border-transparent text-harbour-700 hover:text-harbour-900'}`;
+const tab = (on: boolean) =>
+  `-mb-0.5 flex min-h-11 items-center border-b-4 px-3 font-bold ${on ? 'border-brass-400 text-harbour-900' : 'border-transparent text-harbour-700 hover:text-harbour-900'}`;
 
 export function Component() {
   const { t } = useTranslation('orders');
@@ -53,14 +54,23 @@ export function Component() {
       ) : (
         <>
           <nav aria-label={t('list.tabs')} className="mb-4 flex gap-1 border-b-2 border-harbour-100">
-            <button type="button" aria-current={view === 'action' ? 'page' : undefined} className={tab(view === 'action')} onClick={() => filters.set('view', 'action')}>
+            <button
+              type="button"
+              aria-current={view === 'action' ? 'page' : undefined}
+              className={tab(view === 'action')}
+              onClick={() => filters.set('view', 'action')}
+            >
               {t('list.tabAction', { count: needsAction.length })}
             </button>
             <button type="button" aria-current={view === 'all' ? 'page' : undefined} className={tab(view === 'all')} onClick={() => filters.set('view', 'all')}>
               {t('list.tabAll', { count: all.length })}
             </button>
           </nav>
-          {view === 'action' && needsAction.length === 0 ? <EmptyState title={t('list.actionNone')} /> : <OrdersTable orders={shown} showReasons={view === 'action'} />}
+          {view === 'action' && needsAction.length === 0 ? (
+            <EmptyState title={t('list.actionNone')} />
+          ) : (
+            <OrdersTable orders={shown} showReasons={view === 'action'} />
+          )}
         </>
       )}
     </>

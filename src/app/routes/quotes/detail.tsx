@@ -21,7 +21,8 @@ function useFormats() {
   const { i18n } = useTranslation();
   const lang = i18n.language;
   return {
-    money: (x: number, c: string, digits?: number) => new Intl.NumberFormat(lang, { style: 'currency', currency: c, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(x),
+    money: (x: number, c: string, digits?: number) =>
+      new Intl.NumberFormat(lang, { style: 'currency', currency: c, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(x),
     day: (iso: string) => new Date(iso).toLocaleDateString(lang, { day: 'numeric', month: 'short', year: 'numeric' }),
     n: (x: number, digits = 1) => x.toLocaleString(lang, { maximumFractionDigits: digits }),
   };
@@ -84,7 +85,8 @@ function Breakdown({ q, line }: { q: QuoteView; line: QuoteLineView }) {
               {line.steps.map((s) => (
                 <tr key={s.seq} className="border-b border-harbour-50">
                   <th scope="row" className="px-2 py-1 font-normal">
-                    {s.seq}. {t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind })} <span className="text-xs text-harbour-700">{s.name}</span>
+                    {s.seq}. {t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind })}{' '}
+                    <span className="text-xs text-harbour-700">{s.name}</span>
                   </th>
                   <td className={num}>{f.n(s.minutes)}</td>
                   <td className={num}>{f.money(s.cost, q.currency)}</td>
@@ -119,8 +121,8 @@ export function Component() {
         title={`${q.number} · ${q.spec.title}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            {t('detail.forCustomer', { customer: q.customer.name, contact: q.contactName ? `${q.contactName} <${q.contactEmail}>` : q.contactEmail })} · {t('detail.version', { version: q.version })} ·{' '}
-            {t('detail.validUntil', { date: f.day(q.validUntil) })}
+            {t('detail.forCustomer', { customer: q.customer.name, contact: q.contactName ? `${q.contactName} <${q.contactEmail}>` : q.contactEmail })} ·{' '}
+            {t('detail.version', { version: q.version })} · {t('detail.validUntil', { date: f.day(q.validUntil) })}
             <Pill tone={tone[q.status]}>{t(`status.${q.status}`)}</Pill>
           </span>
         }
@@ -131,7 +133,12 @@ export function Component() {
                 <Send className="h-5 w-5" aria-hidden /> {send.isPending ? t('detail.sending') : q.sentAt ? t('detail.sendAgain') : t('detail.send')}
               </Button>
             )}
-            <a className={`${action} border-2 border-harbour-800 bg-white text-harbour-800 hover:bg-harbour-50`} href={quotePdfUrl(q.id)} target="_blank" rel="noreferrer">
+            <a
+              className={`${action} border-2 border-harbour-800 bg-white text-harbour-800 hover:bg-harbour-50`}
+              href={quotePdfUrl(q.id)}
+              target="_blank"
+              rel="noreferrer"
+            >
               <FileDown className="h-5 w-5" aria-hidden /> {t('detail.pdf')}
             </a>
             {open && (
@@ -227,7 +234,13 @@ export function Component() {
         <ul className="text-sm">
           {q.versions.map((v) => (
             <li key={v.version}>
-              {t('detail.versionLine', { version: v.version, date: f.day(v.createdAt), by: v.createdBy ?? '–', quantities: v.quantities.join(' · '), valid: f.day(v.validUntil) })}
+              {t('detail.versionLine', {
+                version: v.version,
+                date: f.day(v.createdAt),
+                by: v.createdBy ?? '–',
+                quantities: v.quantities.join(' · '),
+                valid: f.day(v.validUntil),
+              })}
             </li>
           ))}
         </ul>

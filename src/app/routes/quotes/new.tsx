@@ -52,7 +52,7 @@ function fromQuote(q: QuoteView, keepCustomer: boolean): QuoteFormValues {
   const b = blankQuote();
   return {
     customer: keepCustomer ? q.customer.name : '',
-    contactName: keepCustomer ? q.contactName ?? '' : '',
+    contactName: keepCustomer ? (q.contactName ?? '') : '',
     contactEmail: keepCustomer ? q.contactEmail : '',
     spec: q.spec,
     breaks: breaksOf(q.quantities),

@@ -22,7 +22,9 @@ export function Component() {
   const options = useReportFilterOptions();
   const r = report.data;
   const m = (x: number) => (r ? f.money(x, r.currency) : '');
-  const total = r ? r.rows.reduce((s, g) => ({ quoted: s.quoted + g.quoted, actual: s.actual + g.actual, orders: s.orders + g.orders }), { quoted: 0, actual: 0, orders: 0 }) : null;
+  const total = r
+    ? r.rows.reduce((s, g) => ({ quoted: s.quoted + g.quoted, actual: s.actual + g.actual, orders: s.orders + g.orders }), { quoted: 0, actual: 0, orders: 0 })
+    : null;
   return (
     <ReportFrame filters={filters} onChange={setFilters} customers={options.data?.customers ?? []} csvUrl={costingCsvUrl(params)} note={t('report.note')}>
       {report.isPending ? (
@@ -33,7 +35,12 @@ export function Component() {
         <>
           <Card>
             <p className="text-lg" data-testid="costing-summary">
-              {t('report.summary', { count: total.orders, quoted: m(total.quoted), actual: m(total.actual), variance: f.signed(total.actual - total.quoted, r.currency) })}
+              {t('report.summary', {
+                count: total.orders,
+                quoted: m(total.quoted),
+                actual: m(total.actual),
+                variance: f.signed(total.actual - total.quoted, r.currency),
+              })}
             </p>
             {r.otherCurrency > 0 && <p className="text-sm text-harbour-700">{t('report.otherCurrency', { count: r.otherCurrency })}</p>}
           </Card>

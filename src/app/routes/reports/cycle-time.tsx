@@ -83,7 +83,15 @@ export function Component() {
               <StatTable
                 label={t('cycleTime.table')}
                 head={head}
-                rows={r.stations.map((s) => [kindName(s.stationKind), s.process.n, ...cells(s.process), ...cells(s.processWorking), s.queue.n, ...cells(s.queue), ...cells(s.queueWorking)])}
+                rows={r.stations.map((s) => [
+                  kindName(s.stationKind),
+                  s.process.n,
+                  ...cells(s.process),
+                  ...cells(s.processWorking),
+                  s.queue.n,
+                  ...cells(s.queue),
+                  ...cells(s.queueWorking),
+                ])}
               />
             }
           />

@@ -15,10 +15,7 @@ export function Component() {
   const r = report.data;
   const per = filters.bucket === 'week' ? 'week' : 'day';
   return (
-    <ReportFrame
-      {...frame}
-      note={t('flow.note')}
-    >
+    <ReportFrame {...frame} note={t('flow.note')}>
       {report.isPending ? (
         <Loading label={t('flow.loading')} />
       ) : report.error ? (
@@ -45,14 +42,46 @@ export function Component() {
           <ChartAndTable
             title={per === 'week' ? t('flow.throughputWeek') : t('flow.throughputDay')}
             caption={t('flow.throughputCaption')}
-            chart={<Bars data={r.buckets} x="label" yLabel={t('chart.trays')} series={[{ key: 'trays', name: t('flow.traysShipped') }, { key: 'orders', name: t('flow.ordersShipped') }]} />}
-            table={<StatTable label={t('flow.throughputTable')} head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), t('flow.trays'), t('flow.pieces'), t('flow.orders')]} rows={r.buckets.map((b) => [b.label, b.trays, b.pieces, b.orders])} />}
+            chart={
+              <Bars
+                data={r.buckets}
+                x="label"
+                yLabel={t('chart.trays')}
+                series={[
+                  { key: 'trays', name: t('flow.traysShipped') },
+                  { key: 'orders', name: t('flow.ordersShipped') },
+                ]}
+              />
+            }
+            table={
+              <StatTable
+                label={t('flow.throughputTable')}
+                head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), t('flow.trays'), t('flow.pieces'), t('flow.orders')]}
+                rows={r.buckets.map((b) => [b.label, b.trays, b.pieces, b.orders])}
+              />
+            }
           />
           <ChartAndTable
             title={t('flow.wip')}
             caption={t('flow.wipCaption')}
-            chart={<Lines data={r.buckets} x="label" yLabel={t('chart.trays')} series={[{ key: 'wipAverage', name: t('flow.average') }, { key: 'wipAtEnd', name: t('flow.atEnd') }]} />}
-            table={<StatTable label={t('flow.wipTable')} head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), t('flow.average'), t('flow.atEnd')]} rows={r.buckets.map((b) => [b.label, b.wipAverage, b.wipAtEnd])} />}
+            chart={
+              <Lines
+                data={r.buckets}
+                x="label"
+                yLabel={t('chart.trays')}
+                series={[
+                  { key: 'wipAverage', name: t('flow.average') },
+                  { key: 'wipAtEnd', name: t('flow.atEnd') },
+                ]}
+              />
+            }
+            table={
+              <StatTable
+                label={t('flow.wipTable')}
+                head={[per === 'week' ? t('flow.weekOf') : t('flow.day'), t('flow.average'), t('flow.atEnd')]}
+                rows={r.buckets.map((b) => [b.label, b.wipAverage, b.wipAtEnd])}
+              />
+            }
           />
         </>
       ) : null}

@@ -10,7 +10,13 @@ import { PageHeader } from '@/components/ui/panels';
 export const WITH_SALES: readonly Role[] = [...REPORT_READERS, 'sales'];
 export const handle = { roles: WITH_SALES };
 
-const TABS: { to: string; label: 'summary' | 'leadTime' | 'cycleTime' | 'flow' | 'onTime' | 'yield'; icon: typeof Clock; roles: readonly Role[]; end?: boolean }[] = [
+const TABS: {
+  to: string;
+  label: 'summary' | 'leadTime' | 'cycleTime' | 'flow' | 'onTime' | 'yield';
+  icon: typeof Clock;
+  roles: readonly Role[];
+  end?: boolean;
+}[] = [
   { to: '/reports', label: 'summary', icon: LayoutDashboard, roles: REPORT_READERS, end: true },
   { to: 'lead-time', label: 'leadTime', icon: Clock, roles: WITH_SALES },
   { to: 'cycle-time', label: 'cycleTime', icon: GitCommitVertical, roles: REPORT_READERS },
@@ -23,7 +29,10 @@ export function Component() {
   const me = useMe();
   const { t } = useTranslation(['reports', 'costing']);
   const role = me.data?.user.role;
-  const tabs = [...TABS.map((x) => ({ ...x, label: t(`layout.tab.${x.label}`) })), { to: 'costing', label: t('costing:report.tab'), icon: Scale, roles: COSTING_READERS }];
+  const tabs = [
+    ...TABS.map((x) => ({ ...x, label: t(`layout.tab.${x.label}`) })),
+    { to: 'costing', label: t('costing:report.tab'), icon: Scale, roles: COSTING_READERS },
+  ];
   return (
     <>
       <PageHeader title={t('layout.title')} subtitle={t('layout.subtitle')} />

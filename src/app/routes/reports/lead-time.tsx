@@ -22,13 +22,19 @@ const col = createColumnHelper<LeadTimeOrder>();
 const columnsFor = (tz: string, t: TFunction<['reports', 'common']>) => [
   col.accessor('number', { header: t('leadTime.col.order') }),
   col.accessor('customer', { header: t('leadTime.col.customer') }),
-  col.accessor('process', { header: t('leadTime.col.process'), cell: (c) => t(`common:process.${c.getValue()}` as 'common:process.printed', { defaultValue: c.getValue() }) }),
+  col.accessor('process', {
+    header: t('leadTime.col.process'),
+    cell: (c) => t(`common:process.${c.getValue()}` as 'common:process.printed', { defaultValue: c.getValue() }),
+  }),
   col.accessor('releasedAt', { header: t('leadTime.col.released'), cell: (c) => factoryTime(c.getValue(), tz) }),
   col.accessor('shippedAt', { header: t('leadTime.col.shipped'), cell: (c) => factoryTime(c.getValue(), tz) }),
   col.accessor('calendarHours', { header: t('leadTime.col.calendarH') }),
   col.accessor('workingHours', { header: t('leadTime.col.workingH') }),
   col.accessor('dueDate', { header: t('leadTime.col.due') }),
-  col.accessor('onTime', { header: t('leadTime.onTime'), cell: (c) => (c.getValue() ? <Pill tone="ok">{t('leadTime.onTime')}</Pill> : <Pill tone="stop">{t('leadTime.late')}</Pill>) }),
+  col.accessor('onTime', {
+    header: t('leadTime.onTime'),
+    cell: (c) => (c.getValue() ? <Pill tone="ok">{t('leadTime.onTime')}</Pill> : <Pill tone="stop">{t('leadTime.late')}</Pill>),
+  }),
 ];
 
 export function Component() {
@@ -36,11 +42,7 @@ export function Component() {
   const { report, frame } = useReportPage('lead-time');
   const r = report.data;
   return (
-    <ReportFrame
-      {...frame}
-      percentiles
-      note={t('leadTime.note')}
-    >
+    <ReportFrame {...frame} percentiles note={t('leadTime.note')}>
       {report.isPending ? (
         <Loading label={t('leadTime.loading')} />
       ) : report.error ? (
@@ -52,7 +54,11 @@ export function Component() {
             <StatTable
               label={t('leadTime.summaryTable')}
               head={['', 'n', 'p50', 'p85', 'p95', t('cycleTime.stat.mean')]}
-              rows={[summaryRow(t('leadTime.calendarHours'), r.summary), summaryRow(t('leadTime.calendarDays'), daysOf(r.summary)), summaryRow(t('leadTime.workingHours'), r.summaryWorkingHours)]}
+              rows={[
+                summaryRow(t('leadTime.calendarHours'), r.summary),
+                summaryRow(t('leadTime.calendarDays'), daysOf(r.summary)),
+                summaryRow(t('leadTime.workingHours'), r.summaryWorkingHours),
+              ]}
             />
           </Card>
           <ChartAndTable
@@ -69,12 +75,34 @@ export function Component() {
           />
           <ChartAndTable
             title={t('leadTime.trend')}
-            chart={<Lines data={r.trend} x="week" yLabel={t('leadTime.unit')} series={[{ key: 'p50', name: 'p50' }, { key: 'p85', name: 'p85' }]} />}
-            table={<StatTable label={t('leadTime.trendTable')} head={[t('leadTime.weekOf'), 'n', 'p50', 'p85', t('leadTime.onTime')]} rows={r.trend.map((w) => [w.week, w.n, w.p50 ?? '–', w.p85 ?? '–', w.onTime])} />}
+            chart={
+              <Lines
+                data={r.trend}
+                x="week"
+                yLabel={t('leadTime.unit')}
+                series={[
+                  { key: 'p50', name: 'p50' },
+                  { key: 'p85', name: 'p85' },
+                ]}
+              />
+            }
+            table={
+              <StatTable
+                label={t('leadTime.trendTable')}
+                head={[t('leadTime.weekOf'), 'n', 'p50', 'p85', t('leadTime.onTime')]}
+                rows={r.trend.map((w) => [w.week, w.n, w.p50 ?? '–', w.p85 ?? '–', w.onTime])}
+              />
+            }
           />
           <Card>
             <h2 className="mb-3 text-xl font-bold text-harbour-900">{t('leadTime.orders')}</h2>
-            <DataTable data={r.orders} columns={columnsFor(r.window.timeZone, t)} filterLabel={t('leadTime.find')} caption={t('leadTime.ordersCaption')} initialSorting={[{ id: 'shippedAt', desc: true }]} />
+            <DataTable
+              data={r.orders}
+              columns={columnsFor(r.window.timeZone, t)}
+              filterLabel={t('leadTime.find')}
+              caption={t('leadTime.ordersCaption')}
+              initialSorting={[{ id: 'shippedAt', desc: true }]}
+            />
           </Card>
         </>
       ) : null}

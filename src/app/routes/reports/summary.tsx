@@ -74,7 +74,9 @@ export function Component() {
           <State pending={wip.isPending} error={wip.error}>
             {wip.data && (
               <>
-                <p className="text-3xl font-bold text-ink">{t('summary.wip.value', { trays: num(wip.data.totals.trays, lang), pieces: num(wip.data.totals.pieces, lang) })}</p>
+                <p className="text-3xl font-bold text-ink">
+                  {t('summary.wip.value', { trays: num(wip.data.totals.trays, lang), pieces: num(wip.data.totals.pieces, lang) })}
+                </p>
                 <p className="text-harbour-700">{t('summary.wip.moulds', { count: wip.data.totals.moulds })}</p>
               </>
             )}
@@ -123,10 +125,18 @@ export function Component() {
             <table className="w-full text-left text-sm">
               <thead>
                 <tr className="border-b-2 border-harbour-100">
-                  <th scope="col" className="py-1 pr-2">{t('summary.yield.week')}</th>
-                  <th scope="col" className="py-1 pr-2 text-right">{t('summary.yield.fpy')}</th>
-                  <th scope="col" className="py-1 pr-2 text-right">{t('summary.yield.scrap')}</th>
-                  <th scope="col" className="py-1 text-right">{t('summary.yield.pieces')}</th>
+                  <th scope="col" className="py-1 pr-2">
+                    {t('summary.yield.week')}
+                  </th>
+                  <th scope="col" className="py-1 pr-2 text-right">
+                    {t('summary.yield.fpy')}
+                  </th>
+                  <th scope="col" className="py-1 pr-2 text-right">
+                    {t('summary.yield.scrap')}
+                  </th>
+                  <th scope="col" className="py-1 text-right">
+                    {t('summary.yield.pieces')}
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -152,10 +162,18 @@ export function Component() {
             <table className="w-full text-left text-sm">
               <thead>
                 <tr className="border-b-2 border-harbour-100">
-                  <th scope="col" className="py-1 pr-2">{t('summary.throughput.week')}</th>
-                  <th scope="col" className="py-1 pr-2 text-right">{t('summary.throughput.orders')}</th>
-                  <th scope="col" className="py-1 pr-2 text-right">{t('summary.throughput.trays')}</th>
-                  <th scope="col" className="py-1 text-right">{t('summary.throughput.pieces')}</th>
+                  <th scope="col" className="py-1 pr-2">
+                    {t('summary.throughput.week')}
+                  </th>
+                  <th scope="col" className="py-1 pr-2 text-right">
+                    {t('summary.throughput.orders')}
+                  </th>
+                  <th scope="col" className="py-1 pr-2 text-right">
+                    {t('summary.throughput.trays')}
+                  </th>
+                  <th scope="col" className="py-1 text-right">
+                    {t('summary.throughput.pieces')}
+                  </th>
                 </tr>
               </thead>
               <tbody>

@@ -33,11 +33,7 @@ export function Component() {
   // yields sit near 100 %: the axis starts just below the lowest bar
   const axis = r ? percentAxis(r.steps.flatMap((s) => [s.firstPassYield, s.finalYield])) : null;
   return (
-    <ReportFrame
-      {...frame}
-      stations={stations.data ?? []}
-      note={t('yield.note')}
-    >
+    <ReportFrame {...frame} stations={stations.data ?? []} note={t('yield.note')}>
       {report.isPending ? (
         <Loading label={t('yield.loading')} />
       ) : report.error ? (
@@ -46,15 +42,17 @@ export function Component() {
         <>
           <ChartAndTable
             title={t('yield.perStep')}
-            caption={
-              axis?.zoomed ? t('yield.zoomed', { start: percentText(axis.domain[0], 1) }) : undefined
-            }
+            caption={axis?.zoomed ? t('yield.zoomed', { start: percentText(axis.domain[0], 1) }) : undefined}
             chart={
               <Bars
                 layout="vertical"
                 percent
                 domain={axis?.domain}
-                data={r.steps.map((s) => ({ kind: t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind }), fpy: s.firstPassYield, fy: s.finalYield }))}
+                data={r.steps.map((s) => ({
+                  kind: t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind }),
+                  fpy: s.firstPassYield,
+                  fy: s.finalYield,
+                }))}
                 x="kind"
                 yLabel={t('yield.axis')}
                 series={[
@@ -66,8 +64,26 @@ export function Component() {
             table={
               <StatTable
                 label={t('yield.stepTable')}
-                head={[t('yield.col.kind'), t('yield.col.in'), t('yield.col.passedFirst'), t('yield.col.good'), t('yield.col.scrap'), t('yield.col.reworked'), t('yield.col.firstPass'), t('yield.col.final')]}
-                rows={r.steps.map((s) => [t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind }), s.inQty, s.firstPassQty, s.goodQty, s.scrapQty, s.reworkQty, percentText(s.firstPassYield, 2), percentText(s.finalYield, 2)])}
+                head={[
+                  t('yield.col.kind'),
+                  t('yield.col.in'),
+                  t('yield.col.passedFirst'),
+                  t('yield.col.good'),
+                  t('yield.col.scrap'),
+                  t('yield.col.reworked'),
+                  t('yield.col.firstPass'),
+                  t('yield.col.final'),
+                ]}
+                rows={r.steps.map((s) => [
+                  t(`common:kind.${s.stationKind}` as 'common:kind.fill', { defaultValue: s.stationKind }),
+                  s.inQty,
+                  s.firstPassQty,
+                  s.goodQty,
+                  s.scrapQty,
+                  s.reworkQty,
+                  percentText(s.firstPassYield, 2),
+                  percentText(s.finalYield, 2),
+                ])}
               />
             }
           />
@@ -75,7 +91,13 @@ export function Component() {
             title={t('yield.scrapTitle')}
             caption={t('yield.scrapCaption', { qty: r.rework.qty.toLocaleString('en-GB') })}
             chart={<Pareto data={r.scrap} />}
-            table={<StatTable label={t('yield.scrapTable')} head={[t('yield.scrapCol.reason'), t('yield.scrapCol.pieces'), t('yield.scrapCol.share'), t('yield.scrapCol.running')]} rows={r.scrap.map((s) => [s.name, s.qty, percentText(s.share), percentText(s.cumulativeShare)])} />}
+            table={
+              <StatTable
+                label={t('yield.scrapTable')}
+                head={[t('yield.scrapCol.reason'), t('yield.scrapCol.pieces'), t('yield.scrapCol.share'), t('yield.scrapCol.running')]}
+                rows={r.scrap.map((s) => [s.name, s.qty, percentText(s.share), percentText(s.cumulativeShare)])}
+              />
+            }
           />
           <Card>
             <h2 className="mb-3 text-xl font-bold text-harbour-900">{t('yield.rtyTitle')}</h2>

@@ -50,7 +50,10 @@ function useColumns() {
       }),
       col.accessor('customer', { header: t('search.col.customer') }),
       col.accessor('title', { header: t('search.col.title') }),
-      col.accessor('stage', { header: t('search.col.stage'), cell: (c) => <span title={i18n.language === 'en' ? c.row.original.stageText : undefined}>{stageName(c.getValue())}</span> }),
+      col.accessor('stage', {
+        header: t('search.col.stage'),
+        cell: (c) => <span title={i18n.language === 'en' ? c.row.original.stageText : undefined}>{stageName(c.getValue())}</span>,
+      }),
       col.accessor((o) => o.shippedAt ?? o.projectedShipAt ?? '', { id: 'ship', header: t('search.col.ships'), cell: (c) => <When o={c.row.original} /> }),
       col.accessor('dueDate', { header: t('search.col.due'), cell: (c) => dueDay(c.getValue()) }),
       col.accessor((o) => o.trackingNumbers.join(', '), {

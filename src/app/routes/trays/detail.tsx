@@ -55,7 +55,11 @@ export function Component() {
           mayAct &&
           t.phase !== 'merged' && (
             <>
-              <a className="inline-flex min-h-11 items-center gap-2 rounded-lg bg-harbour-800 px-4 font-bold text-white hover:bg-harbour-700" href={trayPdfUrl(t.id)} download>
+              <a
+                className="inline-flex min-h-11 items-center gap-2 rounded-lg bg-harbour-800 px-4 font-bold text-white hover:bg-harbour-700"
+                href={trayPdfUrl(t.id)}
+                download
+              >
                 <Printer className="h-5 w-5" aria-hidden /> {tr('page.print')}
               </a>
               <Button
@@ -75,9 +79,7 @@ export function Component() {
       <Card>
         <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-[12rem_1fr]">
           <dt className="font-bold text-harbour-700">{tr('page.pieces')}</dt>
-          <dd>
-            {t.kind === 'mould' ? tr('page.aMould') : tr('page.piecesNow', { now: t.quantity, released: t.releasedQuantity })}
-          </dd>
+          <dd>{t.kind === 'mould' ? tr('page.aMould') : tr('page.piecesNow', { now: t.quantity, released: t.releasedQuantity })}</dd>
           <dt className="font-bold text-harbour-700">{tr('page.nextStep')}</dt>
           <dd>{t.nextStep ? `${t.nextStep.seq}. ${t.nextStep.name} (${kindName(t.nextStep.stationKind)})` : t.phase === 'done' ? tr('page.allDone') : '—'}</dd>
           {t.cureReadyAt && (
@@ -99,9 +101,7 @@ export function Component() {
           {t.mould && (
             <>
               <dt className="font-bold text-harbour-700">{tr('page.mould')}</dt>
-              <dd>
-                {tr('page.mouldSide', { side: tr(`page.side.${t.mould.side}`), number: t.mould.number })}
-              </dd>
+              <dd>{tr('page.mouldSide', { side: tr(`page.side.${t.mould.side}`), number: t.mould.number })}</dd>
             </>
           )}
         </dl>

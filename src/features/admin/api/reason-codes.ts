@@ -3,7 +3,8 @@ import { api } from '@/lib/api-client';
 import type { ReasonCodeAdminView, ReasonCodeBody } from '@shared/schemas/admin';
 import { adminKeys } from './admin-keys';
 
-export const reasonCodesAdminQueryOptions = () => queryOptions({ queryKey: adminKeys.reasonCodes(), queryFn: () => api.get<ReasonCodeAdminView[]>('/admin/reason-codes') });
+export const reasonCodesAdminQueryOptions = () =>
+  queryOptions({ queryKey: adminKeys.reasonCodes(), queryFn: () => api.get<ReasonCodeAdminView[]>('/admin/reason-codes') });
 export const useReasonCodesAdmin = () => useQuery(reasonCodesAdminQueryOptions());
 
 export function useSaveReasonCode() {

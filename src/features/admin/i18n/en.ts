@@ -56,7 +56,8 @@ export const en = {
   },
   reasons: {
     title: 'Reason codes',
-    subtitle: 'The reasons operators pick for scrap, rework and holds, in English and Chinese. Codes are never deleted, only switched off, so history keeps its meaning.',
+    subtitle:
+      'The reasons operators pick for scrap, rework and holds, in English and Chinese. Codes are never deleted, only switched off, so history keeps its meaning.',
     add: 'Add a reason',
     find: 'Find a reason',
     caption: 'Reason codes',
@@ -191,7 +192,8 @@ export const en = {
   },
   backups: {
     title: 'Backups',
-    subtitle: 'A backup copies the whole database while the floor keeps scanning. Copies are kept in the data folder under {{folder}}; copy them off this machine as well.',
+    subtitle:
+      'A backup copies the whole database while the floor keeps scanning. Copies are kept in the data folder under {{folder}}; copy them off this machine as well.',
     working: 'Backing up…',
     now: 'Back up now',
     failed: 'No backup made',

@@ -41,7 +41,12 @@ export function CostingCard({ orderId }: { orderId: string }) {
           {t('card.cycles', { actual: c.cureCycles.actual, quoted: c.cureCycles.quoted })} · {t('card.scrap', { count: c.scrapPieces })}
         </p>
         <p className="text-sm text-harbour-700">
-          {t('card.parts', { labour: m(c.actualParts.labour), oven: m(c.actualParts.oven), scrap: m(c.actualParts.scrap), material: m(c.actualParts.material) })}
+          {t('card.parts', {
+            labour: m(c.actualParts.labour),
+            oven: m(c.actualParts.oven),
+            scrap: m(c.actualParts.scrap),
+            material: m(c.actualParts.material),
+          })}
         </p>
         <div className="mt-4 overflow-x-auto" tabIndex={0} aria-label={t('card.caption')}>
           <table className="w-full text-left text-sm">
@@ -69,7 +74,9 @@ export function CostingCard({ orderId }: { orderId: string }) {
                   <td className="px-2 py-1.5 text-right tabular-nums">{f.number(s.actualMinutes)}</td>
                   <td className="px-2 py-1.5 text-right tabular-nums">{m(s.quotedCost)}</td>
                   <td className="px-2 py-1.5 text-right tabular-nums">{m(s.actualCost)}</td>
-                  <td className={`px-2 py-1.5 text-right font-bold tabular-nums ${s.variance > 0 ? 'text-stop-700' : ''}`}>{f.signed(s.variance, c.currency)}</td>
+                  <td className={`px-2 py-1.5 text-right font-bold tabular-nums ${s.variance > 0 ? 'text-stop-700' : ''}`}>
+                    {f.signed(s.variance, c.currency)}
+                  </td>
                   <td className="px-2 py-1.5 text-right tabular-nums">{s.scrap}</td>
                 </tr>
               ))}

@@ -27,10 +27,25 @@ const GROUPS: { name: Grouped; keys: readonly string[]; labels: string }[] = [
 ];
 
 /** Every rate a quote is priced with, in one form checked by the shared schema. */
-export function CostingSettingsForm({ initial, pending, error, saved, onSubmit }: { initial: CostingSettings; pending: boolean; error?: string | null; saved: boolean; onSubmit: (s: CostingSettings) => void }) {
+export function CostingSettingsForm({
+  initial,
+  pending,
+  error,
+  saved,
+  onSubmit,
+}: {
+  initial: CostingSettings;
+  pending: boolean;
+  error?: string | null;
+  saved: boolean;
+  onSubmit: (s: CostingSettings) => void;
+}) {
   const { t } = useTranslation(['costing', 'common']);
   // the schema's per-key records read as unknown on the way in; the form holds numbers
-  const form = useForm<CostingSettings, unknown, CostingSettings>({ resolver: zodResolver(costingSettingsSchema) as unknown as Resolver<CostingSettings, unknown, CostingSettings>, defaultValues: initial });
+  const form = useForm<CostingSettings, unknown, CostingSettings>({
+    resolver: zodResolver(costingSettingsSchema) as unknown as Resolver<CostingSettings, unknown, CostingSettings>,
+    defaultValues: initial,
+  });
   const { register, handleSubmit, formState } = form;
   const e = formState.errors as Record<string, { message?: string } & Record<string, { message?: string }>>;
   return (
@@ -39,7 +54,15 @@ export function CostingSettingsForm({ initial, pending, error, saved, onSubmit }
         <legend className="mb-2 text-lg font-bold text-harbour-900">{t('settings.general')}</legend>
         <TextField label={t('settings.field.currency')} {...register('currency')} error={e.currency?.message} hint={t('settings.hint.currency')} />
         {SCALARS.flat().map((k) => (
-          <TextField key={k} label={t(`settings.field.${k}`)} type="number" step="any" inputMode="decimal" {...register(k, { valueAsNumber: true })} error={e[k]?.message} />
+          <TextField
+            key={k}
+            label={t(`settings.field.${k}`)}
+            type="number"
+            step="any"
+            inputMode="decimal"
+            {...register(k, { valueAsNumber: true })}
+            error={e[k]?.message}
+          />
         ))}
       </fieldset>
       {GROUPS.map((g) => (

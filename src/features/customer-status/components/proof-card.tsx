@@ -33,18 +33,30 @@ export function ProofCard({ token, proof, canAnswer, day }: { token: string; pro
   return (
     <article aria-label={t('proofs.revision', { revision: proof.revision })} className="flex flex-col gap-3 rounded-lg border border-harbour-100 p-3">
       <h3 className="text-lg font-bold text-harbour-900">{t('proofs.revision', { revision: proof.revision })}</h3>
-      {proof.thumbnailUrl && <img src={proof.thumbnailUrl} alt={t('proofs.thumbAlt', { revision: proof.revision })} className="max-h-72 w-full rounded border border-harbour-100 bg-white object-contain" />}
+      {proof.thumbnailUrl && (
+        <img
+          src={proof.thumbnailUrl}
+          alt={t('proofs.thumbAlt', { revision: proof.revision })}
+          className="max-h-72 w-full rounded border border-harbour-100 bg-white object-contain"
+        />
+      )}
       <a href={proof.fileUrl} target="_blank" rel="noreferrer" className="inline-flex min-h-11 items-center gap-2 font-bold text-harbour-800 underline">
         <FileText className="h-5 w-5" aria-hidden /> {t('proofs.open', { revision: proof.revision })}
       </a>
       {proof.approvedAt && (
         <p className="flex items-center gap-2 font-bold text-ok-700">
           <CheckCircle2 className="h-5 w-5" aria-hidden />
-          {proof.approvedByName ? t('proofs.approvedBy', { name: proof.approvedByName, date: day(proof.approvedAt) }) : t('proofs.approvedOn', { date: day(proof.approvedAt) })}
+          {proof.approvedByName
+            ? t('proofs.approvedBy', { name: proof.approvedByName, date: day(proof.approvedAt) })
+            : t('proofs.approvedOn', { date: day(proof.approvedAt) })}
         </p>
       )}
       {!proof.latest && !proof.approvedAt && <p className="text-harbour-700">{t('proofs.replaced')}</p>}
-      {proof.changesRequestedAt && !proof.approvedAt && <p className="rounded bg-warn-50 p-2 text-ink">{t('proofs.changesSent', { date: day(proof.changesRequestedAt), comment: proof.changesComment ?? '' })}</p>}
+      {proof.changesRequestedAt && !proof.approvedAt && (
+        <p className="rounded bg-warn-50 p-2 text-ink">
+          {t('proofs.changesSent', { date: day(proof.changesRequestedAt), comment: proof.changesComment ?? '' })}
+        </p>
+      )}
       {open && (
         <div className="flex flex-col gap-3">
           <p className="text-ink">{t('proofs.checkIt')}</p>
@@ -58,7 +70,12 @@ export function ProofCard({ token, proof, canAnswer, day }: { token: string; pro
           </div>
           {mode === 'approve' ? (
             <form noValidate className="flex flex-col gap-3" onSubmit={approveForm.handleSubmit((body) => approve.mutate({ revision: proof.revision, body }))}>
-              <TextField label={t('proofs.nameLabel')} autoComplete="name" {...approveForm.register('name')} error={approveForm.formState.errors.name ? t('proofs.nameError') : undefined} />
+              <TextField
+                label={t('proofs.nameLabel')}
+                autoComplete="name"
+                {...approveForm.register('name')}
+                error={approveForm.formState.errors.name ? t('proofs.nameError') : undefined}
+              />
               <Button type="submit" size="lg" disabled={approve.isPending}>
                 {approve.isPending ? t('proofs.approving') : t('proofs.approve')}
               </Button>
@@ -66,7 +83,12 @@ export function ProofCard({ token, proof, canAnswer, day }: { token: string; pro
             </form>
           ) : (
             <form noValidate className="flex flex-col gap-3" onSubmit={changesForm.handleSubmit((body) => changes.mutate({ revision: proof.revision, body }))}>
-              <TextAreaField label={t('proofs.changesLabel')} rows={4} {...changesForm.register('comment')} error={changesForm.formState.errors.comment ? t('proofs.changesError') : undefined} />
+              <TextAreaField
+                label={t('proofs.changesLabel')}
+                rows={4}
+                {...changesForm.register('comment')}
+                error={changesForm.formState.errors.comment ? t('proofs.changesError') : undefined}
+              />
               <Button type="submit" size="lg" disabled={changes.isPending}>
                 {changes.isPending ? t('proofs.sending') : t('proofs.askChanges')}
               </Button>

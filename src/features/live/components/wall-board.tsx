@@ -82,7 +82,23 @@ export function leftText(ms: number, t: TFunction<'live'> = i18n.getFixedT(null,
 }
 
 // Everything on the wall is read from about 3 m: no text under 28 px (text-3xl is 30 px).
-function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: ReactNode; label: string; trays: number; pieces: number; theme: WallTheme; testId: string; quiet: boolean }) {
+function Figure({
+  icon,
+  label,
+  trays,
+  pieces,
+  theme,
+  testId,
+  quiet,
+}: {
+  icon: ReactNode;
+  label: string;
+  trays: number;
+  pieces: number;
+  theme: WallTheme;
+  testId: string;
+  quiet: boolean;
+}) {
   const t = THEMES[theme];
   const { t: tr } = useTranslation('live');
   return (
@@ -91,7 +107,11 @@ function Figure({ icon, label, trays, pieces, theme, testId, quiet }: { icon: Re
         {icon}
         {label}
       </span>
-      <span className={`${quiet ? 'text-3xl' : 'text-4xl'} leading-tight font-bold tabular-nums ${t.strong}`} data-testid={`count-${testId}`} aria-label={tr(trays === 1 ? 'board.countOne' : 'board.countMany', { trays: fmt(trays), pieces: fmt(pieces) })}>
+      <span
+        className={`${quiet ? 'text-3xl' : 'text-4xl'} leading-tight font-bold tabular-nums ${t.strong}`}
+        data-testid={`count-${testId}`}
+        aria-label={tr(trays === 1 ? 'board.countOne' : 'board.countMany', { trays: fmt(trays), pieces: fmt(pieces) })}
+      >
         {fmt(trays)}
       </span>
     </div>
@@ -126,13 +146,47 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
         </span>
       )}
       <div className="flex flex-col">
-        <Figure theme={theme} testId="waiting" icon={<Hourglass className="h-5 w-5" aria-hidden />} label={tr('board.waiting')} quiet={idle} trays={kind.waiting.trays} pieces={kind.waiting.pieces} />
+        <Figure
+          theme={theme}
+          testId="waiting"
+          icon={<Hourglass className="h-5 w-5" aria-hidden />}
+          label={tr('board.waiting')}
+          quiet={idle}
+          trays={kind.waiting.trays}
+          pieces={kind.waiting.pieces}
+        />
         {oven ? (
-          <Figure theme={theme} testId="curing" icon={<Flame className="h-5 w-5" aria-hidden />} label={tr('board.curing')} quiet={idle} trays={kind.curing.trays} pieces={kind.curing.pieces} />
+          <Figure
+            theme={theme}
+            testId="curing"
+            icon={<Flame className="h-5 w-5" aria-hidden />}
+            label={tr('board.curing')}
+            quiet={idle}
+            trays={kind.curing.trays}
+            pieces={kind.curing.pieces}
+          />
         ) : (
-          <Figure theme={theme} testId="in-process" icon={<Wrench className="h-5 w-5" aria-hidden />} label={tr('board.inProcess')} quiet={idle} trays={kind.inProcess.trays} pieces={kind.inProcess.pieces} />
+          <Figure
+            theme={theme}
+            testId="in-process"
+            icon={<Wrench className="h-5 w-5" aria-hidden />}
+            label={tr('board.inProcess')}
+            quiet={idle}
+            trays={kind.inProcess.trays}
+            pieces={kind.inProcess.pieces}
+          />
         )}
-        {kind.held > 0 && <Figure theme={theme} testId="held" icon={<PauseCircle className="h-7 w-7" aria-hidden />} label={tr('board.held')} quiet={false} trays={kind.held} pieces={0} />}
+        {kind.held > 0 && (
+          <Figure
+            theme={theme}
+            testId="held"
+            icon={<PauseCircle className="h-7 w-7" aria-hidden />}
+            label={tr('board.held')}
+            quiet={false}
+            trays={kind.held}
+            pieces={0}
+          />
+        )}
       </div>
       <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-3xl ${t.muted}`}>
         {kind.oldestMinutes != null && (
@@ -146,7 +200,21 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
   );
 }
 
-function Panel({ title, icon, children, theme, count, id }: { title: string; icon: ReactNode; children: ReactNode; theme: WallTheme; count?: number; id?: string }) {
+function Panel({
+  title,
+  icon,
+  children,
+  theme,
+  count,
+  id,
+}: {
+  title: string;
+  icon: ReactNode;
+  children: ReactNode;
+  theme: WallTheme;
+  count?: number;
+  id?: string;
+}) {
   const t = THEMES[theme];
   return (
     <section id={id} aria-label={title} className={`flex min-h-0 flex-1 scroll-mt-4 flex-col rounded-2xl border-4 px-4 py-3 ${t.panel}`}>
@@ -182,16 +250,40 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const holdReason = (h: WallView['holds'][number]) => (i18n.language === 'zh-CN' && h.reasonZh ? h.reasonZh : h.reason);
   // one list of what waits for a supervisor: refusals, holds, then overrides already used
   const needs = [
-    ...view.refusals.map((r) => ({ key: `r${r.id}`, icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.refused'), text: `${r.trayNumber ?? tr('board.unknownTray')} · ${r.stationName ?? tr('board.aStation')}`, full: i18n.language === 'zh-CN' ? tr(`common:rejection.${r.code}` as 'common:rejection.on_hold', { defaultValue: r.message }) : r.message, muted: false })),
-    ...view.holds.map((h) => ({ key: `h${h.trayId}`, icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.onHold'), text: `${h.number} · ${holdReason(h) ?? kindName(h.stationKind)}`, full: holdReason(h) ?? '', muted: false })),
-    ...view.overrides.map((o) => ({ key: `o${o.id}`, icon: <Hand className="mr-1 inline h-7 w-7" aria-hidden />, label: tr('board.override'), text: `${o.trayNumber} · ${o.supervisorName ?? tr('board.aSupervisor')}`, full: o.reason, muted: true })),
+    ...view.refusals.map((r) => ({
+      key: `r${r.id}`,
+      icon: <AlertOctagon className="mr-1 inline h-7 w-7" aria-hidden />,
+      label: tr('board.refused'),
+      text: `${r.trayNumber ?? tr('board.unknownTray')} · ${r.stationName ?? tr('board.aStation')}`,
+      full: i18n.language === 'zh-CN' ? tr(`common:rejection.${r.code}` as 'common:rejection.on_hold', { defaultValue: r.message }) : r.message,
+      muted: false,
+    })),
+    ...view.holds.map((h) => ({
+      key: `h${h.trayId}`,
+      icon: <PauseCircle className="mr-1 inline h-7 w-7" aria-hidden />,
+      label: tr('board.onHold'),
+      text: `${h.number} · ${holdReason(h) ?? kindName(h.stationKind)}`,
+      full: holdReason(h) ?? '',
+      muted: false,
+    })),
+    ...view.overrides.map((o) => ({
+      key: `o${o.id}`,
+      icon: <Hand className="mr-1 inline h-7 w-7" aria-hidden />,
+      label: tr('board.override'),
+      text: `${o.trayNumber} · ${o.supervisorName ?? tr('board.aSupervisor')}`,
+      full: o.reason,
+      muted: true,
+    })),
   ];
   // the wall has room for a few one-line entries; the floor page (compact) lists them all
   const shownNeeds = compact ? needs.length : 3;
   const shownRisk = compact ? view.atRisk.length : 3;
   return (
     <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_440px] grid-rows-[minmax(0,1fr)]'}`}>
-      <div className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-5'}`} style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(active.length / 5))}, minmax(0, 1fr))` }}>
+      <div
+        className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-5'}`}
+        style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(active.length / 5))}, minmax(0, 1fr))` }}
+      >
         {active.map((k) => (
           <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />
         ))}
@@ -200,7 +292,8 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
         {view.bottleneck && (
           <p className={`truncate rounded-2xl border-4 px-4 py-2 text-3xl ${t.tileHot}`} data-testid="bottleneck-note">
             <TrendingUp className="mr-2 inline h-7 w-7" aria-hidden />
-            <strong>{kindName(view.bottleneck.stationKind)}</strong>{tr('board.bottleneckNote', { waiting: view.bottleneck.waitingTrays, capacity: view.bottleneck.capacityTrays })}
+            <strong>{kindName(view.bottleneck.stationKind)}</strong>
+            {tr('board.bottleneckNote', { waiting: view.bottleneck.waitingTrays, capacity: view.bottleneck.capacityTrays })}
           </p>
         )}
         <Panel theme={theme} title={tr('board.cureTitle')} icon={<Timer className="h-8 w-8" aria-hidden />} count={view.curing.length}>
@@ -240,7 +333,17 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
         <Panel id="at-risk" theme={theme} title={tr('board.riskTitle')} icon={<AlertOctagon className="h-8 w-8" aria-hidden />} count={view.atRisk.length}>
           <ul className="flex flex-col gap-1 text-3xl">
             {view.atRisk.slice(0, shownRisk).map((o) => (
-              <li key={o.orderId} className="truncate" title={tr('board.riskDetail', { number: o.number, customer: o.customer, risk: tr(o.risk === 'late' ? 'board.late' : 'board.atRisk'), due: formatDueDay(o.dueDate), expected: factoryTime(o.expectedAt, tz) })}>
+              <li
+                key={o.orderId}
+                className="truncate"
+                title={tr('board.riskDetail', {
+                  number: o.number,
+                  customer: o.customer,
+                  risk: tr(o.risk === 'late' ? 'board.late' : 'board.atRisk'),
+                  due: formatDueDay(o.dueDate),
+                  expected: factoryTime(o.expectedAt, tz),
+                })}
+              >
                 <strong>{o.number}</strong> {tr(o.risk === 'late' ? 'board.late' : 'board.atRisk')} · {o.customer}
               </li>
             ))}

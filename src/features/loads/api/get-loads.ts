@@ -3,7 +3,8 @@ import { api } from '@/lib/api-client';
 import type { CreateLoadBody, LoadView, LoadsOverview } from '@shared/schemas/loads';
 import { loadsKeys } from './loads-keys';
 
-export const loadsQueryOptions = () => queryOptions({ queryKey: loadsKeys.overview(), queryFn: () => api.get<LoadsOverview>('/loads'), refetchInterval: 30_000 });
+export const loadsQueryOptions = () =>
+  queryOptions({ queryKey: loadsKeys.overview(), queryFn: () => api.get<LoadsOverview>('/loads'), refetchInterval: 30_000 });
 export const useLoads = () => useQuery(loadsQueryOptions());
 
 export function useCreateLoad() {

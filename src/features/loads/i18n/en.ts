@@ -2,7 +2,8 @@
 export const en = {
   title: 'Oven & bath loads',
   subtitle: 'Trays waiting for the oven, by cure profile, and for plating, by finish: choose trays from any orders to fill a load.',
-  safety: 'Ovens are hot and plating baths hold corrosive and toxic chemicals: heat-resistant gloves, goggles and ventilation as the station notes say. Local regulations and the factory’s own procedures take precedence.',
+  safety:
+    'Ovens are hot and plating baths hold corrosive and toxic chemicals: heat-resistant gloves, goggles and ventilation as the station notes say. Local regulations and the factory’s own procedures take precedence.',
   open: 'Open loads',
   waitingOven: 'Waiting for the oven',
   waitingPlating: 'Waiting for plating',

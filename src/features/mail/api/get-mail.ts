@@ -3,10 +3,12 @@ import { api } from '@/lib/api-client';
 import type { CaughtMail, MailQueueItem } from '@shared/schemas/shipping';
 import { mailKeys } from './mail-keys';
 
-export const caughtMailQueryOptions = () => queryOptions({ queryKey: mailKeys.caught(), queryFn: () => api.get<CaughtMail[]>('/mail'), refetchInterval: 10_000 });
+export const caughtMailQueryOptions = () =>
+  queryOptions({ queryKey: mailKeys.caught(), queryFn: () => api.get<CaughtMail[]>('/mail'), refetchInterval: 10_000 });
 export const useCaughtMail = () => useQuery(caughtMailQueryOptions());
 
-export const mailQueueQueryOptions = () => queryOptions({ queryKey: mailKeys.queue(), queryFn: () => api.get<MailQueueItem[]>('/mail/queue', { limit: 50 }), refetchInterval: 10_000 });
+export const mailQueueQueryOptions = () =>
+  queryOptions({ queryKey: mailKeys.queue(), queryFn: () => api.get<MailQueueItem[]>('/mail/queue', { limit: 50 }), refetchInterval: 10_000 });
 export const useMailQueue = () => useQuery(mailQueueQueryOptions());
 
 export function useRetryMail() {

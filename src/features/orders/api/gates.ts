@@ -27,7 +27,8 @@ export function useUploadProof(orderId: string) {
 export function useApproveProof(orderId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ revision, body }: { revision: number; body: ProofApprovalBody }) => api.post<OrderDetail>(`/orders/${orderId}/proofs/${revision}/approve`, body),
+    mutationFn: ({ revision, body }: { revision: number; body: ProofApprovalBody }) =>
+      api.post<OrderDetail>(`/orders/${orderId}/proofs/${revision}/approve`, body),
     onSuccess: () => qc.invalidateQueries({ queryKey: ordersKeys.all }),
   });
 }

@@ -42,8 +42,8 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
     <Gate ok={ok || order.releasedAt != null} title="Payment">
       {order.payment.required != null && (
         <p data-testid="payment-due">
-          Price {order.payment.priceTotal?.toFixed(2)} {order.payment.currency} · due before release ({order.payment.depositPct} %) {order.payment.required.toFixed(2)} · paid {order.paidTotal.toFixed(2)} ·{' '}
-          <strong>still due {(order.payment.amountDue ?? 0).toFixed(2)}</strong>
+          Price {order.payment.priceTotal?.toFixed(2)} {order.payment.currency} · due before release ({order.payment.depositPct} %){' '}
+          {order.payment.required.toFixed(2)} · paid {order.paidTotal.toFixed(2)} · <strong>still due {(order.payment.amountDue ?? 0).toFixed(2)}</strong>
         </p>
       )}
       {order.payments.length > 0 && (
@@ -73,7 +73,14 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
         className="flex flex-wrap items-end gap-3"
         onSubmit={form.handleSubmit((v) => pay.mutate(v, { onSuccess: () => form.reset() }))}
       >
-        <TextField label="Amount" type="number" step="0.01" inputMode="decimal" {...form.register('amount', { valueAsNumber: true })} error={form.formState.errors.amount?.message} />
+        <TextField
+          label="Amount"
+          type="number"
+          step="0.01"
+          inputMode="decimal"
+          {...form.register('amount', { valueAsNumber: true })}
+          error={form.formState.errors.amount?.message}
+        />
         <TextField label="Payment reference" {...form.register('reference')} error={form.formState.errors.reference?.message} />
         <Button type="submit" disabled={pay.isPending}>
           Record payment
@@ -137,7 +144,8 @@ function ProofGate({ order }: { order: OrderDetail }) {
                 </Pill>
               ) : p.changesRequestedAt ? (
                 <p role="status" className="w-full rounded bg-warn-50 p-2 text-ink">
-                  <strong>Changes asked for</strong> on the order page ({formatDateTime(p.changesRequestedAt)}): “{p.changesComment}”. Upload a new revision for the customer to approve.
+                  <strong>Changes asked for</strong> on the order page ({formatDateTime(p.changesRequestedAt)}): “{p.changesComment}”. Upload a new revision for
+                  the customer to approve.
                 </p>
               ) : p.revision === latest?.revision ? (
                 <Pill tone="warn">Waiting for the customer</Pill>
@@ -157,7 +165,13 @@ function ProofGate({ order }: { order: OrderDetail }) {
             approve.mutate({ revision: latest.revision, body: { approvedOn } });
           }}
         >
-          <TextField label="Approved by the customer on" type="date" value={approvedOn} max={factoryTodayDate()} onChange={(ev) => setApprovedOn(ev.target.value)} />
+          <TextField
+            label="Approved by the customer on"
+            type="date"
+            value={approvedOn}
+            max={factoryTodayDate()}
+            onChange={(ev) => setApprovedOn(ev.target.value)}
+          />
           <Button type="submit" disabled={approve.isPending}>
             Approve revision {latest.revision}
           </Button>

@@ -174,7 +174,9 @@ export function ImportPanel() {
             <>
               <p className="mb-4 flex flex-wrap gap-2">
                 <Pill tone="ok">{t('import.ready', { count: result.validCount })}</Pill>
-                <Pill tone={result.rows.length - result.validCount ? 'stop' : 'neutral'}>{t('import.withErrors', { count: result.rows.length - result.validCount })}</Pill>
+                <Pill tone={result.rows.length - result.validCount ? 'stop' : 'neutral'}>
+                  {t('import.withErrors', { count: result.rows.length - result.validCount })}
+                </Pill>
                 {warned > 0 && <Pill tone="warn">{t('import.withWarnings', { count: warned })}</Pill>}
               </p>
               <PreviewTable preview={result} />

@@ -3,15 +3,7 @@ import { factoryDateInDays } from '@/lib/datetime';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Plus, Trash2, AlertTriangle } from 'lucide-react';
-import {
-  MAX_COLOURS,
-  OVERRUN_DEFAULT_PCT,
-  PRODUCT_TYPES,
-  orderSpecSchema,
-  specWarnings,
-  type OrderSpec,
-  type OrderSpecInput,
-} from '@shared/schemas/orders';
+import { MAX_COLOURS, OVERRUN_DEFAULT_PCT, PRODUCT_TYPES, orderSpecSchema, specWarnings, type OrderSpec, type OrderSpecInput } from '@shared/schemas/orders';
 import { BACKING_TYPES, MATERIALS, PACKAGINGS, PLATINGS, PROCESSES } from '@shared/domain/vocabulary';
 import { releasedQuantity } from '@shared/domain/trays';
 import { CheckboxField, SelectField, TextAreaField, TextField } from '@/components/ui/field';
@@ -250,7 +242,13 @@ export function OrderForm({
             </option>
           ))}
         </SelectField>
-        <TextField label={t('form.backingCount')} type="number" inputMode="numeric" {...register('backing.count', { valueAsNumber: true })} error={e.backing?.count?.message} />
+        <TextField
+          label={t('form.backingCount')}
+          type="number"
+          inputMode="numeric"
+          {...register('backing.count', { valueAsNumber: true })}
+          error={e.backing?.count?.message}
+        />
         <SelectField label={t('form.packaging')} {...register('packaging')} error={e.packaging?.message}>
           {PACKAGINGS.map((p) => (
             <option key={p} value={p}>

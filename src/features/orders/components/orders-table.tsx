@@ -14,7 +14,15 @@ import { formatDate, formatDueDay } from '@/lib/labels';
 const col = createColumnHelper<OrderListItem>();
 
 const statusTone = (s: OrderListItem['status']) =>
-  s === 'shipped' ? 'ok' : s === 'on_hold' || s === 'cancelled' ? 'stop' : s === 'awaiting_payment' || s === 'awaiting_proof' ? 'warn' : s === 'draft' ? 'info' : 'neutral';
+  s === 'shipped'
+    ? 'ok'
+    : s === 'on_hold' || s === 'cancelled'
+      ? 'stop'
+      : s === 'awaiting_payment' || s === 'awaiting_proof'
+        ? 'warn'
+        : s === 'draft'
+          ? 'info'
+          : 'neutral';
 
 const select = 'min-h-11 rounded-lg border-2 border-harbour-100 bg-white px-2 font-normal';
 
@@ -32,7 +40,16 @@ export function useOrderFilters() {
       },
       { replace: true },
     );
-  return { q: get('q'), status: get('status'), process: get('process'), customer: get('customer'), dueBy: get('due'), lateOnly: get('late') === '1', view: get('view'), set };
+  return {
+    q: get('q'),
+    status: get('status'),
+    process: get('process'),
+    customer: get('customer'),
+    dueBy: get('due'),
+    lateOnly: get('late') === '1',
+    view: get('view'),
+    set,
+  };
 }
 
 /** Orders with filters by status, process, customer, due date and lateness, plus a search that also finds tray numbers. */

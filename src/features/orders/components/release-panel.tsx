@@ -30,7 +30,10 @@ export function ReleasePanel({ order }: { order: OrderDetail }) {
   const tooMany = sizeOk && Math.ceil(order.releasedQuantity / traySize) > MAX_TRAYS_PER_RELEASE;
   const blocked = order.openGates.length > 0;
   const moulds = order.mouldPlan
-    .map((m) => `${MOULD_TOOL_NAMES[m.tool].toLowerCase()} ${m.reuse ? `(stored ${m.mouldNumber}: check only)` : `(new: ${m.tool === 'cutting_die' ? 'make' : 'engrave'} and check)`}`)
+    .map(
+      (m) =>
+        `${MOULD_TOOL_NAMES[m.tool].toLowerCase()} ${m.reuse ? `(stored ${m.mouldNumber}: check only)` : `(new: ${m.tool === 'cutting_die' ? 'make' : 'engrave'} and check)`}`,
+    )
     .join(', ');
 
   return (

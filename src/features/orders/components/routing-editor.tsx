@@ -116,7 +116,11 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
               <tr key={i} className="border-t border-harbour-100">
                 <td className="px-2 py-1 font-bold">{i + 1}</td>
                 <td className="px-2 py-1">
-                  {editing ? <input aria-label={`Step ${i + 1} name`} className={cell} value={s.name} onChange={(e) => change(i, { name: e.target.value })} /> : s.name}
+                  {editing ? (
+                    <input aria-label={`Step ${i + 1} name`} className={cell} value={s.name} onChange={(e) => change(i, { name: e.target.value })} />
+                  ) : (
+                    s.name
+                  )}
                 </td>
                 <td className="px-2 py-1">
                   {editing ? (
@@ -141,14 +145,30 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                 </td>
                 <td className="px-2 py-1">
                   {editing ? (
-                    <input aria-label={`Step ${i + 1} minutes per tray`} type="number" min={0} step="0.5" className={cell} value={s.trayMinutes} onChange={(e) => change(i, { trayMinutes: Number(e.target.value) })} />
+                    <input
+                      aria-label={`Step ${i + 1} minutes per tray`}
+                      type="number"
+                      min={0}
+                      step="0.5"
+                      className={cell}
+                      value={s.trayMinutes}
+                      onChange={(e) => change(i, { trayMinutes: Number(e.target.value) })}
+                    />
                   ) : (
                     s.trayMinutes
                   )}
                 </td>
                 <td className="px-2 py-1">
                   {editing ? (
-                    <input aria-label={`Step ${i + 1} minutes per piece`} type="number" min={0} step="0.01" className={cell} value={s.pieceMinutes} onChange={(e) => change(i, { pieceMinutes: Number(e.target.value) })} />
+                    <input
+                      aria-label={`Step ${i + 1} minutes per piece`}
+                      type="number"
+                      min={0}
+                      step="0.01"
+                      className={cell}
+                      value={s.pieceMinutes}
+                      onChange={(e) => change(i, { pieceMinutes: Number(e.target.value) })}
+                    />
                   ) : (
                     s.pieceMinutes
                   )}
@@ -193,7 +213,12 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
       {editing && (
         <div className="mt-3 flex flex-col gap-3">
           <div>
-            <Button variant="secondary" onClick={() => setDraft([...steps, { name: 'New step', stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, cureMinutes: null, colour: null }])}>
+            <Button
+              variant="secondary"
+              onClick={() =>
+                setDraft([...steps, { name: 'New step', stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, cureMinutes: null, colour: null }])
+              }
+            >
               <Plus className="h-5 w-5" aria-hidden /> Add a step
             </Button>
           </div>

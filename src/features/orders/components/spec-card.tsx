@@ -28,7 +28,12 @@ export function SpecCard({ order, projected }: { order: OrderDetail; projected?:
   // English writes a second name in lower case inside a sentence; Chinese has no case
   const lower = (x: string) => (zh ? x : x.toLowerCase());
   const plating = (p: string) => t(`common:plating.${p}` as 'common:plating.gold', { defaultValue: p });
-  const extras = [s.backLogo && t('specCard.extra.backLogo'), s.printing && t('specCard.extra.printing'), s.epoxy && t('specCard.extra.epoxy'), s.sandblast && t('specCard.extra.sandblast')].filter(Boolean);
+  const extras = [
+    s.backLogo && t('specCard.extra.backLogo'),
+    s.printing && t('specCard.extra.printing'),
+    s.epoxy && t('specCard.extra.epoxy'),
+    s.sandblast && t('specCard.extra.sandblast'),
+  ].filter(Boolean);
   const rows: [string, ReactNode][] = [
     [t('specCard.customer'), order.customer.name],
     [
@@ -36,10 +41,15 @@ export function SpecCard({ order, projected }: { order: OrderDetail; projected?:
       `${t(`product.${s.productType}` as 'product.pin', { defaultValue: s.productType })} · ${t(`common:process.${s.process}` as 'common:process.printed', { defaultValue: s.process })} · ${t(`common:material.${s.material}` as 'common:material.iron', { defaultValue: s.material })} · ${s.sizeMm} mm`,
     ],
     [t('specCard.quantity'), t('specCard.quantityValue', { quantity: s.quantity, overrun: s.overrunPct, released: order.releasedQuantity })],
-    [t('specCard.plating'), s.secondPlating ? t('specCard.twoTone', { first: plating(s.plating), second: lower(plating(s.secondPlating)) }) : plating(s.plating)],
+    [
+      t('specCard.plating'),
+      s.secondPlating ? t('specCard.twoTone', { first: plating(s.plating), second: lower(plating(s.secondPlating)) }) : plating(s.plating),
+    ],
     [
       t('specCard.fittings'),
-      s.backing.type === 'none' || s.backing.count === 0 ? t('specCard.none') : `${s.backing.count} × ${lower(t(`common:backing.${s.backing.type}` as 'common:backing.none', { defaultValue: s.backing.type }))}`,
+      s.backing.type === 'none' || s.backing.count === 0
+        ? t('specCard.none')
+        : `${s.backing.count} × ${lower(t(`common:backing.${s.backing.type}` as 'common:backing.none', { defaultValue: s.backing.type }))}`,
     ],
     [t('specCard.extras'), extras.join(zh ? '、' : ', ') || t('specCard.none')],
     [t('specCard.packaging'), t(`common:packaging.${s.packaging}` as 'common:packaging.bulk', { defaultValue: s.packaging })],
@@ -71,9 +81,7 @@ export function SpecCard({ order, projected }: { order: OrderDetail; projected?:
         )}
         <dt className="font-bold text-harbour-700">{t('specCard.colours')}</dt>
         <dd className="flex flex-wrap gap-2">
-          {s.colours.length === 0
-            ? t('specCard.none')
-            : s.colours.map((c, i) => <Swatch key={i} name={`${i + 1}. ${c.name}`} hex={c.hex} refCode={c.ref} />)}
+          {s.colours.length === 0 ? t('specCard.none') : s.colours.map((c, i) => <Swatch key={i} name={`${i + 1}. ${c.name}`} hex={c.hex} refCode={c.ref} />)}
         </dd>
         {s.notes && (
           <>

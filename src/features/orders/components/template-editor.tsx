@@ -22,10 +22,30 @@ function Cap({ caption, children }: { caption: string; children: ReactNode }) {
   );
 }
 
-function NumberCell({ label, caption, value, onChange, step = '0.5' }: { label: string; caption: string; value: number; onChange: (v: number) => void; step?: string }) {
+function NumberCell({
+  label,
+  caption,
+  value,
+  onChange,
+  step = '0.5',
+}: {
+  label: string;
+  caption: string;
+  value: number;
+  onChange: (v: number) => void;
+  step?: string;
+}) {
   return (
     <Cap caption={caption}>
-      <input aria-label={label} type="number" min={0} step={step} className={`${input} w-24`} value={value} onChange={(e) => onChange(Number(e.target.value))} />
+      <input
+        aria-label={label}
+        type="number"
+        min={0}
+        step={step}
+        className={`${input} w-24`}
+        value={value}
+        onChange={(e) => onChange(Number(e.target.value))}
+      />
     </Cap>
   );
 }
@@ -85,7 +105,12 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                 {e.type === 'step' ? (
                   <>
                     <Cap caption={t('templateEditor.stepName')}>
-                      <input aria-label={t('templateEditor.entryName', { n: i + 1 })} className={`${input} w-52`} value={e.name} onChange={(ev) => setEntry(i, { ...e, name: ev.target.value })} />
+                      <input
+                        aria-label={t('templateEditor.entryName', { n: i + 1 })}
+                        className={`${input} w-52`}
+                        value={e.name}
+                        onChange={(ev) => setEntry(i, { ...e, name: ev.target.value })}
+                      />
                     </Cap>
                     <Cap caption={t('templateEditor.stationKind')}>
                       <select
@@ -105,7 +130,12 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                       </select>
                     </Cap>
                     <Cap caption={t('templateEditor.included')}>
-                      <select aria-label={t('templateEditor.entryCondition', { n: i + 1 })} className={`${input} w-52`} value={e.when ?? 'always'} onChange={(ev) => setEntry(i, { ...e, when: ev.target.value as StepCondition })}>
+                      <select
+                        aria-label={t('templateEditor.entryCondition', { n: i + 1 })}
+                        className={`${input} w-52`}
+                        value={e.when ?? 'always'}
+                        onChange={(ev) => setEntry(i, { ...e, when: ev.target.value as StepCondition })}
+                      >
                         {STEP_CONDITIONS.map((c) => (
                           <option key={c} value={c}>
                             {t(`templateEditor.condition.${c}`)}
@@ -113,30 +143,74 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                         ))}
                       </select>
                     </Cap>
-                    <NumberCell label={t('templateEditor.entryTrayMin', { n: i + 1 })} caption={t('templateEditor.minTray')} value={e.trayMinutes} onChange={(v) => setEntry(i, { ...e, trayMinutes: v })} />
-                    <NumberCell label={t('templateEditor.entryPieceMin', { n: i + 1 })} caption={t('templateEditor.minPiece')} value={e.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })} />
+                    <NumberCell
+                      label={t('templateEditor.entryTrayMin', { n: i + 1 })}
+                      caption={t('templateEditor.minTray')}
+                      value={e.trayMinutes}
+                      onChange={(v) => setEntry(i, { ...e, trayMinutes: v })}
+                    />
+                    <NumberCell
+                      label={t('templateEditor.entryPieceMin', { n: i + 1 })}
+                      caption={t('templateEditor.minPiece')}
+                      value={e.pieceMinutes}
+                      step="0.01"
+                      onChange={(v) => setEntry(i, { ...e, pieceMinutes: v })}
+                    />
                     {cures(e.stationKind) && (
-                      <NumberCell label={t('templateEditor.entryCure', { n: i + 1 })} caption={t('templateEditor.cureAtLeast')} value={e.cureMinutes ?? 0} step="1" onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })} />
+                      <NumberCell
+                        label={t('templateEditor.entryCure', { n: i + 1 })}
+                        caption={t('templateEditor.cureAtLeast')}
+                        value={e.cureMinutes ?? 0}
+                        step="1"
+                        onChange={(v) => setEntry(i, { ...e, cureMinutes: Math.round(v) })}
+                      />
                     )}
                   </>
                 ) : (
                   <>
                     <span className="self-center font-bold">{t('templateEditor.oneFill')}</span>
-                    <NumberCell label={t('templateEditor.fillTray')} caption={t('templateEditor.fillTrayCap')} value={e.fill.trayMinutes} onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, trayMinutes: v } })} />
-                    <NumberCell label={t('templateEditor.fillPiece')} caption={t('templateEditor.fillPieceCap')} value={e.fill.pieceMinutes} step="0.01" onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, pieceMinutes: v } })} />
+                    <NumberCell
+                      label={t('templateEditor.fillTray')}
+                      caption={t('templateEditor.fillTrayCap')}
+                      value={e.fill.trayMinutes}
+                      onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, trayMinutes: v } })}
+                    />
+                    <NumberCell
+                      label={t('templateEditor.fillPiece')}
+                      caption={t('templateEditor.fillPieceCap')}
+                      value={e.fill.pieceMinutes}
+                      step="0.01"
+                      onChange={(v) => setEntry(i, { ...e, fill: { ...e.fill, pieceMinutes: v } })}
+                    />
                     <Cap caption={t('templateEditor.curing')}>
-                      <select aria-label={t('templateEditor.howCured')} className={`${input} w-56`} value={e.cure} onChange={(ev) => setEntry(i, { ...e, cure: ev.target.value as 'each' | 'once' | 'none' })}>
+                      <select
+                        aria-label={t('templateEditor.howCured')}
+                        className={`${input} w-56`}
+                        value={e.cure}
+                        onChange={(ev) => setEntry(i, { ...e, cure: ev.target.value as 'each' | 'once' | 'none' })}
+                      >
                         <option value="each">{t('templateEditor.cureEach')}</option>
                         <option value="once">{t('templateEditor.cureOnce')}</option>
                         <option value="none">{t('templateEditor.cureNone')}</option>
                       </select>
                     </Cap>
                     {e.cure !== 'none' && (
-                      <NumberCell label={t('templateEditor.minCure')} caption={t('templateEditor.cureAtLeast')} value={e.cureStep.cureMinutes} step="1" onChange={(v) => setEntry(i, { ...e, cureStep: { ...e.cureStep, cureMinutes: Math.round(v) } })} />
+                      <NumberCell
+                        label={t('templateEditor.minCure')}
+                        caption={t('templateEditor.cureAtLeast')}
+                        value={e.cureStep.cureMinutes}
+                        step="1"
+                        onChange={(v) => setEntry(i, { ...e, cureStep: { ...e.cureStep, cureMinutes: Math.round(v) } })}
+                      />
                     )}
                     {e.cure === 'once' && (
                       <Cap caption={t('templateEditor.bakeName')}>
-                        <input aria-label={t('templateEditor.bakeNameLabel')} className={`${input} w-48`} value={e.onceName} onChange={(ev) => setEntry(i, { ...e, onceName: ev.target.value })} />
+                        <input
+                          aria-label={t('templateEditor.bakeNameLabel')}
+                          className={`${input} w-48`}
+                          value={e.onceName}
+                          onChange={(ev) => setEntry(i, { ...e, onceName: ev.target.value })}
+                        />
                       </Cap>
                     )}
                   </>
@@ -145,10 +219,19 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
                   <Button variant="ghost" aria-label={t('templateEditor.up', { n: i + 1 })} disabled={i === 0} onClick={() => move(i, -1)}>
                     <ArrowUp className="h-5 w-5" aria-hidden />
                   </Button>
-                  <Button variant="ghost" aria-label={t('templateEditor.down', { n: i + 1 })} disabled={i === draft.steps.length - 1} onClick={() => move(i, 1)}>
+                  <Button
+                    variant="ghost"
+                    aria-label={t('templateEditor.down', { n: i + 1 })}
+                    disabled={i === draft.steps.length - 1}
+                    onClick={() => move(i, 1)}
+                  >
                     <ArrowDown className="h-5 w-5" aria-hidden />
                   </Button>
-                  <Button variant="ghost" aria-label={t('templateEditor.remove', { n: i + 1 })} onClick={() => setDraft({ ...draft, steps: draft.steps.filter((_, j) => j !== i) })}>
+                  <Button
+                    variant="ghost"
+                    aria-label={t('templateEditor.remove', { n: i + 1 })}
+                    onClick={() => setDraft({ ...draft, steps: draft.steps.filter((_, j) => j !== i) })}
+                  >
                     <Trash2 className="h-5 w-5" aria-hidden />
                   </Button>
                 </span>
@@ -159,7 +242,15 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
         <div className="mt-3">
           <Button
             variant="secondary"
-            onClick={() => setDraft({ ...draft, steps: [...draft.steps, { type: 'step', name: t('templateEditor.newStep'), stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, when: 'always' }] })}
+            onClick={() =>
+              setDraft({
+                ...draft,
+                steps: [
+                  ...draft.steps,
+                  { type: 'step', name: t('templateEditor.newStep'), stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, when: 'always' },
+                ],
+              })
+            }
           >
             <Plus className="h-5 w-5" aria-hidden /> {t('templateEditor.addStep')}
           </Button>
@@ -178,19 +269,38 @@ export function TemplateEditor({ template }: { template: RoutingTemplate }) {
       <Card>
         <h2 className="mb-2 text-lg font-bold text-harbour-900">{t('templateEditor.preview')}</h2>
         <div className="mb-3 flex flex-wrap items-end gap-3">
-          <TextField label={t('templateEditor.colours')} type="number" min={0} max={24} value={colours} onChange={(e) => setColours(Math.max(0, Math.min(24, Math.round(Number(e.target.value)))))} />
+          <TextField
+            label={t('templateEditor.colours')}
+            type="number"
+            min={0}
+            max={24}
+            value={colours}
+            onChange={(e) => setColours(Math.max(0, Math.min(24, Math.round(Number(e.target.value)))))}
+          />
           <CheckboxField label={t('templateEditor.backLogo')} checked={flags.backLogo} onChange={(e) => setFlags({ ...flags, backLogo: e.target.checked })} />
           <CheckboxField label={t('templateEditor.printing')} checked={flags.printing} onChange={(e) => setFlags({ ...flags, printing: e.target.checked })} />
           <CheckboxField label={t('templateEditor.epoxy')} checked={flags.epoxy} onChange={(e) => setFlags({ ...flags, epoxy: e.target.checked })} />
-          <CheckboxField label={t('templateEditor.sandblast')} checked={flags.sandblast} onChange={(e) => setFlags({ ...flags, sandblast: e.target.checked })} />
+          <CheckboxField
+            label={t('templateEditor.sandblast')}
+            checked={flags.sandblast}
+            onChange={(e) => setFlags({ ...flags, sandblast: e.target.checked })}
+          />
           <CheckboxField label={t('templateEditor.antique')} checked={flags.antique} onChange={(e) => setFlags({ ...flags, antique: e.target.checked })} />
           <CheckboxField label={t('templateEditor.twoTone')} checked={flags.twoTone} onChange={(e) => setFlags({ ...flags, twoTone: e.target.checked })} />
-          <CheckboxField label={t('templateEditor.safetyPin')} checked={flags.safetyPin} onChange={(e) => setFlags({ ...flags, safetyPin: e.target.checked })} />
+          <CheckboxField
+            label={t('templateEditor.safetyPin')}
+            checked={flags.safetyPin}
+            onChange={(e) => setFlags({ ...flags, safetyPin: e.target.checked })}
+          />
         </div>
         <ol className="flex flex-col gap-1 text-sm">
           {preview.map((s) => (
             <li key={s.seq}>
-              {s.seq}. {s.name} <span className="text-harbour-700">({kindName(s.stationKind)}{s.cureMinutes ? t('templateEditor.atLeast', { min: s.cureMinutes }) : ''})</span>
+              {s.seq}. {s.name}{' '}
+              <span className="text-harbour-700">
+                ({kindName(s.stationKind)}
+                {s.cureMinutes ? t('templateEditor.atLeast', { min: s.cureMinutes }) : ''})
+              </span>
             </li>
           ))}
         </ol>

@@ -16,7 +16,14 @@ function Row({ t, checked, onCheck, actions }: { t: TravellerSummary; checked: b
   return (
     <tr className="border-t border-harbour-100">
       <td className="px-2 py-1">
-        <input type="checkbox" className="h-6 w-6 accent-harbour-800" aria-label={`Choose ${t.number}`} checked={checked} disabled={merged} onChange={(e) => onCheck(e.target.checked)} />
+        <input
+          type="checkbox"
+          className="h-6 w-6 accent-harbour-800"
+          aria-label={`Choose ${t.number}`}
+          checked={checked}
+          disabled={merged}
+          onChange={(e) => onCheck(e.target.checked)}
+        />
       </td>
       <td className="px-2 py-1 font-bold">
         <Link className="text-harbour-800 underline" to={paths.tray(t.id)}>
@@ -52,7 +59,8 @@ export function TravellersPanel({ order, actions }: { order: OrderDetail; action
         <div>
           <h2 className="text-xl font-bold text-harbour-900">Travellers</h2>
           <p className="text-sm text-harbour-700">
-            {order.trays.filter((t) => t.phase !== 'merged').length} trays and {order.moulds.length} mould traveller{order.moulds.length === 1 ? '' : 's'}; each QR code is signed, a reprint voids the older copy.
+            {order.trays.filter((t) => t.phase !== 'merged').length} trays and {order.moulds.length} mould traveller{order.moulds.length === 1 ? '' : 's'}; each
+            QR code is signed, a reprint voids the older copy.
           </p>
         </div>
         <div className="flex flex-wrap items-end gap-3">
@@ -67,7 +75,11 @@ export function TravellersPanel({ order, actions }: { order: OrderDetail; action
             <Printer className="h-5 w-5" aria-hidden /> Print all travellers ({live.length})
           </a>
           {chosen.size > 0 && (
-            <a className={`${linkButton} border-2 border-harbour-800 bg-white text-harbour-800`} href={travellersPdfUrl(order.id, layout, [...chosen])} download>
+            <a
+              className={`${linkButton} border-2 border-harbour-800 bg-white text-harbour-800`}
+              href={travellersPdfUrl(order.id, layout, [...chosen])}
+              download
+            >
               <Printer className="h-5 w-5" aria-hidden /> Print chosen ({chosen.size})
             </a>
           )}
@@ -109,7 +121,13 @@ export function TravellersPanel({ order, actions }: { order: OrderDetail; action
           </thead>
           <tbody>
             {order.moulds.map((m) => (
-              <Row key={m.id} t={{ ...m, stepName: `${humanise(m.side)} mould · ${m.stepName ?? ''}` }} checked={chosen.has(m.id)} onCheck={(v) => toggle(m.id, v)} actions={actions?.(m)} />
+              <Row
+                key={m.id}
+                t={{ ...m, stepName: `${humanise(m.side)} mould · ${m.stepName ?? ''}` }}
+                checked={chosen.has(m.id)}
+                onCheck={(v) => toggle(m.id, v)}
+                actions={actions?.(m)}
+              />
             ))}
             {order.trays.map((t) => (
               <Row key={t.id} t={t} checked={chosen.has(t.id)} onCheck={(v) => toggle(t.id, v)} actions={actions?.(t)} />

@@ -125,7 +125,8 @@ export const en = {
     subtitle: 'Check a CSV file row by row; only the rows without errors are imported, and only when you confirm.',
     step1: '1. The file',
     intro: 'One order per row, with a header row. Columns:',
-    introFormat: 'Colours are written like <code>Navy (C-281) #1b2a4a; White</code>; yes or no for back logo, printing, epoxy and sandblast; <code>secondPlating</code> names a two-tone badge’s second finish (empty for one finish); dates as year-month-day (2026-05-29). Up to 1 MB and 1000 orders.',
+    introFormat:
+      'Colours are written like <code>Navy (C-281) #1b2a4a; White</code>; yes or no for back logo, printing, epoxy and sandblast; <code>secondPlating</code> names a two-tone badge’s second finish (empty for one finish); dates as year-month-day (2026-05-29). Up to 1 MB and 1000 orders.',
     file: 'CSV file',
     paste: '…or paste the rows here',
     check: 'Check the rows',

@@ -127,7 +127,8 @@ export const zhCN: OrdersStrings = {
     subtitle: '逐行检查 CSV 文件；只导入没有错误的行，并须您确认。',
     step1: '1. 文件',
     intro: '每行一张订单，第一行为表头。列名：',
-    introFormat: '颜色写法如 <code>Navy (C-281) #1b2a4a; White</code>；背面图案、印刷、滴胶、喷砂填 yes 或 no；<code>secondPlating</code> 填双色徽章的第二种电镀（单一电镀留空）；日期写成 年-月-日（2026-05-29）。文件不超过 1 MB、1000 张订单。',
+    introFormat:
+      '颜色写法如 <code>Navy (C-281) #1b2a4a; White</code>；背面图案、印刷、滴胶、喷砂填 yes 或 no；<code>secondPlating</code> 填双色徽章的第二种电镀（单一电镀留空）；日期写成 年-月-日（2026-05-29）。文件不超过 1 MB、1000 张订单。',
     file: 'CSV 文件',
     paste: '……或把内容粘贴到这里',
     check: '检查各行',

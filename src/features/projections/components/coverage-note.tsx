@@ -10,7 +10,10 @@ export function CoverageNote({ className = '' }: { className?: string }) {
   return (
     <span className={`block text-sm text-harbour-700 ${className}`} data-testid="coverage-note">
       {t('coverage.label')} (
-      {coverage ? t('coverage.measured', { pct: percentText(coverage.p85Coverage), date: formatDate(`${coverage.measuredOn}T12:00:00Z`) }) : t('coverage.notMeasured')})
+      {coverage
+        ? t('coverage.measured', { pct: percentText(coverage.p85Coverage), date: formatDate(`${coverage.measuredOn}T12:00:00Z`) })
+        : t('coverage.notMeasured')}
+      )
     </span>
   );
 }

@@ -18,7 +18,12 @@ export function DateHistoryChart({ orderId }: { orderId: string }) {
   const q = useDateHistory(orderId);
   if (q.isPending) return <Loading />;
   if (q.error) return <ErrorPanel message={errorText(q.error)} />;
-  const points = q.data.map((p) => ({ ...p, x: Date.parse(p.at), expected: p.expectedAt ? Date.parse(p.expectedAt) : null, p85: p.p85At ? Date.parse(p.p85At) : null }));
+  const points = q.data.map((p) => ({
+    ...p,
+    x: Date.parse(p.at),
+    expected: p.expectedAt ? Date.parse(p.expectedAt) : null,
+    p85: p.p85At ? Date.parse(p.p85At) : null,
+  }));
   return (
     <section aria-labelledby={`date-history-${orderId}`} className="flex flex-col gap-2" data-testid="date-history">
       <h2 id={`date-history-${orderId}`} className="text-xl font-bold">
@@ -33,9 +38,26 @@ export function DateHistoryChart({ orderId }: { orderId: string }) {
             <ResponsiveContainer width="100%" height="100%">
               <LineChart data={points} margin={{ top: 8, right: 16, bottom: 4, left: 8 }}>
                 <CartesianGrid strokeDasharray="3 3" />
-                <XAxis dataKey="x" type="number" scale="time" domain={['dataMin', 'dataMax']} tick={axis} tickFormatter={(v: number) => formatDate(new Date(v).toISOString())} />
-                <YAxis type="number" domain={['auto', 'auto']} tick={axis} width={150} tickCount={4} tickFormatter={(v: number) => formatDateTime(new Date(v).toISOString())} />
-                <Tooltip labelFormatter={(v) => formatDateTime(new Date(Number(v)).toISOString())} formatter={(v) => formatDateTime(new Date(Number(v)).toISOString())} />
+                <XAxis
+                  dataKey="x"
+                  type="number"
+                  scale="time"
+                  domain={['dataMin', 'dataMax']}
+                  tick={axis}
+                  tickFormatter={(v: number) => formatDate(new Date(v).toISOString())}
+                />
+                <YAxis
+                  type="number"
+                  domain={['auto', 'auto']}
+                  tick={axis}
+                  width={150}
+                  tickCount={4}
+                  tickFormatter={(v: number) => formatDateTime(new Date(v).toISOString())}
+                />
+                <Tooltip
+                  labelFormatter={(v) => formatDateTime(new Date(Number(v)).toISOString())}
+                  formatter={(v) => formatDateTime(new Date(Number(v)).toISOString())}
+                />
                 <Legend />
                 <Line dataKey="expected" name={t('history.expected')} stroke="#1f5a63" strokeWidth={2} dot isAnimationActive={false} connectNulls />
                 <Line dataKey="p85" name={t('history.p85')} stroke="#8a4b00" strokeDasharray="6 3" strokeWidth={2} dot isAnimationActive={false} connectNulls />

@@ -18,7 +18,8 @@ export function WhatIfPanel({ withSpec }: { withSpec: (then: (spec: OrderSpec) =
   const ask = useWhatIf();
   const { isPending: pending, error, data: result } = ask;
   const [releaseAt, setReleaseAt] = useState('');
-  const laterBy = (ms: number) => (ms >= HOUR ? t('whatIf.hours', { count: Math.round(ms / HOUR) }) : t('whatIf.minutes', { count: Math.max(1, Math.round(ms / 60_000)) }));
+  const laterBy = (ms: number) =>
+    ms >= HOUR ? t('whatIf.hours', { count: Math.round(ms / HOUR) }) : t('whatIf.minutes', { count: Math.max(1, Math.round(ms / 60_000)) });
   const releaseIso = releaseAt && !Number.isNaN(Date.parse(releaseAt)) ? new Date(releaseAt).toISOString() : undefined;
   return (
     <section aria-labelledby="what-if-title" className="flex flex-col gap-3 rounded-xl border-2 border-harbour-100 bg-harbour-50 p-4">
@@ -27,7 +28,13 @@ export function WhatIfPanel({ withSpec }: { withSpec: (then: (spec: OrderSpec) =
       </h2>
       <p className="text-harbour-700">{t('whatIf.intro')}</p>
       <div className="flex flex-wrap items-end gap-3">
-        <TextField label={t('whatIf.releaseAt')} type="datetime-local" value={releaseAt} onChange={(e) => setReleaseAt(e.target.value)} hint={t('whatIf.releaseAtHint')} />
+        <TextField
+          label={t('whatIf.releaseAt')}
+          type="datetime-local"
+          value={releaseAt}
+          onChange={(e) => setReleaseAt(e.target.value)}
+          hint={t('whatIf.releaseAtHint')}
+        />
         <Button variant="secondary" disabled={pending} onClick={() => withSpec((spec) => ask.mutate(releaseIso ? { ...spec, releaseAt: releaseIso } : spec))}>
           <CalendarClock className="h-5 w-5" aria-hidden /> {pending ? t('whatIf.asking') : t('whatIf.ask')}
         </Button>

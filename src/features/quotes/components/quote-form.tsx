@@ -83,20 +83,32 @@ export function QuoteForm({
   const se = e.spec;
   const colours = useFieldArray({ control, name: 'spec.colours' });
   const breakErrors = e.breaks as unknown as ({ message?: string } | undefined)[] & { message?: string; root?: { message?: string } };
-  const breakProblem = breakErrors?.message ?? breakErrors?.root?.message ?? (Array.isArray(breakErrors) ? breakErrors.find((x) => x?.message)?.message : undefined);
+  const breakProblem =
+    breakErrors?.message ?? breakErrors?.root?.message ?? (Array.isArray(breakErrors) ? breakErrors.find((x) => x?.message)?.message : undefined);
   const num = { valueAsNumber: true } as const;
 
   return (
     <form noValidate onSubmit={handleSubmit(onSubmit)} className="flex flex-col gap-6" aria-label={submitLabel}>
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-lg font-bold text-harbour-900">{t('form.customerHeading')}</legend>
-        <TextField label={t('form.customer')} list="quote-customers" autoComplete="off" {...register('customer', { setValueAs: emptyToUndefined })} error={e.customer?.message} />
+        <TextField
+          label={t('form.customer')}
+          list="quote-customers"
+          autoComplete="off"
+          {...register('customer', { setValueAs: emptyToUndefined })}
+          error={e.customer?.message}
+        />
         <datalist id="quote-customers">
           {customers.map((c) => (
             <option key={c.id} value={c.name} />
           ))}
         </datalist>
-        <TextField label={t('form.contactName')} autoComplete="off" {...register('contactName', { setValueAs: emptyToUndefined })} error={e.contactName?.message} />
+        <TextField
+          label={t('form.contactName')}
+          autoComplete="off"
+          {...register('contactName', { setValueAs: emptyToUndefined })}
+          error={e.contactName?.message}
+        />
         <TextField label={t('form.contactEmail')} type="email" autoComplete="off" {...register('contactEmail')} error={e.contactEmail?.message} />
       </fieldset>
 
@@ -121,7 +133,14 @@ export function QuoteForm({
         </SelectField>
         <TextField label={t('form.size')} type="number" step="0.1" inputMode="decimal" {...register('spec.sizeMm', num)} error={se?.sizeMm?.message} />
         <TextField label={t('form.height')} type="number" step="0.1" inputMode="decimal" {...register('spec.heightMm', num)} error={se?.heightMm?.message} />
-        <TextField label={t('form.thickness')} type="number" step="0.1" inputMode="decimal" {...register('spec.thicknessMm', num)} error={se?.thicknessMm?.message} />
+        <TextField
+          label={t('form.thickness')}
+          type="number"
+          step="0.1"
+          inputMode="decimal"
+          {...register('spec.thicknessMm', num)}
+          error={se?.thicknessMm?.message}
+        />
         <TextField
           label={t('form.outline')}
           type="number"
@@ -145,7 +164,13 @@ export function QuoteForm({
             </option>
           ))}
         </SelectField>
-        <TextField label={t('form.backingCount')} type="number" inputMode="numeric" {...register('spec.backing.count', num)} error={se?.backing?.count?.message} />
+        <TextField
+          label={t('form.backingCount')}
+          type="number"
+          inputMode="numeric"
+          {...register('spec.backing.count', num)}
+          error={se?.backing?.count?.message}
+        />
         <SelectField label={t('form.packaging')} {...register('spec.packaging')} error={se?.packaging?.message}>
           {PACKAGINGS.map((p) => (
             <option key={p} value={p}>
@@ -153,7 +178,14 @@ export function QuoteForm({
             </option>
           ))}
         </SelectField>
-        <TextField label={t('form.overrun')} type="number" step="0.5" inputMode="decimal" {...register('spec.overrunPct', num)} error={se?.overrunPct?.message} />
+        <TextField
+          label={t('form.overrun')}
+          type="number"
+          step="0.5"
+          inputMode="decimal"
+          {...register('spec.overrunPct', num)}
+          error={se?.overrunPct?.message}
+        />
         <div className="flex flex-col justify-end gap-1 md:col-span-3">
           <CheckboxField label={t('form.backLogo')} {...register('spec.backLogo')} />
           {se?.backLogo?.message && (
@@ -177,7 +209,11 @@ export function QuoteForm({
           {colours.fields.map((f, i) => (
             <li key={f.id} className="grid items-start gap-3 rounded-lg border border-harbour-100 p-3 grid-cols-[1fr_1fr_auto]">
               <TextField label={t('form.colourName', { n: i + 1 })} {...register(`spec.colours.${i}.name`)} error={se?.colours?.[i]?.name?.message} />
-              <TextField label={t('form.colourRef', { n: i + 1 })} {...register(`spec.colours.${i}.ref`, { setValueAs: emptyToUndefined })} error={se?.colours?.[i]?.ref?.message} />
+              <TextField
+                label={t('form.colourRef', { n: i + 1 })}
+                {...register(`spec.colours.${i}.ref`, { setValueAs: emptyToUndefined })}
+                error={se?.colours?.[i]?.ref?.message}
+              />
               <Button variant="ghost" className="mt-6" aria-label={t('form.removeColour', { n: i + 1 })} onClick={() => colours.remove(i)}>
                 <Trash2 className="h-5 w-5" aria-hidden />
               </Button>

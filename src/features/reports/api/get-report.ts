@@ -20,7 +20,8 @@ export const reportQueryOptions = <N extends ReportName>(name: N, params: Record
     placeholderData: keepPreviousData,
   });
 
-export const useReport = <N extends ReportName>(name: N, params: Record<string, string>, enabled = true) => useQuery({ ...reportQueryOptions(name, params), enabled });
+export const useReport = <N extends ReportName>(name: N, params: Record<string, string>, enabled = true) =>
+  useQuery({ ...reportQueryOptions(name, params), enabled });
 
 /** The CSV of the same report with the same filters (same path with .csv). */
 export function reportCsvUrl(name: ReportName, params: Record<string, string>): string {

@@ -48,22 +48,55 @@ export function bins(values: number[], count = 12): { bin: string; lo: number; h
   if (values.length === 0) return [];
   const max = Math.max(...values);
   const width = Math.max(1, Math.ceil(max / count));
-  const out = Array.from({ length: Math.ceil((max + 1e-9) / width) || 1 }, (_, i) => ({ bin: `${i * width}–${(i + 1) * width}`, lo: i * width, hi: (i + 1) * width, n: 0 }));
+  const out = Array.from({ length: Math.ceil((max + 1e-9) / width) || 1 }, (_, i) => ({
+    bin: `${i * width}–${(i + 1) * width}`,
+    lo: i * width,
+    hi: (i + 1) * width,
+    n: 0,
+  }));
   for (const v of values) out[Math.min(out.length - 1, Math.floor(v / width))].n += 1;
   return out;
 }
 
-export function Lines({ data, x, series, yLabel, percent = false }: { data: object[]; x: string; series: { key: string; name: string }[]; yLabel: string; percent?: boolean }) {
+export function Lines({
+  data,
+  x,
+  series,
+  yLabel,
+  percent = false,
+}: {
+  data: object[];
+  x: string;
+  series: { key: string; name: string }[];
+  yLabel: string;
+  percent?: boolean;
+}) {
   return (
     <ResponsiveContainer width="100%" height="100%">
       <LineChart data={data} margin={{ top: 12, right: 16, bottom: 8, left: 0 }}>
         <CartesianGrid strokeDasharray="3 3" />
         <XAxis dataKey={x} tick={axis} />
-        <YAxis tick={axis} domain={percent ? [0, 1] : ['auto', 'auto']} tickFormatter={percent ? (v: number) => `${Math.round(v * 100)}%` : undefined} label={{ value: yLabel, angle: -90, position: 'insideLeft' }} />
+        <YAxis
+          tick={axis}
+          domain={percent ? [0, 1] : ['auto', 'auto']}
+          tickFormatter={percent ? (v: number) => `${Math.round(v * 100)}%` : undefined}
+          label={{ value: yLabel, angle: -90, position: 'insideLeft' }}
+        />
         <Tooltip />
         <Legend />
         {series.map((s, i) => (
-          <Line key={s.key} type="monotone" dataKey={s.key} name={s.name} stroke={SERIES[i % SERIES.length]} strokeWidth={3} strokeDasharray={i === 0 ? undefined : `${4 + 4 * i} 4`} dot={false} isAnimationActive={false} connectNulls />
+          <Line
+            key={s.key}
+            type="monotone"
+            dataKey={s.key}
+            name={s.name}
+            stroke={SERIES[i % SERIES.length]}
+            strokeWidth={3}
+            strokeDasharray={i === 0 ? undefined : `${4 + 4 * i} 4`}
+            dot={false}
+            isAnimationActive={false}
+            connectNulls
+          />
         ))}
       </LineChart>
     </ResponsiveContainer>
@@ -99,13 +132,26 @@ export function Bars({
         <CartesianGrid strokeDasharray="3 3" />
         {layout === 'vertical' ? (
           <>
-            <XAxis type="number" tick={axis} tickFormatter={fmt} domain={valueDomain} allowDataOverflow={!!domain} label={{ value: yLabel, position: 'insideBottom', offset: -4 }} />
+            <XAxis
+              type="number"
+              tick={axis}
+              tickFormatter={fmt}
+              domain={valueDomain}
+              allowDataOverflow={!!domain}
+              label={{ value: yLabel, position: 'insideBottom', offset: -4 }}
+            />
             <YAxis type="category" dataKey={x} tick={{ ...axis, fontSize: 12 }} width={110} interval={0} />
           </>
         ) : (
           <>
             <XAxis dataKey={x} tick={axis} />
-            <YAxis tick={axis} tickFormatter={fmt} domain={valueDomain} allowDataOverflow={!!domain} label={{ value: yLabel, angle: -90, position: 'insideLeft' }} />
+            <YAxis
+              tick={axis}
+              tickFormatter={fmt}
+              domain={valueDomain}
+              allowDataOverflow={!!domain}
+              label={{ value: yLabel, angle: -90, position: 'insideLeft' }}
+            />
           </>
         )}
         <Tooltip formatter={fmt ? (v) => fmt(Number(v)) : undefined} />
@@ -113,7 +159,13 @@ export function Bars({
         {series.map((s, i) => (
           <Bar key={s.key} dataKey={s.key} name={s.name} fill={SERIES[i % SERIES.length]} isAnimationActive={false} minPointSize={markZero ? 3 : 0}>
             {markZero && (
-              <LabelList dataKey={s.key} position={layout === 'vertical' ? 'right' : 'top'} fill="#8a1c1c" fontWeight={700} formatter={(v: unknown) => (Number(v) === 0 ? (percent ? '0 %' : '0') : '')} />
+              <LabelList
+                dataKey={s.key}
+                position={layout === 'vertical' ? 'right' : 'top'}
+                fill="#8a1c1c"
+                fontWeight={700}
+                formatter={(v: unknown) => (Number(v) === 0 ? (percent ? '0 %' : '0') : '')}
+              />
             )}
           </Bar>
         ))}
@@ -134,7 +186,17 @@ export function CumulativeFlow({ data, stages }: { data: object[]; stages: { key
         <Tooltip />
         <Legend />
         {stages.map((s, i) => (
-          <Area key={s.key} type="stepAfter" dataKey={s.key} name={s.name} stroke={SERIES[i % SERIES.length]} fill={SERIES[i % SERIES.length]} fillOpacity={0.35} strokeWidth={2} isAnimationActive={false} />
+          <Area
+            key={s.key}
+            type="stepAfter"
+            dataKey={s.key}
+            name={s.name}
+            stroke={SERIES[i % SERIES.length]}
+            fill={SERIES[i % SERIES.length]}
+            fillOpacity={0.35}
+            strokeWidth={2}
+            isAnimationActive={false}
+          />
         ))}
       </AreaChart>
     </ResponsiveContainer>
@@ -154,7 +216,15 @@ export function Pareto({ data }: { data: { name: string; qty: number; cumulative
         <Tooltip />
         <Legend verticalAlign="top" />
         <Bar yAxisId="qty" dataKey="qty" name={t('chart.scrapped')} fill={SERIES[0]} isAnimationActive={false} />
-        <Line yAxisId="share" dataKey="cumulativeShare" name={t('chart.runningShare')} stroke={SERIES[3]} strokeWidth={3} strokeDasharray="6 3" isAnimationActive={false} />
+        <Line
+          yAxisId="share"
+          dataKey="cumulativeShare"
+          name={t('chart.runningShare')}
+          stroke={SERIES[3]}
+          strokeWidth={3}
+          strokeDasharray="6 3"
+          isAnimationActive={false}
+        />
       </ComposedChart>
     </ResponsiveContainer>
   );

@@ -27,7 +27,8 @@ export const en = {
     day: 'Day',
     week: 'Week',
     csv: 'Download CSV',
-    percentiles: 'Percentiles (p50, p85, p95) by the {{authors}} type 7 method, the default of R and {{numpy}}; n, the number of values, is shown beside each. ',
+    percentiles:
+      'Percentiles (p50, p85, p95) by the {{authors}} type 7 method, the default of R and {{numpy}}; n, the number of values, is shown beside each. ',
     localDays: 'Days are the factory’s local days.',
     tableOf: '{{title}}: table',
     empty: 'Nothing in this period',
@@ -76,7 +77,8 @@ export const en = {
     loading: 'Drawing the flow…',
     stage: { released: 'Released', started: 'Started', inspected: 'Inspected', packed: 'Packed', shipped: 'Shipped' },
     cumulative: 'Cumulative flow',
-    cumulativeCaption: 'Each line counts the trays that have reached a stage by the end of each day or week (less those shipped before the period). Lines never fall; the vertical gap between two lines is the number of trays between those stages.',
+    cumulativeCaption:
+      'Each line counts the trays that have reached a stage by the end of each day or week (less those shipped before the period). Lines never fall; the vertical gap between two lines is the number of trays between those stages.',
     cumulativeTable: 'Cumulative flow table',
     weekOf: 'Week of',
     day: 'Day',
@@ -149,7 +151,8 @@ export const en = {
     flowTitle: 'Flow efficiency',
     noTray: 'No tray finished in this period.',
     noTrayStation: 'No tray finished in this period (not shown for a single station).',
-    headline: 'of working time was spent on the trays’ process steps: {{process}} of process in {{flow}} of flow time, both in working hours, summed over the {{trays}} trays finished.',
+    headline:
+      'of working time was spent on the trays’ process steps: {{process}} of process in {{flow}} of flow time, both in working hours, summed over the {{trays}} trays finished.',
     calendar: 'Counted on the clock instead (process and flow both in clock hours: {{process}} in {{flow}}): {{share}}.',
     cure: 'Oven cure is needed but unattended, so it is not counted as value-adding: it took {{working}} of the working time and {{calendar}} of the clock time, shown apart.',
     chartTitle: 'Queue and process time per kind of station (working minutes, p50)',

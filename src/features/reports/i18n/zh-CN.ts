@@ -78,7 +78,8 @@ export const zhCN: ReportsStrings = {
     loading: '正在绘制流动图…',
     stage: { released: '已投产', started: '已开工', inspected: '已检验', packed: '已包装', shipped: '已发货' },
     cumulative: '累积流图',
-    cumulativeCaption: '每条线统计到每天或每周结束时已到达某一阶段的托盘数（减去本期之前已发货的）。线条只升不降；两条线之间的垂直距离就是处于这两个阶段之间的托盘数。',
+    cumulativeCaption:
+      '每条线统计到每天或每周结束时已到达某一阶段的托盘数（减去本期之前已发货的）。线条只升不降；两条线之间的垂直距离就是处于这两个阶段之间的托盘数。',
     cumulativeTable: '累积流表',
     weekOf: '周起始日',
     day: '日',

@@ -4,5 +4,9 @@ import type { SalesOrderRow } from '@shared/schemas/shipping';
 import { salesKeys } from './sales-keys';
 
 export const salesSearchQueryOptions = (q = '') =>
-  queryOptions({ queryKey: salesKeys.search(q), queryFn: () => api.get<SalesOrderRow[]>('/sales/orders', { q, limit: 100 }), placeholderData: keepPreviousData });
+  queryOptions({
+    queryKey: salesKeys.search(q),
+    queryFn: () => api.get<SalesOrderRow[]>('/sales/orders', { q, limit: 100 }),
+    placeholderData: keepPreviousData,
+  });
 export const useSalesSearch = (q: string) => useQuery(salesSearchQueryOptions(q));

@@ -4,7 +4,8 @@ import type { ScanResult } from '@shared/schemas/scans';
 import { scanExceptionKeys } from './scan-exceptions-keys';
 
 export const retryScanException = (id: string) => api.post<ScanResult>(`/scans/exceptions/${id}/retry`);
-export const resolveScanException = (id: string, resolution: string) => api.post<{ id: string; resolvedAt: string }>(`/scans/exceptions/${id}/resolve`, { resolution });
+export const resolveScanException = (id: string, resolution: string) =>
+  api.post<{ id: string; resolvedAt: string }>(`/scans/exceptions/${id}/resolve`, { resolution });
 
 export function useRetryScanException() {
   const qc = useQueryClient();

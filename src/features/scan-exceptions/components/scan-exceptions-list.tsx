@@ -17,7 +17,17 @@ function when(iso: string | null) {
   return formatDateTime(iso);
 }
 
-function ExceptionRow({ item, canDecide, reasonName, describe }: { item: ScanExceptionView; canDecide: boolean; reasonName: ReasonName; describe?: DescribeRefusal }) {
+function ExceptionRow({
+  item,
+  canDecide,
+  reasonName,
+  describe,
+}: {
+  item: ScanExceptionView;
+  canDecide: boolean;
+  reasonName: ReasonName;
+  describe?: DescribeRefusal;
+}) {
   const { t } = useTranslation('scanExceptions');
   const { t: tc } = useTranslation('common');
   const retry = useRetryScanException();
@@ -26,7 +36,12 @@ function ExceptionRow({ item, canDecide, reasonName, describe }: { item: ScanExc
   const time = (iso: unknown) => (typeof iso === 'string' ? formatDateTime(iso) : '—');
   const m = exceptionMessage(item, reasonName, time, describe);
   const retried = retry.data;
-  const stillRefused = retried?.status === 'rejected' ? (retried.code ? exceptionMessage({ code: retried.code, params: retried.params ?? {} }, reasonName, time, describe).title : (retried.message ?? '')) : '';
+  const stillRefused =
+    retried?.status === 'rejected'
+      ? retried.code
+        ? exceptionMessage({ code: retried.code, params: retried.params ?? {} }, reasonName, time, describe).title
+        : (retried.message ?? '')
+      : '';
   return (
     <li className="rounded-xl border border-harbour-100 bg-white p-4 shadow-sm" data-testid="exception-row">
       <div className="flex flex-wrap items-start justify-between gap-3">
@@ -48,7 +63,11 @@ function ExceptionRow({ item, canDecide, reasonName, describe }: { item: ScanExc
           {item.resolvedAt && (
             <p className="mt-2">
               <Pill tone="ok">{t('row.resolved')}</Pill> {when(item.resolvedAt)} ·{' '}
-              {item.resolution === 'accepted_late' ? t('row.acceptedLate') : item.resolution === 'accepted_on_retry' ? t('row.acceptedOnRetry') : item.resolution}
+              {item.resolution === 'accepted_late'
+                ? t('row.acceptedLate')
+                : item.resolution === 'accepted_on_retry'
+                  ? t('row.acceptedOnRetry')
+                  : item.resolution}
             </p>
           )}
         </div>

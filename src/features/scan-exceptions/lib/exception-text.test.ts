@@ -25,7 +25,11 @@ describe('refused-scan messages on the supervisors’ page', () => {
 
   it('times read in the factory’s zone, not UTC', () => {
     setFactoryTimeZone('Asia/Shanghai');
-    const m = exceptionMessage({ code: 'curing', params: { cureName: 'Cure 1', cureSeq: 4, minutesLeft: 12, readyAt: '2026-12-10T02:27:00.000Z' } }, reasonName, (iso) => formatClock(iso as string, 'en'));
+    const m = exceptionMessage(
+      { code: 'curing', params: { cureName: 'Cure 1', cureSeq: 4, minutesLeft: 12, readyAt: '2026-12-10T02:27:00.000Z' } },
+      reasonName,
+      (iso) => formatClock(iso as string, 'en'),
+    );
     expect(m.detail).toContain('ready at 10:27');
     expect(m.detail).not.toMatch(/UTC|02:27/);
   });

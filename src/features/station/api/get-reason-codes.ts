@@ -18,5 +18,6 @@ export async function getReasonCodes(): Promise<ReasonCodeView[]> {
   }
 }
 
-export const reasonCodesQueryOptions = () => queryOptions({ queryKey: stationKeys.reasonCodes(), queryFn: getReasonCodes, staleTime: 10 * 60_000, networkMode: 'always', retry: false });
+export const reasonCodesQueryOptions = () =>
+  queryOptions({ queryKey: stationKeys.reasonCodes(), queryFn: getReasonCodes, staleTime: 10 * 60_000, networkMode: 'always', retry: false });
 export const useReasonCodes = () => useQuery(reasonCodesQueryOptions());

@@ -13,5 +13,11 @@ export function InActionBar({ children }: { children: ReactNode }) {
 /** One large button of the action bar. */
 export const barButton = (tone: 'primary' | 'plain' | 'warn' | 'brass') =>
   `flex min-h-16 flex-1 basis-36 items-center justify-center gap-2 whitespace-nowrap rounded-2xl px-3 text-xl font-bold disabled:opacity-50 ${
-    tone === 'primary' ? 'bg-harbour-800 text-white' : tone === 'warn' ? 'bg-warn-700 text-white' : tone === 'brass' ? 'bg-brass-700 text-white' : 'bg-white text-harbour-800 ring-2 ring-harbour-800'
+    tone === 'primary'
+      ? 'bg-harbour-800 text-white'
+      : tone === 'warn'
+        ? 'bg-warn-700 text-white'
+        : tone === 'brass'
+          ? 'bg-brass-700 text-white'
+          : 'bg-white text-harbour-800 ring-2 ring-harbour-800'
   }`;

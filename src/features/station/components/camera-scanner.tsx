@@ -43,7 +43,12 @@ export function CameraScanner({ onScan }: { onScan: (text: string) => void }) {
     };
   }, []);
 
-  if (error) return <p role="alert" className="rounded-xl bg-warn-50 p-4 text-lg font-bold text-warn-700">{t('scan.cameraDenied')}</p>;
+  if (error)
+    return (
+      <p role="alert" className="rounded-xl bg-warn-50 p-4 text-lg font-bold text-warn-700">
+        {t('scan.cameraDenied')}
+      </p>
+    );
   return (
     <div className="relative overflow-hidden rounded-2xl bg-ink">
       <video ref={video} className="aspect-video w-full object-cover" muted playsInline aria-label={t('scan.cameraFrame')} />

@@ -13,7 +13,19 @@ export interface FinishCounts {
 }
 
 /** Good, scrap and rework counts, preset to every piece good; a reason whenever something is scrapped. */
-export function FinishPanel({ quantity, reasons, lang, onConfirm, onCancel }: { quantity: number | null; reasons: ReasonCodeView[]; lang: StationLang; onConfirm: (c: FinishCounts) => void; onCancel: () => void }) {
+export function FinishPanel({
+  quantity,
+  reasons,
+  lang,
+  onConfirm,
+  onCancel,
+}: {
+  quantity: number | null;
+  reasons: ReasonCodeView[];
+  lang: StationLang;
+  onConfirm: (c: FinishCounts) => void;
+  onCancel: () => void;
+}) {
   const { t } = useTranslation('station');
   const qty = quantity ?? 0;
   const [good, setGood] = useState(qty);
@@ -60,7 +72,12 @@ export function FinishPanel({ quantity, reasons, lang, onConfirm, onCancel }: { 
           <label htmlFor="scrap-reason" className="text-lg font-bold">
             {t('finish.reason')}
           </label>
-          <select id="scrap-reason" value={reason} onChange={(e) => setReason(e.target.value)} className="min-h-14 rounded-xl border-2 border-harbour-800 bg-white px-3 text-xl">
+          <select
+            id="scrap-reason"
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            className="min-h-14 rounded-xl border-2 border-harbour-800 bg-white px-3 text-xl"
+          >
             <option value="">{t('finish.chooseReason')}</option>
             {scrapReasons.map((r) => (
               <option key={r.code} value={r.code}>

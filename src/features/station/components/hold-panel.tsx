@@ -4,7 +4,17 @@ import type { ReasonCodeView } from '@shared/schemas/stations';
 import type { StationLang } from '../lib/refusal-text';
 import { InActionBar, barButton } from './action-bar';
 
-export function HoldPanel({ reasons, lang, onConfirm, onCancel }: { reasons: ReasonCodeView[]; lang: StationLang; onConfirm: (r: { scrapReason: string; note?: string }) => void; onCancel: () => void }) {
+export function HoldPanel({
+  reasons,
+  lang,
+  onConfirm,
+  onCancel,
+}: {
+  reasons: ReasonCodeView[];
+  lang: StationLang;
+  onConfirm: (r: { scrapReason: string; note?: string }) => void;
+  onCancel: () => void;
+}) {
   const { t } = useTranslation('station');
   const holdReasons = reasons.filter((r) => r.kind === 'hold');
   const [reason, setReason] = useState(holdReasons[0]?.code ?? '');

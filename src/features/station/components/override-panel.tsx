@@ -61,19 +61,36 @@ export function OverridePanel({
       <label htmlFor="override-badge" className="text-lg font-bold">
         {t('override.badge')}
       </label>
-      <input id="override-badge" autoComplete="off" value={badge} onChange={(e) => setBadge(e.target.value)} className="min-h-14 rounded-xl border-2 border-harbour-800 px-3 font-mono text-2xl" />
+      <input
+        id="override-badge"
+        autoComplete="off"
+        value={badge}
+        onChange={(e) => setBadge(e.target.value)}
+        className="min-h-14 rounded-xl border-2 border-harbour-800 px-3 font-mono text-2xl"
+      />
       <PinPad id="override-pin" label={t('override.pin')} value={pin} onChange={setPin} />
       <label htmlFor="override-reason" className="text-lg font-bold">
         {t('override.reason')}
       </label>
-      <input id="override-reason" placeholder={t('override.reasonHint')} value={reason} onChange={(e) => setReason(e.target.value)} className="min-h-14 rounded-xl border-2 border-harbour-800 px-3 text-xl" />
+      <input
+        id="override-reason"
+        placeholder={t('override.reasonHint')}
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+        className="min-h-14 rounded-xl border-2 border-harbour-800 px-3 text-xl"
+      />
       {error && (
         <p role="alert" className="rounded-xl border-2 border-stop-700 bg-stop-50 p-3 text-lg font-bold text-stop-700">
           {error}
         </p>
       )}
       <InActionBar>
-        <button type="submit" form="override-form" disabled={busy || !badge.trim() || pin.length < 4 || reason.trim().length < 3} className={`${barButton('brass')} grow-[2]`}>
+        <button
+          type="submit"
+          form="override-form"
+          disabled={busy || !badge.trim() || pin.length < 4 || reason.trim().length < 3}
+          className={`${barButton('brass')} grow-[2]`}
+        >
           {t('override.confirm')}
         </button>
         <button type="button" onClick={onCancel} className={barButton('plain')}>

@@ -46,7 +46,11 @@ export function PairScreen() {
             onChange={(e) => setCode(e.target.value.toUpperCase())}
             className="min-h-16 rounded-xl border-2 border-harbour-800 px-4 text-center font-mono text-4xl tracking-[0.4em] uppercase"
           />
-          <button type="submit" disabled={code.trim().length !== 6 || pair.isPending} className="min-h-16 rounded-xl bg-harbour-800 text-2xl font-bold text-white disabled:opacity-50">
+          <button
+            type="submit"
+            disabled={code.trim().length !== 6 || pair.isPending}
+            className="min-h-16 rounded-xl bg-harbour-800 text-2xl font-bold text-white disabled:opacity-50"
+          >
             {pair.isPending ? t('pair.working') : t('pair.submit')}
           </button>
           {pair.error && (

@@ -12,7 +12,19 @@ export interface QueueItem {
   minutes: number;
 }
 
-function Row({ item, onOpen, detail, tone, reasonName }: { item: QueueItem; onOpen: (n: string) => void; detail: string; tone?: 'ok' | 'warn'; reasonName: (code: string) => string }) {
+function Row({
+  item,
+  onOpen,
+  detail,
+  tone,
+  reasonName,
+}: {
+  item: QueueItem;
+  onOpen: (n: string) => void;
+  detail: string;
+  tone?: 'ok' | 'warn';
+  reasonName: (code: string) => string;
+}) {
   const { t } = useTranslation('station');
   const held = item.state.onHold;
   return (
@@ -26,15 +38,14 @@ function Row({ item, onOpen, detail, tone, reasonName }: { item: QueueItem; onOp
       >
         <span className="flex flex-col">
           <span className="font-mono text-xl font-bold">{item.number}</span>
-          <span className="text-sm text-harbour-700">
-            {item.card.order ? `${item.card.order.number} · ${item.card.order.title}` : ''}
-          </span>
+          <span className="text-sm text-harbour-700">{item.card.order ? `${item.card.order.number} · ${item.card.order.title}` : ''}</span>
         </span>
         <span className="flex flex-col items-end">
           <span className="font-bold">{t('lists.pieces', { count: item.state.quantity })}</span>
           {held ? (
             <span className="flex items-center gap-1 text-sm font-bold text-warn-700" data-testid="queue-held">
-              <Hand className="h-4 w-4" aria-hidden /> {item.state.holdReason ? t('lists.heldFor', { reason: reasonName(item.state.holdReason) }) : t('lists.held')}
+              <Hand className="h-4 w-4" aria-hidden />{' '}
+              {item.state.holdReason ? t('lists.heldFor', { reason: reasonName(item.state.holdReason) }) : t('lists.held')}
             </span>
           ) : (
             <span className={`text-sm font-bold ${tone === 'ok' ? 'text-ok-700' : tone === 'warn' ? 'text-warn-700' : 'text-harbour-700'}`}>{detail}</span>
@@ -63,7 +74,14 @@ export function QueueLists({
 }) {
   const { t } = useTranslation('station');
   const cureDetail = (i: QueueItem) => (i.minutes <= 0 ? t('lists.readyNow') : t('lists.readyIn', { duration: formatDuration(t, i.minutes) }));
-  const section = (id: string, title: string, icon: React.ReactNode, items: QueueItem[], detail: (i: QueueItem) => string, tone?: (i: QueueItem) => 'ok' | 'warn' | undefined) => (
+  const section = (
+    id: string,
+    title: string,
+    icon: React.ReactNode,
+    items: QueueItem[],
+    detail: (i: QueueItem) => string,
+    tone?: (i: QueueItem) => 'ok' | 'warn' | undefined,
+  ) => (
     <section aria-labelledby={id} className="flex flex-col gap-2">
       <h2 id={id} className="flex items-center gap-2 text-xl font-bold text-harbour-900">
         {icon} {title} <span className="rounded-full bg-harbour-100 px-2 text-base">{items.length}</span>
@@ -81,7 +99,9 @@ export function QueueLists({
   );
   return (
     <div className="flex flex-col gap-5">
-      {section('list-in-process', t('lists.inProcess'), <Wrench className="h-5 w-5" aria-hidden />, inProcess, (i) => t('lists.elapsed', { duration: formatDuration(t, i.minutes) }))}
+      {section('list-in-process', t('lists.inProcess'), <Wrench className="h-5 w-5" aria-hidden />, inProcess, (i) =>
+        t('lists.elapsed', { duration: formatDuration(t, i.minutes) }),
+      )}
       {(isOven || curing.length > 0) &&
         section('list-curing', t('lists.curing'), <Flame className="h-5 w-5" aria-hidden />, curing, cureDetail, (i) => (i.minutes <= 0 ? 'ok' : 'warn'))}
       {section(

@@ -5,7 +5,17 @@ import { describeRefusal, type StationLang } from '../lib/refusal-text';
 import { formatClock, formatDateTime } from '../lib/format';
 
 /** Scans the server refused after the fact (say, after a sync): shown until the operator has seen them. */
-export function RefusedPanel({ entries, lang, reasonName, onSeen }: { entries: OutboxEntry[]; lang: StationLang; reasonName: (code: string) => string; onSeen: (id: string) => void }) {
+export function RefusedPanel({
+  entries,
+  lang,
+  reasonName,
+  onSeen,
+}: {
+  entries: OutboxEntry[];
+  lang: StationLang;
+  reasonName: (code: string) => string;
+  onSeen: (id: string) => void;
+}) {
   const { t } = useTranslation('station');
   if (entries.length === 0) return null;
   return (
@@ -32,7 +42,11 @@ export function RefusedPanel({ entries, lang, reasonName, onSeen }: { entries: O
                   </>
                 )}
               </div>
-              <button type="button" onClick={() => onSeen(e.id)} className="min-h-12 rounded-xl bg-white px-4 font-bold text-harbour-800 ring-2 ring-harbour-800">
+              <button
+                type="button"
+                onClick={() => onSeen(e.id)}
+                className="min-h-12 rounded-xl bg-white px-4 font-bold text-harbour-800 ring-2 ring-harbour-800"
+              >
                 {t('refusedList.dismiss')}
               </button>
             </li>

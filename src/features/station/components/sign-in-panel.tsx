@@ -21,7 +21,17 @@ export interface Operator {
 }
 
 /** Badge, then PIN. Online the server checks them; offline, people who signed in here this shift can. */
-export function SignInPanel({ onSignedIn, stationName, lang, onToggleLang }: { onSignedIn: (op: Operator) => void; stationName: string; lang: StationLang; onToggleLang: () => void }) {
+export function SignInPanel({
+  onSignedIn,
+  stationName,
+  lang,
+  onToggleLang,
+}: {
+  onSignedIn: (op: Operator) => void;
+  stationName: string;
+  lang: StationLang;
+  onToggleLang: () => void;
+}) {
   const { t } = useTranslation('station');
   const db = stationDb();
   const [badge, setBadge] = useState('');
@@ -31,14 +41,11 @@ export function SignInPanel({ onSignedIn, stationName, lang, onToggleLang }: { o
   const [busy, setBusy] = useState(false);
   const known = useLive(() => db.operators.filter((o) => o.validUntil > Date.now()).toArray(), [], []);
 
-  useWedgeScanner(
-    (text) => {
-      setBadge(text.trim());
-      setStep('pin');
-      setError(null);
-    },
-    step === 'badge',
-  );
+  useWedgeScanner((text) => {
+    setBadge(text.trim());
+    setStep('pin');
+    setError(null);
+  }, step === 'badge');
 
   async function submit() {
     if (!badge || pin.length < 4) return;
@@ -127,7 +134,11 @@ export function SignInPanel({ onSignedIn, stationName, lang, onToggleLang }: { o
               {t('signIn.badge')}: {badge}
             </p>
             <PinPad id="pin" value={pin} onChange={setPin} label={t('signIn.pin')} />
-            <button type="submit" disabled={busy || pin.length < 4} className="flex min-h-20 items-center justify-center gap-3 rounded-xl bg-harbour-800 text-2xl font-bold text-white disabled:opacity-50">
+            <button
+              type="submit"
+              disabled={busy || pin.length < 4}
+              className="flex min-h-20 items-center justify-center gap-3 rounded-xl bg-harbour-800 text-2xl font-bold text-white disabled:opacity-50"
+            >
               <LogIn className="h-7 w-7" aria-hidden />
               {t('signIn.submit')}
             </button>

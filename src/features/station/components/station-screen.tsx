@@ -32,7 +32,8 @@ import { RefusedPanel } from './refused-panel';
 import type { Operator } from './sign-in-panel';
 import { cures } from '@shared/domain/traveller/station-kinds';
 
-type Panel = null | 'finish' | 'hold' | { override: 'wrong_station' | 'curing' | 'release'; retry: Omit<ScanEvent, 'id' | 'occurredAt' | 'code' | 'stationId'> };
+type Panel =
+  null | 'finish' | 'hold' | { override: 'wrong_station' | 'curing' | 'release'; retry: Omit<ScanEvent, 'id' | 'occurredAt' | 'code' | 'stationId'> };
 
 interface Current {
   code: string;
@@ -68,7 +69,15 @@ export function StationScreen({
   const clock = useCallback(() => engine.now(), [engine]);
   const now = useNow(1000, clock);
   const cards = useLive(() => db.cards.toArray(), [], []);
-  const recent = useLive(() => db.outbox.where('createdAt').above(Date.now() - RECENT_MS).toArray(), [], [] as OutboxEntry[]);
+  const recent = useLive(
+    () =>
+      db.outbox
+        .where('createdAt')
+        .above(Date.now() - RECENT_MS)
+        .toArray(),
+    [],
+    [] as OutboxEntry[],
+  );
   const [current, setCurrent] = useState<Current | null>(null);
   const [panel, setPanel] = useState<Panel>(null);
   const [feedback, setFeedback] = useState<FeedbackView | null>(null);
@@ -116,10 +125,13 @@ export function StationScreen({
       if (!state) continue;
       const min = (iso: string | null) => (iso ? (now - Date.parse(iso)) / 60_000 : 0);
       const left = state.cureReadyAt ? (Date.parse(state.cureReadyAt) - now) / 60_000 : 0;
-      if (state.phase === 'in_process' && state.stationId === station.id) inProcess.push({ number: c.number, card: c.card, state, minutes: min(state.startedAt) });
+      if (state.phase === 'in_process' && state.stationId === station.id)
+        inProcess.push({ number: c.number, card: c.card, state, minutes: min(state.startedAt) });
       else if (state.phase === 'curing' && state.stationId === station.id) curing.push({ number: c.number, card: c.card, state, minutes: left });
-      else if (state.phase === 'curing' && awaitedStep(state, c.card.routing)?.stationKind === station.kind) waiting.push({ number: c.number, card: c.card, state, minutes: left });
-      else if (state.phase === 'waiting' && awaitedStep(state, c.card.routing)?.stationKind === station.kind) waiting.push({ number: c.number, card: c.card, state, minutes: min(state.waitingSince) });
+      else if (state.phase === 'curing' && awaitedStep(state, c.card.routing)?.stationKind === station.kind)
+        waiting.push({ number: c.number, card: c.card, state, minutes: left });
+      else if (state.phase === 'waiting' && awaitedStep(state, c.card.routing)?.stationKind === station.kind)
+        waiting.push({ number: c.number, card: c.card, state, minutes: min(state.waitingSince) });
     }
     const waitKey = (i: QueueItem) => Date.parse((i.state.phase === 'curing' ? i.state.cureReadyAt : i.state.waitingSince) ?? i.state.releasedAt);
     // held trays are not ready for anyone: they go last, whatever they waited
@@ -230,7 +242,11 @@ export function StationScreen({
                     {t('action.override')}
                   </button>
                 )}
-                <button type="button" className="min-h-14 rounded-xl bg-white px-5 text-lg font-bold text-harbour-800 ring-2 ring-harbour-800" onClick={() => void sendAnyway(event, r.code, r.params)}>
+                <button
+                  type="button"
+                  className="min-h-14 rounded-xl bg-white px-5 text-lg font-bold text-harbour-800 ring-2 ring-harbour-800"
+                  onClick={() => void sendAnyway(event, r.code, r.params)}
+                >
                   {t('action.sendAnyway')}
                 </button>
               </>
@@ -242,7 +258,8 @@ export function StationScreen({
         await engine.add(event, { trayNumber: current.number, local: { ok: true }, overrideKind: override?.kind });
         const next = r.next;
         const nextStep = next.stepSeq != null ? card.routing.find((s) => s.seq === next.stepSeq) : undefined;
-        const title = type === 'start' ? t('feedback.started') : type === 'finish' ? t('feedback.finished') : type === 'hold' ? t('feedback.held') : t('feedback.released');
+        const title =
+          type === 'start' ? t('feedback.started') : type === 'finish' ? t('feedback.finished') : type === 'hold' ? t('feedback.held') : t('feedback.released');
         say('accepted', {
           title: `${title}: ${current.number}`,
           detail:
@@ -293,8 +310,7 @@ export function StationScreen({
         }
       }
       setPanel('finish');
-    }
-    else if (a === 'hold') setPanel('hold');
+    } else if (a === 'hold') setPanel('hold');
     else if (a === 'release') {
       if (operator.role === 'supervisor' || operator.role === 'admin') void act('release');
       else setPanel({ override: 'release', retry: { type: 'release' } });
@@ -332,22 +348,37 @@ export function StationScreen({
           </p>
         </div>
         <div className="ml-auto flex shrink-0 items-center gap-2">
-        <NetStatus status={status} lang={lang} />
-        <button type="button" onClick={onSwitch} className="flex min-h-12 items-center gap-2 rounded-xl px-2 text-left hover:bg-harbour-700" aria-label={`${t('top.switch')}: ${operator.name}`}>
-          <Users className="h-6 w-6 shrink-0" aria-hidden />
-          <span>
-            <span className="block text-xs">{t('top.switch')}</span>
-            <span className="block font-bold" data-testid="operator-name">
-              {operator.name}
+          <NetStatus status={status} lang={lang} />
+          <button
+            type="button"
+            onClick={onSwitch}
+            className="flex min-h-12 items-center gap-2 rounded-xl px-2 text-left hover:bg-harbour-700"
+            aria-label={`${t('top.switch')}: ${operator.name}`}
+          >
+            <Users className="h-6 w-6 shrink-0" aria-hidden />
+            <span>
+              <span className="block text-xs">{t('top.switch')}</span>
+              <span className="block font-bold" data-testid="operator-name">
+                {operator.name}
+              </span>
             </span>
-          </span>
-        </button>
-        <button type="button" onClick={onToggleLang} lang={lang === 'en' ? 'zh-CN' : 'en'} className="flex min-h-12 items-center gap-1 whitespace-nowrap rounded-xl px-2 font-bold hover:bg-harbour-700" aria-label={`${t('app.language')}: ${lang === 'en' ? t('app.chinese') : t('app.english')}`}>
-          <Languages className="h-6 w-6 shrink-0" aria-hidden /> {lang === 'en' ? t('app.chinese') : t('app.english')}
-        </button>
-        <button type="button" onClick={onSignOut} className="flex min-h-12 items-center gap-1 whitespace-nowrap rounded-xl px-2 font-bold hover:bg-harbour-700">
-          <LogOut className="h-6 w-6 shrink-0" aria-hidden /> {t('top.signOut')}
-        </button>
+          </button>
+          <button
+            type="button"
+            onClick={onToggleLang}
+            lang={lang === 'en' ? 'zh-CN' : 'en'}
+            className="flex min-h-12 items-center gap-1 whitespace-nowrap rounded-xl px-2 font-bold hover:bg-harbour-700"
+            aria-label={`${t('app.language')}: ${lang === 'en' ? t('app.chinese') : t('app.english')}`}
+          >
+            <Languages className="h-6 w-6 shrink-0" aria-hidden /> {lang === 'en' ? t('app.chinese') : t('app.english')}
+          </button>
+          <button
+            type="button"
+            onClick={onSignOut}
+            className="flex min-h-12 items-center gap-1 whitespace-nowrap rounded-xl px-2 font-bold hover:bg-harbour-700"
+          >
+            <LogOut className="h-6 w-6 shrink-0" aria-hidden /> {t('top.signOut')}
+          </button>
         </div>
       </header>
       {idle.secondsLeft != null && (
@@ -359,90 +390,135 @@ export function StationScreen({
         </div>
       )}
       {!status.online && <p className="shrink-0 bg-warn-50 px-4 py-1 text-lg text-warn-700">{t('net.offlineNote')}</p>}
-      {status.unpaired && <p role="alert" className="shrink-0 bg-stop-50 px-4 py-2 text-lg font-bold text-stop-700">{t('net.unpaired')}</p>}
+      {status.unpaired && (
+        <p role="alert" className="shrink-0 bg-stop-50 px-4 py-2 text-lg font-bold text-stop-700">
+          {t('net.unpaired')}
+        </p>
+      )}
       <FeedbackZone feedback={feedback} />
       <ActionBarSlot.Provider value={barSlot}>
-      <main ref={scroller} className="grid min-h-0 flex-1 content-start gap-4 overflow-y-auto p-4 lg:grid-cols-[3fr_2fr]">
-        <div className="flex flex-col gap-4">
-          {refusedUnseen.length > 0 && <RefusedPanel entries={refusedUnseen} lang={lang} reasonName={reasonName} onSeen={(id) => void engine.markSeen(id)} />}
-          {current && shown ? (
-            <TrayPanel number={current.number} card={shown.card} state={shown.state} station={station} lang={lang} reasonName={reasonName} now={now} onAction={onAction} onClose={() => (setCurrent(null), setPanel(null))} panelOpen={panel !== null}>
-              {panel === 'finish' && (
-                <FinishPanel
-                  key={current.number}
-                  quantity={shown.state?.quantity ?? null}
-                  reasons={reasons.filter((r) => !r.stationKind || r.stationKind === station.kind)}
-                  lang={lang}
-                  onCancel={() => setPanel(null)}
-                  onConfirm={(c: FinishCounts) => void act('finish', c, finishOverride ?? undefined).then(() => setFinishOverride(null))}
-                />
-              )}
-              {panel === 'hold' && <HoldPanel reasons={reasons} lang={lang} onCancel={() => setPanel(null)} onConfirm={(r) => void act('hold', r)} />}
-              {panel && typeof panel === 'object' && (
-                <OverridePanel
-                  kind={panel.override}
-                  code={current.code}
-                  stationId={station.id}
-                  online={status.online}
-                  onCancel={() => setPanel(null)}
-                  onApproved={(ov) => {
-                    const { type, ...extra } = panel.retry;
-                    if (type === 'finish') {
-                      setFinishOverride({ id: ov.id, kind: panel.override });
-                      setPanel('finish');
-                    } else void act(type, extra, { id: ov.id, kind: panel.override });
-                  }}
-                />
-              )}
-            </TrayPanel>
-          ) : (
-            <section aria-labelledby="scan-title" className="flex flex-col gap-4 rounded-2xl bg-white p-5 shadow-sm">
-              <h1 id="scan-title" className="flex items-center gap-3 text-4xl font-bold text-harbour-900">
-                <ScanLine className="h-12 w-12" aria-hidden /> {t('scan.prompt')}
-              </h1>
-              <p className="text-xl text-harbour-700">{t('scan.hint')}</p>
-              {camera && <CameraScanner onScan={(text) => void openCode(text)} />}
-              <div className="flex flex-wrap gap-3">
-                <button type="button" onClick={() => setCamera((c) => !c)} className="flex min-h-16 items-center gap-3 rounded-2xl bg-harbour-800 px-6 text-xl font-bold text-white">
-                  {camera ? <CameraOff className="h-7 w-7" aria-hidden /> : <Camera className="h-7 w-7" aria-hidden />}
-                  {camera ? t('scan.cameraStop') : t('scan.camera')}
-                </button>
-              </div>
-              <form
-                className="flex flex-wrap items-end gap-3"
-                onSubmit={(e) => {
-                  e.preventDefault();
-                  if (typed.trim()) void openCode(typed);
-                  setTyped('');
-                }}
+        <main ref={scroller} className="grid min-h-0 flex-1 content-start gap-4 overflow-y-auto p-4 lg:grid-cols-[3fr_2fr]">
+          <div className="flex flex-col gap-4">
+            {refusedUnseen.length > 0 && <RefusedPanel entries={refusedUnseen} lang={lang} reasonName={reasonName} onSeen={(id) => void engine.markSeen(id)} />}
+            {current && shown ? (
+              <TrayPanel
+                number={current.number}
+                card={shown.card}
+                state={shown.state}
+                station={station}
+                lang={lang}
+                reasonName={reasonName}
+                now={now}
+                onAction={onAction}
+                onClose={() => (setCurrent(null), setPanel(null))}
+                panelOpen={panel !== null}
               >
-                <div className="flex flex-col gap-1">
-                  <label htmlFor="tray-number" className="flex items-center gap-2 text-lg font-bold">
-                    <Keyboard className="h-5 w-5" aria-hidden /> {t('scan.type')}
-                  </label>
-                  <input id="tray-number" autoComplete="off" value={typed} onChange={(e) => setTyped(e.target.value)} className="min-h-16 w-64 rounded-xl border-2 border-harbour-800 px-3 font-mono text-2xl uppercase" />
+                {panel === 'finish' && (
+                  <FinishPanel
+                    key={current.number}
+                    quantity={shown.state?.quantity ?? null}
+                    reasons={reasons.filter((r) => !r.stationKind || r.stationKind === station.kind)}
+                    lang={lang}
+                    onCancel={() => setPanel(null)}
+                    onConfirm={(c: FinishCounts) => void act('finish', c, finishOverride ?? undefined).then(() => setFinishOverride(null))}
+                  />
+                )}
+                {panel === 'hold' && <HoldPanel reasons={reasons} lang={lang} onCancel={() => setPanel(null)} onConfirm={(r) => void act('hold', r)} />}
+                {panel && typeof panel === 'object' && (
+                  <OverridePanel
+                    kind={panel.override}
+                    code={current.code}
+                    stationId={station.id}
+                    online={status.online}
+                    onCancel={() => setPanel(null)}
+                    onApproved={(ov) => {
+                      const { type, ...extra } = panel.retry;
+                      if (type === 'finish') {
+                        setFinishOverride({ id: ov.id, kind: panel.override });
+                        setPanel('finish');
+                      } else void act(type, extra, { id: ov.id, kind: panel.override });
+                    }}
+                  />
+                )}
+              </TrayPanel>
+            ) : (
+              <section aria-labelledby="scan-title" className="flex flex-col gap-4 rounded-2xl bg-white p-5 shadow-sm">
+                <h1 id="scan-title" className="flex items-center gap-3 text-4xl font-bold text-harbour-900">
+                  <ScanLine className="h-12 w-12" aria-hidden /> {t('scan.prompt')}
+                </h1>
+                <p className="text-xl text-harbour-700">{t('scan.hint')}</p>
+                {camera && <CameraScanner onScan={(text) => void openCode(text)} />}
+                <div className="flex flex-wrap gap-3">
+                  <button
+                    type="button"
+                    onClick={() => setCamera((c) => !c)}
+                    className="flex min-h-16 items-center gap-3 rounded-2xl bg-harbour-800 px-6 text-xl font-bold text-white"
+                  >
+                    {camera ? <CameraOff className="h-7 w-7" aria-hidden /> : <Camera className="h-7 w-7" aria-hidden />}
+                    {camera ? t('scan.cameraStop') : t('scan.camera')}
+                  </button>
                 </div>
-                <button type="submit" className="min-h-16 rounded-2xl bg-white px-6 text-xl font-bold text-harbour-800 ring-2 ring-harbour-800">
-                  {t('scan.typeSubmit')}
-                </button>
-              </form>
-            </section>
-          )}
-        </div>
-        <aside className="flex flex-col gap-4">
-          <QueueLists inProcess={lists.inProcess} curing={lists.curing} waiting={lists.waiting} onOpen={(n) => void openCode(n)} isOven={cures(station.kind)} reasonName={reasonName} />
-        </aside>
-      </main>
+                <form
+                  className="flex flex-wrap items-end gap-3"
+                  onSubmit={(e) => {
+                    e.preventDefault();
+                    if (typed.trim()) void openCode(typed);
+                    setTyped('');
+                  }}
+                >
+                  <div className="flex flex-col gap-1">
+                    <label htmlFor="tray-number" className="flex items-center gap-2 text-lg font-bold">
+                      <Keyboard className="h-5 w-5" aria-hidden /> {t('scan.type')}
+                    </label>
+                    <input
+                      id="tray-number"
+                      autoComplete="off"
+                      value={typed}
+                      onChange={(e) => setTyped(e.target.value)}
+                      className="min-h-16 w-64 rounded-xl border-2 border-harbour-800 px-3 font-mono text-2xl uppercase"
+                    />
+                  </div>
+                  <button type="submit" className="min-h-16 rounded-2xl bg-white px-6 text-xl font-bold text-harbour-800 ring-2 ring-harbour-800">
+                    {t('scan.typeSubmit')}
+                  </button>
+                </form>
+              </section>
+            )}
+          </div>
+          <aside className="flex flex-col gap-4">
+            <QueueLists
+              inProcess={lists.inProcess}
+              curing={lists.curing}
+              waiting={lists.waiting}
+              onOpen={(n) => void openCode(n)}
+              isOven={cures(station.kind)}
+              reasonName={reasonName}
+            />
+          </aside>
+        </main>
       </ActionBarSlot.Provider>
       {current && (
-        <footer aria-label={t('action.bar', { number: current.number })} data-testid="action-bar" className="flex shrink-0 flex-wrap items-center gap-3 border-t-4 border-harbour-800 bg-harbour-50 px-4 py-3">
+        <footer
+          aria-label={t('action.bar', { number: current.number })}
+          data-testid="action-bar"
+          className="flex shrink-0 flex-wrap items-center gap-3 border-t-4 border-harbour-800 bg-harbour-50 px-4 py-3"
+        >
           <p className="shrink-0 font-mono text-3xl font-bold text-harbour-900" data-testid="bar-tray-number">
             {current.number}
           </p>
           <div ref={setBarSlot} className="flex min-w-0 flex-[1_1_32rem] flex-wrap gap-3" />
         </footer>
       )}
-      <input ref={photoInput} type="file" accept="image/*" capture="environment" className="hidden" aria-hidden tabIndex={-1} onChange={(e) => void takePhoto(e.target.files?.[0]).finally(() => (e.target.value = ''))} />
+      <input
+        ref={photoInput}
+        type="file"
+        accept="image/*"
+        capture="environment"
+        className="hidden"
+        aria-hidden
+        tabIndex={-1}
+        onChange={(e) => void takePhoto(e.target.files?.[0]).finally(() => (e.target.value = ''))}
+      />
     </div>
   );
 }

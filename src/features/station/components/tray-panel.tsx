@@ -24,7 +24,12 @@ export interface StationInfo {
 export type TrayAction = 'start' | 'finish' | 'hold' | 'release' | 'photo';
 
 /** Where the traveller stands, said from this station's point of view, and which action comes next. */
-export function trayStanding(state: TrayState | null, card: TrayCard | null, station: StationInfo, now: number): { key: 'unknown' | 'hold' | 'here' | 'oven' | 'cureBefore' | 'next' | 'elsewhere' | 'done'; primary: 'start' | 'finish' | null } {
+export function trayStanding(
+  state: TrayState | null,
+  card: TrayCard | null,
+  station: StationInfo,
+  now: number,
+): { key: 'unknown' | 'hold' | 'here' | 'oven' | 'cureBefore' | 'next' | 'elsewhere' | 'done'; primary: 'start' | 'finish' | null } {
   if (!state || !card) return { key: 'unknown', primary: null };
   if (state.phase === 'done' || state.phase === 'scrapped' || state.phase === 'merged') return { key: 'done', primary: null };
   if (state.onHold) return { key: 'hold', primary: null };
@@ -96,7 +101,8 @@ export function TrayPanel({
       case 'hold':
         return (
           <p className="flex items-center gap-2 text-xl font-bold text-warn-700">
-            <Hand className="h-6 w-6" aria-hidden /> {t('card.onHold')} {state?.holdReason ? `· ${t('card.holdReason', { reason: reasonName(state.holdReason) })}` : ''}
+            <Hand className="h-6 w-6" aria-hidden /> {t('card.onHold')}{' '}
+            {state?.holdReason ? `· ${t('card.holdReason', { reason: reasonName(state.holdReason) })}` : ''}
           </p>
         );
       case 'here':
@@ -113,7 +119,8 @@ export function TrayPanel({
       case 'elsewhere':
         return (
           <p className="flex items-center gap-2 text-xl font-bold text-warn-700">
-            <AlertTriangle className="h-6 w-6" aria-hidden /> {t('card.elsewhere', { step: `${stepLabel(t, lang, next, routing)} · ${next ? t(`kind.${next.stationKind}`) : ''}` })}
+            <AlertTriangle className="h-6 w-6" aria-hidden />{' '}
+            {t('card.elsewhere', { step: `${stepLabel(t, lang, next, routing)} · ${next ? t(`kind.${next.stationKind}`) : ''}` })}
           </p>
         );
     }
@@ -143,7 +150,12 @@ export function TrayPanel({
           )}
           {card?.tray.kind === 'mould' && <p className="text-xl font-bold">{t('card.mould')}</p>}
         </div>
-        <button type="button" onClick={onClose} aria-label={t('card.close')} className="flex min-h-14 min-w-14 items-center justify-center rounded-xl bg-harbour-50">
+        <button
+          type="button"
+          onClick={onClose}
+          aria-label={t('card.close')}
+          className="flex min-h-14 min-w-14 items-center justify-center rounded-xl bg-harbour-50"
+        >
           <X className="h-8 w-8" aria-hidden />
         </button>
       </header>
@@ -193,7 +205,12 @@ export function TrayPanel({
       )}
       {card?.artworkUrl && (
         <figure className="flex items-center gap-3">
-          <img src={card.artworkUrl} alt={t('card.artwork')} className="h-28 w-28 rounded-xl border object-contain" onError={(e) => ((e.target as HTMLImageElement).style.display = 'none')} />
+          <img
+            src={card.artworkUrl}
+            alt={t('card.artwork')}
+            className="h-28 w-28 rounded-xl border object-contain"
+            onError={(e) => ((e.target as HTMLImageElement).style.display = 'none')}
+          />
           <figcaption className="text-lg font-bold">{t('card.artwork')}</figcaption>
         </figure>
       )}

@@ -35,12 +35,28 @@ describe('tablet translations', () => {
   it('has no English words left in the Chinese strings', () => {
     for (const [key, text] of Object.entries(z)) {
       const words = text.replace(/\{\{\w+\}\}/g, '').match(/[A-Za-z]{3,}/g) ?? [];
-      expect(words.filter((w) => !KEEP.has(w)), key).toEqual([]);
+      expect(
+        words.filter((w) => !KEEP.has(w)),
+        key,
+      ).toEqual([]);
     }
   });
 
   it('says every refusal in Chinese from its code and params, without English words', () => {
-    const params = { minutesLeft: 12, readyAt: '2025-06-02T10:00:00.000Z', good: 8, scrap: 1, quantityIn: 10, expectedKind: 'fill', stationKind: 'polish', expectedSeq: 6, currentRevision: 2, reason: 'future', occurredAt: '2025-06-02T10:00:00.000Z', limit: '2025-06-02T09:00:00.000Z' };
+    const params = {
+      minutesLeft: 12,
+      readyAt: '2025-06-02T10:00:00.000Z',
+      good: 8,
+      scrap: 1,
+      quantityIn: 10,
+      expectedKind: 'fill',
+      stationKind: 'polish',
+      expectedSeq: 6,
+      currentRevision: 2,
+      reason: 'future',
+      occurredAt: '2025-06-02T10:00:00.000Z',
+      limit: '2025-06-02T09:00:00.000Z',
+    };
     for (const code of REJECTION_CODES) {
       // (a reason code the person typed would be data, not our words)
       const m = describeRefusal('zh-CN', code, code === 'scrap_reason_missing' ? { ...params, reason: null } : params, () => '10:00');

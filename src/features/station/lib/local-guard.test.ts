@@ -55,7 +55,14 @@ describe('the tablet’s view of a traveller', () => {
   });
 
   it('gives the same answer as the server’s guards (wrong station offline)', () => {
-    const r = evaluateLocal({ card, state: card.state, station: { id: 'p', kind: 'polish' }, event: { type: 'start', code: '1042-07', occurredAt: at(5) }, now: T + 3600_000, role: 'operator' });
+    const r = evaluateLocal({
+      card,
+      state: card.state,
+      station: { id: 'p', kind: 'polish' },
+      event: { type: 'start', code: '1042-07', occurredAt: at(5) },
+      now: T + 3600_000,
+      role: 'operator',
+    });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.code).toBe('wrong_station');
   });

@@ -43,7 +43,11 @@ function refusalZh(code: RejectionCode, p: RefusalParams, time: (iso: unknown) =
     case 'not_started':
       return { title: '尚未开始', detail: `此托盘的 ${stepZh(p.stepName, p.stepSeq, p.stepKind)} 还没有开始。`, next: '请先扫描“开始”，做完后再扫描“完成”。' };
     case 'already_started':
-      return { title: '已经开始', detail: `此托盘自 ${time(p.startedAt)} 起已在 ${stepZh(p.stepName, p.stepSeq, p.stepKind)} 加工。`, next: '请先完成。如果是误开始，请找主管。' };
+      return {
+        title: '已经开始',
+        detail: `此托盘自 ${time(p.startedAt)} 起已在 ${stepZh(p.stepName, p.stepSeq, p.stepKind)} 加工。`,
+        next: '请先完成。如果是误开始，请找主管。',
+      };
     case 'curing':
       return {
         title: '仍在烘烤',
@@ -59,7 +63,11 @@ function refusalZh(code: RejectionCode, p: RefusalParams, time: (iso: unknown) =
     case 'on_hold':
       return { title: '托盘已暂停', detail: p.holdReason ? `此托盘已暂停：${p.holdReason}。` : '此托盘已暂停。', next: '请不要加工。须由主管先解除暂停。' };
     case 'mould_not_ready':
-      return { title: '模具未就绪', detail: `此订单的模具还没有准备好，${stepZh(p.stepName, p.stepSeq, p.stepKind)} 不能开始。`, next: '请把托盘放回，先做别的托盘。模具何时就绪请问模具房。' };
+      return {
+        title: '模具未就绪',
+        detail: `此订单的模具还没有准备好，${stepZh(p.stepName, p.stepSeq, p.stepKind)} 不能开始。`,
+        next: '请把托盘放回，先做别的托盘。模具何时就绪请问模具房。',
+      };
     case 'bad_time': {
       const when = time(p.occurredAt);
       const detail =
@@ -99,7 +107,11 @@ function refusalZh(code: RejectionCode, p: RefusalParams, time: (iso: unknown) =
     case 'station_not_allowed':
       return { title: '不是本平板的工位', detail: '本平板只能记录它自己工位的扫描。', next: '请在该工位的平板上扫描托盘，或请管理员把本平板调到那个工位。' };
     case 'badge_failures':
-      return { title: '工牌或密码多次错误', detail: '这台平板上连续多次输错工牌或密码，现在需要等待后才能再试。', next: '请查看是谁在使用平板。如果不是有人忘了密码，请在管理页面关闭这台平板。' };
+      return {
+        title: '工牌或密码多次错误',
+        detail: '这台平板上连续多次输错工牌或密码，现在需要等待后才能再试。',
+        next: '请查看是谁在使用平板。如果不是有人忘了密码，请在管理页面关闭这台平板。',
+      };
   }
 }
 

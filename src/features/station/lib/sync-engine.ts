@@ -107,7 +107,11 @@ export class SyncEngine {
     this.samples = (await this.db.getMeta<ClockSample[]>(SAMPLES_KEY)) ?? [];
     // Answered scans are kept a few days for the operator's list, then dropped; waiting ones never.
     const cutoff = this.clock() - KEEP_ANSWERED_MS;
-    await this.db.outbox.where('createdAt').below(cutoff).and((e) => e.status !== 'pending').delete();
+    await this.db.outbox
+      .where('createdAt')
+      .below(cutoff)
+      .and((e) => e.status !== 'pending')
+      .delete();
     this.update({ offset: bestOffset(this.samples) });
     await this.refreshCounts();
     this.update({ ready: true });
@@ -169,7 +173,11 @@ export class SyncEngine {
   async refreshCounts() {
     const [pending, refusedUnseen, photosPending] = await Promise.all([
       this.db.outbox.where('status').equals('pending').count(),
-      this.db.outbox.where('status').equals('rejected').and((e) => !e.seen).count(),
+      this.db.outbox
+        .where('status')
+        .equals('rejected')
+        .and((e) => !e.seen)
+        .count(),
       this.db.photos.where('status').equals('pending').count(),
     ]);
     this.update({ pending, refusedUnseen, photosPending });

@@ -3,7 +3,8 @@ import { api } from '@/lib/api-client';
 import type { StationBody, StationView } from '@shared/schemas/stations';
 import { stationsKeys } from './stations-keys';
 
-export const stationsQueryOptions = () => queryOptions({ queryKey: stationsKeys.list(), queryFn: () => api.get<StationView[]>('/stations'), staleTime: 5 * 60_000 });
+export const stationsQueryOptions = () =>
+  queryOptions({ queryKey: stationsKeys.list(), queryFn: () => api.get<StationView[]>('/stations'), staleTime: 5 * 60_000 });
 export const useStations = () => useQuery(stationsQueryOptions());
 
 export function useSaveStation() {

@@ -4,7 +4,10 @@ import type { TrayPhotoView } from '@shared/schemas/payments';
 import { traysKeys } from './trays-keys';
 
 export const trayPhotosQueryOptions = (trayId: string) =>
-  queryOptions({ queryKey: [...traysKeys.detail(trayId), 'photos'] as const, queryFn: () => api.get<TrayPhotoView[]>(`/trays/${encodeURIComponent(trayId)}/photos`) });
+  queryOptions({
+    queryKey: [...traysKeys.detail(trayId), 'photos'] as const,
+    queryFn: () => api.get<TrayPhotoView[]>(`/trays/${encodeURIComponent(trayId)}/photos`),
+  });
 export const useTrayPhotos = (trayId: string, enabled = true) => useQuery({ ...trayPhotosQueryOptions(trayId), enabled });
 
 /** Shows a QC photo to the customer on her order page, or stops showing it. */

@@ -21,7 +21,15 @@ export function PhotosPanel({ trayId, mayShare }: { trayId: string; mayShare: bo
       <ul className="mt-4 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         {photos.data.map((p) => (
           <li key={p.id} className="flex flex-col gap-2 rounded-lg border border-harbour-100 p-2">
-            <img src={p.url} alt={p.stationKind ? t('photos.altAt', { when: formatDateTime(p.takenAt), station: kindName(p.stationKind) }) : t('photos.alt', { when: formatDateTime(p.takenAt) })} className="aspect-square w-full rounded object-cover" />
+            <img
+              src={p.url}
+              alt={
+                p.stationKind
+                  ? t('photos.altAt', { when: formatDateTime(p.takenAt), station: kindName(p.stationKind) })
+                  : t('photos.alt', { when: formatDateTime(p.takenAt) })
+              }
+              className="aspect-square w-full rounded object-cover"
+            />
             <p className="text-sm text-harbour-700">
               {formatDateTime(p.takenAt)}
               {p.stationKind ? ` · ${kindName(p.stationKind)}` : ''}

@@ -30,11 +30,23 @@ export function RoutingProgress({ tray }: { tray: TrayView }) {
           const done = finished || (current != null && s.seq < current);
           const here = s.seq === current;
           return (
-            <li key={s.seq} className={`flex items-center gap-2 rounded-lg px-2 py-1 ${here ? 'bg-brass-300/40 font-bold' : ''}`} aria-current={here ? 'step' : undefined}>
-              {done ? <CheckSquare className="h-5 w-5 text-ok-700" aria-label={t('routing.done')} /> : here ? <SquareArrowRight className="h-5 w-5 text-harbour-800" aria-label={t('routing.current')} /> : <Square className="h-5 w-5 text-harbour-600" aria-label={t('routing.toDo')} />}
+            <li
+              key={s.seq}
+              className={`flex items-center gap-2 rounded-lg px-2 py-1 ${here ? 'bg-brass-300/40 font-bold' : ''}`}
+              aria-current={here ? 'step' : undefined}
+            >
+              {done ? (
+                <CheckSquare className="h-5 w-5 text-ok-700" aria-label={t('routing.done')} />
+              ) : here ? (
+                <SquareArrowRight className="h-5 w-5 text-harbour-800" aria-label={t('routing.current')} />
+              ) : (
+                <Square className="h-5 w-5 text-harbour-600" aria-label={t('routing.toDo')} />
+              )}
               <span>
                 {s.seq}. {s.name}
-                {cures(s.stationKind) && s.cureMinutes ? <span className="text-sm text-harbour-700"> · {t('routing.atLeast', { minutes: s.cureMinutes })}</span> : null}
+                {cures(s.stationKind) && s.cureMinutes ? (
+                  <span className="text-sm text-harbour-700"> · {t('routing.atLeast', { minutes: s.cureMinutes })}</span>
+                ) : null}
               </span>
             </li>
           );
@@ -61,10 +73,12 @@ export function Genealogy({ tray }: { tray: TrayView }) {
         <p className="text-harbour-700">{t('genealogy.none')}</p>
       ) : (
         <ul className="flex flex-col gap-2">
-          {tray.parent && <li>
+          {tray.parent && (
+            <li>
               {t('genealogy.splitFrom')}
               {item(tray.parent)}
-            </li>}
+            </li>
+          )}
           {tray.children.length > 0 && (
             <li>
               {t('genealogy.splitOff')}
@@ -76,10 +90,12 @@ export function Genealogy({ tray }: { tray: TrayView }) {
               ))}
             </li>
           )}
-          {tray.mergedInto && <li>
+          {tray.mergedInto && (
+            <li>
               {t('genealogy.mergedInto')}
               {item(tray.mergedInto)}
-            </li>}
+            </li>
+          )}
           {tray.mergedFrom.length > 0 && (
             <li>
               {t('genealogy.mergedIn')}

@@ -29,9 +29,24 @@ export function UserForm({ onDone }: { onDone: () => void }) {
           </option>
         ))}
       </SelectField>
-      <TextField label={t('form.password')} type="password" autoComplete="new-password" {...form.register('password')} error={e.password?.message} hint={t('form.passwordHint')} />
+      <TextField
+        label={t('form.password')}
+        type="password"
+        autoComplete="new-password"
+        {...form.register('password')}
+        error={e.password?.message}
+        hint={t('form.passwordHint')}
+      />
       <TextField label={t('form.badge')} {...form.register('badge', { setValueAs: (v) => v || undefined })} error={e.badge?.message} />
-      <TextField label={t('form.pin')} inputMode="numeric" type="password" autoComplete="off" {...form.register('pin', { setValueAs: (v) => v || undefined })} error={e.pin?.message} hint={t('form.pinHint')} />
+      <TextField
+        label={t('form.pin')}
+        inputMode="numeric"
+        type="password"
+        autoComplete="off"
+        {...form.register('pin', { setValueAs: (v) => v || undefined })}
+        error={e.pin?.message}
+        hint={t('form.pinHint')}
+      />
       {create.error && (
         <div className="md:col-span-3">
           <ErrorPanel title={t('form.notSaved')} message={errorText(create.error)} />

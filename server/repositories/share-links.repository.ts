@@ -2,12 +2,19 @@ import { and, desc, eq, isNotNull, isNull } from 'drizzle-orm';
 import type { DbLike as Db } from '../db/client';
 import { shareLinks } from '../db/schema/shipping';
 import { users } from '../db/schema/users';
+import { settings } from '../db/schema/reference-data';
+import type { CarrierLink } from '@shared/domain/carrier-tracking';
 
 export type ShareLinkRow = typeof shareLinks.$inferSelect;
 export type OrderLinkRow = ShareLinkRow & { orderId: string };
 export type QuoteLinkRow = ShareLinkRow & { quoteId: string };
 
 export const shareLinksRepository = {
+  /** the factory's carriers and their tracking pages (settings key `carriers`; none when unset) */
+  carriers(db: Db): CarrierLink[] {
+    const value = db.select().from(settings).where(eq(settings.key, 'carriers')).get()?.value;
+    return Array.isArray(value) ? (value as CarrierLink[]) : [];
+  },
   insert: (db: Db, row: typeof shareLinks.$inferInsert) => db.insert(shareLinks).values(row).run(),
   /** the live order link with this token hash (it may have expired: the caller checks `expiresAt`) */
   activeByHash: (db: Db, tokenHash: string) =>

@@ -51,9 +51,9 @@ export const DEMO_SEED = 'tallowmere-2026';
 const HOLD_NOTE = 'Customer asked us to wait: artwork change under discussion';
 
 const CARRIERS = [
-  { name: 'Swiftlane Couriers', prefix: 'SL' },
-  { name: 'Harbourline Express', prefix: 'HX' },
-  { name: 'Kitefield Freight', prefix: 'KF' },
+  { name: 'Swiftlane Couriers', prefix: 'SL', trackingUrl: 'https://track.swiftlane.example/parcel/{number}' },
+  { name: 'Harbourline Express', prefix: 'HX', trackingUrl: 'https://harbourline.example/track?id={number}' },
+  { name: 'Kitefield Freight', prefix: 'KF', trackingUrl: 'https://kitefield.example/t/{number}' },
 ];
 
 const UNIT_PRICE: Record<Process, number> = { hard_enamel: 1.35, soft_enamel: 0.95, die_struck: 1.1, printed: 0.85, die_cast_3d: 1.9 };
@@ -94,6 +94,12 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     tx.insert(settings)
       .values({ key: 'factory', value: { name: DEMO_FACTORY.name, timeZone: DEMO_FACTORY.timeZone } })
       .onConflictDoUpdate({ target: settings.key, set: { value: { name: DEMO_FACTORY.name, timeZone: DEMO_FACTORY.timeZone } } })
+      .run();
+    // the demo factory's (invented) carriers and their public tracking pages
+    const carriers = CARRIERS.map((c) => ({ name: c.name, trackingUrl: c.trackingUrl }));
+    tx.insert(settings)
+      .values({ key: 'carriers', value: carriers })
+      .onConflictDoUpdate({ target: settings.key, set: { value: carriers } })
       .run();
     for (const p of [...DEMO_PEOPLE, ...DEMO_CREW]) {
       tx.insert(users)

@@ -134,7 +134,7 @@ export function publicStatusOf(deps: AppDeps, token: string, link: ShareLinkRow,
   if (last) {
     body.carrier = last.carrier;
     body.trackingNumber = last.trackingNumber;
-    const url = carrierTrackingUrl(last.carrier, last.trackingNumber);
+    const url = carrierTrackingUrl(last.carrier, last.trackingNumber, shareLinksRepository.carriers(deps.db));
     if (url) body.trackingUrl = url;
   }
   // Opening the page is recorded (sales sees that the customer looked), at most once a minute.

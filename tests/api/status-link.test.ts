@@ -164,20 +164,23 @@ describe('customer status link', () => {
     expect(res.body.stages.every((s: { done: boolean }) => s.done)).toBe(true);
   });
 
-  it('links the tracking number to the carrier’s own tracking page when the carrier is known', async () => {
+  it('links the tracking number to the carrier’s own tracking page when the carrier is on the factory’s list', async () => {
+    t.deps.db.$client
+      .prepare("insert into settings (key, value) values ('carriers', ?) on conflict(key) do update set value = excluded.value")
+      .run(JSON.stringify([{ name: 'Swiftlane', trackingUrl: 'https://track.swiftlane.example/parcel/{number}' }]));
     const d = insertShippingOrder(t.deps, { trays: [{ quantity: 30, at: SEQ.dispatch }], contactEmail: null });
     expect(
       (
         await sales
           .post(`/api/orders/${d.orderId}/shipments`)
-          .send({ carrier: 'DHL Express', trackingNumber: '1234567890', cartons: [{ count: 1, piecesPerCarton: 30, weightKg: 1 }] })
+          .send({ carrier: 'Swiftlane Couriers', trackingNumber: 'SL1234567890', cartons: [{ count: 1, piecesPerCarton: 30, weightKg: 1 }] })
       ).status,
     ).toBe(201);
     finishDispatch(t.deps, d.trays[0].id, Date.parse('2025-03-06T09:00:00.000Z'));
     const token = (await sales.post(`/api/orders/${d.orderId}/share`).send({})).body.token as string;
     const res = await pub(`/api/public/status/${token}`);
     expect(Object.keys(res.body).sort()).toEqual([...DOCUMENTED].sort());
-    expect(res.body.trackingUrl).toBe('https://www.dhl.com/global-en/home/tracking/tracking-express.html?submit=1&tracking-id=1234567890');
+    expect(res.body.trackingUrl).toBe('https://track.swiftlane.example/parcel/SL1234567890');
   });
 
   it('is for sales and planners; an operator or a visitor cannot make one', async () => {

@@ -6,7 +6,7 @@ import { ordersRepository, type OrderRow } from '../repositories/orders.reposito
 import type { OrderStepRow } from '../repositories/scans.repository';
 import type { OrderSpec, ProductType } from '@shared/schemas/orders';
 import { routingTemplateSchema } from '@shared/schemas/routing';
-import { DEFAULT_ROUTING_TEMPLATES, expandRouting, type RoutingTemplate } from '@shared/domain/routing';
+import { DEFAULT_ROUTING_TEMPLATES, expandRouting, type RoutingSpec, type RoutingTemplate } from '@shared/domain/routing';
 import type { BackingType, Process, RoutingStep, StationKind, TravellerKind } from '@shared/domain/vocabulary';
 
 /** An order's spec without who it is for (what the routing and the row are made from). */
@@ -87,7 +87,7 @@ export function templateFor(db: DbLike, process: Process): RoutingTemplate {
 }
 
 /** The routing the process's template makes for a spec. */
-export function routingFromSpec(db: DbLike, spec: OrderSpecFields): RoutingStep[] {
+export function routingFromSpec(db: DbLike, spec: RoutingSpec & { process: Process }): RoutingStep[] {
   return expandRouting(templateFor(db, spec.process), spec);
 }
 

@@ -37,7 +37,6 @@ export const FIRST_ORDER_NUMBER = 1001;
 export const DEFAULT_TRAY_SIZE = 100;
 
 /** Kept here for the callers that read the template through the orders service. */
-export { templateFor } from './order-spec.service';
 
 export const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 /** today on the factory's clock (shared/domain/calendar.ts), never the UTC date */

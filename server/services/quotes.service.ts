@@ -12,7 +12,7 @@ import { shareLinksRepository } from '../repositories/share-links.repository';
 import { auditRepository } from '../repositories/audit.repository';
 import { badInput, conflict, notFound } from '../errors';
 import { customerFor, ordersService } from './orders.service';
-import { templateFor } from './order-spec.service';
+import { routingFromSpec } from './order-spec.service';
 import { calendarService } from './calendar.service';
 import { projectQuantities } from './what-if.service';
 import { createLinkIn, createQuoteLinkIn, quoteLinkOf, revokeQuoteLinksIn, touchQuoteLink } from './share-links.service';
@@ -21,9 +21,8 @@ import { putFile } from '../lib/file-store';
 import { quotePdf } from '../lib/quote-pdf';
 import { quoteSentMail } from '../lib/mail-templates';
 import { priceQuote, type QuotePricing } from '@shared/domain/costing';
-import { expandRouting, requiredMoulds } from '@shared/domain/routing';
+import { requiredMoulds } from '@shared/domain/routing';
 import { DAY, localDate } from '@shared/domain/calendar';
-import type { RoutingStep } from '@shared/domain/vocabulary';
 import {
   costingSettingsPatchSchema,
   costingSettingsSchema,
@@ -65,10 +64,6 @@ export function costingSettings(db: DbLike): CostingSettings {
 // ---------------------------------------------------------------------------------------
 // Pricing
 
-function routingFor(db: DbLike, spec: QuoteSpec): RoutingStep[] {
-  return expandRouting(templateFor(db, spec.process), spec);
-}
-
 function reuseOf(db: DbLike, spec: QuoteSpec): { front?: boolean; back?: boolean } {
   if (!spec.reorderOf) return {};
   const earlier = ordersRepository.byId(db, spec.reorderOf);
@@ -79,7 +74,7 @@ function reuseOf(db: DbLike, spec: QuoteSpec): { front?: boolean; back?: boolean
 }
 
 function price(db: DbLike, spec: QuoteSpec, quantities: number[], settings: CostingSettings): QuotePricing {
-  return priceQuote({ spec, routing: routingFor(db, spec), quantities, reuseMoulds: reuseOf(db, spec), settings });
+  return priceQuote({ spec, routing: routingFromSpec(db, spec), quantities, reuseMoulds: reuseOf(db, spec), settings });
 }
 
 // ---------------------------------------------------------------------------------------

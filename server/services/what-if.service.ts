@@ -6,7 +6,7 @@ import type { AppDeps } from '../app-deps';
 import { DAY } from '@shared/domain/calendar';
 import { projectFloor } from '@shared/domain/floor-projection';
 import type { SnapshotOrder, SnapshotTraveller } from '@shared/domain/floor-history';
-import { expandRouting, mouldRouting, requiredMoulds } from '@shared/domain/routing';
+import { mouldRouting, requiredMoulds } from '@shared/domain/routing';
 import { MAX_TRAYS_PER_RELEASE, releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
 import { kindTraits } from '@shared/domain/traveller';
 import { initialTrayState } from '@shared/domain/vocabulary';
@@ -18,7 +18,8 @@ import { mouldsRepository } from '../repositories/moulds.repository';
 import { projectionRepository } from '../repositories/projection.repository';
 import { calendarService } from './calendar.service';
 import { floorSnapshot, modelOf, PROJECTION_RUNS } from './projection.service';
-import { DEFAULT_TRAY_SIZE, templateFor } from './orders.service';
+import { DEFAULT_TRAY_SIZE } from './orders.service';
+import { routingFromSpec } from './order-spec.service';
 
 /** The id the imagined order carries in the simulation (never stored). */
 export const WHAT_IF_ORDER_ID = 'what-if';
@@ -45,7 +46,7 @@ export function imaginedOrder(deps: AppDeps, spec: WhatIfBody, releasedAt: numbe
   if (spec.customerId && !ordersRepository.customerById(db, spec.customerId)) {
     throw badInput('There is no customer with that id.', [{ path: ['customerId'], message: 'Unknown customer' }], 'unknown_customer');
   }
-  const tray = expandRouting(templateFor(db, spec.process), spec);
+  const tray = routingFromSpec(db, spec);
   const stored = requiredMoulds(spec).map((side) => ({ side, reuse: designKey != null && !!mouldsRepository.reusable(db, designKey, side) }));
   const mould = mouldRouting({ reuse: stored.every((m) => m.reuse), process: spec.process });
   const checkSeq = mould.find((s) => kindTraits(s.stationKind).mouldShop === 'check')?.seq ?? 1;

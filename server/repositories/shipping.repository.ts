@@ -8,7 +8,7 @@ import { cartons, shipments } from '../db/schema/shipping';
 import { auditLog, settings } from '../db/schema/reference-data';
 import { users } from '../db/schema/users';
 import type { Role } from '@shared/domain/vocabulary';
-import { DEFAULT_TIME_ZONE } from '@shared/domain/calendar';
+import { DEFAULT_TIME_ZONE } from '@shared/domain/time-zone';
 
 /** SQLite caps the variables in one statement; long id lists are read in slices. */
 function inChunks<T>(ids: string[], read: (slice: string[]) => T[], size = 5000): T[] {

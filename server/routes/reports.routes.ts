@@ -3,7 +3,7 @@ import type { Api } from '../http/api';
 import { OFFICE, REPORT_READERS } from '@shared/domain/access';
 import type { Role } from '@shared/domain/vocabulary';
 import { reportQuery, type ReportWindow } from '@shared/schemas/reports';
-import { localDate } from '@shared/domain/calendar';
+import { localDate } from '@shared/domain/time-zone';
 import { reportsCsv, reportsService } from '../services/reports.service';
 import { projectionService } from '../services/projection.service';
 

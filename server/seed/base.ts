@@ -7,7 +7,7 @@ import { hashSecret } from '../services/auth.service';
 import { DEFAULT_ADMIN_PASSWORD } from '../env';
 import { DEFAULT_ROUTING_TEMPLATES } from '@shared/domain/routing';
 import { PROCESSES, type StationKind } from '@shared/domain/vocabulary';
-import { DEFAULT_TIME_ZONE } from '@shared/domain/calendar';
+import { DEFAULT_TIME_ZONE } from '@shared/domain/time-zone';
 
 const GENERAL = 'Local regulations and this factory’s own procedures take precedence over these notes.';
 const GENERAL_ZH = '当地法规和本厂自己的规程优先于这些说明。';

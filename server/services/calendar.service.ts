@@ -5,7 +5,6 @@ import { auditRepository } from '../repositories/audit.repository';
 import { reportFactsRepository } from '../repositories/report-facts.repository';
 import { badInput } from '../errors';
 import {
-  DEFAULT_TIME_ZONE,
   WEEKDAYS,
   compileCalendar,
   defaultCalendarConfig,
@@ -15,6 +14,7 @@ import {
   type WeekSchedule,
   type WorkingCalendar,
 } from '@shared/domain/calendar';
+import { DEFAULT_TIME_ZONE } from '@shared/domain/time-zone';
 import type { CalendarBody, CalendarView, WeekBody } from '@shared/schemas/calendar';
 
 // Stored rows use weekday 0 = Sunday (as JavaScript does); the domain names days mon..sun.

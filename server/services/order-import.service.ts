@@ -3,7 +3,7 @@ import type { AppDeps } from '../app-deps';
 import { ordersRepository } from '../repositories/orders.repository';
 import { badInput } from '../errors';
 import { previewOrderImport } from '@shared/domain/order-import';
-import { localDate } from '@shared/domain/calendar';
+import { localDate } from '@shared/domain/time-zone';
 import { shipDateService } from './ship-date.service';
 import { ordersService } from './orders.service';
 

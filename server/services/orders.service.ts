@@ -24,7 +24,7 @@ import {
 } from '@shared/schemas/orders';
 import { mouldRouting, mouldStepsFor, mouldTool, requiredMoulds, type MouldSide } from '@shared/domain/routing';
 import { releasedQuantity } from '@shared/domain/trays';
-import { factoryToday } from '@shared/domain/calendar';
+import { factoryToday } from '@shared/domain/time-zone';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { loadProgress } from './order-progress.service';
 import { openGates, paymentSummaryOf, preReleaseStatus } from './order-gates';

@@ -22,7 +22,7 @@ import { quotePdf } from '../lib/quote-pdf';
 import { quoteSentMail } from '../lib/mail-templates';
 import { priceQuote, type QuotePricing } from '@shared/domain/costing';
 import { requiredMoulds } from '@shared/domain/routing';
-import { DAY, localDate } from '@shared/domain/calendar';
+import { DAY, localDate } from '@shared/domain/time-zone';
 import {
   costingSettingsPatchSchema,
   costingSettingsSchema,

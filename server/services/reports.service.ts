@@ -5,7 +5,7 @@ import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
 import { badInput } from '../errors';
 import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers, type Summary } from '@shared/domain/stats';
-import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/calendar';
+import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/time-zone';
 import { countPerBucket, cumulativeFlowOfItems, flowEfficiency, makeBuckets, wipOverTime } from '@shared/domain/flow';
 import { pareto, rolledThroughputYield, stepYield, type StepCounts } from '@shared/domain/yield';
 import { STATION_KINDS } from '@shared/domain/vocabulary';

@@ -20,7 +20,7 @@ import type { ShareLinkRow } from '../repositories/share-links.repository';
 import type { ShippingOrder } from '../repositories/shipping.repository';
 import { publicStatusSchema, statusTokenSchema, type PublicStatus, type ShareLink, type ShareLinkInfo } from '@shared/schemas/shipping';
 import { carrierTrackingUrl } from '@shared/domain/carrier-tracking';
-import { localDate } from '@shared/domain/calendar';
+import { localDate } from '@shared/domain/time-zone';
 import { defaultFrom } from './mail.service';
 
 /** Random bytes in a token: 256 bits, well over the 128 the product asks for. */

@@ -3,7 +3,7 @@
 // new order's dates come from the second run; an open order is listed when its 85th-percentile
 // date moves later. Nothing is written: the order, its trays and moulds exist only in memory.
 import type { AppDeps } from '../app-deps';
-import { DAY } from '@shared/domain/calendar';
+import { DAY } from '@shared/domain/time-zone';
 import { projectFloor } from '@shared/domain/floor-projection';
 import type { SnapshotOrder, SnapshotTraveller } from '@shared/domain/floor-history';
 import { mouldRouting, requiredMoulds } from '@shared/domain/routing';

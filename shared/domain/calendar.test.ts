@@ -1,17 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  DEFAULT_TIME_ZONE,
-  compileCalendar,
-  factoryToday,
-  dayNumberOfDate,
-  localDate,
-  startOfLocalDate,
-  validateCalendar,
-  weekdayOfDayNumber,
-  zoneOffsetMs,
-  type CalendarConfig,
-  type Shift,
-} from './calendar';
+import { compileCalendar, validateCalendar, type CalendarConfig, type Shift } from './calendar';
 
 // Hand-worked examples. The factory is in Asia/Shanghai (UTC+8 all year, no daylight saving),
 // so local 08:00 is 00:00Z. Week: Mon-Fri 08:00-12:00 and 13:00-17:00, Sat 08:00-12:00, Sun off;
@@ -33,26 +21,6 @@ const CONFIG: CalendarConfig = {
 };
 const cal = compileCalendar(CONFIG);
 const local = (s: string) => Date.parse(`${s}+08:00`);
-const iso = (ms: number) => new Date(ms).toISOString();
-
-describe('time-zone helpers', () => {
-  it('knows weekdays and local dates', () => {
-    expect(weekdayOfDayNumber(dayNumberOfDate('2025-06-13'))).toBe(4); // a Friday, Monday = 0
-    expect(weekdayOfDayNumber(dayNumberOfDate('1970-01-01'))).toBe(3); // a Thursday
-    expect(localDate('Asia/Shanghai', '2025-06-13T17:00:00Z')).toBe('2025-06-14');
-    expect(localDate('America/New_York', '2025-06-13T03:00:00Z')).toBe('2025-06-12');
-    expect(startOfLocalDate('Asia/Shanghai', '2025-06-14')).toBe(Date.parse('2025-06-13T16:00:00Z'));
-    expect(zoneOffsetMs('Europe/London', Date.parse('2025-07-01T12:00:00Z'))).toBe(3_600_000);
-    expect(zoneOffsetMs('Europe/London', Date.parse('2025-01-01T12:00:00Z'))).toBe(0);
-  });
-
-  it('reads a local midnight on daylight-saving days', () => {
-    // London: clocks go forward 2025-03-30 01:00 GMT and back 2025-10-26 01:00 GMT
-    expect(iso(startOfLocalDate('Europe/London', '2025-03-30'))).toBe('2025-03-30T00:00:00.000Z');
-    expect(iso(startOfLocalDate('Europe/London', '2025-03-31'))).toBe('2025-03-30T23:00:00.000Z');
-    expect(iso(startOfLocalDate('Europe/London', '2025-10-27'))).toBe('2025-10-27T00:00:00.000Z');
-  });
-});
 
 describe('working minutes between two instants (hand-worked)', () => {
   it('across a night: Tue 16:00 -> Wed 09:30 is 60 + 90 = 150 min', () => {
@@ -172,27 +140,5 @@ describe('validation', () => {
     expect(bad).toHaveLength(5);
     expect(() => compileCalendar({ ...CONFIG, timeZone: 'Nowhere/Else' })).toThrow(/time zone/);
     expect(validateCalendar(CONFIG)).toEqual([]);
-  });
-});
-
-describe('one factory clock: "today" is the factory’s date', () => {
-  // China keeps UTC+8 all year, with no daylight saving since 1991 (IANA time zone database, Asia/Shanghai).
-  it('is already tomorrow in Shanghai from 16:00 UTC, while the UTC date is still today', () => {
-    const lateEvening = Date.parse('2026-06-16T23:30:00Z'); // 07:30 on the 17th in the factory
-    expect(new Date(lateEvening).toISOString().slice(0, 10)).toBe('2026-06-16');
-    expect(factoryToday(lateEvening, 'Asia/Shanghai')).toBe('2026-06-17');
-    expect(factoryToday(Date.parse('2026-06-16T15:59:59Z'), 'Asia/Shanghai')).toBe('2026-06-16');
-    expect(factoryToday(Date.parse('2026-06-16T16:00:00Z'), 'Asia/Shanghai')).toBe('2026-06-17');
-  });
-
-  it('follows the zone it is given, daylight saving included', () => {
-    // New York is UTC-4 in June (EDT): 02:00 UTC on the 17th is 22:00 on the 16th there
-    expect(factoryToday(Date.parse('2026-06-17T02:00:00Z'), 'America/New_York')).toBe('2026-06-16');
-    expect(factoryToday(Date.parse('2026-06-17T02:00:00Z'), 'UTC')).toBe('2026-06-17');
-  });
-
-  it('has one default zone, the one the calendar and the factory settings fall back to', () => {
-    expect(DEFAULT_TIME_ZONE).toBe('Asia/Shanghai');
-    expect(zoneOffsetMs(DEFAULT_TIME_ZONE, Date.parse('2026-01-15T00:00:00Z'))).toBe(8 * 3_600_000);
   });
 });

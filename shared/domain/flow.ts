@@ -5,7 +5,7 @@
 // Oven cure is needed but unattended, so it is not counted as value-adding; its share of the
 // flow time is reported beside it, so a reader can see both.
 
-import { dateOfDayNumber, localDayNumber, utcOfLocal } from './calendar';
+import { dateOfDayNumber, localDayNumber, utcOfLocal } from './time-zone';
 import { countAtMost } from './stats';
 
 export interface FlowEfficiencyInput {

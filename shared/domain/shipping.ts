@@ -1,7 +1,7 @@
 // The arithmetic of the last two steps: how many finished pieces an order may ship, what a set
 // of cartons holds, and when an order counts as shipped.
 import type { RoutingStep, TrayPhase } from './vocabulary';
-import { dateOfDayNumber, dayNumberOfDate, startOfLocalDate } from './calendar';
+import { dateOfDayNumber, dayNumberOfDate, startOfLocalDate } from './time-zone';
 
 /** Overrun allowance in pieces: ordered × percent, rounded up to a whole piece. */
 export function overrunAllowance(ordered: number, overrunPct: number): number {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { WEEKDAYS, isValidTimeZone, parseHm } from '../domain/calendar';
+import { WEEKDAYS, parseHm } from '../domain/calendar';
+import { isValidTimeZone } from '../domain/time-zone';
 
 const hm = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a time written HH:MM (24 hours)');
 

@@ -1,7 +1,7 @@
 // Dates and times on every screen: the factory's zone (from GET /api/auth/me, or the tablet's own
 // device answer) and the reader's language, through the one formatter in shared/domain.
 import { formatDay, formatInstant, type InstantStyle } from '@shared/domain/time-format';
-import { DEFAULT_TIME_ZONE, dateOfDayNumber, dayNumberOfDate, factoryToday } from '@shared/domain/calendar';
+import { DEFAULT_TIME_ZONE, dateOfDayNumber, dayNumberOfDate, factoryToday, utcOfLocal } from '@shared/domain/time-zone';
 import type { Locale } from '@shared/domain/vocabulary';
 import { currentLocale } from '@/lib/i18n';
 
@@ -24,6 +24,17 @@ export function factoryTodayDate(nowMs: number = Date.now()): string {
 /** The factory's date `days` days from today ("2026-12-10"), e.g. a default due date. */
 export function factoryDateInDays(days: number, nowMs: number = Date.now()): string {
   return dateOfDayNumber(dayNumberOfDate(factoryTodayDate(nowMs)) + days);
+}
+
+/**
+ * A `datetime-local` input's value ("2026-12-10T08:30") read on the factory's clock, whatever the
+ * device's zone: the instant as ISO 8601 UTC. Not a full value: undefined.
+ */
+export function factoryLocalToIso(local: string): string | undefined {
+  const m = /^(\d{4}-\d{2}-\d{2})T(\d{2}):(\d{2})/.exec(local);
+  if (!m) return undefined;
+  const ms = utcOfLocal(factoryZone ?? DEFAULT_TIME_ZONE, dayNumberOfDate(m[1]), Number(m[2]) * 60 + Number(m[3]));
+  return Number.isFinite(ms) ? new Date(ms).toISOString() : undefined;
 }
 
 type At = string | number | Date | null | undefined;

@@ -1,5 +1,5 @@
 // The figures on the manager's summary page, from the reports' own answers.
-import { dateOfDayNumber, dayNumberOfDate } from '@shared/domain/calendar';
+import { dateOfDayNumber, dayNumberOfDate } from '@shared/domain/time-zone';
 import type { YieldStep } from '@shared/schemas/reports';
 
 export interface DayRange {

@@ -399,8 +399,13 @@ describe('edited routings', () => {
 
     const broken = moved.map((s) => (s.stationKind === 'cure' ? { ...s, cureMinutes: null } : s));
     expect(routingProblems(broken)).toHaveLength(1);
+    expect(routingProblems(broken)[0]).toMatchObject({ code: 'no_cure_time', params: { name: expect.any(String) } });
+    expect(routingProblems([{ ...moved[0], seq: 2 }])[0]).toMatchObject({ code: 'numbering', params: { n: 1, seq: 2 } });
     expect(routingProblems([{ ...moved[0], seq: 2 }])[0].message).toMatch(/numbered 2/);
     expect(routingProblems([])).toHaveLength(1);
+    expect(routingProblems([])[0].code).toBe('empty');
     expect(routingProblems([{ ...moved[0], trayMinutes: -1 }])[0].message).toMatch(/negative/);
+    expect(routingProblems([{ ...moved[0], trayMinutes: -1 }])[0].code).toBe('negative_minutes');
+    expect(routingProblems([{ ...moved[0], name: ' ' }])[0].code).toBe('no_name');
   });
 });

@@ -404,8 +404,13 @@ export const MOULD_USING_KINDS: readonly StationKind[] = kindsWhere((t) => t.nee
 // ---------------------------------------------------------------------------------------
 // Edited routings
 
+export type RoutingProblemCode = 'empty' | 'numbering' | 'no_name' | 'negative_minutes' | 'no_cure_time';
+
 export interface RoutingProblem {
   seq: number | null;
+  /** what is wrong, for screens in any language (with `params`) */
+  code: RoutingProblemCode;
+  params?: Record<string, string | number>;
   message: string;
 }
 
@@ -417,15 +422,15 @@ export function renumber<T extends Omit<RoutingStep, 'seq'> & { seq?: number }>(
 /** What is wrong with an edited routing (empty list: fine). */
 export function routingProblems(steps: readonly RoutingStep[]): RoutingProblem[] {
   const problems: RoutingProblem[] = [];
-  if (steps.length === 0) problems.push({ seq: null, message: 'A routing needs at least one step' });
+  if (steps.length === 0) problems.push({ seq: null, code: 'empty', message: 'A routing needs at least one step' });
   steps.forEach((s, i) => {
-    if (s.seq !== i + 1) problems.push({ seq: s.seq, message: `Step ${i + 1} is numbered ${s.seq}` });
-    if (!s.name.trim()) problems.push({ seq: s.seq, message: 'Every step needs a name' });
+    if (s.seq !== i + 1) problems.push({ seq: s.seq, code: 'numbering', params: { n: i + 1, seq: s.seq }, message: `Step ${i + 1} is numbered ${s.seq}` });
+    if (!s.name.trim()) problems.push({ seq: s.seq, code: 'no_name', message: 'Every step needs a name' });
     if (!(s.trayMinutes >= 0) || !(s.pieceMinutes >= 0)) {
-      problems.push({ seq: s.seq, message: 'Standard minutes cannot be negative' });
+      problems.push({ seq: s.seq, code: 'negative_minutes', message: 'Standard minutes cannot be negative' });
     }
     if (cures(s.stationKind) && !(typeof s.cureMinutes === 'number' && s.cureMinutes > 0)) {
-      problems.push({ seq: s.seq, message: `${s.name}: a cure step needs a minimum cure time` });
+      problems.push({ seq: s.seq, code: 'no_cure_time', params: { name: s.name }, message: `${s.name}: a cure step needs a minimum cure time` });
     }
   });
   return problems;

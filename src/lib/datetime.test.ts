@@ -11,7 +11,7 @@ import type { TrayCard } from '@shared/schemas/scans';
 import type { TrayState } from '@shared/domain/vocabulary';
 import { formatInstant, formatDay } from '@shared/domain/time-format';
 import { applyLocale } from '@/lib/i18n';
-import { factoryDateInDays, factoryTodayDate, setFactoryTimeZone } from './datetime';
+import { factoryDateInDays, factoryLocalToIso, factoryTodayDate, setFactoryTimeZone } from './datetime';
 import { SpecCard } from '@/features/orders/components/spec-card';
 import { OrdersTable } from '@/features/orders/components/orders-table';
 import { TrayPanel } from '@/features/station/components/tray-panel';
@@ -200,5 +200,16 @@ describe('the date pickers’ today is the factory’s', () => {
     const at = Date.parse('2026-06-16T23:30:00Z');
     expect(factoryTodayDate(at)).toBe('2026-06-17');
     expect(factoryDateInDays(28, at)).toBe('2026-07-15');
+  });
+});
+
+describe('a time typed into a date-time field is on the factory’s clock', () => {
+  it('08:30 on 10 Dec 2026 in Shanghai (UTC+8, IANA tz database) is 00:30 UTC; in New York (UTC−5 in December) 13:30 UTC', () => {
+    setFactoryTimeZone('Asia/Shanghai');
+    expect(factoryLocalToIso('2026-12-10T08:30')).toBe('2026-12-10T00:30:00.000Z');
+    setFactoryTimeZone('America/New_York');
+    expect(factoryLocalToIso('2026-12-10T08:30')).toBe('2026-12-10T13:30:00.000Z');
+    expect(factoryLocalToIso('')).toBeUndefined();
+    setFactoryTimeZone('Asia/Shanghai');
   });
 });

@@ -1,4 +1,6 @@
-import { useRef, useState, type ReactNode } from 'react';
+import { useMemo, useRef, useState, type ReactNode } from 'react';
+import { Trans, useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -10,21 +12,27 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { formatDate, formatDateTime } from '@/lib/labels';
 import { factoryTodayDate } from '@/lib/datetime';
+import { errorText } from '@/lib/error-text';
 import { proofFileUrl, useApproveProof, useRecordPayment, useUploadProof } from '../api/gates';
 
-const paymentForm = z.object({
-  amount: z.number({ error: 'Enter the amount' }).positive('Amount must be above 0'),
-  reference: z.string().trim().min(1, 'Give the payment reference'),
-});
-const exceptionForm = z.object({ reason: z.string().trim().min(5, 'Say why production may start unpaid') });
+type T = TFunction<'orders'>;
+const paymentForm = (t: T) =>
+  z.object({
+    amount: z.number({ error: t('gates.enterAmount') }).positive(t('gates.amountAboveZero')),
+    reference: z.string().trim().min(1, t('gates.enterReference')),
+  });
+const exceptionForm = (t: T) => z.object({ reason: z.string().trim().min(5, t('gates.enterReason')) });
+type PaymentValues = z.infer<ReturnType<typeof paymentForm>>;
+type ExceptionValues = z.infer<ReturnType<typeof exceptionForm>>;
 
 function Gate({ ok, title, children }: { ok: boolean; title: string; children: ReactNode }) {
+  const { t } = useTranslation('orders');
   return (
     <section aria-label={title} className="flex flex-col gap-3">
       <h3 className="flex items-center gap-2 text-lg font-bold text-harbour-900">
         {ok ? <CheckCircle2 className="h-6 w-6 text-ok-700" aria-hidden /> : <CircleDashed className="h-6 w-6 text-warn-700" aria-hidden />}
         {title}
-        {ok ? <Pill tone="ok">Done</Pill> : <Pill tone="warn">Open</Pill>}
+        {ok ? <Pill tone="ok">{t('gates.done')}</Pill> : <Pill tone="warn">{t('gates.open')}</Pill>}
       </h3>
       {children}
     </section>
@@ -32,18 +40,32 @@ function Gate({ ok, title, children }: { ok: boolean; title: string; children: R
 }
 
 function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
+  const { t } = useTranslation('orders');
   const pay = useRecordPayment(order.id);
-  const form = useForm<z.infer<typeof paymentForm>>({ resolver: zodResolver(paymentForm) });
-  const exception = useForm<z.infer<typeof exceptionForm>>({ resolver: zodResolver(exceptionForm) });
+  // the forms' own words in the reader's language (t changes with the language)
+  const schemas = useMemo(() => ({ payment: paymentForm(t), exception: exceptionForm(t) }), [t]);
+  const form = useForm<PaymentValues>({ resolver: zodResolver(schemas.payment) });
+  const exception = useForm<ExceptionValues>({ resolver: zodResolver(schemas.exception) });
   const [showException, setShowException] = useState(false);
   const mayExcept = role === 'manager' || role === 'admin';
   const ok = !order.openGates.includes('payment_missing');
   return (
-    <Gate ok={ok || order.releasedAt != null} title="Payment">
+    <Gate ok={ok || order.releasedAt != null} title={t('gates.payment')}>
       {order.payment.required != null && (
         <p data-testid="payment-due">
-          Price {order.payment.priceTotal?.toFixed(2)} {order.payment.currency} · due before release ({order.payment.depositPct} %){' '}
-          {order.payment.required.toFixed(2)} · paid {order.paidTotal.toFixed(2)} · <strong>still due {(order.payment.amountDue ?? 0).toFixed(2)}</strong>
+          <Trans
+            t={t}
+            i18nKey="gates.paymentDue"
+            values={{
+              price: order.payment.priceTotal?.toFixed(2) ?? '—',
+              currency: order.payment.currency,
+              pct: order.payment.depositPct,
+              required: order.payment.required.toFixed(2),
+              paid: order.paidTotal.toFixed(2),
+              due: (order.payment.amountDue ?? 0).toFixed(2),
+            }}
+            components={{ strong: <strong /> }}
+          />
         </p>
       )}
       {order.payments.length > 0 && (
@@ -51,15 +73,13 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
           {order.payments.map((p) => (
             <li key={p.id}>
               {p.isException ? (
-                <>
-                  <strong>Exception</strong> by {p.recordedBy}: {p.note}
-                </>
+                <Trans t={t} i18nKey="gates.exception" values={{ name: p.recordedBy, note: p.note ?? '' }} components={{ strong: <strong /> }} />
               ) : (
                 <>
                   <strong>
                     {p.amount?.toFixed(2)} {p.currency ?? ''}
                   </strong>{' '}
-                  · {p.source === 'checkout' ? 'paid online' : `by ${p.recordedBy}`} · {p.reference} {p.note && `· ${p.note}`}
+                  · {p.source === 'checkout' ? t('gates.paidOnline') : t('gates.paidBy', { name: p.recordedBy })} · {p.reference} {p.note && `· ${p.note}`}
                 </>
               )}{' '}
               <span className="text-sm text-harbour-700">({formatDateTime(p.recordedAt)})</span>
@@ -69,21 +89,21 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
       )}
       <form
         noValidate
-        aria-label="Record a payment"
+        aria-label={t('gates.recordForm')}
         className="flex flex-wrap items-end gap-3"
         onSubmit={form.handleSubmit((v) => pay.mutate(v, { onSuccess: () => form.reset() }))}
       >
         <TextField
-          label="Amount"
+          label={t('gates.amount')}
           type="number"
           step="0.01"
           inputMode="decimal"
           {...form.register('amount', { valueAsNumber: true })}
           error={form.formState.errors.amount?.message}
         />
-        <TextField label="Payment reference" {...form.register('reference')} error={form.formState.errors.reference?.message} />
+        <TextField label={t('gates.reference')} {...form.register('reference')} error={form.formState.errors.reference?.message} />
         <Button type="submit" disabled={pay.isPending}>
-          Record payment
+          {t('gates.record')}
         </Button>
       </form>
       {mayExcept && !ok && (
@@ -91,28 +111,29 @@ function PaymentGate({ order, role }: { order: OrderDetail; role: Role }) {
           {showException ? (
             <form
               noValidate
-              aria-label="Allow without payment"
+              aria-label={t('gates.exceptionForm')}
               className="flex flex-wrap items-end gap-3"
               onSubmit={exception.handleSubmit((v) => pay.mutate({ exception: true, reason: v.reason }, { onSuccess: () => setShowException(false) }))}
             >
-              <TextField label="Why may it start unpaid?" {...exception.register('reason')} error={exception.formState.errors.reason?.message} />
+              <TextField label={t('gates.exceptionWhy')} {...exception.register('reason')} error={exception.formState.errors.reason?.message} />
               <Button type="submit" variant="secondary" disabled={pay.isPending}>
-                Record exception
+                {t('gates.recordException')}
               </Button>
             </form>
           ) : (
             <Button variant="ghost" onClick={() => setShowException(true)}>
-              Allow release without payment (manager)
+              {t('gates.allowUnpaid')}
             </Button>
           )}
         </div>
       )}
-      {pay.error && <ErrorPanel title="Not recorded" message={pay.error.message} />}
+      {pay.error && <ErrorPanel title={t('gates.notRecorded')} message={errorText(pay.error)} />}
     </Gate>
   );
 }
 
 function ProofGate({ order }: { order: OrderDetail }) {
+  const { t } = useTranslation('orders');
   const upload = useUploadProof(order.id);
   const approve = useApproveProof(order.id);
   const fileInput = useRef<HTMLInputElement>(null);
@@ -122,35 +143,40 @@ function ProofGate({ order }: { order: OrderDetail }) {
   const ok = !order.openGates.includes('proof_not_approved');
   const released = order.releasedAt != null;
   return (
-    <Gate ok={ok || released} title="Artwork proof">
+    <Gate ok={ok || released} title={t('gates.proof')}>
       {order.proofs.length === 0 ? (
-        <p className="text-harbour-700">No proof uploaded yet.</p>
+        <p className="text-harbour-700">{t('gates.noProof')}</p>
       ) : (
         <ul className="flex flex-col gap-2">
           {order.proofs.map((p) => (
             <li key={p.revision} className="flex flex-wrap items-center gap-2">
               <FileText className="h-5 w-5 text-harbour-700" aria-hidden />
               <a className="font-bold text-harbour-800 underline" href={proofFileUrl(order.id, p.revision)} target="_blank" rel="noreferrer">
-                Revision {p.revision}
+                {t('gates.revision', { n: p.revision })}
               </a>
               <span className="text-sm text-harbour-700">
-                {p.originalName} · {(p.sizeBytes / 1024).toFixed(0)} KB · uploaded {formatDateTime(p.uploadedAt)} by {p.uploadedBy}
+                {t('gates.uploaded', { file: p.originalName, kb: (p.sizeBytes / 1024).toFixed(0), at: formatDateTime(p.uploadedAt), name: p.uploadedBy })}
               </span>
               {p.approvedAt ? (
                 <Pill tone="ok">
-                  Approved {formatDate(p.approvedAt)}
-                  {p.approvedBy ? ` by ${p.approvedBy}` : ''}
+                  {p.approvedBy
+                    ? t('gates.approvedBy', { date: formatDate(p.approvedAt), name: p.approvedBy })
+                    : t('gates.approved', { date: formatDate(p.approvedAt) })}
                   {p.approvalNote ? ` · ${p.approvalNote}` : ''}
                 </Pill>
               ) : p.changesRequestedAt ? (
                 <p role="status" className="w-full rounded bg-warn-50 p-2 text-ink">
-                  <strong>Changes asked for</strong> on the order page ({formatDateTime(p.changesRequestedAt)}): “{p.changesComment}”. Upload a new revision for
-                  the customer to approve.
+                  <Trans
+                    t={t}
+                    i18nKey="gates.changesAsked"
+                    values={{ at: formatDateTime(p.changesRequestedAt), comment: p.changesComment ?? '' }}
+                    components={{ strong: <strong /> }}
+                  />
                 </p>
               ) : p.revision === latest?.revision ? (
-                <Pill tone="warn">Waiting for the customer</Pill>
+                <Pill tone="warn">{t('gates.waiting')}</Pill>
               ) : (
-                <Pill>Replaced</Pill>
+                <Pill>{t('gates.replaced')}</Pill>
               )}
             </li>
           ))}
@@ -158,29 +184,23 @@ function ProofGate({ order }: { order: OrderDetail }) {
       )}
       {!released && latest && !latest.approvedAt && (
         <form
-          aria-label="Record the customer's approval"
+          aria-label={t('gates.approvalForm')}
           className="flex flex-wrap items-end gap-3"
           onSubmit={(ev) => {
             ev.preventDefault();
             approve.mutate({ revision: latest.revision, body: { approvedOn } });
           }}
         >
-          <TextField
-            label="Approved by the customer on"
-            type="date"
-            value={approvedOn}
-            max={factoryTodayDate()}
-            onChange={(ev) => setApprovedOn(ev.target.value)}
-          />
+          <TextField label={t('gates.approvedOn')} type="date" value={approvedOn} max={factoryTodayDate()} onChange={(ev) => setApprovedOn(ev.target.value)} />
           <Button type="submit" disabled={approve.isPending}>
-            Approve revision {latest.revision}
+            {t('gates.approve', { n: latest.revision })}
           </Button>
         </form>
       )}
       {!released && (
         <div className="flex flex-wrap items-end gap-3">
           <label className="flex flex-col gap-1 text-sm font-bold">
-            Proof file (PDF, PNG or JPEG, up to 20 MB)
+            {t('gates.proofFile')}
             <input
               ref={fileInput}
               type="file"
@@ -194,22 +214,23 @@ function ProofGate({ order }: { order: OrderDetail }) {
           </label>
           {upload.isPending && (
             <span role="status" className="flex items-center gap-2">
-              <Upload className="h-5 w-5" aria-hidden /> Uploading…
+              <Upload className="h-5 w-5" aria-hidden /> {t('gates.uploading')}
             </span>
           )}
         </div>
       )}
-      {upload.error && <ErrorPanel title="Proof not uploaded" message={upload.error.message} />}
-      {approve.error && <ErrorPanel title="Approval not recorded" message={approve.error.message} />}
+      {upload.error && <ErrorPanel title={t('gates.notUploaded')} message={errorText(upload.error)} />}
+      {approve.error && <ErrorPanel title={t('gates.approvalNotRecorded')} message={errorText(approve.error)} />}
     </Gate>
   );
 }
 
 /** The two gates before release: payment (or a manager's exception) and the approved proof. */
 export function GatesPanel({ order, role }: { order: OrderDetail; role: Role }) {
+  const { t } = useTranslation('orders');
   return (
     <Card>
-      <h2 className="mb-4 text-xl font-bold text-harbour-900">Before release</h2>
+      <h2 className="mb-4 text-xl font-bold text-harbour-900">{t('gates.title')}</h2>
       <div className="grid gap-8 lg:grid-cols-2">
         <PaymentGate order={order} role={role} />
         <ProofGate order={order} />

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { ArrowDown, ArrowUp, Plus, RotateCcw, Trash2 } from 'lucide-react';
 import type { OrderDetail } from '@shared/schemas/orders';
 import type { RoutingStepInput } from '@shared/schemas/routing';
@@ -6,7 +7,7 @@ import { routingProblems } from '@shared/domain/routing';
 import { STATION_KINDS, type StationKind } from '@shared/domain/vocabulary';
 import { Card, ErrorPanel } from '@/components/ui/panels';
 import { Button } from '@/components/ui/button';
-import { humanise } from '@/lib/labels';
+import { errorText } from '@/lib/error-text';
 import { useEditRouting, useResetRouting } from '../api/routing';
 import { cures } from '@shared/domain/traveller/station-kinds';
 
@@ -25,6 +26,11 @@ function toInput(order: OrderDetail): RoutingStepInput[] {
 
 /** The order's routing: a checklist after release; before release the planner may reorder, add, remove and retime steps. */
 export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit: boolean }) {
+  const { t, i18n } = useTranslation(['orders', 'common']);
+  const kindName = (k: string) => t(`common:kind.${k}` as 'common:kind.fill', { defaultValue: k });
+  const processName = t(`common:process.${order.spec.process}` as 'common:process.hard_enamel', { defaultValue: order.spec.process });
+  // English writes the process in lower case inside the sentence ("the hard enamel template"), but not "3D"
+  const processInSentence = i18n.language === 'en' && /^[A-Z][a-z]/.test(processName) ? processName.toLowerCase() : processName;
   const released = order.releasedAt != null;
   const [draft, setDraft] = useState<RoutingStepInput[] | null>(null);
   const edit = useEditRouting(order.id);
@@ -46,10 +52,10 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
     <Card>
       <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
         <div>
-          <h2 className="text-xl font-bold text-harbour-900">Routing ({steps.length} steps)</h2>
+          <h2 className="text-xl font-bold text-harbour-900">{t('routing.title', { count: steps.length })}</h2>
           <p className="text-sm text-harbour-700">
-            Made from the {humanise(order.spec.process).toLowerCase()} template. Standard minutes shown for a tray of {traySize}.
-            {released ? ' The order is released: its routing is fixed.' : ''}
+            {t('routing.madeFrom', { process: processInSentence, size: traySize })}
+            {released ? ` ${t('routing.fixed')}` : ''}
           </p>
         </div>
         {canEdit && !released && (
@@ -57,19 +63,19 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
             {editing ? (
               <>
                 <Button disabled={edit.isPending || problems.length > 0} onClick={() => edit.mutate({ steps }, { onSuccess: () => setDraft(null) })}>
-                  Save routing
+                  {t('routing.save')}
                 </Button>
                 <Button variant="secondary" onClick={() => setDraft(null)}>
-                  Discard changes
+                  {t('routing.discard')}
                 </Button>
               </>
             ) : (
               <>
                 <Button variant="secondary" onClick={() => setDraft(toInput(order))}>
-                  Edit routing
+                  {t('routing.edit')}
                 </Button>
                 <Button variant="ghost" disabled={reset.isPending} onClick={() => reset.mutate()}>
-                  <RotateCcw className="h-5 w-5" aria-hidden /> Make again from template
+                  <RotateCcw className="h-5 w-5" aria-hidden /> {t('routing.remake')}
                 </Button>
               </>
             )}
@@ -78,35 +84,35 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
       </div>
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
-          <caption className="sr-only">Routing steps</caption>
+          <caption className="sr-only">{t('routing.caption')}</caption>
           <thead className="bg-harbour-50">
             <tr>
               <th scope="col" className="px-2 py-2">
                 #
               </th>
               <th scope="col" className="px-2 py-2">
-                Step
+                {t('routing.col.step')}
               </th>
               <th scope="col" className="px-2 py-2">
-                Station kind
+                {t('routing.col.kind')}
               </th>
               <th scope="col" className="px-2 py-2">
-                Min / tray
+                {t('routing.col.trayMinutes')}
               </th>
               <th scope="col" className="px-2 py-2">
-                Min / piece
+                {t('routing.col.pieceMinutes')}
               </th>
               <th scope="col" className="px-2 py-2">
-                Cure at least (min)
+                {t('routing.col.cure')}
               </th>
               {!editing && (
                 <th scope="col" className="px-2 py-2">
-                  Std min / tray of {traySize}
+                  {t('routing.col.standard', { size: traySize })}
                 </th>
               )}
               {editing && (
                 <th scope="col" className="px-2 py-2">
-                  <span className="sr-only">Move or remove</span>
+                  <span className="sr-only">{t('routing.col.actions')}</span>
                 </th>
               )}
             </tr>
@@ -117,7 +123,12 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                 <td className="px-2 py-1 font-bold">{i + 1}</td>
                 <td className="px-2 py-1">
                   {editing ? (
-                    <input aria-label={`Step ${i + 1} name`} className={cell} value={s.name} onChange={(e) => change(i, { name: e.target.value })} />
+                    <input
+                      aria-label={t('routing.stepName', { n: i + 1 })}
+                      className={cell}
+                      value={s.name}
+                      onChange={(e) => change(i, { name: e.target.value })}
+                    />
                   ) : (
                     s.name
                   )}
@@ -125,7 +136,7 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                 <td className="px-2 py-1">
                   {editing ? (
                     <select
-                      aria-label={`Step ${i + 1} station kind`}
+                      aria-label={t('routing.stepKind', { n: i + 1 })}
                       className={cell}
                       value={s.stationKind}
                       onChange={(e) => {
@@ -135,18 +146,18 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                     >
                       {STATION_KINDS.map((k) => (
                         <option key={k} value={k}>
-                          {humanise(k)}
+                          {kindName(k)}
                         </option>
                       ))}
                     </select>
                   ) : (
-                    humanise(s.stationKind)
+                    kindName(s.stationKind)
                   )}
                 </td>
                 <td className="px-2 py-1">
                   {editing ? (
                     <input
-                      aria-label={`Step ${i + 1} minutes per tray`}
+                      aria-label={t('routing.stepTrayMinutes', { n: i + 1 })}
                       type="number"
                       min={0}
                       step="0.5"
@@ -161,7 +172,7 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                 <td className="px-2 py-1">
                   {editing ? (
                     <input
-                      aria-label={`Step ${i + 1} minutes per piece`}
+                      aria-label={t('routing.stepPieceMinutes', { n: i + 1 })}
                       type="number"
                       min={0}
                       step="0.01"
@@ -177,7 +188,7 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                   {cures(s.stationKind) ? (
                     editing ? (
                       <input
-                        aria-label={`Step ${i + 1} minimum cure minutes`}
+                        aria-label={t('routing.stepCure', { n: i + 1 })}
                         type="number"
                         min={1}
                         className={cell}
@@ -194,13 +205,13 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
                 {!editing && <td className="px-2 py-1">{order.routing[i]?.standardMinutes}</td>}
                 {editing && (
                   <td className="whitespace-nowrap px-2 py-1">
-                    <Button variant="ghost" aria-label={`Move step ${i + 1} up`} disabled={i === 0} onClick={() => move(i, -1)}>
+                    <Button variant="ghost" aria-label={t('routing.moveUp', { n: i + 1 })} disabled={i === 0} onClick={() => move(i, -1)}>
                       <ArrowUp className="h-5 w-5" aria-hidden />
                     </Button>
-                    <Button variant="ghost" aria-label={`Move step ${i + 1} down`} disabled={i === steps.length - 1} onClick={() => move(i, 1)}>
+                    <Button variant="ghost" aria-label={t('routing.moveDown', { n: i + 1 })} disabled={i === steps.length - 1} onClick={() => move(i, 1)}>
                       <ArrowDown className="h-5 w-5" aria-hidden />
                     </Button>
-                    <Button variant="ghost" aria-label={`Remove step ${i + 1}`} onClick={() => setDraft(steps.filter((_, j) => j !== i))}>
+                    <Button variant="ghost" aria-label={t('routing.remove', { n: i + 1 })} onClick={() => setDraft(steps.filter((_, j) => j !== i))}>
                       <Trash2 className="h-5 w-5" aria-hidden />
                     </Button>
                   </td>
@@ -216,22 +227,22 @@ export function RoutingEditor({ order, canEdit }: { order: OrderDetail; canEdit:
             <Button
               variant="secondary"
               onClick={() =>
-                setDraft([...steps, { name: 'New step', stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, cureMinutes: null, colour: null }])
+                setDraft([...steps, { name: t('routing.newStep'), stationKind: 'inspect', trayMinutes: 5, pieceMinutes: 0, cureMinutes: null, colour: null }])
               }
             >
-              <Plus className="h-5 w-5" aria-hidden /> Add a step
+              <Plus className="h-5 w-5" aria-hidden /> {t('routing.add')}
             </Button>
           </div>
           {problems.length > 0 && (
             <ul role="alert" className="list-disc pl-6 text-sm font-bold text-stop-700">
               {problems.map((p, i) => (
-                <li key={i}>{p.message}</li>
+                <li key={i}>{t(`routing.problem.${p.code}`, { ...p.params })}</li>
               ))}
             </ul>
           )}
         </div>
       )}
-      {(edit.error || reset.error) && <ErrorPanel title="Routing not saved" message={(edit.error ?? reset.error)!.message} />}
+      {(edit.error || reset.error) && <ErrorPanel title={t('routing.notSaved')} message={errorText(edit.error ?? reset.error)} />}
     </Card>
   );
 }

@@ -11,7 +11,9 @@ export type InstantStyle =
   /** "10:27" */
   | 'time'
   /** "Thu 10 Dec, 10:27" · "12月10日周四 10:27": this week's times on the floor */
-  | 'dayTime';
+  | 'dayTime'
+  /** "Thursday 10 December 2026" · "2026年12月10日星期四": a customer's ship date, written out */
+  | 'longDate';
 
 export interface TimeSettings {
   locale: Locale;
@@ -26,6 +28,7 @@ const STYLES: Record<InstantStyle, Intl.DateTimeFormatOptions> = {
   date: { day: 'numeric', month: 'short', year: 'numeric' },
   time: { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
   dayTime: { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
+  longDate: { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' },
 };
 
 const cache = new Map<string, Intl.DateTimeFormat>();
@@ -65,7 +68,12 @@ export function formatInstant(
  * A calendar day ("2026-12-10", a due date): the same day everywhere, whatever the zone, in the
  * same format as `formatInstant(…, 'date')`.
  */
-export function formatDay(day: string | null | undefined, locale: Locale): string {
-  if (!day || !/^\d{4}-\d{2}-\d{2}$/.test(day)) return '—';
-  return formatter(locale, 'UTC', 'date', false).format(Date.parse(`${day}T12:00:00Z`));
+export function formatDay(day: string | null | undefined, locale: Locale, style: 'date' | 'longDate' = 'date'): string {
+  if (!day || !isCalendarDay(day)) return '—';
+  return formatter(locale, 'UTC', style, false).format(Date.parse(`${day}T12:00:00Z`));
+}
+
+/** "2026-12-10": a calendar day (a due date, a valid-until), not an instant. */
+export function isCalendarDay(x: string): boolean {
+  return /^\d{4}-\d{2}-\d{2}$/.test(x);
 }

@@ -11,7 +11,7 @@ import type { TrayCard } from '@shared/schemas/scans';
 import type { TrayState } from '@shared/domain/vocabulary';
 import { formatInstant, formatDay } from '@shared/domain/time-format';
 import { applyLocale } from '@/lib/i18n';
-import { factoryDateInDays, factoryLocalToIso, factoryTodayDate, setFactoryTimeZone } from './datetime';
+import { factoryDateInDays, factoryLocalToIso, factoryTodayDate, formatAnyDay, setFactoryTimeZone } from './datetime';
 import { SpecCard } from '@/features/orders/components/spec-card';
 import { OrdersTable } from '@/features/orders/components/orders-table';
 import { TrayPanel } from '@/features/station/components/tray-panel';
@@ -211,5 +211,21 @@ describe('a time typed into a date-time field is on the factory’s clock', () =
     expect(factoryLocalToIso('2026-12-10T08:30')).toBe('2026-12-10T13:30:00.000Z');
     expect(factoryLocalToIso('')).toBeUndefined();
     setFactoryTimeZone('Asia/Shanghai');
+  });
+});
+
+describe('a day from an answer that holds both days and instants', () => {
+  it('a calendar day and an instant on that day in the factory’s zone read the same, short and written out', () => {
+    setFactoryTimeZone('Asia/Shanghai');
+    expect(formatAnyDay(DUE, 'en')).toBe('10 Dec 2026');
+    expect(formatAnyDay(INSTANT, 'en')).toBe('10 Dec 2026');
+    expect(formatAnyDay(DUE, 'zh-CN')).toBe('2026年12月10日');
+    // 10 December 2026 is a Thursday (from the calendar); ICU writes the English one with or without a comma
+    expect(formatAnyDay(INSTANT, 'en', true)).toMatch(/^Thursday,? 10 December 2026$/);
+    expect(formatAnyDay(DUE, 'en', true)).toBe(formatAnyDay(INSTANT, 'en', true));
+    expect(formatAnyDay(INSTANT, 'zh-CN', true)).toBe('2026年12月10日星期四');
+    // 23:30 UTC on 9 Dec is already 10 Dec in Shanghai
+    expect(formatAnyDay('2026-12-09T23:30:00Z', 'en')).toBe('10 Dec 2026');
+    expect(formatAnyDay(null, 'en')).toBe('—');
   });
 });

@@ -1,6 +1,6 @@
 // Dates and times on every screen: the factory's zone (from GET /api/auth/me, or the tablet's own
 // device answer) and the reader's language, through the one formatter in shared/domain.
-import { formatDay, formatInstant, type InstantStyle } from '@shared/domain/time-format';
+import { formatDay, formatInstant, isCalendarDay, type InstantStyle } from '@shared/domain/time-format';
 import { DEFAULT_TIME_ZONE, dateOfDayNumber, dayNumberOfDate, factoryToday, utcOfLocal } from '@shared/domain/time-zone';
 import type { Locale } from '@shared/domain/vocabulary';
 import { currentLocale } from '@/lib/i18n';
@@ -62,4 +62,14 @@ export function formatDayTime(at: At, locale: Locale = currentLocale(), timeZone
 /** A calendar day such as a due date ("2026-12-10"), in the same format as formatDate. */
 export function formatDueDay(day: string | null | undefined, locale: Locale = currentLocale()): string {
   return formatDay(day, locale);
+}
+
+/**
+ * The day of either a calendar day ("2026-12-10", as it is) or an instant (the factory's day of
+ * it), in the date format: for answers that hold both kinds (a quote's valid-until and its dates).
+ * `long`: "Thursday 10 December 2026".
+ */
+export function formatAnyDay(at: string | null | undefined, locale: Locale = currentLocale(), long = false): string {
+  if (at && isCalendarDay(at)) return formatDay(at, locale, long ? 'longDate' : 'date');
+  return formatInstant(at, { locale, timeZone: factoryZone }, long ? 'longDate' : 'date');
 }

@@ -1,6 +1,8 @@
 import { useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { useTranslation } from 'react-i18next';
+import { currentLocale } from '@/lib/i18n';
+import { formatAnyDay } from '@/lib/datetime';
 import { Copy, FileDown, Link2Off, Pencil, Send } from 'lucide-react';
 import { QUOTING } from '@shared/domain/access';
 import type { QuoteLineView, QuoteView } from '@shared/schemas/quotes';
@@ -23,7 +25,7 @@ function useFormats() {
   return {
     money: (x: number, c: string, digits?: number) =>
       new Intl.NumberFormat(lang, { style: 'currency', currency: c, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(x),
-    day: (iso: string) => new Date(iso).toLocaleDateString(lang, { day: 'numeric', month: 'short', year: 'numeric' }),
+    day: (iso: string) => formatAnyDay(iso, currentLocale()),
     n: (x: number, digits = 1) => x.toLocaleString(lang, { maximumFractionDigits: digits }),
   };
 }

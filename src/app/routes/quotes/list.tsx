@@ -1,5 +1,7 @@
 import { Link } from 'react-router';
 import { useTranslation } from 'react-i18next';
+import { currentLocale } from '@/lib/i18n';
+import { formatAnyDay } from '@/lib/datetime';
 import { FilePlus2 } from 'lucide-react';
 import { QUOTING } from '@shared/domain/access';
 import { queryClient } from '@/lib/query-client';
@@ -16,7 +18,7 @@ export function Component() {
   const { t, i18n } = useTranslation(['quotes', 'common']);
   const quotes = useQuotes();
   const money = (x: number, c: string) => new Intl.NumberFormat(i18n.language, { style: 'currency', currency: c }).format(x);
-  const day = (iso: string) => new Date(iso).toLocaleDateString(i18n.language, { day: 'numeric', month: 'short', year: 'numeric' });
+  const day = (iso: string) => formatAnyDay(iso, currentLocale());
   return (
     <>
       <PageHeader

@@ -1,4 +1,6 @@
 import { useTranslation } from 'react-i18next';
+import { currentLocale } from '@/lib/i18n';
+import { formatAnyDay } from '@/lib/datetime';
 
 /** Money and minutes in the reader's language. */
 export function useCostFormats() {
@@ -10,6 +12,6 @@ export function useCostFormats() {
     signed: (amount: number, currency: string) => new Intl.NumberFormat(lang, { style: 'currency', currency, signDisplay: 'exceptZero' }).format(amount),
     number: (x: number, digits = 1) => x.toLocaleString(lang, { maximumFractionDigits: digits }),
     pct: (x: number | null) => (x === null ? '–' : `${x.toLocaleString(lang, { maximumFractionDigits: 1, signDisplay: 'exceptZero' })} %`),
-    day: (iso: string) => new Date(iso).toLocaleDateString(lang, { day: 'numeric', month: 'short', year: 'numeric' }),
+    day: (iso: string) => formatAnyDay(iso, currentLocale()),
   };
 }

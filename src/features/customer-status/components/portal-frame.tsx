@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
-import { rememberLocale } from '@/lib/i18n';
+import { currentLocale, rememberLocale } from '@/lib/i18n';
+import { formatAnyDay } from '@/lib/datetime';
 import { LOCALES, type Locale } from '@shared/domain/vocabulary';
 
 // The frame of the customer's pages (her quote and her order): made for a phone, no sign-in, no
@@ -12,8 +13,9 @@ export function usePortalFormats() {
   const { i18n } = useTranslation();
   const lang = i18n.language;
   return {
-    longDate: (iso: string) => new Date(iso).toLocaleDateString(lang, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' }),
-    day: (iso: string) => new Date(iso).toLocaleDateString(lang, { day: 'numeric', month: 'short', year: 'numeric' }),
+    // the one formatter: the factory's zone once known (a signed-in preview), else this device's
+    longDate: (iso: string) => formatAnyDay(iso, currentLocale(), true),
+    day: (iso: string) => formatAnyDay(iso, currentLocale()),
     money: (amount: number, currency: string) => new Intl.NumberFormat(lang, { style: 'currency', currency }).format(amount),
   };
 }

@@ -29,18 +29,10 @@ import { planOrders, DEMO_CUSTOMERS, type OrderPlan } from './demo-catalogue';
 import { demoProofPdf } from './demo-proof';
 import { decodeUpload, type DecodedUpload } from '../lib/upload-decode';
 import { makeRng } from './prng';
-import {
-  DAY,
-  DEMO_SHIFTS,
-  DEMO_WORKDAYS,
-  FACTORY_UTC_OFFSET_MS,
-  HOUR,
-  MINUTE,
-  nextWorking,
-  simulateFloor,
-  type SimOrder,
-  type SimTraveller,
-} from './simulate-floor';
+import { simulateFloor, type SimOrder, type SimTraveller } from './simulate-floor';
+import { DEMO_SHIFTS, DEMO_WORKDAYS, HOUR, factoryDate, nextWorking } from './floor/demo-clock';
+import { MINUTE } from '@shared/domain/calendar';
+import { DAY } from '@shared/domain/time-zone';
 import { kindTraits } from '@shared/domain/traveller';
 import { calendarService } from '../services/calendar.service';
 
@@ -57,8 +49,6 @@ const CARRIERS = [
 ];
 
 const UNIT_PRICE: Record<Process, number> = { hard_enamel: 1.35, soft_enamel: 0.95, die_struck: 1.1, printed: 0.85, die_cast_3d: 1.9 };
-
-const isoDate = (t: number) => new Date(t + FACTORY_UTC_OFFSET_MS).toISOString().slice(0, 10);
 
 function insertMany<T>(tx: Tx, table: Parameters<Tx['insert']>[0], rows: T[], chunk = 200) {
   for (let i = 0; i < rows.length; i += chunk) {
@@ -236,7 +226,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   db.transaction(() => {
     for (const plan of plans) {
       const released = plan.releasedAt != null;
-      const provisionalDue = isoDate((plan.releasedAt ?? plan.createdAt) + 14 * DAY);
+      const provisionalDue = factoryDate((plan.releasedAt ?? plan.createdAt) + 14 * DAY);
       const spec = orderSpecSchema.parse({
         customer: plan.customer.name,
         title: plan.title,
@@ -450,7 +440,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
     } else {
       due = base + typicalLead + (dues.chance(0.25) ? -dues.int(2, 6) : dues.int(1, 7)) * DAY;
     }
-    patch.dueDate = isoDate(Math.max(due, o.createdAt + 5 * DAY));
+    patch.dueDate = factoryDate(Math.max(due, o.createdAt + 5 * DAY));
   }
 
   // The mould library: each mould's state from its latest traveller.

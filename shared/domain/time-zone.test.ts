@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_TIME_ZONE, factoryToday, dayNumberOfDate, localDate, startOfLocalDate, weekdayOfDayNumber, zoneOffsetMs } from './time-zone';
+import { DEFAULT_TIME_ZONE, factoryToday, iso as isoOf, dayNumberOfDate, localDate, startOfLocalDate, weekdayOfDayNumber, zoneOffsetMs } from './time-zone';
 
 // Offsets: Asia/Shanghai is UTC+8 all year; Europe/London is UTC+0 in winter and UTC+1 in summer (IANA time zone database).
 const iso = (ms: number) => new Date(ms).toISOString();
@@ -42,5 +42,14 @@ describe('one factory clock: "today" is the factory’s date', () => {
   it('has one default zone, the one the calendar and the factory settings fall back to', () => {
     expect(DEFAULT_TIME_ZONE).toBe('Asia/Shanghai');
     expect(zoneOffsetMs(DEFAULT_TIME_ZONE, Date.parse('2026-01-15T00:00:00Z'))).toBe(8 * 3_600_000);
+  });
+});
+
+describe('one ISO helper', () => {
+  it('writes an instant as ISO 8601 UTC and keeps null as null', () => {
+    expect(isoOf(Date.parse('2026-06-16T23:30:00+08:00'))).toBe('2026-06-16T15:30:00.000Z');
+    expect(isoOf(new Date(0))).toBe('1970-01-01T00:00:00.000Z');
+    expect(isoOf(null)).toBeNull();
+    expect(isoOf(undefined)).toBeNull();
   });
 });

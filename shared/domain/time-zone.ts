@@ -23,6 +23,13 @@ export function toMs(t: Instant): number {
   return ms;
 }
 
+/** An instant as an ISO 8601 UTC string (what the API and stored rows carry); null stays null. */
+export function iso(ms: number | Date): string;
+export function iso(ms: number | Date | null | undefined): string | null;
+export function iso(ms: number | Date | null | undefined): string | null {
+  return ms == null ? null : new Date(ms).toISOString();
+}
+
 export function isValidTimeZone(tz: string): boolean {
   try {
     new Intl.DateTimeFormat('en-US', { timeZone: tz });

@@ -1,14 +1,15 @@
 import { useTranslation } from 'react-i18next';
 import { CheckCircle2, AlertTriangle, XOctagon } from 'lucide-react';
-import type { ReactNode } from 'react';
 import type { FeedbackKind } from '../lib/feedback';
+import type { RefusalChoices } from '../lib/refusal-choices';
 
 export interface FeedbackView {
   kind: FeedbackKind;
   title: string;
   detail?: string;
   next?: string;
-  actions?: ReactNode;
+  /** a scan the tablet refused: what the operator can do next (ask a supervisor, send it anyway) */
+  choices?: RefusalChoices;
   /** increases with every new feedback, so the same words twice still show as new */
   serial: number;
 }
@@ -39,8 +40,17 @@ export function FeedbackBanner({ feedback }: { feedback: FeedbackView }) {
  * regions are always on the page, so screen readers announce each new result: accepted and
  * warnings politely, refusals at once.
  */
-export function FeedbackZone({ feedback }: { feedback: FeedbackView | null }) {
+export function FeedbackZone({
+  feedback,
+  onOverride,
+  onSendAnyway,
+}: {
+  feedback: FeedbackView | null;
+  onOverride: (choices: RefusalChoices) => void;
+  onSendAnyway: (choices: RefusalChoices) => void;
+}) {
   const { t } = useTranslation('station');
+  const choices = feedback?.choices;
   const refused = feedback?.kind === 'refused';
   return (
     <section aria-label={t('feedback.region')} className={`shrink-0 px-4 ${feedback ? 'pt-3' : ''}`}>
@@ -50,7 +60,22 @@ export function FeedbackZone({ feedback }: { feedback: FeedbackView | null }) {
       <div role="alert" aria-live="assertive" aria-atomic="true">
         {feedback && refused && <FeedbackBanner feedback={feedback} />}
       </div>
-      {feedback?.actions && <div className="mt-2 flex flex-wrap gap-3">{feedback.actions}</div>}
+      {choices && (
+        <div className="mt-2 flex flex-wrap gap-3">
+          {choices.override && (
+            <button type="button" className="min-h-14 rounded-xl bg-brass-700 px-5 text-xl font-bold text-white" onClick={() => onOverride(choices)}>
+              {t('action.override')}
+            </button>
+          )}
+          <button
+            type="button"
+            className="min-h-14 rounded-xl bg-white px-5 text-lg font-bold text-harbour-800 ring-2 ring-harbour-800"
+            onClick={() => onSendAnyway(choices)}
+          >
+            {t('action.sendAnyway')}
+          </button>
+        </div>
+      )}
     </section>
   );
 }

@@ -1,16 +1,7 @@
 import { useTranslation } from 'react-i18next';
 import { Flame, Hand, Hourglass, Wrench } from 'lucide-react';
-import type { TrayCard } from '@shared/schemas/scans';
-import type { TrayState } from '@shared/domain/vocabulary';
 import { formatDuration } from '../lib/format';
-
-export interface QueueItem {
-  number: string;
-  card: TrayCard;
-  state: TrayState;
-  /** minutes in process, waiting, or left until the cure is done (negative: ready) */
-  minutes: number;
-}
+import type { QueueItem } from '../lib/station-queue';
 
 function Row({
   item,

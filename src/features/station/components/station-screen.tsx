@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Camera, CameraOff, Keyboard, LogOut, Languages, ScanLine, Users } from 'lucide-react';
 import { ApiError } from '@/lib/api-client';
-import { awaitedStep, type OverrideKind, type RefusalParams } from '@shared/domain/guards';
+import type { OverrideKind } from '@shared/domain/guards';
 import { correctedIso } from '@shared/domain/clock-offset';
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { RejectionCode, RoutingStep, TrayState } from '@shared/domain/vocabulary';
@@ -27,13 +27,14 @@ import { TrayPanel, type StationInfo, type TrayAction } from './tray-panel';
 import { FinishPanel, type FinishCounts } from './finish-panel';
 import { HoldPanel } from './hold-panel';
 import { OverridePanel } from './override-panel';
-import { QueueLists, type QueueItem } from './queue-lists';
+import { QueueLists } from './queue-lists';
+import { newlyCured, stationQueue } from '../lib/station-queue';
+import { overrideFor, type OverridePanelKind, type RefusalChoices, type RetryScan } from '../lib/refusal-choices';
 import { RefusedPanel } from './refused-panel';
 import type { Operator } from './sign-in-panel';
 import { cures } from '@shared/domain/traveller/station-kinds';
 
-type Panel =
-  null | 'finish' | 'hold' | { override: 'wrong_station' | 'curing' | 'release'; retry: Omit<ScanEvent, 'id' | 'occurredAt' | 'code' | 'stationId'> };
+type Panel = null | 'finish' | 'hold' | { override: OverridePanelKind; retry: RetryScan };
 
 interface Current {
   code: string;
@@ -116,41 +117,23 @@ export function StationScreen({
     [byNumber, recent, guardStation, now, operator.role],
   );
 
-  const lists = useMemo(() => {
-    const inProcess: QueueItem[] = [];
-    const curing: QueueItem[] = [];
-    const waiting: QueueItem[] = [];
-    for (const c of cards) {
-      const { state } = stateOf(c.number);
-      if (!state) continue;
-      const min = (iso: string | null) => (iso ? (now - Date.parse(iso)) / 60_000 : 0);
-      const left = state.cureReadyAt ? (Date.parse(state.cureReadyAt) - now) / 60_000 : 0;
-      if (state.phase === 'in_process' && state.stationId === station.id)
-        inProcess.push({ number: c.number, card: c.card, state, minutes: min(state.startedAt) });
-      else if (state.phase === 'curing' && state.stationId === station.id) curing.push({ number: c.number, card: c.card, state, minutes: left });
-      else if (state.phase === 'curing' && awaitedStep(state, c.card.routing)?.stationKind === station.kind)
-        waiting.push({ number: c.number, card: c.card, state, minutes: left });
-      else if (state.phase === 'waiting' && awaitedStep(state, c.card.routing)?.stationKind === station.kind)
-        waiting.push({ number: c.number, card: c.card, state, minutes: min(state.waitingSince) });
-    }
-    const waitKey = (i: QueueItem) => Date.parse((i.state.phase === 'curing' ? i.state.cureReadyAt : i.state.waitingSince) ?? i.state.releasedAt);
-    // held trays are not ready for anyone: they go last, whatever they waited
-    const heldLast = (a: QueueItem, b: QueueItem) => Number(a.state.onHold) - Number(b.state.onHold);
-    inProcess.sort((a, b) => heldLast(a, b) || b.minutes - a.minutes);
-    curing.sort((a, b) => heldLast(a, b) || a.minutes - b.minutes);
-    waiting.sort((a, b) => heldLast(a, b) || waitKey(a) - waitKey(b));
-    return { inProcess, curing, waiting };
-  }, [cards, stateOf, now, station.id, station.kind]);
+  const lists = useMemo(
+    () =>
+      stationQueue(
+        cards.map((c) => ({ number: c.number, card: c.card, state: stateOf(c.number).state })),
+        station,
+        now,
+      ),
+    [cards, stateOf, now, station],
+  );
 
   // Cure stations: a tray turning ready is announced once, with a sound.
   const announced = useRef(new Set<string>());
   useEffect(() => {
     if (!cures(station.kind)) return;
-    for (const i of lists.curing) {
-      if (i.minutes <= 0 && !i.state.onHold && !announced.current.has(i.number)) {
-        announced.current.add(i.number);
-        if (i.minutes > -1) say('accepted', { title: `${i.number} · ${t('card.ready')}` });
-      }
+    for (const i of newlyCured(lists.curing, announced.current)) {
+      announced.current.add(i.number);
+      if (i.minutes > -1) say('accepted', { title: `${i.number} · ${t('card.ready')}` });
     }
   }, [lists.curing, station.kind, say, t]);
 
@@ -226,33 +209,9 @@ export function StationScreen({
         const r = evaluateLocal({ card, state, station: guardStation, event, now: engine.now(), role: operator.role, override, reasonCodes });
         if (!r.ok) {
           const m = describeRefusal(lang, r.code, r.params, time, reasonName);
-          const retry = { type, ...extra };
-          say('refused', {
-            title: m.title,
-            detail: m.detail,
-            next: m.next,
-            actions: (
-              <>
-                {(r.overridable || r.code === 'bad_override') && (
-                  <button
-                    type="button"
-                    className="min-h-14 rounded-xl bg-brass-700 px-5 text-xl font-bold text-white"
-                    onClick={() => setPanel({ override: r.code === 'curing' ? 'curing' : r.code === 'bad_override' ? 'release' : 'wrong_station', retry })}
-                  >
-                    {t('action.override')}
-                  </button>
-                )}
-                <button
-                  type="button"
-                  className="min-h-14 rounded-xl bg-white px-5 text-lg font-bold text-harbour-800 ring-2 ring-harbour-800"
-                  onClick={() => void sendAnyway(event, r.code, r.params)}
-                >
-                  {t('action.sendAnyway')}
-                </button>
-              </>
-            ),
-          });
-          if (!r.overridable && r.code !== 'bad_override') setPanel(null);
+          const choices: RefusalChoices = { code: r.code, override: overrideFor(r.code, r.overridable), retry: { type, ...extra }, event };
+          say('refused', { title: m.title, detail: m.detail, next: m.next, choices });
+          if (!choices.override) setPanel(null);
           return false;
         }
         await engine.add(event, { trayNumber: current.number, local: { ok: true }, overrideKind: override?.kind });
@@ -281,12 +240,13 @@ export function StationScreen({
   );
 
   const sendAnyway = useCallback(
-    async (event: ScanEvent, code: RejectionCode, _params: RefusalParams) => {
+    async ({ event, code }: RefusalChoices) => {
       await engine.add(event, { trayNumber: parseTravellerCode(event.code)?.number ?? event.code, local: { ok: false, code } });
       say('warning', { title: t('feedback.savedOffline'), detail: t('feedback.checkLater') });
     },
     [engine, say, t],
   );
+  const askOverride = useCallback(({ override, retry }: RefusalChoices) => override && setPanel({ override, retry }), []);
 
   const onAction = (a: TrayAction) => {
     unlockAudio();
@@ -395,7 +355,7 @@ export function StationScreen({
           {t('net.unpaired')}
         </p>
       )}
-      <FeedbackZone feedback={feedback} />
+      <FeedbackZone feedback={feedback} onOverride={askOverride} onSendAnyway={(c) => void sendAnyway(c)} />
       <ActionBarSlot.Provider value={barSlot}>
         <main ref={scroller} className="grid min-h-0 flex-1 content-start gap-4 overflow-y-auto p-4 lg:grid-cols-[3fr_2fr]">
           <div className="flex flex-col gap-4">

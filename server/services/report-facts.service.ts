@@ -61,6 +61,10 @@ function rebuildOrders(deps: AppDeps, orderIds: string[], upTo: number) {
 }
 
 const subscribed = new WeakSet<object>();
+/** the background catch-up waits for this long a pause in the scans … */
+const FOLLOW_QUIET_MS = 1_000;
+/** … but never longer than this after the first scan it has not folded in */
+const FOLLOW_MAX_WAIT_MS = 5_000;
 
 export const reportFactsService = {
   /**
@@ -82,21 +86,31 @@ export const reportFactsService = {
     });
   },
 
-  /** Keeps step_runs fresh in the background while the server runs (after floor changes). */
+  /**
+   * Keeps step_runs fresh in the background while the server runs. A burst of scans is folded in
+   * once it pauses (a quiet second), or at the latest a few seconds after its first scan, so the
+   * catch-up does not compete with every batch; every report still catches up before it reads.
+   */
   follow(deps: AppDeps) {
     if (subscribed.has(deps.db)) return;
     subscribed.add(deps.db);
     let timer: NodeJS.Timeout | null = null;
+    let firstChangeAt: number | null = null;
+    const run = () => {
+      timer = null;
+      firstChangeAt = null;
+      try {
+        reportFactsService.catchUp(deps);
+      } catch (error) {
+        deps.log.warn({ err: error }, 'report facts catch-up failed');
+      }
+    };
     onFloorChanged(deps, () => {
-      if (timer) return;
-      timer = setTimeout(() => {
-        timer = null;
-        try {
-          reportFactsService.catchUp(deps);
-        } catch (error) {
-          deps.log.warn({ err: error }, 'report facts catch-up failed');
-        }
-      }, 250);
+      const now = Date.now();
+      firstChangeAt ??= now;
+      if (timer) clearTimeout(timer);
+      const wait = Math.max(0, Math.min(FOLLOW_QUIET_MS, firstChangeAt + FOLLOW_MAX_WAIT_MS - now));
+      timer = setTimeout(run, wait);
       timer.unref?.();
     });
   },

@@ -80,11 +80,13 @@ export async function generateYearOfHistory(options: HistoryOptions = {}): Promi
   const logNormal = (sigma: number) => Math.exp(sigma * Math.sqrt(-2 * Math.log(1 - rnd())) * Math.cos(2 * Math.PI * rnd()) - (sigma * sigma) / 2);
 
   const manager = { email: 'bench.manager@bench.trayce.local', password: 'bench-manager-password' };
-  usersService.create(deps, { name: 'Bench Manager', email: manager.email, role: 'manager', password: manager.password }, null);
-  const operatorId = usersService.create(
-    deps,
-    { name: 'Bench Operator', email: 'bench.operator@bench.trayce.local', role: 'operator', password: 'bench-operator-password' },
-    null,
+  await usersService.create(deps, { name: 'Bench Manager', email: manager.email, role: 'manager', password: manager.password }, null);
+  const operatorId = (
+    await usersService.create(
+      deps,
+      { name: 'Bench Operator', email: 'bench.operator@bench.trayce.local', role: 'operator', password: 'bench-operator-password' },
+      null,
+    )
   ).id;
   const stations = db.prepare('select id, kind from stations where active = 1').all() as { id: string; kind: string }[];
   const stationsOf = new Map<string, string[]>();

@@ -142,7 +142,7 @@ export async function benchScans(options: ScanBenchOptions = {}): Promise<Record
     );
   }
   const operator = { email: 'bench.scanner@bench.trayce.local', password: 'bench-scanner-password' };
-  usersService.create(h.deps, { name: 'Bench Scanner', email: operator.email, role: 'operator', password: operator.password }, null);
+  await usersService.create(h.deps, { name: 'Bench Scanner', email: operator.email, role: 'operator', password: operator.password }, null);
   h.deps.db.$client.pragma('wal_checkpoint(TRUNCATE)');
   h.deps.db.$client.close();
 

@@ -298,9 +298,10 @@ export const DEFAULT_REASON_CODES: { code: string; name: string; nameZh: string;
  * needs. A first admin given the documented default password must change it at first sign-in;
  * `firstAdmin: false` leaves the admin out (the demo factory brings its own).
  */
-export function seedBase(deps: AppDeps, options: { firstAdmin?: boolean } = {}) {
+export async function seedBase(deps: AppDeps, options: { firstAdmin?: boolean } = {}): Promise<void> {
   const { db, env } = deps;
   const now = deps.now();
+  const adminHash = options.firstAdmin === false ? null : await hashSecret(env.adminPassword);
   db.transaction((tx) => {
     for (const s of DEFAULT_STATIONS) {
       tx.insert(stations)
@@ -319,14 +320,14 @@ export function seedBase(deps: AppDeps, options: { firstAdmin?: boolean } = {}) 
       .values({ key: 'factory', value: { name: 'Trayce factory', timeZone: DEFAULT_TIME_ZONE } })
       .onConflictDoNothing()
       .run();
-    if (options.firstAdmin === false) return;
+    if (adminHash == null) return;
     tx.insert(users)
       .values({
         id: crypto.randomUUID(),
         name: 'Administrator',
         email: env.adminEmail.toLowerCase(),
         role: 'admin',
-        passwordHash: hashSecret(env.adminPassword),
+        passwordHash: adminHash,
         mustChangePassword: env.adminPassword === DEFAULT_ADMIN_PASSWORD,
         createdAt: now,
         updatedAt: now,

@@ -78,7 +78,9 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
   const lap = (what: string) => deps.log.debug({ ms: Date.now() - t0 }, `demo seed: ${what}`);
   const rng = makeRng(options.seed ?? DEMO_SEED);
   const ids = rng.fork('ids');
-  const passwordHash = hashSecret(DEMO_PASSWORD);
+  const passwordHash = await hashSecret(DEMO_PASSWORD);
+  const everyone = [...DEMO_PEOPLE, ...DEMO_CREW];
+  const pinHashes = new Map(await Promise.all(everyone.filter((p) => p.pin).map(async (p) => [p.email, await hashSecret(p.pin!)] as const)));
 
   db.transaction((tx) => {
     tx.insert(settings)
@@ -91,7 +93,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
       .values({ key: 'carriers', value: carriers })
       .onConflictDoUpdate({ target: settings.key, set: { value: carriers } })
       .run();
-    for (const p of [...DEMO_PEOPLE, ...DEMO_CREW]) {
+    for (const p of everyone) {
       tx.insert(users)
         .values({
           id: ids.uuid(),
@@ -101,7 +103,7 @@ export async function seedDemo(deps: AppDeps, options: DemoSeedOptions = {}): Pr
           passwordHash,
           locale: p.locale ?? 'en',
           badge: p.badge ?? null,
-          pinHash: p.pin ? hashSecret(p.pin) : null,
+          pinHash: pinHashes.get(p.email) ?? null,
           createdAt: now - (DEMO_HISTORY_DAYS + 14) * DAY,
           updatedAt: now - (DEMO_HISTORY_DAYS + 14) * DAY,
         })

@@ -1,8 +1,8 @@
-import bcrypt from 'bcryptjs';
 import type { AppDeps } from '../app-deps';
 import { usersRepository } from '../repositories/users.repository';
 import { DEFAULT_ADMIN_PASSWORD } from '../env';
 import { seedBase } from './base';
+import { secretMatches } from '../services/auth.service';
 
 /**
  * Seeds an empty database: the base data always, the demo factory when TRAYCE_SEED=demo. The demo
@@ -13,11 +13,11 @@ import { seedBase } from './base';
  */
 export async function seedIfEmpty(deps: AppDeps): Promise<'seeded' | 'kept'> {
   if (usersRepository.count(deps.db) > 0) {
-    holdDefaultPassword(deps);
+    await holdDefaultPassword(deps);
     return 'kept';
   }
   const demo = deps.env.seed === 'demo';
-  seedBase(deps, { firstAdmin: !(demo && deps.env.adminPassword === DEFAULT_ADMIN_PASSWORD) });
+  await seedBase(deps, { firstAdmin: !(demo && deps.env.adminPassword === DEFAULT_ADMIN_PASSWORD) });
   if (demo) {
     const { seedDemo } = await import('./demo');
     await seedDemo(deps);
@@ -26,10 +26,10 @@ export async function seedIfEmpty(deps: AppDeps): Promise<'seeded' | 'kept'> {
 }
 
 /** The first admin still signing in with the documented default password must change it first. */
-export function holdDefaultPassword(deps: AppDeps): void {
+export async function holdDefaultPassword(deps: AppDeps): Promise<void> {
   const admin = usersRepository.byEmail(deps.db, deps.env.adminEmail);
   if (!admin || !admin.active || admin.mustChangePassword) return;
-  if (bcrypt.compareSync(DEFAULT_ADMIN_PASSWORD, admin.passwordHash)) {
+  if (await secretMatches(DEFAULT_ADMIN_PASSWORD, admin.passwordHash)) {
     usersRepository.update(deps.db, admin.id, { mustChangePassword: true, updatedAt: deps.now() });
   }
 }

@@ -30,8 +30,9 @@ export const BCRYPT_COST = 10;
 export const SESSION_COOKIE = 'trayce_session';
 export const DEVICE_COOKIE = 'trayce_device';
 
-// A fixed hash to compare against when the account does not exist, so timing says nothing.
-const DUMMY_HASH = bcrypt.hashSync('not-a-real-password', BCRYPT_COST);
+// A fixed hash (of a throw-away word, at BCRYPT_COST) to compare against when the account does
+// not exist, so timing says nothing. Written out: no hashing at start-up.
+const DUMMY_HASH = '$2b$10$0PrPrw9dDpj8qdHW920jveeyHdF.gVMqrOKToO74kKnJSPtCyLLda';
 
 function checkSecretLength(secret: string) {
   if (new TextEncoder().encode(secret).length > PASSWORD_MAX_BYTES) {
@@ -39,23 +40,18 @@ function checkSecretLength(secret: string) {
   }
 }
 
-/** A bcrypt hash made at once (seeding and user admin; a request that signs in uses the async ones below). */
-export function hashSecret(secret: string): string {
-  checkSecretLength(secret);
-  return bcrypt.hashSync(secret, BCRYPT_COST);
-}
-
 /**
- * bcrypt off the event loop: bcryptjs's async hash and compare work in slices between other
- * callbacks, so a sign-in (about 120 ms of hashing) does not hold up the scan batches meanwhile.
+ * bcrypt off the event loop, on every path (sign-in, user admin, seeding): bcryptjs's async hash
+ * and compare work in slices between other callbacks, so a sign-in or a new user (about 120 ms
+ * of hashing) does not hold up the scan batches meanwhile.
  */
-export async function hashSecretAsync(secret: string): Promise<string> {
+export async function hashSecret(secret: string): Promise<string> {
   checkSecretLength(secret);
   return bcrypt.hash(secret, BCRYPT_COST);
 }
 
 /** Compares a secret with a stored hash off the event loop; with no hash, compares with a dummy so timing says nothing. */
-async function secretMatches(secret: string, hash: string | null | undefined): Promise<boolean> {
+export async function secretMatches(secret: string, hash: string | null | undefined): Promise<boolean> {
   if (!hash) {
     await bcrypt.compare(secret, DUMMY_HASH);
     return false;
@@ -287,7 +283,7 @@ export const authService = {
         'password_reused',
       );
     }
-    const passwordHash = await hashSecretAsync(newPassword);
+    const passwordHash = await hashSecret(newPassword);
     const now = deps.now();
     deps.db.transaction((tx) => {
       usersRepository.update(tx, user.id, { passwordHash, mustChangePassword: false, updatedAt: now });

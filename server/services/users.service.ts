@@ -21,13 +21,22 @@ export function toUserView(u: UserRow): UserView {
   };
 }
 
+/** An e-mail address or badge someone else already has is refused. */
+function refuseTaken(db: AppDeps['db'], input: { email?: string; badge?: string | null }, self?: UserRow) {
+  if (input.email && usersRepository.byEmail(db, input.email)) throw conflict('email_taken', 'Someone already uses that e-mail address.');
+  if (input.badge && input.badge !== self?.badge && usersRepository.byBadge(db, input.badge))
+    throw conflict('badge_taken', 'That badge is already given to someone.');
+}
+
 export const usersService = {
   list: (deps: AppDeps) => usersRepository.list(deps.db).map(toUserView),
 
-  create(deps: AppDeps, input: CreateUserBody, actorId: string | null) {
+  async create(deps: AppDeps, input: CreateUserBody, actorId: string | null) {
     const { db } = deps;
-    if (usersRepository.byEmail(db, input.email)) throw conflict('email_taken', 'Someone already uses that e-mail address.');
-    if (input.badge && usersRepository.byBadge(db, input.badge)) throw conflict('badge_taken', 'That badge is already given to someone.');
+    refuseTaken(db, input);
+    const [passwordHash, pinHash] = await Promise.all([hashSecret(input.password), input.pin ? hashSecret(input.pin) : null]);
+    // again after the hashing (off the event loop): another request may have taken them meanwhile
+    refuseTaken(db, input);
     const now = deps.now();
     const id = crypto.randomUUID();
     db.transaction((tx) => {
@@ -37,9 +46,9 @@ export const usersService = {
         email: input.email.toLowerCase(),
         role: input.role,
         locale: input.locale ?? 'en',
-        passwordHash: hashSecret(input.password),
+        passwordHash,
         badge: input.badge ?? null,
-        pinHash: input.pin ? hashSecret(input.pin) : null,
+        pinHash,
         createdAt: now,
         updatedAt: now,
       });
@@ -49,16 +58,19 @@ export const usersService = {
     return { id, name: row.name, email: row.email, role: row.role };
   },
 
-  update(deps: AppDeps, id: string, patch: UpdateUserBody, actorId: string) {
+  async update(deps: AppDeps, id: string, patch: UpdateUserBody, actorId: string) {
     const { db } = deps;
     const user = usersRepository.byId(db, id);
     if (!user) throw notFound('That user');
-    if (patch.badge && patch.badge !== user.badge && usersRepository.byBadge(db, patch.badge)) {
-      throw conflict('badge_taken', 'That badge is already given to someone.');
-    }
+    refuseTaken(db, { badge: patch.badge }, user);
     if (id === actorId && (patch.active === false || (patch.role && patch.role !== 'admin'))) {
       throw conflict('self_lockout', 'You cannot switch off or demote your own account. Ask another administrator.');
     }
+    const [pinHash, passwordHash] = await Promise.all([
+      patch.pin !== undefined ? hashSecret(patch.pin) : undefined,
+      patch.password !== undefined ? hashSecret(patch.password) : undefined,
+    ]);
+    refuseTaken(db, { badge: patch.badge }, user);
     const now = deps.now();
     db.transaction((tx) => {
       usersRepository.update(tx, id, {
@@ -67,8 +79,8 @@ export const usersService = {
         ...(patch.locale !== undefined && { locale: patch.locale }),
         ...(patch.active !== undefined && { active: patch.active }),
         ...(patch.badge !== undefined && { badge: patch.badge }),
-        ...(patch.pin !== undefined && { pinHash: hashSecret(patch.pin) }),
-        ...(patch.password !== undefined && { passwordHash: hashSecret(patch.password) }),
+        ...(pinHash !== undefined && { pinHash }),
+        ...(passwordHash !== undefined && { passwordHash }),
         updatedAt: now,
       });
       // A role change or a switch-off takes effect at once: end the person's sessions.

@@ -22,7 +22,7 @@ const MIN = 60_000;
 beforeAll(async () => {
   t = makeTestApp();
   tablet = pairTablet(t, 'TRM-1');
-  const person = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
+  const person = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
   operatorId = person.id;
   agent = await tabletAgent(t, tablet.token, person);
 });

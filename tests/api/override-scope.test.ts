@@ -22,7 +22,7 @@ beforeAll(async () => {
   t.setNow(T0);
   ST = Object.fromEntries(['STR-1', 'TRM-1', 'FIL-1', 'FIL-2', 'OVN-1'].map((c) => [c, stationId(t.deps, c)]));
   operator = await t.agentAs('operator');
-  supervisor = insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '8024');
+  supervisor = await insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '8024');
 });
 afterAll(() => t.close());
 beforeEach(() => t.setNow(T0));

@@ -23,7 +23,7 @@ describe('sessions end when access is taken away', () => {
   it('switching a tablet off ends the badge sign-ins on it: their scans are no longer accepted', async () => {
     const admin = await t.agentAs('admin');
     const device = pairTablet(t, 'STR-1');
-    const op = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
+    const op = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
     const tablet = await tabletAgent(t, device.token, op);
     const tray = insertFloorOrder(t.deps, { releasedAt: Date.now() - 3600_000, trays: 2 }).trays;
     expect((await tablet.post('/api/scans').send({ events: [scan(tray[0].code, device.stationId, 'start', Date.now())] })).body.results[0].status).toBe(

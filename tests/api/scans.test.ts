@@ -226,7 +226,7 @@ describe('POST /api/scans: every rejection code', () => {
       trays: [tray],
     } = floor();
     const striking = pairTablet(t, 'STR-1');
-    const agent = await tabletAgent(t, striking.token, insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '7531'));
+    const agent = await tabletAgent(t, striking.token, await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '7531'));
     const r = await expectRefused(scan(tray.code, ST['POL-1'], 'start', now()), 'station_not_allowed', agent as typeof operator);
     expect(r.params).toMatchObject({ stationId: ST['POL-1'], tabletStationId: ST['STR-1'] });
     expect(r.message).toMatch(/set up for .*ask an administrator/);
@@ -236,7 +236,7 @@ describe('POST /api/scans: every rejection code', () => {
   });
 
   it('bad_override: an override for another tray, expired or used up', async () => {
-    const supervisor = insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '2468');
+    const supervisor = await insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '2468');
     const {
       trays: [a, b],
     } = floor({ trays: 2 });
@@ -395,8 +395,8 @@ describe('two tablets, events out of order', () => {
     } = floor({ stepSeq: 4 });
     const fillTablet = pairTablet(t, 'FIL-1');
     const ovenTablet = pairTablet(t, 'OVN-1');
-    const filler = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
-    const ovenHand = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '2580');
+    const filler = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1357');
+    const ovenHand = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '2580');
     const fillAgent = await tabletAgent(t, fillTablet.token, filler);
     const ovenAgent = await tabletAgent(t, ovenTablet.token, ovenHand);
     const n = now();
@@ -435,8 +435,8 @@ describe('two tablets, events out of order', () => {
     } = floor({ stepSeq: 4 });
     const a = pairTablet(t, 'FIL-1');
     const b = pairTablet(t, 'FIL-2');
-    const pa = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1111');
-    const pb = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '2222');
+    const pa = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '1111');
+    const pb = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '2222');
     const agentA = await tabletAgent(t, a.token, pa);
     const agentB = await tabletAgent(t, b.token, pb);
     const n = now();
@@ -454,8 +454,8 @@ describe('two tablets, events out of order', () => {
       trays: [tray],
     } = floor();
     const tablet = pairTablet(t, 'STR-1');
-    const first = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '3691');
-    const second = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '4702');
+    const first = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '3691');
+    const second = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '4702');
     await tabletAgent(t, tablet.token, first); // first signs in on this tablet, scans offline, hands over
     const agent = await tabletAgent(t, tablet.token, second);
     const body = await post([scan(tray.code, ST['STR-1'], 'start', now() + MIN, { operatorId: first.id })], agent);
@@ -465,7 +465,7 @@ describe('two tablets, events out of order', () => {
     const deviceOnly = request.agent(t.app).set('Authorization', `Device ${tablet.token}`);
     const fin = await post([scan(tray.code, ST['STR-1'], 'finish', now() + 2 * MIN, { operatorId: first.id })], deviceOnly);
     expect(fin.results[0].status).toBe('accepted');
-    const stranger = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '5813');
+    const stranger = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '5813');
     const refused = await post([scan(tray.code, ST['TRM-1'], 'start', now() + 2 * MIN, { operatorId: stranger.id })], deviceOnly);
     expect(refused.results[0]).toMatchObject({ status: 'rejected', code: 'invalid_event', params: { reason: 'operator_not_signed_in_here' } });
   });
@@ -473,8 +473,8 @@ describe('two tablets, events out of order', () => {
 
 describe('overrides, exceptions and station screens', () => {
   it('a supervisor override lets a wrong-station start through once, and records who and why', async () => {
-    const supervisor = insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '8024');
-    const op = insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '9999');
+    const supervisor = await insertBadgeUser(t, 'supervisor', `S-${crypto.randomInt(1e6)}`, '8024');
+    const op = await insertBadgeUser(t, 'operator', `B-${crypto.randomInt(1e6)}`, '9999');
     const {
       trays: [tray],
     } = floor();

@@ -280,7 +280,7 @@ describe('through the station tablets', () => {
       ],
     });
     const tablet = pairTablet(t, 'DSP-1');
-    const person = insertBadgeUser(t, 'operator', `B-9${Math.floor(Math.random() * 900 + 100)}`, '4711');
+    const person = await insertBadgeUser(t, 'operator', `B-9${Math.floor(Math.random() * 900 + 100)}`, '4711');
     const agent = await tabletAgent(t, tablet.token, person);
     const base = Date.now() - 10 * 60_000;
     const events = [

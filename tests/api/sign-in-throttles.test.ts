@@ -31,10 +31,10 @@ function approve(token: string, body: { badge: string; pin: string; code: string
 describe('supervisor approvals (POST /api/scans/overrides) on a tablet with nobody signed in', () => {
   it('a wrong badge, a wrong PIN, an operator’s right PIN and a switched-off supervisor all get the same answer', async () => {
     const device = pairTablet(t, 'TRM-1');
-    const sup = insertBadgeUser(t, 'supervisor', 'S-7001', '8024');
-    const op = insertBadgeUser(t, 'operator', 'B-7001', '1357');
-    const off = insertBadgeUser(t, 'supervisor', 'S-7002', '2468');
-    usersService.update(t.deps, off.id, { active: false }, 'test');
+    const sup = await insertBadgeUser(t, 'supervisor', 'S-7001', '8024');
+    const op = await insertBadgeUser(t, 'operator', 'B-7001', '1357');
+    const off = await insertBadgeUser(t, 'supervisor', 'S-7002', '2468');
+    await usersService.update(t.deps, off.id, { active: false }, 'test');
     const tray = insertFloorOrder(t.deps, { releasedAt: T0 - 3600_000 }).trays[0];
     const base = { code: tray.code, stationId: device.stationId };
     const answers = [];
@@ -56,7 +56,7 @@ describe('supervisor approvals (POST /api/scans/overrides) on a tablet with nobo
   it('a tablet guessing PINs across many badges is held after 10 failures, for every badge, and the run is listed for supervisors', async () => {
     const device = pairTablet(t, 'TRM-1');
     const other = pairTablet(t, 'POL-1');
-    const sup = insertBadgeUser(t, 'supervisor', 'S-7101', '8024');
+    const sup = await insertBadgeUser(t, 'supervisor', 'S-7101', '8024');
     const tray = insertFloorOrder(t.deps, { releasedAt: T0 - 3600_000 }).trays[0];
     for (let i = 0; i < 10; i++) {
       // a different badge every time: the per-badge delay never starts, the per-tablet one does
@@ -82,7 +82,7 @@ describe('supervisor approvals (POST /api/scans/overrides) on a tablet with nobo
 describe('badge sign-in on a tablet', () => {
   it('an unknown badge is throttled exactly like a real one (badges cannot be enumerated)', async () => {
     const device = pairTablet(t, 'TRM-1');
-    insertBadgeUser(t, 'operator', 'B-7201', '1357');
+    await insertBadgeUser(t, 'operator', 'B-7201', '1357');
     const statuses = async (badge: string) => {
       const out: number[] = [];
       for (let i = 0; i < 5; i++) out.push((await badgeSignIn(device.token, badge, '0000')).status);
@@ -97,7 +97,7 @@ describe('badge sign-in on a tablet', () => {
 
   it('after the per-badge delay the right PIN signs in at once; refused tries do not stretch the wait', async () => {
     const device = pairTablet(t, 'TRM-1');
-    const op = insertBadgeUser(t, 'operator', 'B-7301', '1357');
+    const op = await insertBadgeUser(t, 'operator', 'B-7301', '1357');
     for (let i = 0; i < 3; i++) expect((await badgeSignIn(device.token, op.badge, '0000')).status).toBe(401);
     // while the 1 s delay runs, even the right PIN waits, and the refusals are not counted
     for (let i = 0; i < 5; i++) expect((await badgeSignIn(device.token, op.badge, op.pin)).status).toBe(429);
@@ -109,7 +109,7 @@ describe('badge sign-in on a tablet', () => {
     t.close();
     t = makeTestApp({ loginAttemptsPerWindow: 5 });
     t.setNow(T0);
-    const op = insertBadgeUser(t, 'operator', 'B-7401', '1357');
+    const op = await insertBadgeUser(t, 'operator', 'B-7401', '1357');
     const office = await t.agentAs('planner');
     const address = '10.2.0.7';
     // five tablets behind one address (so no single tablet's counter is what stops them)

@@ -32,17 +32,17 @@ beforeAll(async () => {
   browser = await launchBrowser();
   server = await startServer({ seed: 'none', dataDir: path.join(PROJECT_ROOT, '.tmp', 'station-e2e', crypto.randomUUID()) });
   s = serverDb(server.dataDir);
-  usersService.create(
+  await usersService.create(
     s.deps,
     { name: 'Chen Xiuying', email: 'chen@e2e.test', role: 'operator', password: 'operator-password-1', badge: 'B-201', pin: '1357' },
     null,
   );
-  usersService.create(
+  await usersService.create(
     s.deps,
     { name: 'Huang Yimin', email: 'huang@e2e.test', role: 'operator', password: 'operator-password-2', badge: 'B-202', pin: '2580' },
     null,
   );
-  usersService.create(
+  await usersService.create(
     s.deps,
     { name: 'Dario Okonjo', email: 'dario@e2e.test', role: 'supervisor', password: 'supervisor-password-1', badge: 'S-100', pin: '2468' },
     null,

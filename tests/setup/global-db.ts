@@ -7,7 +7,7 @@ import { loadEnv } from '../../server/env';
 import { PROJECT_ROOT, TEST_ADMIN } from '../support/paths';
 
 /** Migrates and base-seeds one template database; each test file copies it (fast, isolated). */
-export default function setup() {
+export default async function setup() {
   const TEST_ROOT = path.join(PROJECT_ROOT, '.tmp', 'tests', `run-${process.pid}-${Date.now()}`);
   process.env.TRAYCE_TEST_ROOT = TEST_ROOT;
   fs.mkdirSync(TEST_ROOT, { recursive: true });
@@ -20,7 +20,7 @@ export default function setup() {
     TRAYCE_ADMIN_PASSWORD: TEST_ADMIN.password,
     NODE_ENV: 'test',
   });
-  seedBase({
+  await seedBase({
     db,
     env,
     log: pino({ level: 'silent' }),

@@ -155,8 +155,8 @@ export function pairTablet(t: TestApp, stationCode: string): { deviceId: string;
 }
 
 /** A person with a badge and PIN. */
-export function insertBadgeUser(t: TestApp, role: Role, badge: string, pin: string) {
-  const created = usersService.create(
+export async function insertBadgeUser(t: TestApp, role: Role, badge: string, pin: string) {
+  const created = await usersService.create(
     t.deps,
     {
       name: `Badge ${badge}`,

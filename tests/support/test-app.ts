@@ -59,7 +59,7 @@ export function makeTestApp(overrides: Partial<AppDeps> = {}): TestApp {
       counter += 1;
       const email = `${role}${counter}-${crypto.randomUUID().slice(0, 6)}@test.trayce.local`;
       const password = `pw-${crypto.randomUUID()}`;
-      const created = usersService.create(deps, { name: `Test ${role} ${counter}`, email, role, password, ...extra }, null);
+      const created = await usersService.create(deps, { name: `Test ${role} ${counter}`, email, role, password, ...extra }, null);
       const agent = request.agent(app);
       const res = await agent.post('/api/auth/login').send({ email, password });
       if (res.status !== 200) throw new Error(`sign-in failed in test setup: ${res.status} ${JSON.stringify(res.body)}`);

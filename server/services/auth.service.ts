@@ -1,6 +1,7 @@
 import bcrypt from 'bcryptjs';
 import crypto from 'node:crypto';
-import { SignJWT, jwtVerify } from 'jose';
+import { SignJWT } from 'jose';
+import { makeSessionTokenVerifier } from '../lib/session-tokens';
 import type { AppDeps } from '../app-deps';
 import { usersRepository, type UserRow } from '../repositories/users.repository';
 import { devicesRepository } from '../repositories/devices.repository';
@@ -33,6 +34,14 @@ export const DEVICE_COOKIE = 'trayce_device';
 // A fixed hash (of a throw-away word, at BCRYPT_COST) to compare against when the account does
 // not exist, so timing says nothing. Written out: no hashing at start-up.
 const DUMMY_HASH = '$2b$10$0PrPrw9dDpj8qdHW920jveeyHdF.gVMqrOKToO74kKnJSPtCyLLda';
+
+const verifiers = new WeakMap<object, ReturnType<typeof makeSessionTokenVerifier>>();
+/** The claims of a session cookie whose signature is right and which has not expired; null otherwise. */
+function sessionClaims(deps: AppDeps, token: string) {
+  let verify = verifiers.get(deps.keys.session);
+  if (!verify) verifiers.set(deps.keys.session, (verify = makeSessionTokenVerifier(deps.keys.session)));
+  return verify(token, deps.now());
+}
 
 function checkSecretLength(secret: string) {
   if (new TextEncoder().encode(secret).length > PASSWORD_MAX_BYTES) {
@@ -241,28 +250,27 @@ export const authService = {
 
   /** Resolves a session cookie; null when absent, expired, idle too long, revoked or tampered. */
   async resolveSession(deps: AppDeps, token: string): Promise<SessionUser | null> {
-    let sid: string;
-    let sub: string;
-    try {
-      const { payload } = await jwtVerify(token, deps.keys.session, { algorithms: ['HS256'], currentDate: new Date(deps.now()) });
-      if (typeof payload.sid !== 'string' || typeof payload.sub !== 'string') return null;
-      sid = payload.sid;
-      sub = payload.sub;
-    } catch {
-      return null;
-    }
+    const claims = await sessionClaims(deps, token);
+    if (!claims) return null;
+    const { sid, sub } = claims;
     const now = deps.now();
-    const session = usersRepository.sessionById(deps.db, sid);
+    const session = usersRepository.sessionLookup(deps.db, sid);
     if (!session || session.userId !== sub || session.revokedAt) return null;
     if (session.expiresAt <= now) return null;
     if (session.lastSeenAt + session.idleMinutes * 60_000 <= now) return null;
-    const user = usersRepository.byId(deps.db, session.userId);
-    if (!user || !user.active) return null;
+    if (!session.active) return null;
     // A badge sign-in lives only as long as its tablet is switched on.
-    if (session.deviceId && !devicesRepository.byId(deps.db, session.deviceId)?.active) return null;
+    if (session.deviceActive === false) return null;
     // Write the idle clock at most every 30 s: reads stay cheap.
     if (now - session.lastSeenAt > 30_000) usersRepository.touchSession(deps.db, sid, now);
-    return { id: user.id, name: user.name, role: user.role as Role, locale: user.locale, sessionId: sid, mustChangePassword: user.mustChangePassword };
+    return {
+      id: session.userId,
+      name: session.name,
+      role: session.role as Role,
+      locale: session.locale,
+      sessionId: sid,
+      mustChangePassword: session.mustChangePassword,
+    };
   },
 
   /**

@@ -45,7 +45,9 @@ function sessionStatement(db: Db): Database.Statement {
 export const usersRepository = {
   /** The session, its person and its tablet's state, for resolving a request's cookie. */
   sessionLookup(db: Db, sessionId: string): SessionLookup | undefined {
-    const r = sessionStatement(db).get(sessionId) as (Omit<SessionLookup, 'active' | 'mustChangePassword' | 'deviceActive'> & { active: number; mustChangePassword: number; deviceActive: number | null }) | undefined;
+    const r = sessionStatement(db).get(sessionId) as
+      | (Omit<SessionLookup, 'active' | 'mustChangePassword' | 'deviceActive'> & { active: number; mustChangePassword: number; deviceActive: number | null })
+      | undefined;
     if (!r) return undefined;
     return { ...r, active: !!r.active, mustChangePassword: !!r.mustChangePassword, deviceActive: r.deviceActive == null ? null : !!r.deviceActive };
   },

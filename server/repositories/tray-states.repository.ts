@@ -12,11 +12,11 @@ import { stations } from '../db/schema/stations';
 import { users } from '../db/schema/users';
 import { sqlClient } from './sql-client';
 import type { RoutingStep, TrayState } from '@shared/domain/vocabulary';
+import { iso } from '@shared/domain/time-zone';
 
 export type TrayStateRow = typeof trayStates.$inferSelect;
 export type ScanEventInsert = typeof scanEvents.$inferInsert;
 
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 const ms = (text: string | null | undefined) => (text == null ? null : Date.parse(text));
 
 /** The guards' view of a stored state (instants as ISO text). */

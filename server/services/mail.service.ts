@@ -16,7 +16,7 @@ import { lateDigestMail, proofReadyMail, type DigestOrder } from '../lib/mail-te
 import { AppError, notFound } from '../errors';
 import { loadProgress } from './order-progress.service';
 import { measuredShipDates } from './ship-date.service';
-import { localDate, startOfLocalDate } from '@shared/domain/time-zone';
+import { localDate, startOfLocalDate, iso } from '@shared/domain/time-zone';
 import type { CaughtMail, MailQueueItem } from '@shared/schemas/shipping';
 
 /** Pauses before each retry: 30 s, 2 min, 10 min, 30 min, 1 h, 2 h, 4 h; then the message is marked failed. */
@@ -295,8 +295,6 @@ export async function startMail(deps: AppDeps, options: { intervalMs?: number } 
     },
   };
 }
-
-const iso = (ms: number | null) => (ms == null ? null : new Date(ms).toISOString());
 
 export const mailService = {
   caught: (deps: AppDeps, limit: number): CaughtMail[] => listCaughtMail(deps.env.dataDir, limit),

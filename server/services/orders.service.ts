@@ -24,13 +24,13 @@ import {
 } from '@shared/schemas/orders';
 import { mouldRouting, mouldStepsFor, mouldTool, requiredMoulds, type MouldSide } from '@shared/domain/routing';
 import { releasedQuantity } from '@shared/domain/trays';
-import { factoryToday } from '@shared/domain/time-zone';
+import { factoryToday, iso } from '@shared/domain/time-zone';
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { loadProgress } from './order-progress.service';
 import { openGates, paymentSummaryOf, preReleaseStatus } from './order-gates';
 import { shipDateService } from './ship-date.service';
 import { routingFromSpec, routingOf, routingShape, specColumns, specOf, stepRows } from './order-spec.service';
-import type { OrderStatus, Process, RoutingStep, TrayPhase } from '@shared/domain/vocabulary';
+import { standardMinutes, type OrderStatus, type Process, type RoutingStep, type TrayPhase } from '@shared/domain/vocabulary';
 
 export const FIRST_ORDER_NUMBER = 1001;
 /** Tray size used for standard minutes before the planner has chosen one. */
@@ -38,7 +38,6 @@ export const DEFAULT_TRAY_SIZE = 100;
 
 /** Kept here for the callers that read the template through the orders service. */
 
-export const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 /** today on the factory's clock (shared/domain/calendar.ts), never the UTC date */
 export const today = (now: number, zone: string) => factoryToday(now, zone);
 
@@ -264,7 +263,7 @@ export const ordersService = {
         changesRequestedAt: iso(p.changesRequestedAt),
         changesComment: p.changesComment,
       })),
-      routing: routing.map((s) => ({ ...s, standardMinutes: Math.round((s.trayMinutes + s.pieceMinutes * traySize) * 10) / 10 })),
+      routing: routing.map((s) => ({ ...s, standardMinutes: Math.round(standardMinutes(s, traySize) * 10) / 10 })),
       mouldRouting: mouldSteps.length ? mouldSteps : mouldRouting({ reuse: false, process: spec.process }),
       mouldPlan: requiredMoulds(spec).map((side) => {
         const tool = mouldTool(spec.process, side);

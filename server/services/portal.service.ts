@@ -15,8 +15,7 @@ import { enqueueMail, kickMail } from './mail.service';
 import { notifyFloorChanged } from './live-bus';
 import { publicOrderSchema, type PublicOrder } from '@shared/schemas/shipping';
 import type { CheckoutAnswer } from '@shared/schemas/payments';
-
-const iso = (ms: number | null | undefined) => (ms == null ? undefined : new Date(ms).toISOString());
+import { iso } from '@shared/domain/time-zone';
 
 function portalStatus(order: { status: string; releasedAt: number | null }, shipped: boolean): PublicOrder['status'] {
   if (order.status === 'cancelled') return 'cancelled';

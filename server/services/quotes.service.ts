@@ -22,7 +22,7 @@ import { quotePdf } from '../lib/quote-pdf';
 import { quoteSentMail } from '../lib/mail-templates';
 import { priceQuote, type QuotePricing } from '@shared/domain/costing';
 import { requiredMoulds } from '@shared/domain/routing';
-import { DAY, localDate } from '@shared/domain/time-zone';
+import { DAY, localDate, iso } from '@shared/domain/time-zone';
 import {
   costingSettingsPatchSchema,
   costingSettingsSchema,
@@ -46,7 +46,6 @@ import {
 } from '@shared/schemas/quotes';
 
 const FIRST_QUOTE_NUMBER = 2001;
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
 export const SHIP_DATE_BASIS =
   "Simulated runs of the whole open floor with this order added, released now at each quantity: every open tray competes for the stations' places, with handover, hold and process times measured on the floor, on the working calendar. Expected is the average of the runs; the later date is met in 85 % of the runs.";

@@ -5,7 +5,7 @@ import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
 import { badInput } from '../errors';
 import { PERCENTILE_METHOD, quantileSorted, summarize, roundSummary, sortNumbers, type Summary } from '@shared/domain/stats';
-import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/time-zone';
+import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate, iso } from '@shared/domain/time-zone';
 import { countPerBucket, cumulativeFlowOfItems, flowEfficiency, makeBuckets, wipOverTime } from '@shared/domain/flow';
 import { pareto, rolledThroughputYield, stepYield, type StepCounts } from '@shared/domain/yield';
 import { STATION_KINDS } from '@shared/domain/vocabulary';
@@ -18,7 +18,6 @@ const MAX_DAYS = 3 * 366;
 
 export const FLOW_STAGES = ['released', 'started', 'inspected', 'packed', 'shipped'] as const;
 
-const iso = (ms: number) => new Date(ms).toISOString();
 const r2 = (x: number) => Math.round(x * 100) / 100;
 const r4 = (x: number | null) => (x === null ? null : Math.round(x * 10000) / 10000);
 

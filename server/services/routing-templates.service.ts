@@ -6,7 +6,7 @@ import { badInput } from '../errors';
 import { routingTemplateSchema } from '@shared/schemas/routing';
 import { DEFAULT_ROUTING_TEMPLATES, type RoutingTemplate } from '@shared/domain/routing';
 import type { Process } from '@shared/domain/vocabulary';
-import { iso } from './orders.service';
+import { iso } from '@shared/domain/time-zone';
 
 export const routingTemplatesService = {
   listTemplates(deps: AppDeps) {

@@ -11,8 +11,7 @@ import { loadProgress, quantities, unshippedCartonPieces, type OrderProgress } f
 import { shareLinksService } from './share-links.service';
 import { shippingService } from './shipping.service';
 import { measuredShipDates } from './ship-date.service';
-
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
+import { iso } from '@shared/domain/time-zone';
 
 function row(p: OrderProgress): SalesOrderRow {
   return {

@@ -10,8 +10,7 @@ import type { ScanEvent, ScanResult } from '@shared/schemas/scans';
 import { notifyFloorChanged } from './live-bus';
 import { BatchData, evaluateAgain, refusalResult, storedEvent, traySummary } from './scan-ingest.service';
 import { rowFromState, trayStatesRepository } from '../repositories/tray-states.repository';
-
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
+import { iso } from '@shared/domain/time-zone';
 
 export const scanExceptionsService = {
   /** Refused scans for supervisors (open first-class; `open=false` for the resolved history). */

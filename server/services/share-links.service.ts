@@ -20,7 +20,7 @@ import type { ShareLinkRow } from '../repositories/share-links.repository';
 import type { ShippingOrder } from '../repositories/shipping.repository';
 import { publicStatusSchema, statusTokenSchema, type PublicStatus, type ShareLink, type ShareLinkInfo } from '@shared/schemas/shipping';
 import { carrierTrackingUrl } from '@shared/domain/carrier-tracking';
-import { localDate } from '@shared/domain/time-zone';
+import { localDate, iso } from '@shared/domain/time-zone';
 import { defaultFrom } from './mail.service';
 
 /** Random bytes in a token: 256 bits, well over the 128 the product asks for. */
@@ -37,8 +37,6 @@ export function hashToken(token: string): string {
 export function statusUrl(deps: AppDeps, token: string): string {
   return `${deps.env.publicUrl.replace(/\/$/, '')}/status/${token}`;
 }
-
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
 
 /** Makes a link inside the caller's transaction (the shipped mail makes one too). */
 export function createLinkIn(

@@ -15,8 +15,7 @@ import { enqueueMail, kickMail } from './mail.service';
 import { shippedMail } from '../lib/mail-templates';
 import { renderPackingList } from '../lib/packing-list-pdf';
 import type { AcceptedScan } from './scan-ingest.service';
-
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
+import { iso } from '@shared/domain/time-zone';
 
 /** Orders in these states can be packed and shipped. */
 const SHIPPABLE = ['released', 'in_production', 'packed', 'shipped'];

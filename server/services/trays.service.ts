@@ -20,8 +20,7 @@ import type { MergeBody, MouldLibraryItem, MouldPatch, SplitBody, TrayLink, Tray
 import type { TravellerSummary } from '@shared/schemas/orders';
 import type { Process, RoutingStep, TrayPhase } from '@shared/domain/vocabulary';
 import { kindTraits } from '@shared/domain/traveller';
-
-const iso = (ms: number | null | undefined) => (ms == null ? null : new Date(ms).toISOString());
+import { iso } from '@shared/domain/time-zone';
 
 /** Finds a traveller by id, by its number, or by the text of its QR code. */
 function findTray(db: DbLike, idOrNumber: string): TrayRow {

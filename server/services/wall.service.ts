@@ -5,9 +5,9 @@ import { projectionService } from './projection.service';
 import { calendarService } from './calendar.service';
 import { stationsRepository } from '../repositories/stations.repository';
 import type { WallView } from '@shared/schemas/live';
+import { iso } from '@shared/domain/time-zone';
 
 const MIN = 60_000;
-const iso = (ms: number) => new Date(ms).toISOString();
 
 export const wallService = {
   view(deps: AppDeps): WallView {

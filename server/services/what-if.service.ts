@@ -3,7 +3,7 @@
 // new order's dates come from the second run; an open order is listed when its 85th-percentile
 // date moves later. Nothing is written: the order, its trays and moulds exist only in memory.
 import type { AppDeps } from '../app-deps';
-import { DAY } from '@shared/domain/time-zone';
+import { DAY, iso } from '@shared/domain/time-zone';
 import { projectFloor } from '@shared/domain/floor-projection';
 import type { SnapshotOrder, SnapshotTraveller } from '@shared/domain/floor-history';
 import { mouldRouting, requiredMoulds } from '@shared/domain/routing';
@@ -24,8 +24,6 @@ import { routingFromSpec } from './order-spec.service';
 /** The id the imagined order carries in the simulation (never stored). */
 export const WHAT_IF_ORDER_ID = 'what-if';
 const TRAY_SIZE_DAYS = 180;
-
-const iso = (x: number | null) => (x == null ? null : new Date(x).toISOString());
 
 /** The tray size planners chose lately for badges of about this size (median), else the default. */
 export function typicalTraySize(deps: AppDeps, sizeMm: number): number {

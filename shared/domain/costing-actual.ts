@@ -11,7 +11,7 @@
 //   one load); a tray that went in after the others came out starts another.
 import type { ActualStepInput } from './costing';
 import { cures } from './traveller';
-import type { RoutingStep, StationKind } from './vocabulary';
+import { standardMinutes, type RoutingStep, type StationKind } from './vocabulary';
 
 export interface StepRunFact {
   stepSeq: number;
@@ -53,7 +53,7 @@ export function actualStepsOf(routing: readonly RoutingStep[], runs: readonly St
     const kind = (step?.stationKind ?? rs[0]?.stationKind) as StationKind;
     const oven = cures(kind);
     const minutes = oven
-      ? rs.reduce((sum, r) => sum + (step ? step.trayMinutes + step.pieceMinutes * r.qtyIn : 0), 0)
+      ? rs.reduce((sum, r) => sum + (step ? standardMinutes(step, r.qtyIn) : 0), 0)
       : rs.reduce((sum, r) => sum + Math.max(0, r.workingMinutes), 0);
     return {
       seq,

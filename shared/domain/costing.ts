@@ -16,7 +16,7 @@
 // Trays are counted as a fraction of a tray (never less than one), so a price does not jump
 // where one more piece would open another tray.
 import type { CostingSettings } from '@shared/schemas/costing';
-import type { BackingType, Material, Packaging, Plating, Process, RoutingStep, StationKind } from './vocabulary';
+import { standardMinutes, type BackingType, type Material, type Packaging, type Plating, type Process, type RoutingStep, type StationKind } from './vocabulary';
 import { cures } from './traveller/station-kinds';
 
 export interface CostingSpec {
@@ -181,7 +181,7 @@ export function trayShare(madePieces: number, traySize: number): number {
 export function stepCosts(routing: readonly RoutingStep[], madePieces: number, settings: CostingSettings): StepCost[] {
   const trays = trayShare(madePieces, settings.traySize);
   return routing.map((s) => {
-    const minutes = s.trayMinutes * trays + s.pieceMinutes * madePieces;
+    const minutes = standardMinutes(s, madePieces, trays);
     return {
       seq: s.seq,
       name: s.name,

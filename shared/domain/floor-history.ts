@@ -8,7 +8,7 @@
 // states and step runs; a backtest replays the past with it.
 import { evaluateScan, type ValidOverride } from './guards';
 import { MOULD_USING_KINDS } from './routing';
-import type { Role, RoutingStep, ScanType, StationKind, TrayState, TravellerKind } from './vocabulary';
+import { standardMinutes, type Role, type RoutingStep, type ScanType, type StationKind, type TrayState, type TravellerKind } from './vocabulary';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
@@ -243,7 +243,7 @@ export class FloorReplay {
         stationId: ev.stationId,
         startedAt: Date.parse(c.startedAt),
         finishedAt: finished,
-        standardMinutes: step.trayMinutes + step.pieceMinutes * (trav.kind === 'mould' ? 1 : c.quantityIn),
+        standardMinutes: standardMinutes(step, trav.kind === 'mould' ? 1 : c.quantityIn),
       });
     }
     if (ev.type === 'start' && queueMinutes != null) {

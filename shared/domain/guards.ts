@@ -49,6 +49,7 @@
 import type { RejectionCode, Role, RoutingStep, ScanType, StationKind, TrayState } from './vocabulary';
 import { cures, kindsWhere } from './traveller/station-kinds';
 import { effectivePhase } from './traveller/phase';
+import { iso } from './time-zone';
 
 export { effectivePhase };
 
@@ -173,10 +174,6 @@ function toMs(t: Date | string | number): number {
   if (t instanceof Date) return t.getTime();
   if (typeof t === 'number') return t;
   return Date.parse(t);
-}
-
-function iso(ms: number): string {
-  return new Date(ms).toISOString();
 }
 
 /** Whole minutes until `readyMs`, rounded up: 59 s left is "1 minute left". */

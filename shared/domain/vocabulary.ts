@@ -129,9 +129,13 @@ export interface RoutingStep {
   colour?: number | null;
 }
 
-/** Standard minutes of a step for a tray of `pieces` pieces. */
-export function standardMinutes(step: Pick<RoutingStep, 'trayMinutes' | 'pieceMinutes'>, pieces: number): number {
-  return step.trayMinutes + step.pieceMinutes * pieces;
+/**
+ * Standard minutes of a step: its tray minutes (set-up, handling) for each tray plus its piece
+ * minutes for each piece. The one place this sum is written: a tray of `pieces` pieces by
+ * default, or `trays` trays (a fraction when the pieces half-fill the last one) holding `pieces`.
+ */
+export function standardMinutes(step: Pick<RoutingStep, 'trayMinutes' | 'pieceMinutes'>, pieces: number, trays = 1): number {
+  return step.trayMinutes * trays + step.pieceMinutes * pieces;
 }
 
 /** The current state of one traveller: what the guards need to decide on the next scan. */

@@ -18,8 +18,8 @@
 import { evaluateScan, type GuardResult, type OverrideKind, type StepRecord } from '../guards';
 import { initialTrayState, type Role, type RoutingStep, type StationKind, type TrayState, type TravellerKind } from '../vocabulary';
 import { kindTraits } from './station-kinds';
+import { iso } from '../time-zone';
 
-const iso = (ms: number) => new Date(ms).toISOString();
 const ms = (t: string | null) => (t == null ? null : Date.parse(t));
 
 export interface ReplayTraveller {

@@ -45,6 +45,21 @@ export interface BacktestOptions {
   /** local hour of the daily snapshot (factory time) */
   snapshotHourUtc?: number;
   onFloor?: (i: number, floor: DemoFloor) => void;
+  /**
+   * the floors' seeds are `${seedPrefix}-${i + 1}` (default 'backtest-floor'): anything fitted
+   * from data is fitted on floors of another prefix, so the scored floors stay out of sample
+   */
+  seedPrefix?: string;
+  /** every scored cut, for a closer look (which cut, the clock, the projection and the outcome) */
+  onSample?: (s: {
+    cut: 'release' | 'halfway' | 'snapshot';
+    floor: number;
+    orderId: string;
+    t: number;
+    actual: number;
+    expectedAt: number | null;
+    p85At: number | null;
+  }) => void;
 }
 
 /** A fixed end, so the same options always give the same floors (a Saturday would do as well). */
@@ -82,7 +97,7 @@ export function runBacktest(project: FloorProjector, o: BacktestOptions = {}): B
   const half: Sample[] = [];
   const snaps: Sample[] = [];
   for (let i = 0; i < floors; i++) {
-    const floor = makeDemoFloor(`backtest-floor-${i + 1}`, end, historyDays);
+    const floor = makeDemoFloor(`${o.seedPrefix ?? 'backtest-floor'}-${i + 1}`, end, historyDays);
     o.onFloor?.(i, floor);
     const judged = floor.shipped.filter((s) => s.releasedAt >= floor.start + warmup);
     // every cut: [time, which list, order]
@@ -107,6 +122,15 @@ export function runBacktest(project: FloorProjector, o: BacktestOptions = {}): B
         const c = cuts[k];
         const p = projected.get(c.orderId);
         c.list.push({ actual: c.actual, expectedAt: p?.expectedAt ?? null, p85At: p?.p85At ?? null });
+        o.onSample?.({
+          cut: c.list === at ? 'release' : c.list === half ? 'halfway' : 'snapshot',
+          floor: i,
+          orderId: c.orderId,
+          t,
+          actual: c.actual,
+          expectedAt: p?.expectedAt ?? null,
+          p85At: p?.p85At ?? null,
+        });
       }
     }
   }

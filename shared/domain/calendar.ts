@@ -62,6 +62,8 @@ export interface Timeline {
 }
 
 const MAX_SEARCH_DAYS = 3660;
+/** the step of the timelines' search index: an hour */
+const INDEX_MS = 3_600_000;
 
 class ContinuousTimeline implements Timeline {
   readonly continuous = true;
@@ -102,6 +104,11 @@ class ShiftTimeline implements Timeline {
   /** working ms before interval i, and up to its end */
   private cumStart = new Float64Array(0);
   private cumEnd = new Float64Array(0);
+  /** per hour from the first interval's start: the last interval starting at or before it */
+  private byHour = new Int32Array(0);
+  /** per working hour of the clock: the first interval whose end reaches it */
+  private byWorkHour = new Int32Array(0);
+  private base = 0;
 
   constructor(
     private readonly tz: string,
@@ -173,33 +180,45 @@ class ShiftTimeline implements Timeline {
     this.lastDay = last;
     this.safeFrom = utcOfLocal(this.tz, first + 2, 0);
     this.safeTo = utcOfLocal(this.tz, last - 1, 0);
+    // an index by hour of both clocks, so a question starts its search next to its answer
+    // (the ship-date projection asks some millions of them)
+    const n = starts.length;
+    this.base = n ? this.starts[0] : 0;
+    const hours = n ? Math.ceil((this.ends[n - 1] - this.base) / INDEX_MS) + 1 : 0;
+    this.byHour = new Int32Array(hours);
+    for (let h = 0, i = 0; h < hours; h++) {
+      const at = this.base + h * INDEX_MS;
+      while (i + 1 < n && this.starts[i + 1] <= at) i++;
+      this.byHour[h] = i;
+    }
+    const workHours = n ? Math.ceil(this.cumEnd[n - 1] / INDEX_MS) + 1 : 0;
+    this.byWorkHour = new Int32Array(workHours);
+    for (let h = 0, i = 0; h < workHours; h++) {
+      while (i + 1 < n && this.cumEnd[i] < h * INDEX_MS) i++;
+      this.byWorkHour[h] = i;
+    }
   }
 
   /** the instant at which the working clock reads `target` (first interval whose end reaches it) */
   private locate(target: number): number {
     const ce = this.cumEnd;
-    let lo = 0;
-    let hi = ce.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >>> 1;
-      if (ce[mid] < target) lo = mid + 1;
-      else hi = mid;
-    }
-    return this.starts[lo] + (target - this.cumStart[lo]);
+    const h = Math.floor(target / INDEX_MS);
+    // the first interval whose end reaches the target: from the hour's first candidate on
+    let i = h >= 0 && h < this.byWorkHour.length ? this.byWorkHour[h] : 0;
+    const last = ce.length - 1;
+    while (i < last && ce[i] < target) i++;
+    return this.starts[i] + (target - this.cumStart[i]);
   }
 
   /** working ms from the table's start up to t (t inside the table's range) */
   private clock(t: number): number {
     const st = this.starts;
-    let lo = 0;
-    let hi = st.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >>> 1;
-      if (st[mid] <= t) lo = mid + 1;
-      else hi = mid;
-    }
-    const i = lo - 1;
-    if (i < 0) return 0;
+    const n = st.length;
+    if (n === 0 || t < st[0]) return 0;
+    const h = Math.floor((t - this.base) / INDEX_MS);
+    // the last interval starting at or before t: from the hour's last start at or before it on
+    let i = h < this.byHour.length ? this.byHour[h] : n - 1;
+    while (i + 1 < n && st[i + 1] <= t) i++;
     return t < this.ends[i] ? this.cumStart[i] + (t - st[i]) : this.cumEnd[i];
   }
 

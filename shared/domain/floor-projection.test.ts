@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { compileCalendar, type Shift } from './calendar';
 import type { FloorSnapshot, MeasuredHistory, SnapshotOrder } from './floor-history';
-import { measureFloor, projectFloor, WaitDistribution } from './floor-projection';
+import { DispatchWait, measureFloor, minuteOfDay, projectFloor, WaitDistribution } from './floor-projection';
 import { seededRandom } from './stats';
 import { initialTrayState, type RoutingStep } from './vocabulary';
 
@@ -120,6 +120,62 @@ describe('waits drawn from history', () => {
     const model = measureFloor({ ...none, dispatches }, calendar, [{ kind: 'pack', capacityTrays: 1 }]);
     const snap: FloorSnapshot = { now: T0, orders: [order('D', 2, [step(1, 'pack', 30), step(2, 'dispatch', 5)])], measured: none };
     expect(projectFloor(snap, { calendar, model, runs: 10 }).get('D')!.expectedAt).toBe(T0 + 185 * MIN);
+  });
+
+  it('takes a big order through the dispatch places in rounds', () => {
+    // as above, but one dispatch place and 5 min a tray: the three trays leave at 180 min and
+    // go one after another → the last is done at 180 + 3 × 5 = 195 min (hand-worked)
+    const dispatches = Array.from({ length: 12 }, (_, i) => ({
+      orderId: `old${i}`,
+      lastPackedAt: T0 - 86_400_000 + i * 1000,
+      startedAt: T0 - 86_400_000 + i * 1000 + 120 * MIN,
+    }));
+    const model = measureFloor({ ...none, dispatches }, calendar, [
+      { kind: 'pack', capacityTrays: 3 },
+      { kind: 'dispatch', capacityTrays: 1 },
+    ]);
+    const snap: FloorSnapshot = { now: T0, orders: [order('D', 3, [step(1, 'pack', 60), step(2, 'dispatch', 5)])], measured: none };
+    expect(projectFloor(snap, { calendar, model, runs: 10 }).get('D')!.expectedAt).toBe(T0 + 195 * MIN);
+  });
+
+  describe('the dispatch wait by the time of day the order was packed', () => {
+    // A courier who collects at 16:30 (common practice: carriers collect at set times). 48
+    // orders packed every 20 min from 08:00 to 23:40 on the day before T0 (UTC, plain minutes
+    // on this calendar): one packed before 16:30 waits until 16:30 the same day, one packed
+    // after it until 16:30 the next day.
+    const dayBefore = T0 - 86_400_000;
+    const collect = (packed: number) => {
+      const sameDay = dayBefore + (16 * 60 + 30) * MIN;
+      return packed <= sameDay ? sameDay : sameDay + 86_400_000;
+    };
+    const samples = Array.from({ length: 48 }, (_, i) => {
+      const packed = dayBefore + (8 * 60 + i * 20) * MIN;
+      return { minuteOfDay: minuteOfDay('UTC', packed), wait: (collect(packed) - packed) / MIN };
+    });
+    const d = new DispatchWait(samples);
+
+    it('draws from the orders packed nearest in time of day', () => {
+      // packed at 10:00: the neighbours (k = max(5, 48 / 10) = 5: 9:20 to 10:40) waited 350 to
+      // 430 min; the true wait is 390 min
+      for (const u of [0, 0.5, 0.99]) {
+        expect(d.drawRemaining(10 * 60, 0, u)).toBeGreaterThanOrEqual(350);
+        expect(d.drawRemaining(10 * 60, 0, u)).toBeLessThanOrEqual(430);
+      }
+      // packed at 20:00: the neighbours waited until the next afternoon (1,190 to 1,270 min)
+      expect(d.drawRemaining(20 * 60, 0, 0.5)).toBeGreaterThan(1100);
+    });
+
+    it('gives an order packed after the collection, and already waiting, the next collection', () => {
+      // packed at 17:20, waited 400 min: only orders that waited longer count (those packed
+      // after 16:30); the rest is about 1,390 − 400 = 990 min, never a few minutes
+      const left = [0.01, 0.5, 0.99].map((u) => d.drawRemaining(17 * 60 + 20, 400, u));
+      for (const x of left) expect(x).toBeGreaterThan(800);
+    });
+
+    it('is the local time of day in the factory zone', () => {
+      // 2025-06-09 00:30 UTC is 08:30 in Shanghai (UTC+8, no daylight saving)
+      expect(minuteOfDay('Asia/Shanghai', T0 + 30 * MIN)).toBe(8 * 60 + 30);
+    });
   });
 
   it('is repeatable, and a second order competing for the places moves the first no earlier', () => {

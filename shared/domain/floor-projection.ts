@@ -9,7 +9,15 @@
 // cure on its own calendar, through nights and weekends. Process times are the standard
 // minutes times a ratio drawn from measured steps. Strikes and casts wait for the order's
 // moulds. An order's trays are gathered before dispatch: the dispatch wait is drawn once per
-// order, from the measured wait between an order's last packed tray and its dispatch.
+// order, from the measured waits between an order's last packed tray and its dispatch of the
+// orders packed nearest in time of day (collections come at set times), and then the trays go
+// through the dispatch places like any step.
+//
+// A traveller already waiting at `now` draws its handover afresh and keeps only what is left
+// after its wait so far (none when it has waited longer): the rest of its wait is then for a
+// place, which the runs simulate, rather than a second handover from the tail. The floor's
+// pace is drawn day by day within a run (a bootstrap of measured days), so a long projection
+// averages over several days as the floor does.
 //
 // Queue theory behind the checks: Little (1961), L = λW, and Kingman (1961) for the mean wait
 // of a single queue (M/M/1: Wq = ρ/(μ − λ)); the unit tests check the simulation against both.
@@ -20,8 +28,8 @@
 //
 // Each traveller draws from its own random stream (seeded by its id and the run), so the same
 // floor gives the same dates, and adding an order changes others' dates only through capacity.
-import { PriorityQueue } from './priority-queue';
 import type { Timeline, WorkingCalendar } from './calendar';
+import { zoneOffsetMs } from './time-zone';
 import { countAtMost, MULBERRY32_STEP, mulberry32Draw, quantileSorted, seedOf } from './stats';
 import { ORDER_LEVEL_KINDS, type DispatchRecord, type FloorSnapshot, type MeasuredHistory, type ProcessRecord, type QueueRecord } from './floor-history';
 import type { RoutingStep, TrayState } from './vocabulary';
@@ -54,13 +62,15 @@ export class WaitDistribution {
   readonly sorted: Float64Array;
   private readonly suffix: Float64Array;
   readonly tailMean: number;
-  constructor(samples: readonly number[]) {
+  /** `tailMean`: the tail's mean when the samples are a neighbourhood of a larger set (default: from these samples) */
+  constructor(samples: readonly number[], tailMean?: number) {
     this.sorted = Float64Array.from(samples.filter((x) => Number.isFinite(x) && x >= 0)).sort();
     const n = this.sorted.length;
     this.suffix = new Float64Array(n + 1);
     for (let i = n - 1; i >= 0; i--) this.suffix[i] = this.suffix[i + 1] + this.sorted[i];
     const k = Math.min(TAIL_SAMPLES, n);
-    if (k === 0) this.tailMean = 0;
+    if (tailMean != null) this.tailMean = tailMean;
+    else if (k === 0) this.tailMean = 0;
     else {
       const threshold = n > k ? this.sorted[n - k - 1] : 0;
       this.tailMean = Math.max(1, this.suffix[n - k] / k - threshold);
@@ -87,13 +97,75 @@ export class WaitDistribution {
   }
 }
 
+/** Neighbours (by time of day) a dispatch wait is drawn from: at least this many, or a tenth of the samples. */
+export const DISPATCH_NEIGHBOURS = 5;
+const BUCKET_MINUTES = 15;
+
+const dayDistance = (a: number, b: number) => {
+  const d = Math.abs(a - b) % 1440;
+  return Math.min(d, 1440 - d);
+};
+
+/**
+ * The order-level wait before dispatch, from the order's last packed tray to the dispatch
+ * start (working minutes), conditioned on the local time of day the last tray was packed.
+ * Couriers and carriers collect at set times of day, so an order packed at 10:00 and one packed
+ * at 16:45 wait very differently; drawing either from all the waits put a random night (or
+ * none) into every projection. The draw comes from the measured orders whose last tray was
+ * packed nearest in time of day (the k nearest neighbours, k = max(5, n / 10): a nearest-
+ * neighbour conditional distribution, from memory, e.g. Hastie, Tibshirani & Friedman, "The
+ * Elements of Statistical Learning", ch. 2). An order already waiting `w` minutes is compared
+ * only with measured orders that waited longer than `w` (then nearest in time of day), so an
+ * order packed after the day's collection waits for the next one. A floor with no set
+ * collection times has alike neighbourhoods everywhere, and the draw is the plain measured one.
+ */
+export class DispatchWait {
+  /** per 15-minute bucket of the local day: the neighbours' waits (for orders not yet waiting) */
+  private readonly buckets: WaitDistribution[];
+  private readonly samples: { minuteOfDay: number; wait: number }[];
+  private readonly k: number;
+  private readonly tailMean: number;
+  readonly n: number;
+  constructor(samples: readonly { minuteOfDay: number; wait: number }[]) {
+    const ok = samples.filter((x) => Number.isFinite(x.wait) && x.wait >= 0 && Number.isFinite(x.minuteOfDay));
+    this.samples = ok;
+    this.n = ok.length;
+    this.k = Math.min(ok.length, Math.max(DISPATCH_NEIGHBOURS, Math.ceil(ok.length / 10)));
+    const all = new WaitDistribution(ok.map((x) => x.wait));
+    this.tailMean = all.tailMean;
+    this.buckets = [];
+    for (let b = 0; b < 1440 / BUCKET_MINUTES; b++) this.buckets.push(this.near(b * BUCKET_MINUTES + BUCKET_MINUTES / 2, 0));
+  }
+  private near(minuteOfDay: number, waited: number): WaitDistribution {
+    const longer = this.samples.filter((x) => x.wait > waited);
+    if (longer.length === 0) return new WaitDistribution([], this.tailMean);
+    const near = longer.sort((x, y) => dayDistance(x.minuteOfDay, minuteOfDay) - dayDistance(y.minuteOfDay, minuteOfDay)).slice(0, this.k);
+    return new WaitDistribution(
+      near.map((x) => x.wait - waited),
+      this.tailMean,
+    );
+  }
+  /** a draw of what is left of the wait of an order whose last tray was packed at local `minuteOfDay` and has waited `waited` */
+  drawRemaining(minuteOfDay: number, waited: number, u: number): number {
+    if (this.n === 0) return 0;
+    if (waited > 0) {
+      const d = this.near(minuteOfDay, waited);
+      return d.n ? d.drawRemaining(0, u) : -Math.log(1 - u) * this.tailMean;
+    }
+    const b = Math.min(this.buckets.length - 1, Math.max(0, Math.floor(minuteOfDay / BUCKET_MINUTES)));
+    return this.buckets[b].drawRemaining(0, u);
+  }
+}
+
 export interface FloorModel {
   /** handover waits per kind: measured waits of travellers that found a free place on arrival */
   handover: Map<string, WaitDistribution>;
   /** every measured wait per kind (the model without capacity uses these) */
   queue: Map<string, WaitDistribution>;
-  /** the order-level wait before dispatch: last packed tray → dispatch start */
-  dispatch: WaitDistribution;
+  /** the order-level wait before dispatch: last packed tray → dispatch start, by the time of day it was packed */
+  dispatch: DispatchWait;
+  /** the factory's time zone (for the time of day) */
+  timeZone: string;
   /** measured process time ÷ standard time, per kind (sorted) */
   ratio: Map<string, Float64Array>;
   /** chance that a tray is put on hold while it waits for a step, and how long holds last */
@@ -123,6 +195,12 @@ export interface StationPlaces {
   kind: string;
   capacityTrays: number;
   active?: boolean;
+}
+
+/** local minutes after midnight in the zone */
+export function minuteOfDay(timeZone: string, t: number): number {
+  const local = t + zoneOffsetMs(timeZone, t);
+  return (((local % DAY_MS) + DAY_MS) % DAY_MS) / MINUTE;
 }
 
 function latest<T>(rows: readonly T[], at: (r: T) => number, n: number): T[] {
@@ -191,9 +269,10 @@ export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalenda
     queue.set(kind, new WaitDistribution(r && r.all.length >= minSamples ? r.all : pool.all));
     handover.set(kind, new WaitDistribution(r && r.free.length >= minSamples ? r.free : r && r.all.length >= minSamples ? r.all : pool.free));
   }
-  const dispatchWaits = latest(measured.dispatches, (d: DispatchRecord) => d.startedAt, perKind).map((d) =>
-    Math.max(0, calendar.forStation(ORDER_LEVEL_KINDS[0]).workingMinutesBetween(d.lastPackedAt, d.startedAt)),
-  );
+  const dispatchWaits = latest(measured.dispatches, (d: DispatchRecord) => d.startedAt, perKind).map((d) => ({
+    minuteOfDay: minuteOfDay(calendar.timeZone, d.lastPackedAt),
+    wait: Math.max(0, calendar.forStation(ORDER_LEVEL_KINDS[0]).workingMinutesBetween(d.lastPackedAt, d.startedAt)),
+  }));
 
   const ratioRaw = new Map<string, number[]>();
   for (const p of latest(
@@ -230,7 +309,8 @@ export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalenda
     hold: new WaitDistribution(measured.holds.map((h) => Math.max(0, calendar.factory.workingMinutesBetween(h.heldAt, h.releasedAt)))),
     handover,
     queue,
-    dispatch: new WaitDistribution(dispatchWaits),
+    dispatch: new DispatchWait(dispatchWaits),
+    timeZone: calendar.timeZone,
     ratio,
     places,
     pace,
@@ -295,76 +375,148 @@ interface Sim {
 
 const ms = (x: string | null | undefined) => (x ? Date.parse(x) : null);
 
-/** The heap of pending events: time, then insertion order (deterministic). */
+/**
+ * The heap of pending events: time, then insertion order (deterministic). A four-ary heap on
+ * typed arrays with a moving hole instead of swaps: a run of the bench floor pushes and pops
+ * some 40,000 events, and a shallower heap pops them with fewer cache misses.
+ */
 class EventHeap {
-  private t: number[] = [];
-  private n: number[] = [];
-  private who: number[] = [];
-  private what: number[] = [];
+  private t = new Float64Array(1024);
+  private n = new Float64Array(1024);
+  /** who × 2 + what */
+  private p = new Int32Array(1024);
   private c = 0;
-  get size() {
-    return this.t.length;
+  size = 0;
+  reset() {
+    this.size = 0;
+    this.c = 0;
+  }
+  private grow() {
+    const cap = this.t.length * 2;
+    const t = new Float64Array(cap);
+    t.set(this.t);
+    const n = new Float64Array(cap);
+    n.set(this.n);
+    const p = new Int32Array(cap);
+    p.set(this.p);
+    this.t = t;
+    this.n = n;
+    this.p = p;
   }
   push(time: number, who: number, what: number) {
-    const { t, n, who: w, what: k } = this;
-    t.push(time);
-    n.push(this.c++);
-    w.push(who);
-    k.push(what);
-    let i = t.length - 1;
+    if (this.size === this.t.length) this.grow();
+    const { t, n, p } = this;
+    const seq = this.c++;
+    let i = this.size++;
     while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (t[p] < t[i] || (t[p] === t[i] && n[p] < n[i])) break;
-      this.swap(i, p);
-      i = p;
+      const up = (i - 1) >> 2;
+      if (t[up] < time || (t[up] === time && n[up] < seq)) break;
+      t[i] = t[up];
+      n[i] = n[up];
+      p[i] = p[up];
+      i = up;
     }
+    t[i] = time;
+    n[i] = seq;
+    p[i] = who * 2 + what;
   }
-  private swap(a: number, b: number) {
-    const t = this.t;
-    const n = this.n;
-    const w = this.who;
-    const k = this.what;
-    let x = t[a];
-    t[a] = t[b];
-    t[b] = x;
-    x = n[a];
-    n[a] = n[b];
-    n[b] = x;
-    x = w[a];
-    w[a] = w[b];
-    w[b] = x;
-    x = k[a];
-    k[a] = k[b];
-    k[b] = x;
-  }
-  /** pops the top; returns [time, who, what] via out */
+  /** pops the top: its time in out[0], who in out[1], what in out[2] */
   pop(out: [number, number, number]) {
-    const { t, n, who, what } = this;
+    const { t, n, p } = this;
     out[0] = t[0];
-    out[1] = who[0];
-    out[2] = what[0];
-    const last = t.length - 1;
-    if (last > 0) this.swap(0, last);
-    t.pop();
-    n.pop();
-    who.pop();
-    what.pop();
+    out[1] = p[0] >> 1;
+    out[2] = p[0] & 1;
+    const size = --this.size;
+    if (size === 0) return;
+    const lt = t[size];
+    const ln = n[size];
+    const lp = p[size];
     let i = 0;
     for (;;) {
-      const l = 2 * i + 1;
-      const r = l + 1;
-      let m = i;
-      if (l < t.length && (t[l] < t[m] || (t[l] === t[m] && n[l] < n[m]))) m = l;
-      if (r < t.length && (t[r] < t[m] || (t[r] === t[m] && n[r] < n[m]))) m = r;
-      if (m === i) break;
-      this.swap(i, m);
+      const first = 4 * i + 1;
+      if (first >= size) break;
+      let m = first;
+      const end = first + 4 < size ? first + 4 : size;
+      for (let c = first + 1; c < end; c++) if (t[c] < t[m] || (t[c] === t[m] && n[c] < n[m])) m = c;
+      if (lt < t[m] || (lt === t[m] && ln < n[m])) break;
+      t[i] = t[m];
+      n[i] = n[m];
+      p[i] = p[m];
       i = m;
     }
+    t[i] = lt;
+    n[i] = ln;
+    p[i] = lp;
   }
 }
 
-/** Travellers waiting for a place at one kind: the best first (earliest due, then first to ask). */
-class WaitingLine extends PriorityQueue<number> {}
+/**
+ * Travellers waiting for a place at one kind: the best first (earliest due, then first to ask,
+ * then the lower index). The keys are copied in when a traveller joins, so comparing is
+ * reading three numbers.
+ */
+class WaitingLine {
+  private a = new Float64Array(64);
+  private b = new Float64Array(64);
+  private w = new Int32Array(64);
+  size = 0;
+  reset() {
+    this.size = 0;
+  }
+  private grow() {
+    const cap = this.a.length * 2;
+    const a = new Float64Array(cap);
+    a.set(this.a);
+    const b = new Float64Array(cap);
+    b.set(this.b);
+    const w = new Int32Array(cap);
+    w.set(this.w);
+    this.a = a;
+    this.b = b;
+    this.w = w;
+  }
+  push(due: number, askedAt: number, who: number) {
+    if (this.size === this.a.length) this.grow();
+    const { a, b, w } = this;
+    let i = this.size++;
+    while (i > 0) {
+      const up = (i - 1) >> 1;
+      if (a[up] < due || (a[up] === due && (b[up] < askedAt || (b[up] === askedAt && w[up] < who)))) break;
+      a[i] = a[up];
+      b[i] = b[up];
+      w[i] = w[up];
+      i = up;
+    }
+    a[i] = due;
+    b[i] = askedAt;
+    w[i] = who;
+  }
+  pop(): number {
+    const { a, b, w } = this;
+    const top = w[0];
+    const size = --this.size;
+    if (size === 0) return top;
+    const la = a[size];
+    const lb = b[size];
+    const lw = w[size];
+    let i = 0;
+    for (;;) {
+      let m = 2 * i + 1;
+      if (m >= size) break;
+      const r = m + 1;
+      if (r < size && (a[r] < a[m] || (a[r] === a[m] && (b[r] < b[m] || (b[r] === b[m] && w[r] < w[m]))))) m = r;
+      if (la < a[m] || (la === a[m] && (lb < b[m] || (lb === b[m] && lw < w[m])))) break;
+      a[i] = a[m];
+      b[i] = b[m];
+      w[i] = w[m];
+      i = m;
+    }
+    a[i] = la;
+    b[i] = lb;
+    w[i] = lw;
+    return top;
+  }
+}
 
 // event kinds
 const REQUEST = 0;
@@ -474,30 +626,33 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
   const orderLevel = kindNames.map((k) => ORDER_LEVEL_KINDS.includes(k));
   const mouldGated = kindNames.map((k) => (MOULD_USING_KINDS as readonly string[]).includes(k));
   const kindOfStep = sims.map((s) => s.steps.map((st) => kindsIndex.get(st.stationKind)!));
+  /** trays already under way at an order-level step (the rest of the order is not waited for by them) */
+  const leaving = orders.map(() => 0);
+  sims.forEach((s, si) => {
+    if (s.kind === 'tray' && s.startedAt != null && orderLevel[kindOfStep[si][0]]) leaving[s.order]++;
+  });
 
   const finishes = orders.map(() => new Float64Array(runs));
   const waitSum = orders.map(() => new Float64Array(nK));
   const heap = new EventHeap();
-  const before = (x: number, y: number) => {
-    const a = sims[x];
-    const b = sims[y];
-    const da = firstCome ? 0 : dueOf[a.order];
-    const db = firstCome ? 0 : dueOf[b.order];
-    return da < db || (da === db && (a.requestAt < b.requestAt || (a.requestAt === b.requestAt && x < y)));
-  };
+  const waiting = kindNames.map(() => new WaitingLine());
   const out: [number, number, number] = [0, 0, 0];
 
   for (let r = 0; r < runs; r++) {
     const busy = new Int32Array(nK);
-    const waiting = kindNames.map(() => new WaitingLine(before));
+    heap.reset();
+    for (const line of waiting) line.reset();
     const gathered = orders.map(() => 0);
+    const gatheredList: number[][] = orders.map(() => []);
     const lastPacked = orders.map(() => -Infinity);
     const mouldsLeft = [...mouldsOpen];
     const mouldsReadyAt = orders.map((_, oi) => (mouldsOpen[oi] === 0 ? now : Infinity));
     const parked: number[][] = orders.map(() => []);
     const ship = orders.map(() => -Infinity);
     // the run's pace: one measured day's, the same for every order (drawn from the run number only)
-    const paceR = usePace ? model.pace[Math.floor(hashU(0x5eed, seed, r) * model.pace.length)] : 1;
+    // the run's pace, day by day: each day of the run draws one measured day's pace, the same for
+    // every order (drawn from the run and the day only): a bootstrap of whole days
+    const paceOf = (t: number) => (usePace ? model.pace[Math.floor(hashU(0x5eed ^ seed, r, Math.floor(t / DAY_MS)) * model.pace.length)] : 1);
 
     const start = (si: number, at: number) => {
       const s = sims[si];
@@ -518,7 +673,7 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
       const k = kindOfStep[si][s.idx];
       s.requestAt = at;
       if (busy[k] < placesOf[k]) start(si, at);
-      else waiting[k].push(si);
+      else waiting[k].push(firstCome ? 0 : dueOf[s.order], at, si);
     };
     /** the traveller is ready for its step at `at`: draw its handover, then ask for a place */
     const ready = (si: number, at: number, waited: number) => {
@@ -529,25 +684,30 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
         // gathered with the rest of the order; the order leaves once, after its last packed tray
         lastPacked[oi] = Math.max(lastPacked[oi], at);
         gathered[oi]++;
-        if (gathered[oi] === living[oi]) {
+        gatheredList[oi].push(si);
+        if (gathered[oi] === living[oi] - leaving[oi]) {
           const from = lastPacked[oi];
           const line = lines[k];
           const already = from < now ? Math.max(0, line.workingMinutesBetween(from, now)) : 0;
-          const q = model.dispatch.n ? model.dispatch.drawRemaining(already, nextU(s)) : waitDist[k].drawRemaining(already, nextU(s));
-          const step = s.steps[s.idx];
-          const t0 = Math.max(from, now);
-          const end = line.addWorkingMinutes(line.addWorkingMinutes(t0, q), step.trayMinutes + step.pieceMinutes * s.qty);
+          const q = model.dispatch.n
+            ? model.dispatch.drawRemaining(minuteOfDay(model.timeZone, from), already, nextU(s))
+            : waitDist[k].drawRemaining(already, nextU(s));
           waitSum[oi][k] += q;
-          let last = end;
-          for (let j = s.idx + 1; j < s.steps.length; j++)
-            last = lines[kindOfStep[si][j]].addWorkingMinutes(last, s.steps[j].trayMinutes + s.steps[j].pieceMinutes * s.qty);
-          ship[oi] = Math.max(ship[oi], last);
+          // the order's trays then go through the step together, each asking for a place (a big
+          // order takes several rounds of the dispatch bench)
+          const leaveAt = line.addWorkingMinutes(Math.max(from, now), q);
+          for (const x of gatheredList[oi]) heap.push(leaveAt, x, REQUEST);
+          gatheredList[oi] = [];
         }
         return;
       }
-      // the handover is the order's: its trays reach a step together and share the draw
-      const q0 = waitDist[k].drawRemaining(waited, capacity ? hashU(orderSeed[oi], s.steps[s.idx].seq, r) : nextU(s));
-      let q = q0 * paceR;
+      // the handover is the order's: its trays reach a step together and share the draw. A
+      // traveller already waiting keeps what is left of a fresh draw after its wait so far; when
+      // it has waited longer, the rest of its wait is for a place (simulated), not more handover
+      const q0 = capacity
+        ? Math.max(0, waitDist[k].drawRemaining(0, hashU(orderSeed[oi], s.steps[s.idx].seq, r)) - waited)
+        : waitDist[k].drawRemaining(waited, nextU(s));
+      let q = q0 * paceOf(at);
       // a tray now and then waits on hold for a decision (measured rate and length)
       if (s.kind === 'tray') {
         if (s.idx === 0 && s.heldFor >= 0) q += model.hold.drawRemaining(s.heldFor, nextU(s));

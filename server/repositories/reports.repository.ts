@@ -76,6 +76,28 @@ export interface FlowTrayRow {
   shippedQty: number | null;
 }
 
+/** Two lists of numbers filled side by side in typed buffers that double when full. */
+class GrowingPairs {
+  private calendar = new Float64Array(4096);
+  private working = new Float64Array(4096);
+  private n = 0;
+  push(calendar: number, working: number) {
+    if (this.n === this.calendar.length) {
+      const c = new Float64Array(this.n * 2);
+      c.set(this.calendar);
+      this.calendar = c;
+      const w = new Float64Array(this.n * 2);
+      w.set(this.working);
+      this.working = w;
+    }
+    this.calendar[this.n] = calendar;
+    this.working[this.n++] = working;
+  }
+  done(): { calendar: Float64Array; working: Float64Array } {
+    return { calendar: this.calendar.subarray(0, this.n), working: this.working.subarray(0, this.n) };
+  }
+}
+
 export const reportsRepository = {
   shippedOrders(db: Db, f: ReportFilter): ShippedOrderRow[] {
     const of = orderFilter(f);
@@ -90,42 +112,31 @@ export const reportsRepository = {
   },
 
   /**
-   * Queue or process minutes of one station kind's steps finished in the window, in calendar
-   * minutes and in working minutes of the station's calendar, as two flat lists of the same runs
-   * (one covering-index range scan, no row objects). A cure closed on its own counts as process
-   * time only for the cure kind itself.
+   * Queue and process minutes of one station kind's steps finished in the window, each in
+   * calendar minutes and in working minutes of the station's calendar, as flat lists (one
+   * covering-index range scan for both measures, no row objects). A cure closed on its own counts
+   * as process time only for the cure kind itself.
    */
-  cycleValues(db: Db, f: ReportFilter, stationKind: string, measure: 'queue' | 'process'): { calendar: Float64Array; working: Float64Array } {
+  cycleValues(db: Db, f: ReportFilter, stationKind: string): Record<'queue' | 'process', { calendar: Float64Array; working: Float64Array }> {
     const of = orderFilter(f);
     const joinOrders = of.sql ? ' join orders o on o.id = r.order_id' : '';
     const station = f.stationId ? ' and r.station_id = ?' : '';
-    const column = measure === 'queue' ? 'r.queue_minutes' : 'r.process_minutes';
-    const working = measure === 'queue' ? 'r.queue_working_minutes' : 'r.process_working_minutes';
-    const extra = measure === 'process' && !cures(stationKind) ? ' and r.implicit = 0' : '';
+    const implicitIsProcess = cures(stationKind);
     const rows = client(db)
       .prepare(
-        `select ${column}, ${working} from step_runs r${joinOrders}
-         where r.station_kind = ? and r.finished_at >= ? and r.finished_at < ? and ${column} is not null and ${working} is not null${extra}${station}${of.sql}`,
+        `select r.queue_minutes, r.queue_working_minutes, r.process_minutes, r.process_working_minutes, r.implicit from step_runs r${joinOrders}
+         where r.station_kind = ? and r.finished_at >= ? and r.finished_at < ?${station}${of.sql}`,
       )
       .raw(true)
       .iterate(stationKind, f.from, f.to, ...(f.stationId ? [f.stationId] : []), ...of.args);
     // straight into typed buffers: no array of boxed numbers for half a million values
-    let cal = new Float64Array(4096);
-    let work = new Float64Array(4096);
-    let n = 0;
-    for (const [c, w] of rows as Iterable<[number, number]>) {
-      if (n === cal.length) {
-        const c2 = new Float64Array(cal.length * 2);
-        c2.set(cal);
-        cal = c2;
-        const w2 = new Float64Array(work.length * 2);
-        w2.set(work);
-        work = w2;
-      }
-      cal[n] = c;
-      work[n++] = w;
+    const queue = new GrowingPairs();
+    const process = new GrowingPairs();
+    for (const [qc, qw, pc, pw, implicit] of rows as Iterable<[number | null, number | null, number | null, number | null, number]>) {
+      if (qc != null && qw != null) queue.push(qc, qw);
+      if (pc != null && pw != null && (implicitIsProcess || !implicit)) process.push(pc, pw);
     }
-    return { calendar: cal.subarray(0, n), working: work.subarray(0, n) };
+    return { queue: queue.done(), process: process.done() };
   },
 
   /** trays finished in the window with their summed process and cure minutes, in calendar and in working minutes */

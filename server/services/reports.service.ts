@@ -106,8 +106,7 @@ export const reportsService = {
       working: roundSummary(summarize(v.working)),
     });
     for (const kind of STATION_KINDS) {
-      const q = repo.cycleValues(deps.db, w.filter, kind, 'queue');
-      const p = repo.cycleValues(deps.db, w.filter, kind, 'process');
+      const { queue: q, process: p } = repo.cycleValues(deps.db, w.filter, kind);
       if (q.calendar.length) queue.set(kind, pair(q));
       if (p.calendar.length) process.set(kind, pair(p));
     }

@@ -39,7 +39,7 @@ export const orderGatesService = {
           recordedBy: actor.id,
           recordedAt: now,
         });
-        auditOrder(tx, now, actor.id, 'order.payment_exception', id, `Release without payment allowed: ${body.reason}`);
+        auditOrder(tx, now, actor.id, 'order.payment_exception', id, `Release without payment allowed: ${body.reason}`, { params: { reason: body.reason } });
       } else {
         const note = body.paidOn ? `paid on ${body.paidOn}` : '';
         recordPaymentIn(tx, now, {
@@ -94,7 +94,7 @@ export const orderGatesService = {
         uploadedBy: actorId,
         uploadedAt: now,
       });
-      auditOrder(tx, now, actorId, 'order.proof_upload', id, `Proof revision ${revision} uploaded (${name})`);
+      auditOrder(tx, now, actorId, 'order.proof_upload', id, `Proof revision ${revision} uploaded (${name})`, { params: { revision, file: name } });
       refreshStatus(tx, getOrder(tx, id), now);
       return { revision };
     });

@@ -113,6 +113,7 @@ export function recordPaymentIn(tx: DbLike, now: number, input: PaymentInput): b
   const how = input.source === 'checkout' ? 'paid online' : 'recorded';
   audit(tx, now, input.recordedBy, 'order.payment', order.id, `Payment of ${amount.toFixed(2)} ${currency} ${how} (${input.reference})`, {
     source: input.source,
+    params: { variant: input.source === 'checkout' ? 'online' : 'manual', amount: amount.toFixed(2), currency, reference: input.reference },
   });
   refreshStatus(tx, order, now);
   return true;
@@ -146,15 +147,10 @@ export function approveProofIn(tx: DbLike, now: number, input: ApprovalInput) {
   const who = input.customerName
     ? `${input.customerName} approved proof revision ${input.revision} on the order page`
     : `Customer approved proof revision ${input.revision}`;
-  audit(
-    tx,
-    now,
-    input.userId,
-    'order.proof_approve',
-    order.id,
-    `${who} on ${day}${input.note ? `: ${input.note}` : ''}`,
-    input.customerName ? { via: 'portal', name: input.customerName } : { via: 'staff' },
-  );
+  audit(tx, now, input.userId, 'order.proof_approve', order.id, `${who} on ${day}${input.note ? `: ${input.note}` : ''}`, {
+    ...(input.customerName ? { via: 'portal', name: input.customerName } : { via: 'staff' }),
+    params: { variant: input.customerName ? 'portal' : 'staff', name: input.customerName, revision: input.revision, day, note: input.note || null },
+  });
   refreshStatus(tx, order, now);
 }
 
@@ -167,7 +163,10 @@ export function requestProofChangesIn(tx: DbLike, now: number, input: { orderId:
   if (proof.approvedAt != null)
     throw conflict('already_approved', `Proof revision ${input.revision} is approved already; ask the factory if something must still change.`);
   ordersRepository.requestProofChanges(tx, proof.id, { changesRequestedAt: now, changesComment: input.comment });
-  audit(tx, now, null, 'order.proof_changes', order.id, `Customer asked for changes to proof revision ${input.revision}: ${input.comment}`, { via: 'portal' });
+  audit(tx, now, null, 'order.proof_changes', order.id, `Customer asked for changes to proof revision ${input.revision}: ${input.comment}`, {
+    via: 'portal',
+    params: { revision: input.revision, comment: input.comment },
+  });
   return { order, proof };
 }
 

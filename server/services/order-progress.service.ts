@@ -4,7 +4,7 @@
 import type { DbLike } from '../db/client';
 import type { WorkingCalendar } from '@shared/domain/calendar';
 import { shippingRepository, type ShipmentRow, type ShippingOrder } from '../repositories/shipping.repository';
-import { describeStage, orderStage, type OrderStage, type TravellerProgress } from '@shared/domain/stages';
+import { describeStage, stageNote, type StageNote, orderStage, type OrderStage, type TravellerProgress } from '@shared/domain/stages';
 import {
   cartonTotals,
   checkFinishedQuantity,
@@ -35,6 +35,7 @@ export interface OrderProgress {
   steps: ProjectionStep[];
   stage: OrderStage;
   stageText: string;
+  stageNote: StageNote;
   shipped: ShippedVerdict;
   shippedAt: number | null;
   shipments: ShipmentRow[];
@@ -114,12 +115,13 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
     }));
     const stage = orderStage({ status, travellers: progressInput });
     const stageText = describeStage({ status, travellers: progressInput });
+    const note = stageNote({ status, travellers: progressInput });
     const shippedAt = status === 'shipped' ? (order.shippedAt ?? (verdict.shippedAt ? Date.parse(verdict.shippedAt) : null)) : null;
     const measured = options.shipDates?.get(order.id);
     const open = status !== 'shipped' && status !== 'cancelled';
     const projection: ShipDate =
       options.project === false
-        ? { expectedAt: null, basis: '' }
+        ? { expectedAt: null, basis: '', note: { code: 'after_release' } }
         : open && measured
           ? measured
           : projectOrder({ status, travellers, steps: orderSteps }, now, timeZone, options.calendar);
@@ -136,6 +138,7 @@ export function loadProgress(db: DbLike, list: ShippingOrder[], now: number, tim
       steps: orderSteps,
       stage,
       stageText,
+      stageNote: note,
       shipped: verdict,
       shippedAt,
       shipments: shipmentsByOrder.get(order.id) ?? [],

@@ -127,6 +127,16 @@ export const orderReleaseService = {
         `Released ${total} pieces in ${parts.length} trays of up to ${body.traySize}` +
           `${body.releasedAt ? ` (on the floor since ${new Date(releasedAt).toISOString().slice(0, 16).replace('T', ' ')} UTC)` : ''}` +
           `; ${plan.length} mould traveller${plan.length === 1 ? '' : 's'}${reused ? ` (${reused} reusing a stored mould)` : ''}`,
+        {
+          params: {
+            pieces: total,
+            trays: parts.length,
+            size: body.traySize,
+            since: body.releasedAt ? new Date(releasedAt).toISOString() : null,
+            moulds: plan.length,
+            reused,
+          },
+        },
       );
       return { trays: trayTravellers, moulds: mouldTravellers };
     });

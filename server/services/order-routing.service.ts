@@ -22,7 +22,7 @@ export const orderRoutingService = {
       }));
       ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', steps));
       ordersRepository.update(tx, id, { updatedAt: now });
-      auditOrder(tx, now, actorId, 'order.routing_edit', id, `Routing edited: ${steps.length} steps`);
+      auditOrder(tx, now, actorId, 'order.routing_edit', id, `Routing edited: ${steps.length} steps`, { params: { steps: steps.length } });
     });
     return ordersService.get(deps, id);
   },
@@ -35,7 +35,7 @@ export const orderRoutingService = {
       refuseIfReleased(order, 'its routing');
       const spec = specOf(order);
       ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', routingFromSpec(tx, spec)));
-      auditOrder(tx, now, actorId, 'order.routing_reset', id, 'Routing made again from the template');
+      auditOrder(tx, now, actorId, 'order.routing_reset', id, 'Routing made again from the template', { params: {} });
     });
     return ordersService.get(deps, id);
   },

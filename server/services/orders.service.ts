@@ -14,6 +14,7 @@ import { badInput, conflict, notFound } from '../errors';
 import {
   orderSpecSchema,
   specWarnings,
+  type HistoryEntry,
   type OrderDetail,
   type OrderGate,
   type OrderListItem,
@@ -217,6 +218,7 @@ export const ordersService = {
         action: entry.action,
         by: by ?? null,
         text: (entry.detail as { text?: string } | null)?.text ?? entry.action,
+        params: (entry.detail as { params?: HistoryEntry['params'] } | null)?.params ?? null,
       }));
     return {
       id: order.id,
@@ -234,6 +236,7 @@ export const ordersService = {
       late: progress?.late ?? isLate(order, deps.now(), shipDateService.timeZone(deps)),
       projectedShipAt: iso(progress?.projection.expectedAt),
       projectionNote: progress?.projection.basis || null,
+      projectionNoteCode: progress?.projection.basis ? progress.projection.note : null,
       warnings: specWarnings(spec),
       openGates: isReleased(order) ? [] : openGates(db, id),
       payments: payments.map(({ payment: p, by }) => ({
@@ -308,7 +311,9 @@ export const ordersService = {
         updatedAt: now,
       });
       ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', routingFromSpec(tx, input)));
-      auditOrder(tx, now, actorId, 'order.create', id, `Order ${number} entered${input.reorderOf ? ' as a repeat of an earlier design' : ''}`);
+      auditOrder(tx, now, actorId, 'order.create', id, `Order ${number} entered${input.reorderOf ? ' as a repeat of an earlier design' : ''}`, {
+        params: { variant: input.reorderOf ? 'repeat' : 'new', number },
+      });
       return id;
     };
     return db === deps.db ? deps.db.transaction((tx) => run(tx)) : run(db);
@@ -343,9 +348,11 @@ export const ordersService = {
       const changed = Object.keys(patch).join(', ');
       if (before !== after) {
         ordersRepository.replaceSteps(tx, id, 'tray', stepRows(id, 'tray', routingFromSpec(tx, spec)));
-        auditOrder(tx, now, actorId, 'order.update', id, `Spec changed (${changed}); routing made again from the template`);
+        auditOrder(tx, now, actorId, 'order.update', id, `Spec changed (${changed}); routing made again from the template`, {
+          params: { variant: 'remade', fields: Object.keys(patch) },
+        });
       } else {
-        auditOrder(tx, now, actorId, 'order.update', id, `Spec changed (${changed})`);
+        auditOrder(tx, now, actorId, 'order.update', id, `Spec changed (${changed})`, { params: { variant: 'kept', fields: Object.keys(patch) } });
       }
     });
     return ordersService.get(deps, id);
@@ -360,7 +367,7 @@ export const ordersService = {
       if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled.`);
       if (order.status === 'on_hold') throw conflict('already_on_hold', `Order ${order.number} is on hold already.`);
       ordersRepository.update(tx, id, { status: 'on_hold', holdReason: reason, updatedAt: now });
-      auditOrder(tx, now, actorId, 'order.hold', id, `Put on hold: ${reason}`);
+      auditOrder(tx, now, actorId, 'order.hold', id, `Put on hold: ${reason}`, { params: { reason } });
     });
     return ordersService.get(deps, id);
   },
@@ -372,7 +379,7 @@ export const ordersService = {
       if (order.status !== 'on_hold') throw conflict('not_on_hold', `Order ${order.number} is not on hold.`);
       const status = order.releasedAt != null ? 'released' : preReleaseStatus(openGates(tx, id));
       ordersRepository.update(tx, id, { status, holdReason: null, updatedAt: now });
-      auditOrder(tx, now, actorId, 'order.resume', id, 'Hold lifted');
+      auditOrder(tx, now, actorId, 'order.resume', id, 'Hold lifted', { params: {} });
     });
     return ordersService.get(deps, id);
   },
@@ -385,7 +392,7 @@ export const ordersService = {
       if (isReleased(order)) throw conflict('already_released', `Order ${order.number} is on the floor: write off its trays instead.`);
       if (order.status === 'cancelled') throw conflict('order_cancelled', `Order ${order.number} is cancelled already.`);
       ordersRepository.update(tx, id, { status: 'cancelled', cancelledAt: now, holdReason: reason, updatedAt: now });
-      auditOrder(tx, now, actorId, 'order.cancel', id, `Cancelled: ${reason}`);
+      auditOrder(tx, now, actorId, 'order.cancel', id, `Cancelled: ${reason}`, { params: { reason } });
     });
     return ordersService.get(deps, id);
   },

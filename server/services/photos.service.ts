@@ -41,7 +41,7 @@ export const photosService = {
         action: shareable ? 'photo.share' : 'photo.unshare',
         entity: 'tray',
         entityId: photo.trayId,
-        detail: { text: shareable ? 'QC photo shown to the customer' : 'QC photo no longer shown to the customer', photoId: id },
+        detail: { text: shareable ? 'QC photo shown to the customer' : 'QC photo no longer shown to the customer', photoId: id, params: {} },
       });
     });
     return photosService.ofTray(deps, photo.trayId).find((p) => p.id === id)!;

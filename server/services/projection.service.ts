@@ -6,7 +6,8 @@ import { measureFloor, projectFloor, type OrderOutlook } from '@shared/domain/fl
 import { measuredFromRuns, type FloorSnapshot } from '@shared/domain/floor-history';
 import { type WorkingCalendar } from '@shared/domain/calendar';
 import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/time-zone';
-import { STATION_KIND_NAMES, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
+import { projectionNoteEnglish, type ProjectionNote } from '@shared/domain/projection-note';
+import { type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
 import type { LateRiskOrder, OrderProjection } from '@shared/schemas/reports';
 import { projectionHistoryRepository as history, type ProjectionHistoryRow } from '../repositories/projection-history.repository';
 
@@ -102,46 +103,27 @@ export function modelOf(deps: AppDeps, snapshot: FloorSnapshot, cal: WorkingCale
   return measureFloor(snapshot.measured, cal, stations);
 }
 
-const formatters = new Map<string, Intl.DateTimeFormat>();
-function fmt(tz: string, ms: number): string {
-  let f = formatters.get(tz);
-  if (!f)
-    formatters.set(
-      tz,
-      (f = new Intl.DateTimeFormat('en-GB', {
-        timeZone: tz,
-        weekday: 'short',
-        day: 'numeric',
-        month: 'short',
-        hour: '2-digit',
-        minute: '2-digit',
-        hourCycle: 'h23',
-      })),
-    );
-  return f.format(ms);
-}
-
-function hours(min: number): string {
-  const h = min / 60;
-  return h < 10 ? `${Math.round(h * 10) / 10} h` : `${Math.round(h)} h`;
-}
-
-function explain(tz: string, p: OrderOutlook): string {
-  if (p.expectedAt === null) return 'No trays on the floor yet, so there is nothing to project.';
-  if (p.traysOpen === 0) return 'Every tray has finished its steps.';
-  const waits = p.drivingKind
-    ? ` The longest waiting is at ${STATION_KIND_NAMES[p.drivingKind as StationKind] ?? p.drivingKind} (about ${hours(p.drivingWaitMinutes)} a run).`
-    : '';
-  return (
-    `Expected ${fmt(tz, p.expectedAt)}, and by ${fmt(tz, p.p85At ?? p.expectedAt)} in 85 of ${p.runs} simulated runs of the whole floor: ` +
-    `every open tray competes for the stations' places, with handover, hold and process times measured over the last ${HISTORY_DAYS} days, on the working calendar. ` +
-    `The tray with the most work has ${p.remainingSteps} step${p.remainingSteps === 1 ? '' : 's'} left: ${hours(p.standardMinutes)} of standard work.` +
-    waits +
-    (p.traysOnHold ? ` ${p.traysOnHold} tray${p.traysOnHold === 1 ? ' is' : 's are'} on hold.` : '')
-  );
+function explain(p: OrderOutlook): ProjectionNote {
+  if (p.expectedAt === null) return { code: 'none' };
+  if (p.traysOpen === 0) return { code: 'all_done' };
+  return {
+    code: 'measured',
+    params: {
+      expectedAt: iso(p.expectedAt)!,
+      p85At: iso(p.p85At ?? p.expectedAt)!,
+      runs: p.runs,
+      historyDays: HISTORY_DAYS,
+      remainingSteps: p.remainingSteps,
+      standardMinutes: p.standardMinutes,
+      drivingKind: (p.drivingKind as StationKind | null) ?? null,
+      drivingWaitMinutes: p.drivingWaitMinutes,
+      traysOnHold: p.traysOnHold,
+    },
+  };
 }
 
 function toProjection(o: { id: string; dueDate: string }, p: OrderOutlook, tz: string): OrderProjection {
+  const note = explain(p);
   const dueEnd = startOfLocalDate(tz, dateOfDayNumber(dayNumberOfDate(o.dueDate) + 1));
   return {
     orderId: o.id,
@@ -149,7 +131,8 @@ function toProjection(o: { id: string; dueDate: string }, p: OrderOutlook, tz: s
     p85At: iso(p.p85At),
     dueDate: o.dueDate,
     late: p.expectedAt !== null && p.expectedAt > dueEnd,
-    explanation: explain(tz, p),
+    explanation: projectionNoteEnglish(note, tz),
+    explanationNote: note,
   };
 }
 

@@ -439,7 +439,11 @@ export const quotesService = {
         action: 'order.from_quote',
         entity: 'order',
         entityId: orderId,
-        detail: { text: `Made from quote ${q.number} v${v.version}, accepted by ${body.name}`, quoteId: q.id },
+        detail: {
+          text: `Made from quote ${q.number} v${v.version}, accepted by ${body.name}`,
+          quoteId: q.id,
+          params: { quote: q.number, version: v.version, name: body.name },
+        },
       });
       return { orderId, number: order.number, statusToken: status.token };
     });

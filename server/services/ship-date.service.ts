@@ -12,6 +12,7 @@ import { standardMinutes, type TrayPhase } from '@shared/domain/vocabulary';
 import { shippingRepository } from '../repositories/shipping.repository';
 import { projectionService } from './projection.service';
 import { projectionRepository } from '../repositories/projection.repository';
+import { projectionNoteEnglish, type ProjectionNote } from '@shared/domain/projection-note';
 
 /** Queue allowance per remaining step when nothing better is known (minutes of working time). */
 export const SIMPLE_QUEUE_MINUTES = 60;
@@ -19,8 +20,10 @@ export const SIMPLE_QUEUE_MINUTES = 60;
 export interface ShipDate {
   /** expected finish of the order's last tray (epoch ms); null before release */
   expectedAt: number | null;
-  /** one line for the screen: how the date was made */
+  /** one line for the screen: how the date was made (English) */
   basis: string;
+  /** the same as a code and its numbers, for screens in any language */
+  note: ProjectionNote;
 }
 
 export interface ProjectionTraveller {
@@ -52,8 +55,8 @@ function calendarFor(timeZone: string): WorkingCalendar {
   return c;
 }
 
-export const BASIS_TEXT =
-  'Projected from the standard time of every step still to do, an hour of waiting before each step, and the working week (ovens cure around the clock).';
+const SIMPLE_NOTE: ProjectionNote = { code: 'simple', params: { queueMinutes: SIMPLE_QUEUE_MINUTES } };
+export const BASIS_TEXT = projectionNoteEnglish(SIMPLE_NOTE, 'UTC');
 
 /** The projected finish of one order from its travellers and routing. */
 export function projectOrder(
@@ -63,7 +66,7 @@ export function projectOrder(
   calendar: WorkingCalendar = calendarFor(timeZone),
 ): ShipDate {
   const open = ['released', 'in_production', 'packed', 'on_hold'];
-  if (!open.includes(input.status) || input.travellers.length === 0) return { expectedAt: null, basis: BASIS_TEXT };
+  if (!open.includes(input.status) || input.travellers.length === 0) return { expectedAt: null, basis: BASIS_TEXT, note: SIMPLE_NOTE };
   const routing = { tray: input.steps.filter((s) => s.travellerKind === 'tray'), mould: input.steps.filter((s) => s.travellerKind === 'mould') };
   const outlooks: TrayOutlook[] = input.travellers.map((t) => {
     const remaining = t.stepSeq == null ? [] : routing[t.kind].filter((s) => s.seq >= (t.stepSeq as number));
@@ -84,7 +87,7 @@ export function projectOrder(
     };
   });
   const p = projectTrays(outlooks, { now, calendar, queueSamples: {}, runs: 0, defaultQueueMinutes: SIMPLE_QUEUE_MINUTES });
-  return { expectedAt: p.expectedAt, basis: BASIS_TEXT };
+  return { expectedAt: p.expectedAt, basis: BASIS_TEXT, note: SIMPLE_NOTE };
 }
 
 /** Ship dates of these orders from the projection service (orders it does not cover are left out). */
@@ -97,7 +100,7 @@ export function measuredShipDates(deps: AppDeps, orderIds: string[]): Map<string
   if (!orderIds.some((id) => open.has(id))) return out;
   try {
     for (const [id, p] of projectionService.forOrders(deps, orderIds)) {
-      if (p.expectedAt != null) out.set(id, { expectedAt: Date.parse(p.expectedAt), basis: p.explanation });
+      if (p.expectedAt != null) out.set(id, { expectedAt: Date.parse(p.expectedAt), basis: p.explanation, note: p.explanationNote });
     }
   } catch (err) {
     // The simple projection stands in; a sales screen must not fail because of a projection.

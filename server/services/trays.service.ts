@@ -43,8 +43,8 @@ function link(t: TrayRow, state?: TrayStateRow | null): TrayLink {
   return { id: t.id, number: t.number, quantity: state?.quantity ?? t.quantity };
 }
 
-function auditTray(db: DbLike, now: number, userId: string, action: string, trayId: string, text: string) {
-  auditRepository.record(db, now, { userId, action, entity: 'tray', entityId: trayId, detail: { text } });
+function auditTray(db: DbLike, now: number, userId: string, action: string, trayId: string, text: string, params?: Record<string, unknown>) {
+  auditRepository.record(db, now, { userId, action, entity: 'tray', entityId: trayId, detail: { text, ...(params ? { params } : {}) } });
 }
 
 function splitEvent(trayId: string, type: 'split' | 'merge', state: TrayStateRow, qtyIn: number, userId: string, now: number, note: string) {
@@ -150,7 +150,11 @@ export const traysService = {
       if (state?.phase === 'merged') throw conflict('tray_merged', `Tray ${tray.number} was merged into another tray; print that one.`);
       const revision = tray.revision + 1;
       traysRepository.update(tx, tray.id, { revision });
-      auditTray(tx, now, actorId, 'tray.reprint', tray.id, `Traveller ${tray.number} reprinted as revision ${revision}; revision ${tray.revision} is void`);
+      auditTray(tx, now, actorId, 'tray.reprint', tray.id, `Traveller ${tray.number} reprinted as revision ${revision}; revision ${tray.revision} is void`, {
+        tray: tray.number,
+        revision,
+        old: tray.revision,
+      });
       return { id: tray.id, number: tray.number, revision, code: travellerCode(deps, { number: tray.number, revision }) };
     });
   },
@@ -224,7 +228,12 @@ export const traysService = {
       trayStatesRepository.insertEvents(tx, [
         splitEvent(tray.id, 'split', state, state.quantity, actorId, now, `Split: ${moved}; ${result.remaining} stay${body.note ? `: ${body.note}` : ''}`),
       ]);
-      auditTray(tx, now, actorId, 'tray.split', tray.id, `Tray ${tray.number} split: ${moved}; ${result.remaining} stay (new traveller revision ${revision})`);
+      auditTray(tx, now, actorId, 'tray.split', tray.id, `Tray ${tray.number} split: ${moved}; ${result.remaining} stay (new traveller revision ${revision})`, {
+        tray: tray.number,
+        parts: children.map((c) => `${c.quantity} → ${c.number}`).join(', '),
+        remaining: result.remaining,
+        revision,
+      });
       return {
         tray: { id: tray.id, number: tray.number, quantity: result.remaining, revision, code: travellerCode(deps, { number: tray.number, revision }) },
         children,
@@ -283,6 +292,7 @@ export const traysService = {
         'tray.merge',
         target.id,
         `Trays ${brought} merged into ${target.number}: ${result.quantity} pieces (new traveller revision ${revision})`,
+        { trays: brought, into: target.number, quantity: result.quantity, revision },
       );
       return {
         tray: { id: target.id, number: target.number, quantity: result.quantity, revision, code: travellerCode(deps, { number: target.number, revision }) },

@@ -124,31 +124,31 @@ function plural(n: number, one: string, many: string): string {
   return `${n} ${n === 1 ? one : many}`;
 }
 
-/**
- * The stage in plain words for sales: the stage, what it means, and where the trays stand
- * ("Colour: enamel colours are being filled and cured. 3 trays at colour fill, 1 tray at curing
- * oven, 2 trays at polishing.").
- */
-export function describeStage(input: StageDescriptionInput): string {
+/** Where an order stands as a code and its numbers, for screens in any language. */
+export type StageNote =
+  | { code: 'cancelled' | 'draft' | 'awaiting_payment' | 'awaiting_proof' | 'shipped' }
+  | {
+      code: 'in_stage';
+      params: {
+        stage: CustomerStage;
+        /** trays waiting at or in each kind of station, in the usual order of a routing */
+        at: { kind: StationKind; trays: number }[];
+        dispatched: number;
+        /** moulds still being made */
+        moulds: number;
+        /** trays on hold (when the order itself is not) */
+        held: number;
+        orderOnHold: boolean;
+      };
+    };
+
+/** The facts `describeStage` puts into words. */
+export function stageNote(input: StageDescriptionInput): StageNote {
   const { status, travellers } = input;
-  switch (status) {
-    case 'cancelled':
-      return 'Cancelled: this order will not be made.';
-    case 'draft':
-      return 'Artwork and moulds: the order is entered and waits to be released to the floor.';
-    case 'awaiting_payment':
-      return 'Artwork and moulds: waiting for the payment before production can start.';
-    case 'awaiting_proof':
-      return 'Artwork and moulds: waiting for the customer to approve the artwork proof.';
-    case 'shipped':
-      return 'Shipped: the order has left the factory.';
-    default:
-      break;
+  if (status === 'cancelled' || status === 'draft' || status === 'awaiting_payment' || status === 'awaiting_proof' || status === 'shipped') {
+    return { code: status };
   }
   const { stage } = orderStage({ status, travellers });
-  const current = stage ?? 'artwork_moulds';
-  const head = `${CUSTOMER_STAGE_NAMES[current]}: ${STAGE_EXPLANATIONS[current]}.`;
-
   const at = new Map<StationKind, number>();
   let finished = 0;
   let held = 0;
@@ -163,17 +163,45 @@ export function describeStage(input: StageDescriptionInput): string {
     if (t.onHold) held += 1;
     at.set(step.stationKind, (at.get(step.stationKind) ?? 0) + 1);
   }
-  const parts: string[] = [];
   // In the order a routing usually runs, so the sentence reads from the back of the floor to the front.
   const kinds = [...at.keys()].sort((a, b) => STATION_KINDS.indexOf(a) - STATION_KINDS.indexOf(b));
-  for (const kind of kinds) parts.push(`${plural(at.get(kind)!, 'tray', 'trays')} at ${STATION_KIND_NAMES[kind]}`);
-  if (finished > 0) parts.push(`${plural(finished, 'tray', 'trays')} dispatched`);
-  const moulds = travellers.filter((t) => t.kind === 'mould' && !travellerIsFinished(t)).length;
-  if (moulds > 0) parts.push(`${plural(moulds, 'mould', 'moulds')} in the making`);
-  let text = head;
+  return {
+    code: 'in_stage',
+    params: {
+      stage: stage ?? 'artwork_moulds',
+      at: kinds.map((kind) => ({ kind, trays: at.get(kind)! })),
+      dispatched: finished,
+      moulds: travellers.filter((t) => t.kind === 'mould' && !travellerIsFinished(t)).length,
+      held: status === 'on_hold' ? 0 : held,
+      orderOnHold: status === 'on_hold',
+    },
+  };
+}
+
+const WHOLE_SENTENCES = {
+  cancelled: 'Cancelled: this order will not be made.',
+  draft: 'Artwork and moulds: the order is entered and waits to be released to the floor.',
+  awaiting_payment: 'Artwork and moulds: waiting for the payment before production can start.',
+  awaiting_proof: 'Artwork and moulds: waiting for the customer to approve the artwork proof.',
+  shipped: 'Shipped: the order has left the factory.',
+} as const;
+
+/**
+ * The stage in plain words for sales: the stage, what it means, and where the trays stand
+ * ("Colour: enamel colours are being filled and cured. 3 trays at colour fill, 1 tray at curing
+ * oven, 2 trays at polishing.").
+ */
+export function describeStage(input: StageDescriptionInput): string {
+  const note = stageNote(input);
+  if (note.code !== 'in_stage') return WHOLE_SENTENCES[note.code];
+  const p = note.params;
+  let text = `${CUSTOMER_STAGE_NAMES[p.stage]}: ${STAGE_EXPLANATIONS[p.stage]}.`;
+  const parts = p.at.map((a) => `${plural(a.trays, 'tray', 'trays')} at ${STATION_KIND_NAMES[a.kind]}`);
+  if (p.dispatched > 0) parts.push(`${plural(p.dispatched, 'tray', 'trays')} dispatched`);
+  if (p.moulds > 0) parts.push(`${plural(p.moulds, 'mould', 'moulds')} in the making`);
   if (parts.length > 0) text += ` ${capitalise(parts.join(', '))}.`;
-  if (status === 'on_hold') text += ' The order is on hold.';
-  else if (held > 0) text += ` ${capitalise(plural(held, 'tray is', 'trays are'))} on hold.`;
+  if (p.orderOnHold) text += ' The order is on hold.';
+  else if (p.held > 0) text += ` ${capitalise(plural(p.held, 'tray is', 'trays are'))} on hold.`;
   return text;
 }
 

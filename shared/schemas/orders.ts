@@ -1,5 +1,6 @@
 // Wire shapes of orders: the spec a planner enters, the release and payment bodies,
 // and the gentle checks that warn (never block) about unusual specs.
+import type { ProjectionNote } from '@shared/domain/projection-note';
 import { z } from 'zod';
 import type { RoutingStep, TrayPhase, TravellerKind, OrderStatus } from '@shared/domain/vocabulary';
 import type { MouldTool } from '@shared/domain/routing';
@@ -344,7 +345,10 @@ export interface HistoryEntry {
   at: string;
   action: string;
   by: string | null;
+  /** the line in English */
   text: string;
+  /** its parameters, for screens in any language (null on lines kept before they were stored) */
+  params: Record<string, string | number | boolean | string[] | null> | null;
 }
 
 export interface OrderDetail {
@@ -362,8 +366,10 @@ export interface OrderDetail {
   createdAt: string;
   late: boolean;
   projectedShipAt: string | null;
-  /** one or two lines on how the projected date was found */
+  /** one or two lines on how the projected date was found (English) */
   projectionNote: string | null;
+  /** the same as a code and its numbers, for screens in any language */
+  projectionNoteCode: ProjectionNote | null;
   warnings: SpecWarning[];
   openGates: OrderGate[];
   payments: PaymentView[];

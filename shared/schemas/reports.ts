@@ -1,3 +1,4 @@
+import type { ProjectionNote } from '@shared/domain/projection-note';
 import { z } from 'zod';
 import { PROCESSES } from '../domain/vocabulary';
 import type { Summary } from '../domain/stats';
@@ -176,8 +177,10 @@ export interface OrderProjection {
   p85At: string | null;
   dueDate: string | null;
   late: boolean;
-  /** one or two lines saying how the dates were found */
+  /** one or two lines saying how the dates were found (English) */
   explanation: string;
+  /** the same as a code and its numbers, for screens in any language */
+  explanationNote: ProjectionNote;
 }
 
 export interface LateRiskOrder extends OrderProjection {

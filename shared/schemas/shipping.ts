@@ -1,4 +1,6 @@
 // Wire shapes of packing, dispatch, the customer status link and the mail outbox.
+import type { ProjectionNote } from '@shared/domain/projection-note';
+import type { StageNote } from '@shared/domain/stages';
 import { z } from 'zod';
 import { normaliseTrackingNumber } from '@shared/domain/shipping';
 
@@ -260,16 +262,47 @@ export interface SalesOrderRow {
   status: string;
   dueDate: string;
   stage: string;
+  /** where it stands in plain words (English) */
   stageText: string;
+  /** the same as a code and its numbers, for screens in any language */
+  stageTextCode: StageNote;
   projectedShipAt: string | null;
   late: boolean;
   shippedAt: string | null;
   trackingNumbers: string[];
 }
 
+export const SALES_HISTORY_CODES = [
+  'entered',
+  'payment',
+  'payment_exception',
+  'proof_uploaded',
+  'proof_approved',
+  'released',
+  'started',
+  'tray_hold',
+  'tray_release',
+  'tray_scrap',
+  'shipment',
+  'pack',
+  'unpack',
+  'link_for_mail',
+  'link_made',
+  'links_withdrawn',
+  'contact',
+  'proof_sent',
+  'packed',
+  'shipped',
+] as const;
+export type SalesHistoryCode = (typeof SALES_HISTORY_CODES)[number];
+
 export interface HistoryEntry {
   at: string;
+  /** the line in English */
   what: string;
+  /** the same as a code and its parameters, for screens in any language */
+  code: SalesHistoryCode;
+  params: Record<string, string | number | boolean | null>;
   who: string | null;
 }
 
@@ -288,7 +321,10 @@ export interface ShareLinkInfo {
 /** `GET /api/sales/orders/:id` */
 export interface SalesOrderDetail extends SalesOrderRow {
   stages: StageLine[];
+  /** how the ship date is found (English) */
   projectionNote: string;
+  /** the same as a code and its numbers, for screens in any language */
+  projectionNoteCode: ProjectionNote;
   overrunPct: number;
   contact: { customerId: string; contactName: string | null; contactEmail: string | null };
   salesOwner: { id: string; name: string; email: string } | null;

@@ -99,6 +99,8 @@ describe('orders: entry', () => {
     // 120 mm is outside the usual 10–100 mm for a pin: a warning, not a refusal
     expect(d.warnings.map((w: { code: string }) => w.code)).toContain('size_unusual');
     expect(d.history[0].text).toMatch(/entered/);
+    // the line's numbers beside its English text, for screens in any language
+    expect(d.history[0]).toMatchObject({ action: 'order.create', params: { variant: 'new', number: d.number } });
   });
 
   it('reuses a customer of the same name and lists the order for sales too', async () => {
@@ -200,6 +202,9 @@ describe('orders: entry', () => {
       'pack',
       'dispatch',
     ]);
+    const update = (changed.body.history as { action: string; params: unknown }[]).findLast((h) => h.action === 'order.update');
+    expect(update?.params).toMatchObject({ variant: 'remade' });
+    expect([...(update?.params as { fields: string[] }).fields].sort()).toEqual(['plating', 'secondPlating']);
 
     const printed = await readyOrder({ process: 'printed', colours: [{ name: 'Navy' }], epoxy: false });
     const pd = await detail(printed.id);

@@ -249,6 +249,12 @@ describe('when an order counts as shipped', () => {
     expect(syncOrderStatus(t.deps.db, o.orderId, Date.now())).toBe('packed');
     let detail = await sales.get(`/api/sales/orders/${o.orderId}`);
     expect(detail.body).toMatchObject({ status: 'packed', shippedAt: null, stage: 'Packing' });
+    // beside each English line, its code and numbers for screens in any language
+    expect(detail.body.stageTextCode).toMatchObject({ code: 'in_stage', params: { stage: 'packing', orderOnHold: false } });
+    expect(detail.body.projectionNoteCode).toHaveProperty('code');
+    const history = detail.body.history as { code: string; what: string; params: object }[];
+    expect(history.find((h) => h.code === 'entered')).toMatchObject({ what: 'Order entered', params: {} });
+    expect(history.every((h) => typeof h.code === 'string' && typeof h.what === 'string')).toBe(true);
     finishDispatch(t.deps, o.trays[1].id, t2);
     expect(syncOrderStatus(t.deps.db, o.orderId, Date.now())).toBe('shipped');
     const row = t.deps.db.select().from(orders).where(eq(orders.id, o.orderId)).get()!;
@@ -256,6 +262,11 @@ describe('when an order counts as shipped', () => {
     expect(row.shippedAt).toBe(t2);
     detail = await sales.get(`/api/sales/orders/${o.orderId}`);
     expect(detail.body).toMatchObject({ status: 'shipped', shippedAt: '2025-05-07T15:45:00.000Z', stage: 'Shipped' });
+    expect(detail.body.stageTextCode).toEqual({ code: 'shipped' });
+    expect((detail.body.history as { code: string }[]).find((h) => h.code === 'shipped')).toMatchObject({
+      what: 'Shipped: the last tray left dispatch',
+      at: '2025-05-07T15:45:00.000Z',
+    });
   });
 
   it('marks the order packed once every tray has finished packing', async () => {

@@ -14,6 +14,7 @@ import { paths } from '@/config/paths';
 import { formatDate, formatDueDay } from '@/lib/datetime';
 import { errorText } from '@/lib/error-text';
 import { useStageName } from '@/features/sales/stage-name';
+import { useStageNote } from '@/features/sales/stage-note';
 
 export const handle = { roles: SALES_VIEW };
 export const loader = ({ request }: { request: Request }) =>
@@ -36,8 +37,9 @@ function When({ o }: { o: SalesOrderRow }) {
 
 const col = createColumnHelper<SalesOrderRow>();
 function useColumns() {
-  const { t, i18n } = useTranslation('sales');
+  const { t } = useTranslation('sales');
   const stageName = useStageName();
+  const stageNote = useStageNote();
   return useMemo(
     () => [
       col.accessor('number', {
@@ -52,7 +54,7 @@ function useColumns() {
       col.accessor('title', { header: t('search.col.title') }),
       col.accessor('stage', {
         header: t('search.col.stage'),
-        cell: (c) => <span title={i18n.language === 'en' ? c.row.original.stageText : undefined}>{stageName(c.getValue())}</span>,
+        cell: (c) => <span title={stageNote(c.row.original.stageTextCode)}>{stageName(c.getValue())}</span>,
       }),
       col.accessor((o) => o.shippedAt ?? o.projectedShipAt ?? '', { id: 'ship', header: t('search.col.ships'), cell: (c) => <When o={c.row.original} /> }),
       col.accessor('dueDate', { header: t('search.col.due'), cell: (c) => dueDay(c.getValue()) }),
@@ -62,7 +64,7 @@ function useColumns() {
         cell: (c) => <span className="font-mono">{c.getValue() || '—'}</span>,
       }),
     ],
-    [t, i18n.language, stageName],
+    [t, stageName, stageNote],
   );
 }
 

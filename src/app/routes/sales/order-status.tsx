@@ -16,6 +16,9 @@ import { formatDate, formatDateTime, formatDueDay } from '@/lib/datetime';
 import { useTranslation } from 'react-i18next';
 import { errorText } from '@/lib/error-text';
 import { useStageName } from '@/features/sales/stage-name';
+import { useStageNote } from '@/features/sales/stage-note';
+import { useProjectionNote } from '@/lib/projection-note';
+import type { HistoryEntry } from '@shared/schemas/shipping';
 
 export const handle = { roles: SALES_VIEW };
 export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(salesOrderQueryOptions(params.id!));
@@ -30,6 +33,20 @@ export function Component() {
   const role = me.data?.user.role;
   const { t } = useTranslation('sales');
   const stageName = useStageName();
+  const stageNote = useStageNote();
+  const projectionNote = useProjectionNote();
+  const historyLine = (h: HistoryEntry) => {
+    const p = h.params;
+    const key =
+      h.code === 'tray_hold' && p.note
+        ? 'tray_hold_note'
+        : h.code === 'tray_scrap' && p.reason
+          ? 'tray_scrap_reason'
+          : h.code === 'shipment' && p.short
+            ? 'shipment_short'
+            : h.code;
+    return t(`history.${key}`, { ...p, ...(h.code === 'released' ? { count: Number(p.trays) } : {}), defaultValue: h.what });
+  };
   if (order.isPending) return <Loading />;
   if (order.error) return <ErrorPanel message={errorText(order.error)} />;
   const o = order.data;
@@ -60,7 +77,7 @@ export function Component() {
           <Card>
             <h2 className="text-xl font-bold">{t('order.whereItStands')}</h2>
             <p className="mt-2 text-lg" data-testid="stage-text">
-              {o.stageText}
+              {stageNote(o.stageTextCode)}
             </p>
             <div className="mt-4 grid grid-cols-[minmax(0,1fr)] gap-6 md:grid-cols-2">
               <StageLine stages={o.stages.map((s) => ({ ...s, name: stageName(s.name) }))} current={stageName(o.stage)} />
@@ -70,7 +87,7 @@ export function Component() {
                   {o.shippedAt ? longDate(o.shippedAt) : o.projectedShipAt ? longDate(o.projectedShipAt) : t('order.notYet')}
                 </p>
                 {!o.shippedAt && o.projectedShipAt && <ProjectedP85 orderId={o.id} />}
-                <p className="mt-1 text-sm text-harbour-700">{o.projectionNote}</p>
+                <p className="mt-1 text-sm text-harbour-700">{projectionNote(o.projectionNoteCode)}</p>
                 <p className="mt-3">
                   {t('order.due')} <span className="font-bold">{formatDueDay(o.dueDate)}</span>
                   {o.late && !o.shippedAt && <span className="font-bold text-stop-700">{t('order.afterDue')}</span>}
@@ -112,7 +129,7 @@ export function Component() {
                 <li key={i} className="grid grid-cols-1 gap-x-3 sm:grid-cols-[11rem_1fr] border-t border-harbour-100 py-1 first:border-t-0">
                   <span className="text-sm text-harbour-700">{when(h.at)}</span>
                   <span>
-                    {h.what}
+                    {historyLine(h)}
                     {h.who && <span className="text-harbour-700"> · {h.who}</span>}
                   </span>
                 </li>

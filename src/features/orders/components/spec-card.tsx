@@ -4,6 +4,8 @@ import { useTranslation } from 'react-i18next';
 import type { HistoryEntry, OrderDetail } from '@shared/schemas/orders';
 import { Card } from '@/components/ui/panels';
 import { formatDateTime, formatDueDay } from '@/lib/labels';
+import { useProjectionNote } from '@/lib/projection-note';
+import { useHistoryLine } from '../history-line';
 
 /** A colour swatch with its name: the word carries the meaning, the colour helps. */
 export function Swatch({ name, hex, refCode }: { name: string; hex?: string; refCode?: string }) {
@@ -23,6 +25,7 @@ export function Swatch({ name, hex, refCode }: { name: string; hex?: string; ref
 /** `projected`: shown under the projected ship date (the route adds the 85 % date and its measured coverage). */
 export function SpecCard({ order, projected }: { order: OrderDetail; projected?: ReactNode }) {
   const { t, i18n } = useTranslation(['orders', 'common']);
+  const projectionNote = useProjectionNote();
   const s = order.spec;
   const zh = i18n.language === 'zh-CN';
   // English writes a second name in lower case inside a sentence; Chinese has no case
@@ -76,7 +79,7 @@ export function SpecCard({ order, projected }: { order: OrderDetail; projected?:
         {order.projectionNote && order.projectedShipAt && (
           <>
             <dt className="font-bold text-harbour-700">{t('specCard.howProjected')}</dt>
-            <dd className="text-sm text-harbour-700">{order.projectionNote}</dd>
+            <dd className="text-sm text-harbour-700">{order.projectionNoteCode ? projectionNote(order.projectionNoteCode) : order.projectionNote}</dd>
           </>
         )}
         <dt className="font-bold text-harbour-700">{t('specCard.colours')}</dt>
@@ -94,7 +97,8 @@ export function SpecCard({ order, projected }: { order: OrderDetail; projected?:
         <ul className="mt-4 flex flex-col gap-1" aria-label={t('specCard.warnings')}>
           {order.warnings.map((w) => (
             <li key={w.code} className="flex items-start gap-2 font-bold text-warn-700">
-              <AlertTriangle className="mt-0.5 h-5 w-5 shrink-0" aria-hidden /> {w.message}
+              <AlertTriangle className="mt-0.5 h-5 w-5 shrink-0" aria-hidden />{' '}
+              {t(`form.warn.${w.code}` as 'form.warn.size_unusual', { ...w.params, defaultValue: w.message })}
             </li>
           ))}
         </ul>
@@ -105,6 +109,7 @@ export function SpecCard({ order, projected }: { order: OrderDetail; projected?:
 
 export function HistoryList({ entries }: { entries: HistoryEntry[] }) {
   const { t } = useTranslation('orders');
+  const line = useHistoryLine();
   return (
     <Card>
       <h2 className="mb-4 text-xl font-bold text-harbour-900">{t('specCard.history')}</h2>
@@ -115,7 +120,7 @@ export function HistoryList({ entries }: { entries: HistoryEntry[] }) {
               {formatDateTime(h.at)}
             </time>
             <span>
-              {h.text}
+              {line(h)}
               {h.by && <span className="text-harbour-700"> · {h.by}</span>}
             </span>
           </li>

@@ -39,4 +39,18 @@ export const en = {
     table: 'The points as a table',
     chartLabel: 'Projected ship date by day',
   },
+  note: {
+    none: 'No trays on the floor yet, so there is nothing to project.',
+    all_done: 'Every tray has finished its steps.',
+    after_release: 'A ship date is projected once the order is released to the floor.',
+    simple:
+      'Projected from the standard time of every step still to do, {{minutes}} min of waiting before each step, and the working week (ovens cure around the clock).',
+    measured:
+      'Expected {{expected}}, and by {{p85}} in 85 of {{runs}} simulated runs of the whole floor: every open tray competes for the stations’ places, with handover, hold and process times measured over the last {{days}} days, on the working calendar.',
+    work_one: 'The tray with the most work has {{count}} step left: {{hours}} h of standard work.',
+    work_other: 'The tray with the most work has {{count}} steps left: {{hours}} h of standard work.',
+    wait: 'The longest waiting is at {{kind}} (about {{hours}} h a run).',
+    held_one: '{{count}} tray is on hold.',
+    held_other: '{{count}} trays are on hold.',
+  },
 };

@@ -39,4 +39,17 @@ export const zhCN = {
     table: '以表格查看各点',
     chartLabel: '每天的预计出货日期',
   },
+  note: {
+    none: '车间里还没有托盘，暂时无法预计。',
+    all_done: '所有托盘都已完成全部工序。',
+    after_release: '订单投产后才计算预计发货日期。',
+    simple: '按剩余各道工序的标准工时、每道工序前等待 {{minutes}} 分钟，以及工作周计算（烤炉全天候固化）。',
+    measured:
+      '预计 {{expected}}；在整个车间 {{runs}} 次模拟中有 85 次在 {{p85}} 前完成：所有未完成托盘争用各工位，交接、暂停和加工时间取自最近 {{days}} 天的实测，并按工作日历计算。',
+    work_one: '工作量最大的托盘还剩 {{count}} 道工序：标准工时 {{hours}} 小时。',
+    work_other: '工作量最大的托盘还剩 {{count}} 道工序：标准工时 {{hours}} 小时。',
+    wait: '等待最久的是{{kind}}（每次模拟约 {{hours}} 小时）。',
+    held_one: '{{count}} 个托盘暂停中。',
+    held_other: '{{count}} 个托盘暂停中。',
+  },
 };

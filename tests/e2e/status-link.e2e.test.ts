@@ -41,9 +41,15 @@ describe('customer status link', () => {
     await customer.getByTestId('stage').waitFor();
     await expect(customer.getByTestId('stage').textContent()).resolves.toBe(`Now: ${order!.stage}`);
     await expect(customer.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(order!.title);
-    // The projected date of the order, as the phone's own locale writes it.
+    // The projected date of the order written out in the page's language (English as en-GB writes it).
     const expected = await customer.evaluate(
-      (iso) => new Date(iso).toLocaleDateString(document.documentElement.lang, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' }),
+      (iso) =>
+        new Date(iso).toLocaleDateString(document.documentElement.lang === 'zh-CN' ? 'zh-CN' : 'en-GB', {
+          weekday: 'long',
+          day: 'numeric',
+          month: 'long',
+          year: 'numeric',
+        }),
       order!.projectedShipAt!,
     );
     await expect(customer.getByTestId('ship-date').textContent()).resolves.toBe(expected);

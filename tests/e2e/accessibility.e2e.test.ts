@@ -1,6 +1,6 @@
 // Accessibility of every screen, checked by axe-core (WCAG 2.0 A/AA and 2.1 AA rules) in Chromium
-// on the demo factory: every route of every office role at 1440 x 900 in English and every distinct
-// office route once in Chinese, the station tablet at
+// on the demo factory: every office route at 1440 x 900 in both languages (each as two different
+// roles), the station tablet at
 // 1024 x 768 in both its languages (paired, signed in, a tray open, a refusal, offline), the wall in
 // its dark and light themes, and the customer's status page. The tablet also keeps the house rules
 // a browser can see: touch targets at least 44 x 44 px, a visible focus outline, a name on every control.
@@ -191,17 +191,19 @@ describe('accessibility (axe-core, WCAG 2.1 A/AA)', () => {
 
   // one test per language and role, so a slow machine gets the whole time budget for each
   const officeRoles = ['planner', 'supervisor', 'manager', 'sales', 'admin'] as const;
-  // English walks every route of every role. A second language changes the words, not the
-  // structure, so it walks each distinct route once, with the first role that can open it
-  // (office-languages.e2e.test.ts checks that no English is left on each role's screens).
+  // Each distinct office route is walked once per language. English opens it as the first role
+  // that can (in the order above), Chinese as the last, so a screen that differs by role is seen
+  // as two different roles, and each role's menu is walked in both languages.
   const walkOf = (locale: (typeof OFFICE_LOCALES)[number], role: (typeof officeRoles)[number], demo: DemoIds): string[] => {
-    if (locale === 'en') return routesOf(role, demo);
-    const earlier = new Set(officeRoles.slice(0, officeRoles.indexOf(role)).flatMap((r) => routesOf(r, demo)));
-    return routesOf(role, demo).filter((route) => !earlier.has(route));
+    const others = locale === 'en' ? officeRoles.slice(0, officeRoles.indexOf(role)) : officeRoles.slice(officeRoles.indexOf(role) + 1);
+    const seen = new Set(others.flatMap((r) => routesOf(r, demo)));
+    const mine = routesOf(role, demo).filter((route) => !seen.has(route));
+    // a role whose routes all belong to another still has its own menu walked, on its first screen
+    return mine.length ? mine : routesOf(role, demo).slice(0, 1);
   };
   let ids: Promise<DemoIds> | undefined;
   it.each(OFFICE_LOCALES.flatMap((locale) => officeRoles.map((role) => [locale, role] as const)))(
-    'every route of the %s office for %s',
+    'the office routes walked in %s as %s',
     async (locale, role) => {
       ids ??= demoIds();
       const context = await browser.newContext({ bypassCSP: true, viewport: DESKTOP, locale });

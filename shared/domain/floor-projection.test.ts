@@ -193,6 +193,33 @@ describe('waits drawn from history', () => {
   });
 });
 
+describe('places per kind', () => {
+  // ten steps of an oven kind, all under way together; only three were scanned out of the oven
+  // (the others went straight on to their next step, closing the cure without a finish)
+  const t = (i: number) => T0 - 86_400_000 + i * MIN;
+  const queues = Array.from({ length: 10 }, (_, i) => ({
+    stationKind: 'trim',
+    travellerKind: 'tray' as const,
+    orderId: `q${i}`,
+    stationId: null,
+    readyAt: t(i),
+    startedAt: t(i),
+    lead: true,
+  }));
+  const processes = (n: number) =>
+    Array.from({ length: n }, (_, i) => ({ stationKind: 'trim', stationId: null, startedAt: t(i), finishedAt: t(i) + 60 * MIN, standardMinutes: 60 }));
+
+  it('reads a crew limit from the steps under way at once when the steps were scanned out', () => {
+    // ten measured steps under way together at most → min(12 places, 10) = 10
+    expect(measureFloor({ ...none, queues, processes: processes(10) }, calendar, [{ kind: 'trim', capacityTrays: 12 }]).places.get('trim')).toBe(10);
+  });
+
+  it('keeps the stations’ places when most steps were closed without a finish scan', () => {
+    // 3 of 10 scanned out (under the 80 % share): the three say nothing about the others' places
+    expect(measureFloor({ ...none, queues, processes: processes(3) }, calendar, [{ kind: 'trim', capacityTrays: 12 }]).places.get('trim')).toBe(12);
+  });
+});
+
 describe("the floor's day-to-day pace", () => {
   // 12 days, 10 handovers a day at a station with room to spare: 20 min on even days, 40 on odd
   const queues = Array.from({ length: 120 }, (_, i) => {

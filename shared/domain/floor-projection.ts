@@ -43,6 +43,8 @@ const PACE_MIN_SAMPLES = 8;
 /** fewer measured days than this: no day-to-day pace */
 const PACE_MIN_DAYS = 10;
 const MOULD_STEP_KINDS = new Set(['engrave', 'mould_check']);
+/** a kind's crew limit is read from its measured steps only when at least this share of its steps were scanned out */
+const MEASURED_SHARE = 0.8;
 
 // ---- measured history ----------------------------------------------------------------------
 
@@ -226,12 +228,18 @@ export function measureFloor(measured: MeasuredHistory, calendar: WorkingCalenda
   const busyAt = (kind: string, t: number) => countAtMost(starts.get(kind) ?? new Float64Array(), t) - countAtMost(ends.get(kind) ?? new Float64Array(), t);
 
   // the places a kind really works at once: its stations' capacity, or fewer when the crew
-  // limits it (the most steps of that kind measured under way at one moment)
+  // limits it (the most steps of that kind measured under way at one moment). Only where most
+  // of the kind's steps were measured from start to finish: a step closed without its own
+  // finish scan (an oven emptied straight into the next step) says nothing about when its place
+  // came free, so counting only the scanned-out ones made a 12-tray oven look like 4 places
+  const startsOf = new Map<string, number>();
+  for (const q of measured.queues) startsOf.set(q.stationKind, (startsOf.get(q.stationKind) ?? 0) + 1);
   for (const [kind, st] of starts) {
     let peak = 0;
     for (let i = 0; i < st.length; i++) peak = Math.max(peak, busyAt(kind, st[i]));
     const cap = places.get(kind);
-    if (cap != null && peak > 0 && st.length >= minSamples) places.set(kind, Math.min(cap, peak));
+    const measuredShare = st.length / Math.max(st.length, startsOf.get(kind) ?? 0);
+    if (cap != null && peak > 0 && st.length >= minSamples && measuredShare >= MEASURED_SHARE) places.set(kind, Math.min(cap, peak));
   }
 
   const own = (q: QueueRecord) => (MOULD_STEP_KINDS.has(q.stationKind) ? q.travellerKind === 'mould' : q.travellerKind === 'tray');

@@ -4,6 +4,7 @@ import PDFDocument from 'pdfkit';
 import type { ShipmentView } from '@shared/schemas/shipping';
 import { fontFile } from './traveller-pdf';
 import { faceFor, registerCjkFonts } from './pdf-fonts';
+import { printWords, type PrintWords } from './print-words';
 
 export interface PackingListInput {
   factory: string;
@@ -22,20 +23,14 @@ const MM = 72 / 25.4;
 const INK = '#111111';
 const GREY = '#555555';
 
-function when(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-GB', { timeZone, day: 'numeric', month: 'long', year: 'numeric', hour: '2-digit', minute: '2-digit' }).format(
-    new Date(iso),
-  );
-}
-
-const kg = (n: number) => `${n.toLocaleString('en-GB', { maximumFractionDigits: 3 })} kg`;
-
-export function renderPackingList(input: PackingListInput): Promise<Buffer> {
+export function renderPackingList(input: PackingListInput, words: PrintWords = printWords('en')): Promise<Buffer> {
   const { shipment: s } = input;
+  const w = words.packing;
+  const kg = words.kg;
   const doc = new PDFDocument({
     size: 'A4',
     margin: 18 * MM,
-    info: { Title: `Packing list ${input.orderNumber}-${s.number}`, Author: input.factory, Subject: input.title },
+    info: { Title: `${w.title} ${input.orderNumber}-${s.number}`, Author: input.factory, Subject: input.title },
   });
   doc.registerFont('body', fontFile(400));
   doc.registerFont('bold', fontFile(700));
@@ -52,14 +47,14 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;
 
-  doc.font('bold').fontSize(22).fillColor(INK).text('Packing list', left, doc.page.margins.top);
+  doc.font(face(w.title, true)).fontSize(22).fillColor(INK).text(w.title, left, doc.page.margins.top);
   doc.font(face(input.factory)).fontSize(11).fillColor(GREY).text(input.factory);
   doc.moveDown(1);
 
   const field = (label: string, value: string) => {
     const y = doc.y;
     doc
-      .font('body')
+      .font(face(label))
       .fontSize(10)
       .fillColor(GREY)
       .text(label, left, y, { width: 45 * MM });
@@ -70,28 +65,29 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
       .text(value, left + 46 * MM, y, { width: width - 46 * MM });
     doc.moveDown(0.35);
   };
-  field('Order', input.orderNumber);
-  field('Title', input.title);
-  field('Customer', input.contactName ? `${input.customer} (${input.contactName})` : input.customer);
-  field('Shipment', `${s.number}`);
-  field('Shipped', when(s.shippedAt, input.timeZone));
-  field('Carrier', s.carrier);
-  field('Tracking number', s.trackingNumber);
+  field(w.order, input.orderNumber);
+  field(w.orderTitle, input.title);
+  field(w.customer, input.contactName ? `${input.customer} (${input.contactName})` : input.customer);
+  field(w.shipment, `${s.number}`);
+  field(w.shipped, words.when(s.shippedAt, input.timeZone));
+  field(w.carrier, s.carrier);
+  field(w.tracking, s.trackingNumber);
   doc.moveDown(1);
 
   // Carton table
   const cols = [
-    { title: 'Cartons', w: 30 * MM, align: 'right' as const },
-    { title: 'Pieces per carton', w: 45 * MM, align: 'right' as const },
-    { title: 'Pieces', w: 35 * MM, align: 'right' as const },
-    { title: 'Weight per carton', w: 0, align: 'right' as const },
+    { title: w.cartons, w: 30 * MM, align: 'right' as const },
+    { title: w.perCarton, w: 45 * MM, align: 'right' as const },
+    { title: w.pieces, w: 35 * MM, align: 'right' as const },
+    { title: w.weightPerCarton, w: 0, align: 'right' as const },
   ];
   cols[3].w = width - cols[0].w - cols[1].w - cols[2].w;
   const row = (cells: string[], font: 'body' | 'bold') => {
     const y = doc.y;
     let x = left;
-    doc.font(font).fontSize(11).fillColor(INK);
+    doc.fontSize(11).fillColor(INK);
     cells.forEach((c, i) => {
+      doc.font(face(c, font === 'bold'));
       doc.text(c, x, y, { width: cols[i].w - 4 * MM, align: cols[i].align });
       x += cols[i].w;
     });
@@ -110,20 +106,16 @@ export function renderPackingList(input: PackingListInput): Promise<Buffer> {
   for (const c of s.cartons) {
     row([String(c.count), String(c.piecesPerCarton), String(c.count * c.piecesPerCarton), c.weightKg != null ? kg(c.weightKg) : '–'], 'body');
   }
-  row([String(s.cartonCount), 'Total', String(s.pieces), `${kg(s.weightKg)} in all`], 'bold');
+  row([String(s.cartonCount), w.total, String(s.pieces), w.inAll(kg(s.weightKg))], 'bold');
   doc.moveDown(1);
 
-  doc.font('body').fontSize(11).fillColor(INK);
   const more = input.ordered - input.shippedSoFar;
-  doc.text(
-    `Ordered: ${input.ordered} pieces. Shipped so far, including this shipment: ${input.shippedSoFar} pieces.${more > 0 ? ` ${more} pieces are still to come.` : ''}`,
-    left,
-    doc.y,
-    { width },
-  );
-  if (s.shortAccepted) doc.moveDown(0.5).text('This order ships fewer pieces than ordered, by agreement.', { width });
+  const summary = w.summary(input.ordered, input.shippedSoFar, more);
+  doc.font(face(summary)).fontSize(11).fillColor(INK);
+  doc.text(summary, left, doc.y, { width });
+  if (s.shortAccepted) doc.moveDown(0.5).font(face(w.short)).text(w.short, { width });
   doc.moveDown(2);
-  doc.font('body').fontSize(10).fillColor(GREY).text('Packed by: ____________________    Checked by: ____________________', left, doc.y, { width });
+  doc.font(face(w.signatures)).fontSize(10).fillColor(GREY).text(w.signatures, left, doc.y, { width });
   doc.end();
   return done;
 }

@@ -7,6 +7,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { woffToSfnt } from './woff';
 import { faceFor, registerCjkFonts } from './pdf-fonts';
+import { printWords, type PrintWords } from './print-words';
 import type { RoutingStep } from '@shared/domain/vocabulary';
 import type { TravellerLayoutValue } from '@shared/schemas/travellers';
 import { cures } from '@shared/domain/traveller';
@@ -48,6 +49,9 @@ export interface TravellerCard {
   sizeMm: number;
   colours: { name: string; ref?: string; hex?: string }[];
   plating: string;
+  /** a two-tone badge's second finish */
+  secondPlating?: string | null;
+  /** ready to print, in the print language ("2 × butterfly clutch") */
   fittings: string;
   packaging: string;
   dueDate: string;
@@ -171,7 +175,12 @@ function drawSwatch(doc: Doc, hex: string | undefined, x: number, y: number, s: 
 
 type Images = Map<Buffer, unknown>;
 
-function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): void {
+function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images, words: PrintWords): void {
+  const w = words.traveller;
+  const name = <K extends string>(names: Record<K, string>, code: string) => names[code as K] ?? humanise(code);
+  const plating = card.secondPlating
+    ? w.twoTone(name(words.plating, card.plating), name(words.plating, card.secondPlating))
+    : name(words.plating, card.plating);
   doc.save();
   doc.translate(slot.x, slot.y).scale(slot.scale);
   const pad = 5 * MM;
@@ -186,38 +195,38 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
   const rx = pad + qrSize + 3 * MM;
   const rw = CARD_W - pad - rx;
   let y = pad;
-  text(doc, card.kind === 'mould' ? 'MOULD TRAVELLER' : 'TRAY TRAVELLER', rx, y, { size: 7, width: rw - 14 * MM, color: GREY });
+  text(doc, card.kind === 'mould' ? w.mouldTraveller : w.trayTraveller, rx, y, { size: 7, width: rw - 14 * MM, color: GREY });
   // revision mark, top right
   doc
     .roundedRect(CARD_W - pad - 13 * MM, y - 1, 13 * MM, 5.5 * MM, 2)
     .lineWidth(0.8)
     .stroke(INK);
-  text(doc, `REV ${card.revision}`, CARD_W - pad - 13 * MM, y + 0.6 * MM, { size: 8, bold: true, width: 13 * MM, align: 'center' });
+  text(doc, w.rev(card.revision), CARD_W - pad - 13 * MM, y + 0.6 * MM, { size: 8, bold: true, width: 13 * MM, align: 'center' });
   y += 5 * MM;
   text(doc, card.number, rx, y, { size: 22, bold: true, width: rw });
   y += 9 * MM;
   text(doc, card.caption, rx, y, { size: 8, width: rw, color: GREY });
   y += 4 * MM;
-  text(doc, `Order ${card.orderNumber} · ${card.customer}`, rx, y, { size: 8, bold: true, width: rw });
+  text(doc, w.order(card.orderNumber, card.customer), rx, y, { size: 8, bold: true, width: rw });
   y += 4 * MM;
   y += text(doc, card.title, rx, y, { size: 8, width: rw, lines: 2 }) + 1 * MM;
-  text(doc, card.kind === 'mould' ? 'Mould' : `${card.quantity} pcs`, rx, Math.max(y, pad + 24 * MM), { size: 14, bold: true, width: rw });
+  text(doc, card.kind === 'mould' ? w.mould : w.pieces(card.quantity), rx, Math.max(y, pad + 24 * MM), { size: 14, bold: true, width: rw });
 
   // --- spec and artwork
   y = pad + qrSize + 6 * MM;
   const artSize = 24 * MM;
   const specW = W - artSize - 3 * MM;
   const specLines: [string, string][] = [
-    ['Process', `${humanise(card.process)} · ${humanise(card.material)} · ${card.sizeMm} mm`],
-    ['Plating', humanise(card.plating)],
-    ['Fittings', card.fittings],
-    ['Packing', humanise(card.packaging)],
-    ['Due', card.dueDate],
+    [w.labels.process, `${name(words.process, card.process)} · ${name(words.material, card.material)} · ${card.sizeMm} mm`],
+    [w.labels.plating, plating],
+    [w.labels.fittings, card.fittings],
+    [w.labels.packing, name(words.packaging, card.packaging)],
+    [w.labels.due, words.day(card.dueDate)],
   ];
   let sy = y;
   for (const [label, value] of specLines) {
     text(doc, label, pad, sy, { size: 7, width: 14 * MM, color: GREY });
-    text(doc, value, pad + 14 * MM, sy, { size: 8, bold: label === 'Due', width: specW - 14 * MM });
+    text(doc, value, pad + 14 * MM, sy, { size: 8, bold: label === w.labels.due, width: specW - 14 * MM });
     sy += 3.8 * MM;
   }
   const ax = CARD_W - pad - artSize;
@@ -239,7 +248,7 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
     }
   }
   if (!drawn) {
-    text(doc, card.artworkNote ?? 'No artwork image', ax + 1 * MM, y + artSize / 2 - 3 * MM, {
+    text(doc, card.artworkNote ?? w.noArtwork, ax + 1 * MM, y + artSize / 2 - 3 * MM, {
       size: 6,
       width: artSize - 2 * MM,
       color: GREY,
@@ -299,13 +308,13 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
     text(doc, `${s.seq}. ${s.name}`, x + box + 1.2 * MM, ty, { size: fontSize, width: colW - box - cureW - 2.5 * MM });
     if (cures(s.stationKind) && s.cureMinutes) {
       // the minimum cure time; the next step may not start before it has run out
-      text(doc, `${s.cureMinutes} min`, x + colW - cureW - 1.5 * MM, ty, { size: fontSize, bold: true, width: cureW, align: 'right' });
+      text(doc, w.cure(s.cureMinutes), x + colW - cureW - 1.5 * MM, ty, { size: fontSize, bold: true, width: cureW, align: 'right' });
     }
   });
 
   // --- footer
   const fy = CARD_H - pad - 3 * MM;
-  const note = card.revision > 1 ? `Reprint: revision ${card.revision} replaces all earlier copies` : `Revision ${card.revision}`;
+  const note = card.revision > 1 ? w.reprint(card.revision) : w.revision(card.revision);
   text(doc, note, pad, fy, { size: 6.5, width: W * 0.7, color: GREY });
   text(doc, 'Trayce', pad + W * 0.7, fy, { size: 6.5, bold: true, width: W * 0.3, align: 'right', color: GREY });
 
@@ -313,10 +322,10 @@ function drawCard(doc: Doc, card: TravellerCard, slot: Slot, images: Images): vo
 }
 
 /** Builds the PDF of one or more travellers. */
-export function renderTravellersPdf(cards: readonly TravellerCard[], layout: TravellerLayout = 'a6'): Promise<Buffer> {
+export function renderTravellersPdf(cards: readonly TravellerCard[], layout: TravellerLayout = 'a6', words: PrintWords = printWords('en')): Promise<Buffer> {
   if (cards.length === 0) return Promise.reject(new Error('No travellers to print'));
   const { size, slots } = pageSlots(layout);
-  const doc = new PDFDocument({ size, margin: 0, autoFirstPage: false, info: { Title: 'Travellers', Creator: 'Trayce' } });
+  const doc = new PDFDocument({ size, margin: 0, autoFirstPage: false, info: { Title: words.traveller.title, Creator: 'Trayce' } });
   doc.registerFont('regular', fontBytes(400));
   doc.registerFont('bold', fontBytes(700));
   registerCjkFonts(doc);
@@ -333,7 +342,7 @@ export function renderTravellersPdf(cards: readonly TravellerCard[], layout: Tra
       doc.addPage({ size, margin: 0 });
       if (slots.length > 1) drawCutLines(doc, layout, size);
     }
-    drawCard(doc, card, slots[slotIndex], images);
+    drawCard(doc, card, slots[slotIndex], images, words);
   });
   doc.end();
   return done;

@@ -15,7 +15,8 @@ export const calendarRepository = {
       .from(stations)
       .orderBy(asc(stations.code))
       .all(),
-  factorySettings: (db: Db) => db.select().from(settings).where(eq(settings.key, 'factory')).get()?.value as { name?: string; timeZone?: string } | undefined,
+  factorySettings: (db: Db) =>
+    db.select().from(settings).where(eq(settings.key, 'factory')).get()?.value as { name?: string; timeZone?: string; language?: string } | undefined,
   saveFactorySettings: (db: Db, value: Record<string, unknown>) =>
     db.insert(settings).values({ key: 'factory', value }).onConflictDoUpdate({ target: settings.key, set: { value } }).run(),
   replaceAll(db: Db, shifts: (typeof calendarShifts.$inferInsert)[], days: (typeof calendarDaysOff.$inferInsert)[]) {

@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import type { Api } from '../http/api';
 import { ADMIN_ONLY } from '@shared/domain/access';
-import { reasonCodeBody, updateReasonCodeBody } from '@shared/schemas/admin';
+import { factoryLanguageBody, reasonCodeBody, updateReasonCodeBody } from '@shared/schemas/admin';
 import { adminService } from '../services/admin.service';
+import { factorySettingsService } from '../services/factory-settings.service';
 
 export function registerAdminRoutes(api: Api) {
   api.route({ method: 'get', path: '/admin/reason-codes', access: { roles: ADMIN_ONLY }, handler: ({ deps }) => adminService.reasonCodes(deps) });
@@ -21,6 +22,14 @@ export function registerAdminRoutes(api: Api) {
     params: z.object({ code: z.string().min(1).max(40) }),
     body: updateReasonCodeBody,
     handler: ({ deps, params, body, user }) => adminService.updateReasonCode(deps, params.code, body, user!.id),
+  });
+  api.route({ method: 'get', path: '/admin/factory-language', access: { roles: ADMIN_ONLY }, handler: ({ deps }) => factorySettingsService.view(deps) });
+  api.route({
+    method: 'put',
+    path: '/admin/factory-language',
+    access: { roles: ADMIN_ONLY },
+    body: factoryLanguageBody,
+    handler: ({ deps, body, user }) => factorySettingsService.setLanguage(deps, body, user!.id),
   });
   api.route({ method: 'get', path: '/admin/backups', access: { roles: ADMIN_ONLY }, handler: ({ deps }) => adminService.listBackups(deps) });
   api.route({

@@ -14,6 +14,8 @@ import { createLinkIn } from './share-links.service';
 import { enqueueMail, kickMail } from './mail.service';
 import { shippedMail } from '../lib/mail-templates';
 import { renderPackingList } from '../lib/packing-list-pdf';
+import { printWords } from '../lib/print-words';
+import { factorySettingsService } from './factory-settings.service';
 import type { AcceptedScan } from './scan-ingest.service';
 import { iso } from '@shared/domain/time-zone';
 
@@ -362,17 +364,20 @@ export const shippingService = {
     const view = shipmentViews(deps.db, [row], cartons)[0];
     const factory = shippingRepository.factory(deps.db);
     const allShipped = p.shipments.filter((s) => s.number <= row.number).reduce((a, s) => a + s.pieces, 0);
-    const pdf = await renderPackingList({
-      factory: factory.name,
-      timeZone: factory.timeZone,
-      orderNumber: p.order.number,
-      title: p.order.title,
-      customer: p.order.customer,
-      contactName: p.order.contactName,
-      ordered: p.order.quantity,
-      shipment: view,
-      shippedSoFar: allShipped,
-    });
+    const pdf = await renderPackingList(
+      {
+        factory: factory.name,
+        timeZone: factory.timeZone,
+        orderNumber: p.order.number,
+        title: p.order.title,
+        customer: p.order.customer,
+        contactName: p.order.contactName,
+        ordered: p.order.quantity,
+        shipment: view,
+        shippedSoFar: allShipped,
+      },
+      printWords(factorySettingsService.language(deps)),
+    );
     return { pdf, filename: `packing-list-${p.order.number}-${row.number}.pdf` };
   },
 };

@@ -11,9 +11,11 @@ import { auditRepository } from '../repositories/audit.repository';
 import { conflict, notFound, badInput } from '../errors';
 import { readThumbnail } from '../lib/file-store';
 import { renderTravellersPdf, humanise, type TravellerCard, type TravellerLayout } from '../lib/traveller-pdf';
+import { printWords, type PrintWords } from '../lib/print-words';
+import { factorySettingsService } from './factory-settings.service';
 import { summariseTraveller, travellerCode } from './orders.service';
 import { routingOf, specOf } from './order-spec.service';
-import { MOULD_TOOL_NAMES, mouldStepsFor, mouldTool } from '@shared/domain/routing';
+import { mouldStepsFor, mouldTool } from '@shared/domain/routing';
 import { canMerge, childTrayNumber, normaliseTrayNumber, releasedQuantity, splitTray, TRAY_NUMBER_PATTERN } from '@shared/domain/trays';
 import { parseTravellerCode } from '@shared/domain/traveller-code';
 import type { MergeBody, MouldLibraryItem, MouldPatch, SplitBody, TrayLink, TrayView } from '@shared/schemas/trays';
@@ -64,9 +66,9 @@ function splitEvent(trayId: string, type: 'split' | 'merge', state: TrayStateRow
   } as const;
 }
 
-function fittingsText(type: string, count: number): string {
-  if (type === 'none' || count === 0) return 'None';
-  return `${count} × ${humanise(type).toLowerCase()}`;
+function fittingsText(words: PrintWords, type: string, count: number): string {
+  if (type === 'none' || count === 0) return words.traveller.noFittings;
+  return words.traveller.fittings(count, words.backing[type as keyof PrintWords['backing']] ?? humanise(type).toLowerCase());
 }
 
 export const traysService = {
@@ -325,6 +327,8 @@ export const traysService = {
 
   cardsFor(deps: AppDeps, order: OrderRow, chosen: { tray: TrayRow; state: TrayStateRow | null }[]): TravellerCard[] {
     const { db } = deps;
+    const words = printWords(factorySettingsService.language(deps));
+    const w = words.traveller;
     const customer = ordersRepository.customerById(db, order.customerId)!;
     const spec = specOf(order);
     const trayRouting = routingOf(db, order.id, 'tray');
@@ -333,7 +337,7 @@ export const traysService = {
     const approved = proofs[proofs.length - 1];
     // only the thumbnail made (and so decoded) at upload is printed, never the file as sent
     const artwork = approved ? readThumbnail(deps.env.dataDir, approved.fileHash) : null;
-    const artworkNote = approved ? `Proof rev ${approved.revision}${approved.mime === 'application/pdf' ? ' (PDF)' : ''}` : 'No approved proof';
+    const artworkNote = approved ? w.proof(approved.revision, approved.mime === 'application/pdf') : w.noProof;
     const originals = traysRepository.forOrder(db, order.id).filter((t) => t.tray.kind === 'tray' && !t.tray.parentTrayId);
     const numbers = new Map(originals.map((t, i) => [t.tray.id, i + 1]));
     const parents = new Map(traysRepository.forOrder(db, order.id).map((t) => [t.tray.id, t.tray.number]));
@@ -343,12 +347,11 @@ export const traysService = {
       const tool = tray.kind === 'mould' ? mouldTool(spec.process, mould?.side === 'back' ? 'back' : 'front') : null;
       if (tool) {
         const reused = mould && mould.firstOrderId !== order.id;
-        const make = tool === 'cutting_die' ? 'make' : 'engrave';
-        caption = `${MOULD_TOOL_NAMES[tool]} · ${reused ? `stored${mould?.storageLocation ? ` at ${mould.storageLocation}` : ''}, check only` : `new, ${make} and check`}`;
+        caption = w.mouldCaption(words.tool[tool], reused ? { at: mould?.storageLocation || null } : null, tool === 'cutting_die');
       } else if (tray.parentTrayId) {
-        caption = `Split from ${parents.get(tray.parentTrayId) ?? 'another tray'}`;
+        caption = w.splitFrom(parents.get(tray.parentTrayId) ?? null);
       } else {
-        caption = `Tray ${numbers.get(tray.id) ?? '?'} of ${originals.length}`;
+        caption = w.trayOf(numbers.get(tray.id) ?? null, originals.length);
       }
       return {
         kind: tray.kind,
@@ -364,8 +367,9 @@ export const traysService = {
         material: spec.material,
         sizeMm: spec.sizeMm,
         colours: spec.colours,
-        plating: spec.secondPlating ? `${spec.plating} and ${spec.secondPlating} (two-tone)` : spec.plating,
-        fittings: fittingsText(spec.backing.type, spec.backing.count),
+        plating: spec.plating,
+        secondPlating: spec.secondPlating ?? null,
+        fittings: fittingsText(words, spec.backing.type, spec.backing.count),
         packaging: spec.packaging,
         dueDate: spec.dueDate,
         routing: tool ? mouldStepsFor(mouldRouting, tool) : trayRouting,
@@ -378,7 +382,10 @@ export const traysService = {
   orderPdf(deps: AppDeps, orderId: string, opts: { layout: TravellerLayout; ids?: string[]; kind?: 'all' | 'tray' | 'mould' }) {
     const order = ordersRepository.byId(deps.db, orderId);
     if (!order) throw notFound('That order');
-    return renderTravellersPdf(traysService.cards(deps, orderId, opts), opts.layout).then((pdf) => ({ pdf, name: `travellers-${order.number}.pdf` }));
+    return renderTravellersPdf(traysService.cards(deps, orderId, opts), opts.layout, printWords(factorySettingsService.language(deps))).then((pdf) => ({
+      pdf,
+      name: `travellers-${order.number}.pdf`,
+    }));
   },
 
   trayPdf(deps: AppDeps, idOrNumber: string, layout: TravellerLayout) {
@@ -386,10 +393,12 @@ export const traysService = {
     const order = ordersRepository.byId(deps.db, tray.orderId)!;
     const state = trayStatesRepository.byTrayId(deps.db, tray.id) ?? null;
     if (state?.phase === 'merged') throw conflict('tray_merged', `Tray ${tray.number} was merged into another tray; print that one.`);
-    return renderTravellersPdf(traysService.cardsFor(deps, order, [{ tray, state }]), layout).then((pdf) => ({
-      pdf,
-      name: `traveller-${tray.number}-rev${tray.revision}.pdf`,
-    }));
+    return renderTravellersPdf(traysService.cardsFor(deps, order, [{ tray, state }]), layout, printWords(factorySettingsService.language(deps))).then(
+      (pdf) => ({
+        pdf,
+        name: `traveller-${tray.number}-rev${tray.revision}.pdf`,
+      }),
+    );
   },
 
   // -------------------------------------------------------------------------------------

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { stationKindSchema } from './stations';
+import { localeSchema } from './auth';
 
 export const reasonCodeBody = z.strictObject({
   code: z
@@ -20,3 +21,7 @@ export type ReasonCodeAdminView = z.infer<typeof reasonCodeAdminView>;
 
 export const backupView = z.object({ file: z.string(), sizeBytes: z.number(), createdAt: z.string() });
 export type BackupView = z.infer<typeof backupView>;
+
+/** `PUT /api/admin/factory-language`: the language travellers and packing lists print in */
+export const factoryLanguageBody = z.strictObject({ language: localeSchema });
+export type FactoryLanguage = z.infer<typeof factoryLanguageBody>;

@@ -44,6 +44,7 @@ export const router = createBrowserRouter([
               { path: 'calendar', lazy: () => import('./routes/admin/calendar') },
               { path: 'routing-templates', lazy: () => import('./routes/admin/routing-templates') },
               { path: 'costing', lazy: () => import('./routes/admin/costing') },
+              { path: 'settings', lazy: () => import('./routes/admin/settings') },
             ],
           },
           { path: 'orders', lazy: () => import('./routes/orders/list') },

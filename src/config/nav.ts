@@ -83,4 +83,5 @@ export const ADMIN_SECTIONS: Omit<NavItem, 'roles'>[] = [
   { to: paths.adminCalendar, label: 'adminCalendar', icon: CalendarClock },
   { to: paths.adminRoutingTemplates, label: 'adminTemplates', icon: Route },
   { to: paths.adminCosting, label: 'adminCosting', icon: Calculator },
+  { to: paths.adminSettings, label: 'adminSettings', icon: Settings },
 ];

@@ -34,6 +34,7 @@ export const paths = {
   adminOutbox: '/admin/outbox',
   adminCalendar: '/admin/calendar',
   adminCosting: '/admin/costing',
+  adminSettings: '/admin/settings',
   publicStatus: (token: string) => `/status/${token}`,
 } as const;
 

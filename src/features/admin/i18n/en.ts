@@ -200,6 +200,16 @@ export const en = {
     none: 'No backups yet',
     noneHint: 'Make the first one now, or schedule <code>{{command}}</code> on the server.',
   },
+  settings: {
+    title: 'Settings',
+    subtitle: 'The factory’s own settings.',
+    printTitle: 'Printouts',
+    printLanguage: 'Language of travellers and packing lists',
+    printHint: 'Labels print in this language. Colour names, titles, customers and step names print as they were written.',
+    save: 'Save',
+    saved: 'Saved',
+    notSaved: 'Not saved',
+  },
 };
 
 export type AdminStrings = typeof en;

@@ -199,4 +199,14 @@ export const zhCN: AdminStrings = {
     none: '还没有备份',
     noneHint: '现在做第一次备份，或在服务器上定时运行 <code>{{command}}</code>。',
   },
+  settings: {
+    title: '设置',
+    subtitle: '工厂自己的设置。',
+    printTitle: '打印',
+    printLanguage: '流程卡和装箱单的语言',
+    printHint: '标签按此语言打印。颜色名称、订单名称、客户和工序名称按原样打印。',
+    save: '保存',
+    saved: '已保存',
+    notSaved: '未保存',
+  },
 };

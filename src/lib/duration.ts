@@ -1,15 +1,19 @@
 // Short, plain durations and times for screens read at a glance.
 import { formatDayTime } from '@/lib/datetime';
-import { currentLocale } from '@/lib/i18n';
+import { currentLocale, i18n } from '@/lib/i18n';
 
-/** 95 -> "1 h 35 min"; 2900 -> "2 d 0 h" */
-export function minutesText(min: number | null | undefined): string {
+/**
+ * A duration in the reader's language: 95 -> "1 h 35 min", 2900 -> "2 d 0 h". `glance` (the wall,
+ * read from across the room) drops the minutes from 10 hours on: 2315 -> "38 h".
+ */
+export function minutesText(min: number | null | undefined, options: { glance?: boolean } = {}): string {
   if (min == null || !Number.isFinite(min)) return '–';
   const m = Math.max(0, Math.round(min));
-  if (m < 60) return `${m} min`;
+  if (m < 60) return i18n.t('common:duration.minutes', { m });
   const h = Math.floor(m / 60);
-  if (h < 48) return `${h} h ${m % 60} min`;
-  return `${Math.floor(h / 24)} d ${h % 24} h`;
+  if (options.glance && h >= 10 && h < 48) return i18n.t('common:duration.hours', { h });
+  if (h < 48) return i18n.t('common:duration.hoursMinutes', { h, m: m % 60 });
+  return i18n.t('common:duration.days', { d: Math.floor(h / 24), h: h % 24 });
 }
 
 /** hours with one decimal below 10 and whole above */

@@ -152,6 +152,22 @@ describe('the floor wall', () => {
       const note = await page.getByTestId('bottleneck-note').innerText();
       expect(note).toContain((await name.innerText()).trim());
     }
+    // every tile is whole on the screen, and nothing on a tile spills out of it (a long name wraps inside)
+    const spills = await page.evaluate(() =>
+      [...document.querySelectorAll('section[data-kind]')].flatMap((tile) => {
+        const box = tile.getBoundingClientRect();
+        const out: string[] = [];
+        if (box.bottom > innerHeight + 0.5 || box.right > innerWidth + 0.5) out.push(`${tile.getAttribute('data-kind')} ends off the screen`);
+        for (const child of tile.querySelectorAll('*')) {
+          const r = child.getBoundingClientRect();
+          if (r.width === 0 || r.height === 0 || child.closest('.sr-only')) continue;
+          if (r.bottom > box.bottom + 0.5 || r.right > box.right + 0.5)
+            out.push(`${tile.getAttribute('data-kind')}: "${child.textContent?.slice(0, 20)}" spills out`);
+        }
+        return out;
+      }),
+    );
+    expect(spills).toEqual([]);
     // countdowns read as durations, not clock times
     for (const left of await page.getByTestId('cure-left').allInnerTexts()) expect(left).toMatch(/^(Ready|\d+ h \d+ min left|\d+ min \d+ s left)$/);
     await screenshot(page, 'wall-1920x1080-sizes');

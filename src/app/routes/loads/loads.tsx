@@ -9,7 +9,8 @@ import { loadsQueryOptions, useCreateLoad, useLoads, useSplitLoad } from '@/feat
 import { Button } from '@/components/ui/button';
 import { Card, EmptyState, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { humanise } from '@/lib/labels';
-import { currentLocale, i18n } from '@/lib/i18n';
+import { currentLocale } from '@/lib/i18n';
+import { minutesText } from '@/lib/duration';
 import { errorText } from '@/lib/error-text';
 import { cures, LOAD_KIND_TRAITS, type LoadKind } from '@shared/domain/traveller/station-kinds';
 
@@ -17,16 +18,6 @@ export const handle = { roles: FLOOR_LEADS };
 export const loader = () => queryClient.ensureQueryData(loadsQueryOptions());
 
 const num = (n: number) => n.toLocaleString(currentLocale());
-
-/** 95 -> "1 h 35 min" in the reader's language (the shared duration words). */
-function minutesText(min: number | null | undefined): string {
-  if (min == null || !Number.isFinite(min)) return '–';
-  const m = Math.max(0, Math.round(min));
-  if (m < 60) return i18n.t('common:duration.minutes', { m });
-  const h = Math.floor(m / 60);
-  if (h < 48) return i18n.t('common:duration.hoursMinutes', { h, m: m % 60 });
-  return i18n.t('common:duration.days', { d: Math.floor(h / 24), h: h % 24 });
-}
 
 /** A load group's name: the cure time, or the plating finish by its shared name. */
 function groupName(kind: LoadKind, key: string, t: TFunction<'loads'>, tc: TFunction<'common'>): string {

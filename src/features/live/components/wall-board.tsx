@@ -7,7 +7,7 @@ import type { WallView } from '@shared/schemas/live';
 import type { WipKind } from '@shared/schemas/reports';
 import { STATION_KIND_NAMES } from '@shared/domain/vocabulary';
 import type { StationKind } from '@shared/domain/vocabulary';
-import { factoryTime } from '@/lib/duration';
+import { factoryTime, minutesText } from '@/lib/duration';
 import { formatDueDay } from '@/lib/datetime';
 import { i18n } from '@/lib/i18n';
 import { paths } from '@/config/paths';
@@ -50,16 +50,6 @@ export const kindName = (k: string) => {
   const en = n.charAt(0).toUpperCase() + n.slice(1);
   return i18n.t(`common:kind.${k}` as 'common:kind.fill', { defaultValue: en });
 };
-
-/** 95 -> "1 h 35 min"; 2900 -> "2 d 0 h", in the reader's language */
-function minutesText(min: number | null | undefined): string {
-  if (min == null || !Number.isFinite(min)) return '–';
-  const m = Math.max(0, Math.round(min));
-  if (m < 60) return i18n.t('common:duration.minutes', { m });
-  const h = Math.floor(m / 60);
-  if (h < 48) return i18n.t('common:duration.hoursMinutes', { h, m: m % 60 });
-  return i18n.t('common:duration.days', { d: Math.floor(h / 24), h: h % 24 });
-}
 
 const fmt = (n: number) => n.toLocaleString('en-GB');
 
@@ -129,7 +119,7 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
     <section
       aria-label={kindName(kind.stationKind)}
       data-kind={kind.stationKind}
-      className={`flex min-h-0 flex-col gap-1 rounded-2xl border-4 px-3 py-2 ${bottleneck ? t.tileHot : idle ? t.tileIdle : t.tile}`}
+      className={`flex min-h-0 flex-col gap-0.5 rounded-2xl border-4 px-3 py-1.5 ${bottleneck ? t.tileHot : idle ? t.tileIdle : t.tile}`}
       data-idle={idle ? 'yes' : 'no'}
     >
       <h2 className={`text-3xl leading-tight font-bold break-words ${t.strong}`} data-testid="tile-name">
@@ -145,7 +135,8 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
           <CircleDashed className="h-7 w-7" aria-hidden /> {tr('board.empty')}
         </span>
       )}
-      <div className="flex flex-col">
+      {/* an empty station says so in one word: no column of zeros to read from across the room */}
+      <div className={idle && !bottleneck ? 'sr-only' : 'flex flex-col'}>
         <Figure
           theme={theme}
           testId="waiting"
@@ -190,8 +181,8 @@ export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: Wa
       </div>
       <footer className={`mt-auto flex flex-wrap items-center gap-x-3 text-3xl ${t.muted}`}>
         {kind.oldestMinutes != null && (
-          <span className="flex items-center gap-1" aria-label={tr('board.oldestWaiting', { time: minutesText(kind.oldestMinutes) })}>
-            <Clock className="h-7 w-7" aria-hidden /> <strong className={t.strong}>{minutesText(kind.oldestMinutes)}</strong>
+          <span className="flex items-center gap-1" aria-label={tr('board.oldestWaiting', { time: minutesText(kind.oldestMinutes, { glance: true }) })}>
+            <Clock className="h-7 w-7" aria-hidden /> <strong className={t.strong}>{minutesText(kind.oldestMinutes, { glance: true })}</strong>
           </span>
         )}
         {kind.moulds > 0 && <span>{tr(kind.moulds === 1 ? 'board.mouldOne' : 'board.mouldMany', { count: kind.moulds })}</span>}
@@ -279,10 +270,11 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const shownNeeds = compact ? needs.length : 3;
   const shownRisk = compact ? view.atRisk.length : 3;
   return (
-    <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_440px] grid-rows-[minmax(0,1fr)]'}`}>
+    <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_400px] grid-rows-[minmax(0,1fr)]'}`}>
       <div
-        className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-5'}`}
-        style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(active.length / 5))}, minmax(0, 1fr))` }}
+        className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-6'}`}
+        // rows as tall as their busiest tile needs (a long name wraps onto a second line), sharing what is left
+        style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(active.length / 6))}, minmax(min-content, 1fr))` }}
       >
         {active.map((k) => (
           <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />

@@ -67,6 +67,7 @@ export function Component() {
           <ChartAndTable
             title={t('cycleTime.chartTitle')}
             caption={t('cycleTime.chartCaption')}
+            bars={r.stations.length}
             chart={
               <Bars
                 layout="vertical"

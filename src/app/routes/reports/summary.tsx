@@ -9,7 +9,7 @@ import { api } from '@/lib/api-client';
 import { liveKeys } from '@/features/live/api/live-keys';
 import { reportQueryOptions } from '@/features/reports/api/get-report';
 import { lateRiskQueryOptions } from '@/features/reports/api/get-late-risk';
-import { lastWeeks, yieldTotals } from '@/features/reports/lib/summary';
+import { lastWeeks, throughputByWeek, yieldTotals } from '@/features/reports/lib/summary';
 import { Card, ErrorPanel, Loading } from '@/components/ui/panels';
 import { factoryTodayDate, formatDueDay } from '@/lib/datetime';
 import { percentText } from '@/lib/duration';
@@ -59,7 +59,8 @@ export function Component() {
 
   const wip = useQuery({ queryKey: liveKeys.wip(), queryFn: () => api.get<WipResponse>('/wip'), refetchInterval: 30_000 });
   const onTime = useQuery(reportQueryOptions('on-time', { ...window, bucket: 'week' }));
-  const flow = useQuery(reportQueryOptions('flow', { ...window, bucket: 'week' }));
+  // throughput per day, summed into the same weeks as the yield table
+  const flow = useQuery(reportQueryOptions('flow', { ...window, bucket: 'day' }));
   const late = useQuery(lateRiskQueryOptions());
   const yields = useQueries({ queries: weeks.map((w) => reportQueryOptions('yield', { from: w.from, to: w.to })) });
 
@@ -177,9 +178,9 @@ export function Component() {
                 </tr>
               </thead>
               <tbody>
-                {(flow.data?.buckets ?? []).map((b) => (
-                  <tr key={b.start} className="border-b border-harbour-50">
-                    <td className="py-1 pr-2">{b.label}</td>
+                {throughputByWeek(weeks, flow.data?.buckets ?? []).map((b) => (
+                  <tr key={b.from} className="border-b border-harbour-50">
+                    <td className="py-1 pr-2">{formatDueDay(b.from)}</td>
                     <td className="py-1 pr-2 text-right">{num(b.orders, lang)}</td>
                     <td className="py-1 pr-2 text-right">{num(b.trays, lang)}</td>
                     <td className="py-1 text-right font-bold">{num(b.pieces, lang)}</td>

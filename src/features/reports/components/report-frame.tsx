@@ -119,16 +119,39 @@ export function ReportFrame({
 }
 
 /** A chart and the table of the same figures, side by side on a wide screen. */
-export function ChartAndTable({ title, chart, table, caption }: { title: string; chart: ReactNode; table: ReactNode; caption?: ReactNode }) {
+/**
+ * A chart with its table. `bars` (a bar per row, drawn across) gives the chart the height its bars
+ * need; from a dozen rows on, the chart and the table stand one above the other at full width.
+ */
+export function ChartAndTable({
+  title,
+  chart,
+  table,
+  caption,
+  bars,
+}: {
+  title: string;
+  chart: ReactNode;
+  table: ReactNode;
+  caption?: ReactNode;
+  bars?: number;
+}) {
   const { t } = useTranslation('reports');
+  const tall = bars != null && bars > 12;
   return (
     <Card>
       <h2 className="mb-1 text-xl font-bold text-harbour-900">{title}</h2>
       {caption && <p className="mb-3 text-sm text-harbour-700">{caption}</p>}
-      <div className="grid gap-6 xl:grid-cols-[3fr_2fr]">
-        <div className="h-96 min-w-0">{chart}</div>
+      <div className={`grid gap-6 ${tall ? '' : 'xl:grid-cols-[3fr_2fr]'}`}>
+        <div className={tall ? 'min-w-0' : 'h-96 min-w-0'} style={tall ? { height: bars * 32 + 90 } : undefined}>
+          {chart}
+        </div>
         {/* the table keeps the chart's height and scrolls; its header stays in view */}
-        <div className="max-h-96 min-w-0 overflow-auto rounded-lg border border-harbour-50" tabIndex={0} aria-label={t('frame.tableOf', { title })}>
+        <div
+          className={`${tall ? '' : 'max-h-96'} min-w-0 overflow-auto rounded-lg border border-harbour-50`}
+          tabIndex={0}
+          aria-label={t('frame.tableOf', { title })}
+        >
           {table}
         </div>
       </div>

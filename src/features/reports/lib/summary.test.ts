@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defaultWindow, lastWeeks, yieldTotals } from './summary';
+import { defaultWindow, lastWeeks, throughputByWeek, yieldTotals } from './summary';
 
 describe('manager summary figures', () => {
   it('the last four weeks end today and do not overlap (28 days)', () => {
@@ -32,5 +32,23 @@ describe('manager summary figures', () => {
     // data up to today, or none at all: the four weeks up to today
     expect(defaultWindow('2026-12-04', '2026-12-04')).toEqual({ from: '2026-11-07', to: '2026-12-04' });
     expect(defaultWindow(null, '2026-12-04')).toEqual({ from: '2026-11-07', to: '2026-12-04' });
+  });
+});
+
+describe('throughputByWeek', () => {
+  it('sums daily buckets into the given weeks, leaving days outside them out (worked by hand)', () => {
+    const weeks = lastWeeks('2026-12-05', 2); // 22–28 Nov and 29 Nov – 5 Dec
+    const day = (label: string, orders: number, trays: number, pieces: number) => ({ label, orders, trays, pieces });
+    const out = throughputByWeek(weeks, [
+      day('2026-11-21', 9, 9, 900),
+      day('2026-11-22', 1, 2, 200),
+      day('2026-11-28', 2, 3, 300),
+      day('2026-11-29', 4, 5, 500),
+      day('2026-12-05', 1, 1, 100),
+    ]);
+    expect(out).toEqual([
+      { from: '2026-11-22', to: '2026-11-28', orders: 3, trays: 5, pieces: 500 },
+      { from: '2026-11-29', to: '2026-12-05', orders: 5, trays: 6, pieces: 600 },
+    ]);
   });
 });

@@ -45,3 +45,25 @@ export function defaultWindow(lastDataDay: string | null | undefined, today: str
   const to = lastDataDay && lastDataDay < today ? lastDataDay : today;
   return { from: dateOfDayNumber(dayNumberOfDate(to) - 27), to };
 }
+
+export interface WeekThroughput extends DayRange {
+  orders: number;
+  trays: number;
+  pieces: number;
+}
+
+/** Daily throughput (buckets labelled with their factory day) summed into the given weeks (the same weeks as the yield table beside it). */
+export function throughputByWeek(
+  weeks: readonly DayRange[],
+  days: readonly { label: string; orders: number; trays: number; pieces: number }[],
+): WeekThroughput[] {
+  return weeks.map((w) => {
+    const inWeek = days.filter((d) => d.label >= w.from && d.label <= w.to);
+    return {
+      ...w,
+      orders: inWeek.reduce((s, d) => s + d.orders, 0),
+      trays: inWeek.reduce((s, d) => s + d.trays, 0),
+      pieces: inWeek.reduce((s, d) => s + d.pieces, 0),
+    };
+  });
+}

@@ -64,5 +64,7 @@ const tones: Record<Tone, string> = {
 
 /** A short status word in a pill: the word carries the meaning, the colour only helps. */
 export function Pill({ tone = 'neutral', children }: { tone?: Tone; children: ReactNode }) {
-  return <span className={`inline-flex items-center gap-1 rounded-full border px-2.5 py-0.5 text-sm font-bold ${tones[tone]}`}>{children}</span>;
+  return (
+    <span className={`inline-flex items-center gap-1 rounded-full whitespace-nowrap border px-2.5 py-0.5 text-sm font-bold ${tones[tone]}`}>{children}</span>
+  );
 }

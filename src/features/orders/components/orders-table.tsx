@@ -106,8 +106,12 @@ export function OrdersTable({ orders, showReasons = false }: { orders: OrderList
           }),
         ]
       : []),
-    col.accessor('dueDate', { header: t('list.col.due'), cell: (c) => formatDueDay(c.getValue()) }),
-    col.accessor('projectedShipAt', { header: t('list.col.projected'), cell: (c) => formatDate(c.getValue()), sortUndefined: 'last' }),
+    col.accessor('dueDate', { header: t('list.col.due'), cell: (c) => <span className="whitespace-nowrap">{formatDueDay(c.getValue())}</span> }),
+    col.accessor('projectedShipAt', {
+      header: t('list.col.projected'),
+      cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span>,
+      sortUndefined: 'last',
+    }),
     col.accessor('late', { header: t('list.col.late'), cell: (c) => (c.getValue() ? <Pill tone="stop">{t('list.late')}</Pill> : '') }),
     col.accessor('trays', { header: t('list.col.trays') }),
   ];

@@ -52,4 +52,10 @@ describe('one ISO helper', () => {
     expect(isoOf(null)).toBeNull();
     expect(isoOf(undefined)).toBeNull();
   });
+
+  it('answers right when the same instants come again in any order (it remembers its last answers)', () => {
+    const times = [0, 1, 0, 2, 2, 1, 86_400_000, 0, -1, 1, 86_400_000];
+    for (const t of times) expect(isoOf(t)).toBe(new Date(t).toISOString()); // reference: the built-in Date
+    expect(isoOf(new Date(5))).toBe('1970-01-01T00:00:00.005Z');
+  });
 });

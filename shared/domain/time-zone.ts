@@ -27,8 +27,21 @@ export function toMs(t: Instant): number {
 export function iso(ms: number | Date): string;
 export function iso(ms: number | Date | null | undefined): string | null;
 export function iso(ms: number | Date | null | undefined): string | null {
-  return ms == null ? null : new Date(ms).toISOString();
+  if (ms == null) return null;
+  const t = typeof ms === 'number' ? ms : ms.getTime();
+  // the guards and the replay write the same few instants many times over (an event's time into
+  // several fields): the last two answers are kept, as toISOString is the dearest step of a replay
+  if (t === lastIsoMs[0]) return lastIso[0];
+  if (t === lastIsoMs[1]) return lastIso[1];
+  const text = new Date(t).toISOString();
+  lastIsoMs[1] = lastIsoMs[0];
+  lastIso[1] = lastIso[0];
+  lastIsoMs[0] = t;
+  lastIso[0] = text;
+  return text;
 }
+const lastIsoMs: [number, number] = [NaN, NaN];
+const lastIso: [string, string] = ['', ''];
 
 export function isValidTimeZone(tz: string): boolean {
   try {

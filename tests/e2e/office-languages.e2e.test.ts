@@ -29,6 +29,13 @@ const TRANSLATED: Partial<Record<OfficeRole, string[]>> = {
 
 /** Pages of one order, chosen from the demo data when the test runs: an order on the floor. */
 const ORDER_PAGES: Partial<Record<OfficeRole, (context: BrowserContext) => Promise<string[]>>> = {
+  // an order still at its gates (payment, proof, release) and one on the floor (routing, travellers)
+  planner: async (context) => {
+    const rows = (await (await context.request.get(`${base()}/api/orders`)).json()) as { id: string; status: string }[];
+    const gated = rows.find((o) => o.status === 'awaiting_proof' || o.status === 'awaiting_payment') ?? rows[0];
+    const onFloor = rows.find((o) => o.status === 'in_production') ?? rows[0];
+    return [paths.order(gated.id), paths.order(onFloor.id)];
+  },
   sales: async (context) => {
     const rows = (await (await context.request.get(`${base()}/api/sales/orders?limit=200`)).json()) as { id: string; status: string }[];
     const onFloor = rows.find((o) => o.status === 'in_production') ?? rows[0];
@@ -64,6 +71,34 @@ async function dataWords(context: BrowserContext, orderIds: string[] = []): Prom
     for (const o of (await sales.json()) as { customer: string; title: string; trackingNumbers: string[] }[])
       out.push(o.customer, o.title, ...o.trackingNumbers);
   for (const id of orderIds) {
+    // what people wrote on the order page: colours, routing step names (the factory's own
+    // templates), file names, payment references, notes and the people who did things
+    const od = await context.request.get(`${base()}/api/orders/${id}`);
+    if (od.ok()) {
+      const o = (await od.json()) as {
+        spec: { colours: { name: string; ref?: string }[]; notes: string };
+        routing: { name: string }[];
+        trays: { stepName: string | null }[];
+        moulds: { stepName: string | null }[];
+        payments: { reference: string | null; note: string | null; recordedBy: string | null }[];
+        proofs: { originalName: string; uploadedBy: string | null; approvedBy: string | null; approvalNote: string | null; changesComment: string | null }[];
+        history: { by: string | null }[];
+        holdReason: string | null;
+        payment: { currency: string };
+      };
+      out.push(
+        ...o.spec.colours.flatMap((c) => [c.name, c.ref ?? '']),
+        o.spec.notes,
+        ...o.routing.map((r) => r.name),
+        ...[...o.trays, ...o.moulds].map((x) => x.stepName ?? ''),
+        ...o.payments.flatMap((x) => [x.reference ?? '', x.note ?? '', x.recordedBy ?? '']),
+        ...o.proofs.flatMap((x) => [x.originalName, x.uploadedBy ?? '', x.approvedBy ?? '', x.approvalNote ?? '', x.changesComment ?? '']),
+        ...o.history.map((h) => h.by ?? ''),
+        o.holdReason ?? '',
+        // the ISO 4217 code the order is priced in
+        o.payment.currency,
+      );
+    }
     const d = await context.request.get(`${base()}/api/sales/orders/${id}`);
     if (!d.ok()) continue;
     const o = (await d.json()) as {
@@ -153,7 +188,7 @@ describe("office screens in each person's language", () => {
               await page.goto(`${base()}${route}`);
               await settled(page);
               expect(await englishWords(page, data), `${route} as ${role}`).toEqual([]);
-              await screenshot(page, `office-${role}-zh-CN${route.replace(/[/?=]+/g, '-').replace(/-[0-9a-f-]{36}$/, '-order')}`);
+              await screenshot(page, `office-${role}-zh-CN${route.replace(/[/?=]+/g, '-').replace(/-([0-9a-f]{8})[0-9a-f-]{28}$/, '-order-$1')}`);
             }
           }
         } finally {

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { useQueryClient } from '@tanstack/react-query';
+import { useTranslation } from 'react-i18next';
 import { Ban, Copy, Pause, Pencil, Play, Printer, RefreshCw } from 'lucide-react';
 import { COSTING_READERS, FLOOR_LEADS, PLANNING } from '@shared/domain/access';
 import type { TravellerSummary } from '@shared/schemas/orders';
@@ -24,33 +25,34 @@ import { useMe } from '@/features/auth/api/get-me';
 import { Button } from '@/components/ui/button';
 import { Card, ErrorPanel, Loading, PageHeader, Pill } from '@/components/ui/panels';
 import { paths } from '@/config/paths';
-import { ORDER_STATUS_LABELS, humanise } from '@/lib/labels';
+import { errorText } from '@/lib/error-text';
 
 export const handle = { roles: FLOOR_LEADS };
 export const loader = ({ params }: LoaderFunctionArgs) => queryClient.ensureQueryData(orderQueryOptions(params.id!));
 
 function TravellerActions({ t, onChanged }: { t: TravellerSummary; onChanged: () => void }) {
+  const { t: tr } = useTranslation('orders');
   const reprint = useReprint(onChanged);
-  if (t.phase === 'merged') return <span className="text-sm text-harbour-700">merged</span>;
+  if (t.phase === 'merged') return <span className="text-sm text-harbour-700">{tr('detail.merged')}</span>;
   return (
     <span className="flex flex-wrap gap-1">
       <a
         className="inline-flex min-h-11 items-center gap-1 rounded-lg px-2 font-bold text-harbour-800 hover:bg-harbour-50"
         href={trayPdfUrl(t.id)}
         download
-        aria-label={`Print ${t.number}`}
+        aria-label={tr('detail.printN', { number: t.number })}
       >
-        <Printer className="h-5 w-5" aria-hidden /> Print
+        <Printer className="h-5 w-5" aria-hidden /> {tr('detail.print')}
       </a>
       <Button
         variant="ghost"
-        aria-label={`Reprint ${t.number} as a new revision`}
+        aria-label={tr('detail.reprintN', { number: t.number })}
         disabled={reprint.isPending}
         onClick={() => {
-          if (window.confirm(`Reprint ${t.number}? The printed revision ${t.revision} becomes void and will be refused at the stations.`)) reprint.mutate(t.id);
+          if (window.confirm(tr('detail.reprintConfirm', { number: t.number, revision: t.revision }))) reprint.mutate(t.id);
         }}
       >
-        <RefreshCw className="h-5 w-5" aria-hidden /> Reprint
+        <RefreshCw className="h-5 w-5" aria-hidden /> {tr('detail.reprint')}
       </Button>
     </span>
   );
@@ -58,6 +60,7 @@ function TravellerActions({ t, onChanged }: { t: TravellerSummary; onChanged: ()
 
 export function Component() {
   const { id } = useParams();
+  const { t } = useTranslation(['orders', 'common']);
   const order = useOrder(id!);
   const me = useMe();
   const qc = useQueryClient();
@@ -65,7 +68,7 @@ export function Component() {
   const update = useUpdateOrder(id!);
   const status = useOrderStatus(id!);
   if (order.isPending || !me.data) return <Loading />;
-  if (order.error) return <ErrorPanel message={order.error.message} />;
+  if (order.error) return <ErrorPanel message={errorText(order.error)} />;
   const o = order.data;
   const role = me.data.user.role;
   const mayPlan = PLANNING.includes(role);
@@ -75,12 +78,12 @@ export function Component() {
   return (
     <div className="flex flex-col gap-6">
       <PageHeader
-        title={`Order ${o.number}`}
+        title={t('detail.title', { number: o.number })}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            {o.customer.name} · {o.spec.title} · {humanise(o.spec.process)}
-            <Pill tone={o.openGates.length ? 'warn' : 'info'}>{ORDER_STATUS_LABELS[o.status]}</Pill>
-            {o.late && <Pill tone="stop">Late</Pill>}
+            {o.customer.name} · {o.spec.title} · {t(`common:process.${o.spec.process}`)}
+            <Pill tone={o.openGates.length ? 'warn' : 'info'}>{t(`common:status.${o.status}`)}</Pill>
+            {o.late && <Pill tone="stop">{t('detail.late')}</Pill>}
           </span>
         }
         actions={
@@ -88,12 +91,12 @@ export function Component() {
             <>
               {!released && !editing && o.status !== 'cancelled' && (
                 <Button variant="secondary" onClick={() => setEditing(true)}>
-                  <Pencil className="h-5 w-5" aria-hidden /> Change spec
+                  <Pencil className="h-5 w-5" aria-hidden /> {t('detail.changeSpec')}
                 </Button>
               )}
               {!released && o.status === 'on_hold' && (
                 <Button variant="secondary" disabled={status.isPending} onClick={() => status.mutate({ action: 'resume' })}>
-                  <Play className="h-5 w-5" aria-hidden /> Lift the hold
+                  <Play className="h-5 w-5" aria-hidden /> {t('detail.liftHold')}
                 </Button>
               )}
               {!released && o.status !== 'on_hold' && o.status !== 'cancelled' && (
@@ -101,11 +104,11 @@ export function Component() {
                   variant="ghost"
                   disabled={status.isPending}
                   onClick={() => {
-                    const reason = window.prompt('Why is the order on hold?');
+                    const reason = window.prompt(t('detail.holdWhy'));
                     if (reason) status.mutate({ action: 'hold', reason });
                   }}
                 >
-                  <Pause className="h-5 w-5" aria-hidden /> Hold
+                  <Pause className="h-5 w-5" aria-hidden /> {t('detail.hold')}
                 </Button>
               )}
               {!released && o.status !== 'cancelled' && (
@@ -113,37 +116,37 @@ export function Component() {
                   variant="ghost"
                   disabled={status.isPending}
                   onClick={() => {
-                    const reason = window.prompt(`Cancel order ${o.number}? Say why:`);
+                    const reason = window.prompt(t('detail.cancelWhy', { number: o.number }));
                     if (reason) status.mutate({ action: 'cancel', reason });
                   }}
                 >
-                  <Ban className="h-5 w-5" aria-hidden /> Cancel order
+                  <Ban className="h-5 w-5" aria-hidden /> {t('detail.cancel')}
                 </Button>
               )}
               <Link
                 className="inline-flex min-h-11 items-center gap-2 rounded-lg px-4 font-bold text-harbour-800 hover:bg-harbour-50"
                 to={`${paths.newOrder}?repeat=${o.id}`}
               >
-                <Copy className="h-5 w-5" aria-hidden /> Repeat order
+                <Copy className="h-5 w-5" aria-hidden /> {t('detail.repeat')}
               </Link>
             </>
           )
         }
       />
-      {status.error && <ErrorPanel title="Not changed" message={status.error.message} />}
+      {status.error && <ErrorPanel title={t('detail.notChanged')} message={errorText(status.error)} />}
       {o.holdReason && (o.status === 'on_hold' || o.status === 'cancelled') && (
         <div role="status" className="rounded-xl border-2 border-stop-700/40 bg-stop-50 p-4 font-bold text-stop-700">
-          {o.status === 'on_hold' ? 'On hold' : 'Cancelled'}: {o.holdReason}
+          {t(o.status === 'on_hold' ? 'detail.onHold' : 'detail.cancelled', { reason: o.holdReason })}
         </div>
       )}
       {editing ? (
         <Card>
-          <h2 className="mb-4 text-xl font-bold text-harbour-900">Change the spec</h2>
+          <h2 className="mb-4 text-xl font-bold text-harbour-900">{t('detail.editTitle')}</h2>
           <OrderForm
             initial={{ ...o.spec, customer: o.customer.name }}
-            submitLabel="Save changes"
+            submitLabel={t('detail.saveChanges')}
             pending={update.isPending}
-            error={update.error?.message}
+            error={update.error ? errorText(update.error) : undefined}
             onSubmit={(spec) => {
               const { reorderOf: _r, ...patch } = spec;
               void _r;

@@ -124,7 +124,12 @@ export function TravellersPanel({ order, actions }: { order: OrderDetail; action
             {order.moulds.map((m) => (
               <Row
                 key={m.id}
-                t={{ ...m, stepName: t('travellers.mouldStep', { side: t(`travellers.side.${m.side}`), step: m.stepName ?? '' }) }}
+                t={{
+                  ...m,
+                  stepName: m.stepName
+                    ? t('travellers.mouldStep', { side: t(`travellers.side.${m.side}`), step: m.stepName })
+                    : t('travellers.mouldDone', { side: t(`travellers.side.${m.side}`) }),
+                }}
                 checked={chosen.has(m.id)}
                 onCheck={(v) => toggle(m.id, v)}
                 actions={actions?.(m)}

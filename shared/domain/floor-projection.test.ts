@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { compileCalendar, type Shift } from './calendar';
 import type { FloorSnapshot, MeasuredHistory, SnapshotOrder } from './floor-history';
-import { DispatchWait, measureFloor, minuteOfDay, projectFloor, WaitDistribution } from './floor-projection';
+import { calibratedP85, DispatchWait, measureFloor, minuteOfDay, P85_WIDTH, p85Score, projectFloor, WaitDistribution } from './floor-projection';
 import { seededRandom } from './stats';
 import { initialTrayState, type RoutingStep } from './vocabulary';
 
@@ -251,5 +251,57 @@ describe("the floor's day-to-day pace", () => {
     const paced = projectFloor(snap, { calendar, model, runs: 400 }).get('P')!;
     expect(paced.p85At! - paced.expectedAt!).toBeGreaterThan(flat.p85At! - flat.expectedAt!);
     expect(Math.abs(paced.expectedAt! - flat.expectedAt!)).toBeLessThan(5 * MIN);
+  });
+});
+
+describe('the conformal width of the 85 % date', () => {
+  const HOUR = 60 * MIN;
+  const FRI = T0 + 4 * 86_400_000; // shifts: Monday to Friday, 08:00–16:00 UTC
+  const MON = T0 + 7 * 86_400_000;
+
+  it('widens the runs’ spread in working time, over the weekend (hand-worked)', () => {
+    // expected Fri 14:00, runs' 85th percentile Fri 15:00: 60 working minutes of spread;
+    // × 2.5 = 150 min: 120 on Friday to 16:00, the last 30 on Monday → Mon 08:30
+    expect(calibratedP85(shifts.factory, FRI + 14 * HOUR, FRI + 15 * HOUR, 2.5)).toBe(MON + 8.5 * HOUR);
+    expect(p85Score(shifts.factory, FRI + 14 * HOUR, FRI + 15 * HOUR, MON + 8.5 * HOUR)).toBe(2.5);
+    // an order shipped early scores below zero; shipped on Friday at 14:30, half the spread
+    expect(p85Score(shifts.factory, FRI + 14 * HOUR, FRI + 15 * HOUR, FRI + 13 * HOUR)).toBe(-1);
+    expect(p85Score(shifts.factory, FRI + 14 * HOUR, FRI + 15 * HOUR, FRI + 14.5 * HOUR)).toBe(0.5);
+  });
+
+  it('keeps the expected date when every run ends at the same time', () => {
+    expect(calibratedP85(shifts.factory, FRI + 14 * HOUR, FRI + 14 * HOUR, 2)).toBe(FRI + 14 * HOUR);
+  });
+
+  it('uses the just-released factor for a new order and the under-way one later, and leaves the expected date alone', () => {
+    const queues = Array.from({ length: 60 }, (_, i) => {
+      const readyAt = T0 - 20 * 86_400_000 + Math.floor(i / 5) * 86_400_000 + 9 * HOUR + (i % 5) * 30 * MIN;
+      return {
+        stationKind: 'trim',
+        travellerKind: 'tray' as const,
+        orderId: `q${i}`,
+        stationId: null,
+        readyAt,
+        startedAt: readyAt + (10 + (i % 7) * 15) * MIN,
+        lead: true,
+      };
+    });
+    const model = measureFloor({ ...none, queues }, shifts, [{ kind: 'trim', capacityTrays: 50 }]);
+    const width = { justReleasedHours: 8, justReleased: 2, underWay: 1.5 };
+    for (const [now, factor] of [
+      [T0 + 7 * HOUR, 2], // released at 00:00: 7 h ago, just released
+      [T0 + 17 * HOUR + 30 * MIN, 1.5], // 17.5 h ago: under way
+    ] as const) {
+      const snap: FloorSnapshot = { now, orders: [order('W', 1, [step(1, 'trim', 30), step(2, 'trim', 30), step(3, 'trim', 30)])], measured: none };
+      const raw = projectFloor(snap, { calendar: shifts, model, runs: 200, p85Width: null }).get('W')!;
+      const wide = projectFloor(snap, { calendar: shifts, model, runs: 200, p85Width: width }).get('W')!;
+      expect(wide.expectedAt).toBe(raw.expectedAt);
+      expect(raw.p85At!).toBeGreaterThan(raw.expectedAt!);
+      expect(wide.p85At).toBe(Math.round(calibratedP85(shifts.factory, raw.expectedAt!, raw.p85At!, factor)));
+      expect(wide.p85At!).toBeGreaterThan(raw.p85At!);
+    }
+    // the kept factors widen, never narrow, the runs' own 85th percentile
+    expect(P85_WIDTH.justReleased).toBeGreaterThanOrEqual(1);
+    expect(P85_WIDTH.underWay).toBeGreaterThanOrEqual(1);
   });
 });

@@ -23,7 +23,10 @@
 // of a single queue (M/M/1: Wq = ρ/(μ − λ)); the unit tests check the simulation against both.
 // The handover times are the measured waits of travellers that found a free place on arrival,
 // so that the wait for capacity is simulated, not counted twice. Expected date: the mean of
-// the runs; 85th percentile: type 7 over the runs (Hyndman & Fan 1996). Calibration is
+// the runs. The runs' own 85th percentile (type 7, Hyndman & Fan 1996) is too narrow (the
+// model leaves out spread such as one crew working several kinds), so the 85 % date is the
+// expected date plus a split-conformal factor times the runs' spread, in the factory's working
+// time (`P85_WIDTH`, fitted on held-out seeded floors; Lei et al. 2018). Calibration is
 // measured by the backtest (Gneiting & Raftery 2007).
 //
 // Each traveller draws from its own random stream (seeded by its id and the run), so the same
@@ -31,6 +34,7 @@
 import type { Timeline, WorkingCalendar } from './calendar';
 import { zoneOffsetMs } from './time-zone';
 import { countAtMost, MULBERRY32_STEP, mulberry32Draw, quantileSorted, seedOf } from './stats';
+import { normalizedScore } from './conformal';
 import { ORDER_LEVEL_KINDS, type DispatchRecord, type FloorSnapshot, type MeasuredHistory, type ProcessRecord, type QueueRecord } from './floor-history';
 import type { RoutingStep, TrayState } from './vocabulary';
 import { OVEN_KINDS } from './traveller/station-kinds';
@@ -45,6 +49,38 @@ const PACE_MIN_DAYS = 10;
 const MOULD_STEP_KINDS = new Set(['engrave', 'mould_check']);
 /** a kind's crew limit is read from its measured steps only when at least this share of its steps were scanned out */
 const MEASURED_SHARE = 0.8;
+
+/**
+ * The width of the 85 % date: it lies `factor` times the runs' own spread (working minutes of
+ * the factory from the expected date to the runs' 85th percentile) after the expected date.
+ * Split conformal calibration (Vovk et al. 2005; Lei, G'Sell, Rinaldo, Tibshirani & Wasserman
+ * 2018, "Distribution-Free Predictive Inference for Regression", normalized scores): each
+ * projection of the calibration floors scores (actual − expected) / spread in working time, and
+ * the factor is the ⌈(n + 1)·0.85⌉-th smallest score, fitted apart (Mondrian, by group) for
+ * orders released less than `justReleasedHours` ago and for orders under way.
+ *
+ * Fitted on 4 December 2026 with `npm run backtest -- --fit` on the seeded floors
+ * `tune-floor-1` … `tune-floor-12` (release, halfway and daily cuts; never the scored
+ * `backtest-floor-*` twelve), 50 runs a projection. Re-fit after any change to the model.
+ */
+export const P85_WIDTH = { justReleasedHours: 8, justReleased: 2.008, underWay: 1.137 } as const;
+export type P85Width = { justReleasedHours: number; justReleased: number; underWay: number };
+
+/**
+ * The 85 % date from the expected date and the runs' own 85th percentile, widened by the
+ * conformal factor in working time. Without spread (every run the same) it is the expected date.
+ */
+export function calibratedP85(factory: Timeline, expected: number, runsP85: number, factor: number): number {
+  const spread = runsP85 > expected ? factory.workingMinutesBetween(expected, runsP85) : 0;
+  if (!(spread > 0)) return Math.max(expected, runsP85);
+  return Math.max(expected, factory.addWorkingMinutes(expected, factor * spread));
+}
+
+/** The conformal score of one outcome: signed working minutes past the expected date over the runs' spread. */
+export function p85Score(factory: Timeline, expected: number, runsP85: number, actual: number): number {
+  const spread = runsP85 > expected ? factory.workingMinutesBetween(expected, runsP85) : 0;
+  return normalizedScore(factory.workingMinutesBetween(expected, actual), spread);
+}
 
 // ---- measured history ----------------------------------------------------------------------
 
@@ -340,6 +376,8 @@ export interface ProjectFloorOptions {
   rule?: 'due_date' | 'first_come';
   /** false: every run at the floor's average pace (no day-to-day pace drawn) */
   pace?: boolean;
+  /** the conformal width of the 85 % date (default `P85_WIDTH`); null: the runs' own 85th percentile */
+  p85Width?: P85Width | null;
 }
 
 export interface OrderOutlook {
@@ -795,13 +833,16 @@ export function projectFloor(snapshot: FloorSnapshot, o: ProjectFloorOptions): M
     }
   }
   const result = new Map<string, OrderOutlook>();
+  const width = o.p85Width === undefined ? P85_WIDTH : o.p85Width;
   orders.forEach((ord, oi) => {
     const f = finishes[oi].sort();
     let sum = 0;
     for (let i = 0; i < runs; i++) sum += f[i];
     const open = living[oi] > 0;
     const expected = open ? Math.round(sum / runs) : Number.isFinite(closedLatest[oi]) ? closedLatest[oi] : null;
-    const p85 = open ? Math.round(quantileSorted(f, 0.85)) : expected;
+    const runsP85 = Math.round(quantileSorted(f, 0.85));
+    const factor = width == null ? null : now - ord.releasedAt < width.justReleasedHours * 3_600_000 ? width.justReleased : width.underWay;
+    const p85 = !open ? expected : factor == null || expected == null ? runsP85 : Math.round(calibratedP85(calendar.factory, expected, runsP85, factor));
     let drive = -1;
     for (let k = 0; k < nK; k++) if (drive < 0 || waitSum[oi][k] > waitSum[oi][drive]) drive = k;
     result.set(ord.id, {

@@ -1,5 +1,6 @@
 // The messages Trayce sends, each as plain text and HTML. Short, factual, no tracking pixels,
 // no remote images.
+import { formatInstant } from '@shared/domain/time-format';
 
 export interface RenderedMail {
   subject: string;
@@ -18,8 +19,9 @@ ${body}
 </div></body></html>`;
 }
 
+/** A date in a mail: the one formatter's English, in the factory's zone. */
 function formatDate(ms: number, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-GB', { timeZone, day: 'numeric', month: 'long', year: 'numeric' }).format(ms);
+  return formatInstant(ms, { locale: 'en', timeZone }, 'date');
 }
 
 export interface ShippedMailInput {

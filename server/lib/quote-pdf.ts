@@ -5,6 +5,7 @@ import fs from 'node:fs';
 import PDFDocument from 'pdfkit';
 import type { QuoteView } from '@shared/schemas/quotes';
 import { fontBytes } from './traveller-pdf';
+import { formatInstant } from '@shared/domain/time-format';
 
 /** Noto Sans CJK from Debian's fonts-noto-cjk, the face for Simplified Chinese inside the collection. */
 export const CJK_FONT = { file: '/usr/share/fonts/opentype/noto/NotoSansCJK-Regular.ttc', face: 'NotoSansCJKsc-Regular' };
@@ -29,8 +30,8 @@ const PROCESS_NAMES: Record<string, [string, string]> = {
 
 const money = (n: number, currency: string) =>
   new Intl.NumberFormat('en-GB', { style: 'currency', currency, minimumFractionDigits: 2, maximumFractionDigits: 3 }).format(n);
-const day = (iso: string | null, tz: string) =>
-  iso ? new Intl.DateTimeFormat('en-GB', { timeZone: tz, day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso)) : '–';
+/** a projected ship date on the quote: the one formatter's English, in the factory's zone */
+const day = (iso: string | null, tz: string) => (iso ? formatInstant(iso, { locale: 'en', timeZone: tz }, 'date') : '–');
 
 export function quotePdf(input: QuotePdfInput): Promise<Buffer> {
   const { quote: q } = input;

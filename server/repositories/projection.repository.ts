@@ -38,22 +38,21 @@ export interface StepRow {
   cureMinutes: number | null;
 }
 
-export interface RunRow {
-  orderId: string;
-  trayId: string;
-  travellerKind: 'tray' | 'mould';
-  stepSeq: number;
-  stationKind: string;
-  stationId: string | null;
-  readyAt: number;
-  startedAt: number;
-  finishedAt: number;
-  qtyIn: number;
-  implicit: number;
-  trayMinutes: number | null;
-  pieceMinutes: number | null;
-  cureMinutes: number | null;
-}
+/** a step run as `runsSinceRaw` reads it */
+export type RunTuple = [
+  orderId: string,
+  trayId: string,
+  travellerKind: 'tray' | 'mould',
+  stepSeq: number,
+  stationKind: string,
+  stationId: string | null,
+  readyAt: number,
+  startedAt: number,
+  finishedAt: number,
+  implicit: number,
+  standardMinutes: number | null,
+  cure: number,
+];
 
 const OPEN = `o.released_at is not null and o.shipped_at is null and o.cancelled_at is null and o.status not in ('shipped', 'cancelled')`;
 
@@ -78,17 +77,24 @@ export const projectionRepository = {
       )
       .all() as (StepRow & { name: string; colour: number | null })[];
   },
-  /** step runs started since `since`, with the standard minutes of their step */
-  runsSince(db: Db, since: number): RunRow[] {
+  /**
+   * Step runs started and finished since `since`, as plain arrays (no row objects), with the
+   * step's standard minutes for the pieces that went in and whether it cures worked out in SQL: [orderId, trayId, travellerKind, stepSeq, stationKind,
+   * stationId, readyAt, startedAt, finishedAt, implicit, standardMinutes, cure]. Iterated, so a
+   * long history is never held twice.
+   */
+  runsSinceRaw(db: Db, since: number): IterableIterator<RunTuple> {
     return client(db)
       .prepare(
-        `select r.order_id as orderId, r.tray_id as trayId, r.traveller_kind as travellerKind, r.step_seq as stepSeq, r.station_kind as stationKind,
-           r.station_id as stationId, r.ready_at as readyAt, r.started_at as startedAt, r.finished_at as finishedAt, r.qty_in as qtyIn, r.implicit,
-           st.tray_minutes as trayMinutes, st.piece_minutes as pieceMinutes, st.cure_minutes as cureMinutes
+        `select r.order_id, r.tray_id, r.traveller_kind, r.step_seq, r.station_kind, r.station_id, r.ready_at, r.started_at, r.finished_at, r.implicit,
+           case when st.tray_minutes is null then null
+                else st.tray_minutes + coalesce(st.piece_minutes, 0) * (case when r.traveller_kind = 'mould' then 1 else r.qty_in end) end,
+           coalesce(st.cure_minutes, 0) > 0
          from step_runs r left join order_steps st on st.order_id = r.order_id and st.traveller_kind = r.traveller_kind and st.seq = r.step_seq
          where r.started_at is not null and r.finished_at >= ?`,
       )
-      .all(since) as RunRow[];
+      .raw(true)
+      .iterate(since) as IterableIterator<RunTuple>;
   },
   /** hold and release scans since `since`, per traveller in time order */
   holdsSince(db: Db, since: number): { trayId: string; type: 'hold' | 'release'; occurredAt: number }[] {

@@ -3,7 +3,7 @@ import { projectionRepository as repo, type OpenOrderRow, type TrayStateRow } fr
 import { reportFactsService } from './report-facts.service';
 import { calendarService } from './calendar.service';
 import { measureFloor, projectFloor, type OrderOutlook } from '@shared/domain/floor-projection';
-import { measuredFromRuns, type FloorSnapshot } from '@shared/domain/floor-history';
+import { measuredFromRuns, type FloorSnapshot, type MeasuredHistory, type StepRunFact } from '@shared/domain/floor-history';
 import { type WorkingCalendar } from '@shared/domain/calendar';
 import { DAY, dayNumberOfDate, dateOfDayNumber, localDate, startOfLocalDate } from '@shared/domain/time-zone';
 import { projectionNoteEnglish, type ProjectionNote } from '@shared/domain/projection-note';
@@ -33,6 +33,21 @@ interface Cache {
   orders: OpenOrderRow[];
 }
 const caches = new WeakMap<object, Cache>();
+
+/**
+ * What the floor measured changes slowly (a day's scans are a fraction of 90 days), and reading
+ * it is the heaviest part of a projection on a long history: it is kept per database and read
+ * again after 10 minutes, when the clock goes back, or when the scan log folded into step_runs
+ * has grown by more than 1 % (at once on a young floor, where each scan matters).
+ */
+const MEASURED_MAX_AGE_MS = 10 * 60_000;
+const MEASURED_GROWTH = 0.01;
+interface MeasuredCache {
+  at: number;
+  foldedUpTo: number;
+  measured: MeasuredHistory;
+}
+const measuredCaches = new WeakMap<object, MeasuredCache>();
 
 const iso = (x: number | null) => (x == null ? null : new Date(x).toISOString());
 
@@ -75,13 +90,6 @@ export function floorSnapshot(deps: AppDeps, now: number): { snapshot: FloorSnap
       colour: st.colour,
     });
   }
-  const since = now - HISTORY_DAYS * DAY;
-  const runs = repo.runsSince(db, since).map((r) => ({
-    ...r,
-    implicit: !!r.implicit,
-    standardMinutes: r.trayMinutes == null ? null : r.trayMinutes + (r.pieceMinutes ?? 0) * (r.travellerKind === 'mould' ? 1 : r.qtyIn),
-    cure: (r.cureMinutes ?? 0) > 0,
-  }));
   const snapshot: FloorSnapshot = {
     now,
     orders: orders.map((o) => ({
@@ -92,9 +100,68 @@ export function floorSnapshot(deps: AppDeps, now: number): { snapshot: FloorSnap
       travellers: (traysOf.get(o.id) ?? []).map((t) => ({ id: t.trayId, kind: t.kind, state: stateOf(t) })),
       routing: routingOf.get(o.id) ?? { tray: [], mould: [] },
     })),
-    measured: measuredFromRuns(runs, repo.holdsSince(db, since)),
+    measured: measuredNow(deps, now),
   };
   return { snapshot, orders };
+}
+
+/** Whether a kept measured history still stands for the floor at `now` with the log folded in up to `foldedUpTo`. */
+export function measuredStillFresh(kept: { at: number; foldedUpTo: number }, now: number, foldedUpTo: number): boolean {
+  if (now < kept.at || now - kept.at >= MEASURED_MAX_AGE_MS) return false;
+  // a rebuild starts the cursor again from 0; a grown log by more than 1 % is read again
+  return foldedUpTo >= kept.foldedUpTo && foldedUpTo - kept.foldedUpTo <= kept.foldedUpTo * MEASURED_GROWTH;
+}
+
+/** The measured history of the last HISTORY_DAYS, kept per database (see MEASURED_MAX_AGE_MS). */
+function measuredNow(deps: AppDeps, now: number): MeasuredHistory {
+  const foldedUpTo = reportFactsService.foldedUpTo(deps);
+  const hit = measuredCaches.get(deps.db);
+  if (hit && measuredStillFresh(hit, now, foldedUpTo)) return hit.measured;
+  const since = now - HISTORY_DAYS * DAY;
+  const measured = measuredFromRuns(readRuns(deps, since), repo.holdsSince(deps.db, since));
+  measuredCaches.set(deps.db, { at: now, foldedUpTo, measured });
+  return measured;
+}
+
+/** The step runs since `since`, read as plain arrays; ids and kinds repeat, so each is kept once. */
+function readRuns(deps: AppDeps, since: number): StepRunFact[] {
+  const strings = new Map<string, string>();
+  const once = (x: string) => {
+    const seen = strings.get(x);
+    if (seen !== undefined) return seen;
+    strings.set(x, x);
+    return x;
+  };
+  const runs: StepRunFact[] = [];
+  for (const [
+    orderId,
+    trayId,
+    travellerKind,
+    stepSeq,
+    stationKind,
+    stationId,
+    readyAt,
+    startedAt,
+    finishedAt,
+    implicit,
+    standardMinutes,
+    cure,
+  ] of repo.runsSinceRaw(deps.db, since))
+    runs.push({
+      orderId: once(orderId),
+      trayId: once(trayId),
+      travellerKind,
+      stepSeq,
+      stationKind: once(stationKind),
+      stationId: stationId == null ? null : once(stationId),
+      readyAt,
+      startedAt,
+      finishedAt,
+      implicit: !!implicit,
+      standardMinutes,
+      cure: !!cure,
+    });
+  return runs;
 }
 
 /** The measured model of the floor now (cached with the projections). */

@@ -67,6 +67,11 @@ const FOLLOW_QUIET_MS = 1_000;
 const FOLLOW_MAX_WAIT_MS = 5_000;
 
 export const reportFactsService = {
+  /** the last scan event folded into step_runs (grows with the log; back to 0 before a full rebuild) */
+  foldedUpTo(deps: AppDeps): number {
+    return repo.cursor(deps.db, CURSOR);
+  },
+
   /**
    * Brings step_runs and tray_flows up to date with the scan log. Cheap when nothing is new (one indexed
    * lookup); called before every report and after floor changes.

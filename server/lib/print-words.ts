@@ -5,8 +5,11 @@ import type { Locale, Material, Plating, Process } from '@shared/domain/vocabula
 import type { MouldTool } from '@shared/domain/routing';
 import { formatDay, formatInstant } from '@shared/domain/time-format';
 
-type Packaging = 'bulk' | 'individual_bag' | 'backing_card' | 'gift_box';
-type Backing = 'butterfly_clutch' | 'rubber_clutch' | 'locking_clutch' | 'magnet' | 'safety_pin' | 'screw_nut' | 'none';
+import { TRADE_NAMES, type Backing, type Packaging } from '@shared/domain/trade-names';
+
+/** fittings print inside a sentence ("2 × butterfly clutch"): the English names in lower case */
+const lowerCase = <K extends string>(names: Record<K, string>) =>
+  Object.fromEntries(Object.entries(names).map(([k, v]) => [k, (v as string).toLowerCase()])) as Record<K, string>;
 
 export interface PrintWords {
   locale: Locale;
@@ -70,31 +73,11 @@ const kg = (locale: Locale) => (n: number) => `${n.toLocaleString(locale === 'zh
 
 const EN: PrintWords = {
   locale: 'en',
-  process: { hard_enamel: 'Hard enamel', soft_enamel: 'Soft enamel', die_struck: 'Die-struck', printed: 'Printed', die_cast_3d: '3D die-cast' },
-  material: { iron: 'Iron', brass: 'Brass', copper: 'Copper', zinc_alloy: 'Zinc alloy' },
-  plating: {
-    gold: 'Gold',
-    silver: 'Silver',
-    nickel: 'Nickel',
-    black_nickel: 'Black nickel',
-    copper: 'Copper',
-    antique_gold: 'Antique gold',
-    antique_silver: 'Antique silver',
-    antique_copper: 'Antique copper',
-    antique_bronze: 'Antique bronze',
-    dyed: 'Dyed black',
-    rainbow: 'Rainbow',
-  },
-  packaging: { bulk: 'Bulk', individual_bag: 'Individual bag', backing_card: 'Backing card', gift_box: 'Gift box' },
-  backing: {
-    butterfly_clutch: 'butterfly clutch',
-    rubber_clutch: 'rubber clutch',
-    locking_clutch: 'locking clutch',
-    magnet: 'magnet',
-    safety_pin: 'safety pin',
-    screw_nut: 'screw and nut',
-    none: 'none',
-  },
+  process: TRADE_NAMES.en.process,
+  material: TRADE_NAMES.en.material,
+  plating: TRADE_NAMES.en.plating,
+  packaging: TRADE_NAMES.en.packaging,
+  backing: lowerCase(TRADE_NAMES.en.backing),
   tool: { front_mould: 'Front mould', back_mould: 'Back mould', cutting_die: 'Cutting die' },
   traveller: {
     trayTraveller: 'TRAY TRAVELLER',
@@ -146,31 +129,11 @@ const EN: PrintWords = {
 
 const ZH: PrintWords = {
   locale: 'zh-CN',
-  process: { hard_enamel: '硬珐琅', soft_enamel: '软珐琅（烤漆）', die_struck: '冲压', printed: '印刷', die_cast_3d: '3D 压铸' },
-  material: { iron: '铁', brass: '黄铜', copper: '紫铜', zinc_alloy: '锌合金' },
-  plating: {
-    gold: '镀金',
-    silver: '镀银',
-    nickel: '镀镍',
-    black_nickel: '镀黑镍',
-    copper: '镀铜',
-    antique_gold: '古金',
-    antique_silver: '古银',
-    antique_copper: '古铜',
-    antique_bronze: '青古铜',
-    dyed: '染黑',
-    rainbow: '彩虹电镀',
-  },
-  packaging: { bulk: '散装', individual_bag: '独立袋装', backing_card: '背卡', gift_box: '礼盒' },
-  backing: {
-    butterfly_clutch: '蝴蝶扣',
-    rubber_clutch: '胶扣',
-    locking_clutch: '锁扣',
-    magnet: '磁铁',
-    safety_pin: '别针',
-    screw_nut: '螺丝螺母',
-    none: '无配件',
-  },
+  process: TRADE_NAMES['zh-CN'].process,
+  material: TRADE_NAMES['zh-CN'].material,
+  plating: TRADE_NAMES['zh-CN'].plating,
+  packaging: TRADE_NAMES['zh-CN'].packaging,
+  backing: TRADE_NAMES['zh-CN'].backing,
   tool: { front_mould: '正面模具', back_mould: '背面模具', cutting_die: '冲切刀模' },
   traveller: {
     trayTraveller: '托盘流程卡',

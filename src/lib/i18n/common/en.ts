@@ -1,6 +1,7 @@
 // The app's shared words in English: shell, menu, sign-in, error pages and the names of the
 // trade's codes. zh-CN.ts has the same keys (the type makes a missing one fail the typecheck).
 import { en as station } from '@/features/station/i18n/en';
+import { TRADE_NAMES_EN } from '@shared/domain/trade-names';
 
 export const en = {
   app: {
@@ -136,47 +137,11 @@ export const en = {
     merged: 'Merged',
     on_hold: 'On hold',
   },
-  process: {
-    hard_enamel: 'Hard enamel',
-    soft_enamel: 'Soft enamel',
-    die_struck: 'Die-struck',
-    printed: 'Printed',
-    die_cast_3d: '3D die-cast',
-  },
-  material: {
-    iron: 'Iron',
-    brass: 'Brass',
-    copper: 'Copper',
-    zinc_alloy: 'Zinc alloy',
-  },
-  plating: {
-    gold: 'Gold',
-    silver: 'Silver',
-    nickel: 'Nickel',
-    black_nickel: 'Black nickel',
-    copper: 'Copper',
-    antique_gold: 'Antique gold',
-    antique_silver: 'Antique silver',
-    antique_copper: 'Antique copper',
-    antique_bronze: 'Antique bronze',
-    dyed: 'Dyed black',
-    rainbow: 'Rainbow',
-  },
-  backing: {
-    butterfly_clutch: 'Butterfly clutch',
-    rubber_clutch: 'Rubber clutch',
-    locking_clutch: 'Locking clutch',
-    magnet: 'Magnet',
-    safety_pin: 'Safety pin',
-    screw_nut: 'Screw and nut',
-    none: 'No backing',
-  },
-  packaging: {
-    bulk: 'Bulk',
-    individual_bag: 'Individual bag',
-    backing_card: 'Backing card',
-    gift_box: 'Gift box',
-  },
+  process: TRADE_NAMES_EN.process,
+  material: TRADE_NAMES_EN.material,
+  plating: TRADE_NAMES_EN.plating,
+  backing: TRADE_NAMES_EN.backing,
+  packaging: TRADE_NAMES_EN.packaging,
   travellerKind: {
     tray: 'Tray',
     mould: 'Mould',

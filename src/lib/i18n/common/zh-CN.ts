@@ -1,6 +1,7 @@
 // 全应用共用的文字（简体中文）：外框、菜单、登录、错误页和各类代码的名称。键与 en.ts 相同。
 import { zhCN as station } from '@/features/station/i18n/zh-CN';
 import type { CommonStrings } from './en';
+import { TRADE_NAMES_ZH } from '@shared/domain/trade-names';
 
 export const zhCN: CommonStrings = {
   app: {
@@ -136,47 +137,11 @@ export const zhCN: CommonStrings = {
     merged: '已合并',
     on_hold: '暂停',
   },
-  process: {
-    hard_enamel: '硬珐琅',
-    soft_enamel: '软珐琅（烤漆）',
-    die_struck: '冲压',
-    printed: '印刷',
-    die_cast_3d: '3D 压铸',
-  },
-  material: {
-    iron: '铁',
-    brass: '黄铜',
-    copper: '紫铜',
-    zinc_alloy: '锌合金',
-  },
-  plating: {
-    gold: '镀金',
-    silver: '镀银',
-    nickel: '镀镍',
-    black_nickel: '镀黑镍',
-    copper: '镀铜',
-    antique_gold: '古金',
-    antique_silver: '古银',
-    antique_copper: '古铜',
-    antique_bronze: '青古铜',
-    dyed: '染黑',
-    rainbow: '彩虹电镀',
-  },
-  backing: {
-    butterfly_clutch: '蝴蝶扣',
-    rubber_clutch: '胶扣',
-    locking_clutch: '锁扣',
-    magnet: '磁铁',
-    safety_pin: '别针',
-    screw_nut: '螺丝螺母',
-    none: '无配件',
-  },
-  packaging: {
-    bulk: '散装',
-    individual_bag: '独立袋装',
-    backing_card: '背卡',
-    gift_box: '礼盒',
-  },
+  process: TRADE_NAMES_ZH.process,
+  material: TRADE_NAMES_ZH.material,
+  plating: TRADE_NAMES_ZH.plating,
+  backing: TRADE_NAMES_ZH.backing,
+  packaging: TRADE_NAMES_ZH.packaging,
   travellerKind: {
     tray: '托盘',
     mould: '模具',

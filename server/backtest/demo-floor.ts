@@ -5,24 +5,14 @@
 import { DEFAULT_ROUTING_TEMPLATES, expandRouting, mouldRouting, requiredMoulds } from '@shared/domain/routing';
 import { releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
 import { initialTrayState, type Role, type RoutingStep, type StationKind, type TrayState } from '@shared/domain/vocabulary';
-import { compileCalendar, type CalendarConfig, type Shift, type WorkingCalendar } from '@shared/domain/calendar';
+import { compileCalendar, type WorkingCalendar } from '@shared/domain/calendar';
 import type { FloorHistory, HistoryOrder, HistoryTraveller } from '@shared/domain/floor-history';
 import { DEFAULT_REASON_CODES, DEFAULT_STATIONS } from '../seed/base';
 import { planOrders } from '../seed/demo-catalogue';
 import { STATION_CREW } from '../seed/demo-crew';
 import { makeRng } from '../seed/prng';
-import {
-  DAY,
-  DEMO_SHIFTS,
-  DEMO_WORKDAYS,
-  FACTORY_UTC_OFFSET_MS,
-  HOUR,
-  MINUTE,
-  nextWorking,
-  simulateFloor,
-  type SimOrder,
-  type SimTraveller,
-} from '../seed/simulate-floor';
+import { DAY, HOUR, MINUTE, nextWorking, simulateFloor, type SimOrder, type SimTraveller } from '../seed/simulate-floor';
+import { demoCalendarConfig, factoryDate } from '../seed/floor/demo-clock';
 
 export interface DemoFloor {
   seed: string;
@@ -37,18 +27,6 @@ export interface DemoFloor {
   /** orders that shipped inside the history: release and ship times */
   shipped: { orderId: string; releasedAt: number; shippedAt: number }[];
 }
-
-const hm = (m: number) => `${String(Math.floor(m / 60)).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`;
-const WEEK = ['sun', 'mon', 'tue', 'wed', 'thu', 'fri', 'sat'] as const;
-
-/** The demo floor's working calendar: shifts Monday to Saturday, the oven cures around the clock. */
-export function demoCalendarConfig(): CalendarConfig {
-  const shifts: Shift[] = DEMO_SHIFTS.map((s) => ({ start: hm(s.start), end: hm(s.end) }));
-  const week = Object.fromEntries(WEEK.map((d, i) => [d, DEMO_WORKDAYS.includes(i) ? shifts : []])) as CalendarConfig['week'];
-  return { timeZone: 'Asia/Shanghai', week, daysOff: [], stations: { cure: { continuous: true } } };
-}
-
-const isoDate = (t: number) => new Date(t + FACTORY_UTC_OFFSET_MS).toISOString().slice(0, 10);
 
 export function makeDemoFloor(seed: string, end: number, historyDays = 70): DemoFloor {
   const rng = makeRng(seed);
@@ -80,7 +58,7 @@ export function makeDemoFloor(seed: string, end: number, historyDays = 70): Demo
     const r = nextWorking(plan.releasedAt!);
     const releasedAt = r <= end - 10 * MINUTE ? r : plan.releasedAt!;
     const orderId = `o-${plan.number}`;
-    orders.push({ id: orderId, number: plan.number, dueDate: isoDate(releasedAt + 14 * DAY), releasedAt });
+    orders.push({ id: orderId, number: plan.number, dueDate: factoryDate(releasedAt + 14 * DAY), releasedAt });
     const holdAt = plan.target === 'on_hold' ? Math.min(end - HOUR, nextWorking(end - ids.int(18, 36) * HOUR)) : null;
     simOrders.push({
       id: orderId,

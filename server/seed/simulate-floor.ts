@@ -29,9 +29,6 @@ import type { Live, OrderRun, SimInput, SimOverride, SimResult } from './floor/t
 export { DAY } from '@shared/domain/time-zone';
 export { MINUTE } from '@shared/domain/calendar';
 export { DEMO_SHIFTS, DEMO_WORKDAYS, HOUR, nextWorking } from './floor/demo-clock';
-/** @deprecated a fixed offset, true for Asia/Shanghai only: use factoryDate (floor/demo-clock.ts).
- * Kept until server/backtest/demo-floor.ts takes its dates from factoryDate. */
-export const FACTORY_UTC_OFFSET_MS = 8 * HOUR;
 export type { SimEvent, SimInput, SimOrder, SimOverride, SimPeople, SimRejection, SimResult, SimStation, SimTraveller } from './floor/types';
 
 /** Everything one run of the simulation carries along. */

@@ -12,8 +12,10 @@ export function useHistoryLine(): (h: HistoryEntry) => string {
   return useCallback(
     (h: HistoryEntry) => {
       const p = h.params;
-      if (!p) return h.text;
       const base = h.action.replace(/\./g, '_');
+      // a line with no parameters: its action's own words where there are some (a status link made
+      // or withdrawn), else the text as it was stored
+      if (!p) return i18n.exists(`orders:history.${base}`) ? t(`history.${base}` as Key) : h.text;
       const key = typeof p.variant === 'string' ? `${base}_${p.variant}` : base;
       if (!i18n.exists(`orders:history.${key}`)) return h.text;
       const values: Record<string, unknown> = { ...p };

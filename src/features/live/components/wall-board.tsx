@@ -108,10 +108,36 @@ function Figure({
   );
 }
 
+/** A kind of station with nothing waiting, in process, curing or in its mould shop. */
+const isIdle = (kind: WipKind) => kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
+
+/** The wall's line of empty stations: each by name, in process order, dashed as on their tiles. */
+function EmptyStations({ kinds, theme }: { kinds: WipKind[]; theme: WallTheme }) {
+  const t = THEMES[theme];
+  const { t: tr } = useTranslation('live');
+  if (kinds.length === 0) return null;
+  return (
+    <div className="flex flex-wrap items-center gap-x-3 gap-y-2 text-3xl" data-testid="empty-stations">
+      <span className={`font-bold ${t.strong}`}>{tr('board.emptyNow')}</span>
+      {kinds.map((k) => (
+        <section
+          key={k.stationKind}
+          aria-label={`${kindName(k.stationKind)}: ${tr('board.empty')}`}
+          data-kind={k.stationKind}
+          data-idle="yes"
+          className={`flex items-center gap-1 rounded-2xl border-4 px-3 py-1 ${t.tileIdle} ${t.strong}`}
+        >
+          <CircleDashed className="h-7 w-7" aria-hidden /> {kindName(k.stationKind)}
+        </section>
+      ))}
+    </div>
+  );
+}
+
 export function KindTile({ kind, theme, bottleneck }: { kind: WipKind; theme: WallTheme; bottleneck: boolean }) {
   const t = THEMES[theme];
   const { t: tr } = useTranslation('live');
-  const idle = kind.waiting.trays + kind.inProcess.trays + kind.curing.trays + kind.moulds === 0;
+  const idle = isIdle(kind);
   const oven = cures(kind.stationKind);
   // An empty station looks quiet through a dashed outline, smaller figures and the word "Empty",
   // never through faded text: every word on the tile keeps its contrast (WCAG 2.1, 1.4.3).
@@ -237,6 +263,10 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const { t: tr } = useTranslation('live');
   const now = useNow();
   const active = view.wip.kinds.filter((k) => k.stations.length > 0 || k.waiting.trays + k.inProcess.trays + k.curing.trays + k.moulds > 0);
+  // on the wall, empty stations stand in one line under the tiles, so the busy ones have the room
+  // to be read from across the floor; the floor page (compact) keeps a tile for every station
+  const emptyKinds = compact ? [] : active.filter((k) => isIdle(k) && view.bottleneck?.stationKind !== k.stationKind);
+  const tiles = compact ? active : active.filter((k) => !emptyKinds.includes(k));
   const tz = view.timeZone;
   const holdReason = (h: WallView['holds'][number]) => (i18n.language === 'zh-CN' && h.reasonZh ? h.reasonZh : h.reason);
   // one list of what waits for a supervisor: refusals, holds, then overrides already used
@@ -271,14 +301,17 @@ export function WallBoard({ view, theme, compact = false }: { view: WallView; th
   const shownRisk = compact ? view.atRisk.length : 3;
   return (
     <div className={`grid gap-4 ${compact ? 'grid-cols-1 xl:grid-cols-[1fr_420px]' : 'h-full grid-cols-[1fr_400px] grid-rows-[minmax(0,1fr)]'}`}>
-      <div
-        className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 grid-cols-6'}`}
-        // rows as tall as their busiest tile needs (a long name wraps onto a second line), sharing what is left
-        style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(active.length / 6))}, minmax(min-content, 1fr))` }}
-      >
-        {active.map((k) => (
-          <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />
-        ))}
+      <div className={compact ? 'contents' : 'flex min-h-0 flex-col gap-3'}>
+        <div
+          className={`grid gap-3 ${compact ? 'grid-cols-2 md:grid-cols-3 2xl:grid-cols-4' : 'min-h-0 flex-1 grid-cols-6'}`}
+          // rows as tall as their busiest tile needs (a long name wraps onto a second line), sharing what is left
+          style={compact ? undefined : { gridTemplateRows: `repeat(${Math.max(1, Math.ceil(tiles.length / 6))}, minmax(min-content, 1fr))` }}
+        >
+          {tiles.map((k) => (
+            <KindTile key={k.stationKind} kind={k} theme={theme} bottleneck={view.bottleneck?.stationKind === k.stationKind} />
+          ))}
+        </div>
+        <EmptyStations kinds={emptyKinds} theme={theme} />
       </div>
       <div className="flex min-h-0 flex-col gap-3">
         {view.bottleneck && (

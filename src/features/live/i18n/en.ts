@@ -34,6 +34,7 @@ export const en = {
     countMany: '{{trays}} trays, {{pieces}} pieces',
     bottleneck: 'Bottleneck',
     empty: 'Empty',
+    emptyNow: 'Empty now:',
     waiting: 'Waiting',
     curing: 'Curing',
     inProcess: 'In process',

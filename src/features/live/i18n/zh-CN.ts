@@ -35,6 +35,7 @@ export const zhCN: LiveStrings = {
     countMany: '{{trays}} 个托盘，{{pieces}} 件',
     bottleneck: '瓶颈',
     empty: '空闲',
+    emptyNow: '当前空闲：',
     waiting: '等待',
     curing: '烘烤中',
     inProcess: '加工中',

@@ -252,6 +252,8 @@ export const en = {
   },
   history: {
     withNote: '{{text}}: {{note}}',
+    share_link_create: 'Status link made for the customer',
+    share_link_revoke: 'Status links withdrawn',
     order_payment_exception: 'Release without payment allowed: {{reason}}',
     order_proof_upload: 'Proof revision {{revision}} uploaded ({{file}})',
     order_payment_online: 'Payment of {{amount}} {{currency}} paid online ({{reference}})',

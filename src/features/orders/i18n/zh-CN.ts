@@ -254,6 +254,8 @@ export const zhCN: OrdersStrings = {
   },
   history: {
     withNote: '{{text}}：{{note}}',
+    share_link_create: '已为客户生成订单状态链接',
+    share_link_revoke: '已撤回订单状态链接',
     order_payment_exception: '特批未收款投产：{{reason}}',
     order_proof_upload: '已上传第 {{revision}} 版稿件（{{file}}）',
     order_payment_online: '在线收款 {{amount}} {{currency}}（{{reference}}）',

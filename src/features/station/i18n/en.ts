@@ -1,7 +1,8 @@
-// Every word the station tablet shows, in English. zh-CN.ts has the same keys: the station kinds,
-// processes, finishes and backings are checked against the shared lists, so a kind missing here or
-// in zh-CN.ts fails the typecheck.
-import type { BackingType, Plating, Process, StationKind } from '@shared/domain/vocabulary';
+// Every word the station tablet shows, in English. zh-CN.ts has the same keys, so a station kind
+// missing here or in zh-CN.ts fails the typecheck; the names of processes, finishes, fittings and
+// packaging are the trade names every screen and printout shares (shared/domain/trade-names.ts).
+import type { StationKind } from '@shared/domain/vocabulary';
+import { TRADE_NAMES_EN } from '@shared/domain/trade-names';
 
 export const en = {
   app: {
@@ -225,41 +226,10 @@ export const en = {
     pack: 'Packing',
     dispatch: 'Dispatch',
   } satisfies Record<StationKind, string>,
-  process: {
-    hard_enamel: 'Hard enamel',
-    soft_enamel: 'Soft enamel',
-    die_struck: 'Die struck',
-    printed: 'Printed',
-    die_cast_3d: '3D die cast',
-  } satisfies Record<Process, string>,
-  plating: {
-    gold: 'Gold',
-    silver: 'Silver',
-    nickel: 'Nickel',
-    black_nickel: 'Black nickel',
-    copper: 'Copper',
-    antique_gold: 'Antique gold',
-    antique_silver: 'Antique silver',
-    antique_copper: 'Antique copper',
-    antique_bronze: 'Antique bronze',
-    dyed: 'Dyed',
-    rainbow: 'Rainbow',
-  } satisfies Record<Plating, string>,
-  backing: {
-    butterfly_clutch: 'Butterfly clutch',
-    rubber_clutch: 'Rubber clutch',
-    locking_clutch: 'Locking clutch',
-    magnet: 'Magnet',
-    safety_pin: 'Safety pin',
-    screw_nut: 'Screw and nut',
-    none: 'None',
-  } satisfies Record<BackingType, string>,
-  packaging: {
-    bulk: 'Bulk',
-    individual_bag: 'Each in a bag',
-    backing_card: 'Backing card',
-    gift_box: 'Gift box',
-  },
+  process: TRADE_NAMES_EN.process,
+  plating: TRADE_NAMES_EN.plating,
+  backing: TRADE_NAMES_EN.backing,
+  packaging: TRADE_NAMES_EN.packaging,
 };
 
 type Widen<T> = { [K in keyof T]: T[K] extends string ? string : Widen<T[K]> };

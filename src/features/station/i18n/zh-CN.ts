@@ -1,5 +1,6 @@
 // 工位平板的全部文字（简体中文）。键与 en.ts 相同。
 import type { StationStrings } from './en';
+import { TRADE_NAMES_ZH } from '@shared/domain/trade-names';
 
 export const zhCN: StationStrings = {
   app: {
@@ -223,39 +224,8 @@ export const zhCN: StationStrings = {
     pack: '包装',
     dispatch: '发货',
   },
-  process: {
-    hard_enamel: '硬珐琅',
-    soft_enamel: '软珐琅',
-    die_struck: '冲压无色',
-    printed: '印刷',
-    die_cast_3d: '立体压铸',
-  },
-  plating: {
-    gold: '镀金',
-    silver: '镀银',
-    nickel: '镀镍',
-    black_nickel: '黑镍',
-    copper: '镀铜',
-    antique_gold: '古金',
-    antique_silver: '古银',
-    antique_copper: '古铜',
-    antique_bronze: '青古铜',
-    dyed: '染色',
-    rainbow: '幻彩',
-  },
-  backing: {
-    butterfly_clutch: '蝴蝶扣',
-    rubber_clutch: '胶扣',
-    locking_clutch: '锁扣',
-    magnet: '磁铁',
-    safety_pin: '别针',
-    screw_nut: '螺丝螺母',
-    none: '无',
-  },
-  packaging: {
-    bulk: '散装',
-    individual_bag: '单个入袋',
-    backing_card: '背卡',
-    gift_box: '礼盒',
-  },
+  process: TRADE_NAMES_ZH.process,
+  plating: TRADE_NAMES_ZH.plating,
+  backing: TRADE_NAMES_ZH.backing,
+  packaging: TRADE_NAMES_ZH.packaging,
 };

@@ -230,6 +230,22 @@ const softColours: TemplateColourBlock = {
   onceName: 'Bake all colours',
 };
 
+/** After striking or casting, the soft-enamel way: colours go in after plating (soft enamel and 3D die-cast). */
+const SOFT_COLOURS_AFTER_FORMING = [
+  TRIM,
+  POSTS,
+  SAFETY_PIN,
+  POLISH,
+  SANDBLAST,
+  CHECK_BEFORE_PLATING,
+  ...PLATING,
+  softColours,
+  PRINT_OPTIONAL,
+  EPOXY_OPTIONAL,
+  EPOXY_CURE_OPTIONAL,
+  ...FINISH,
+];
+
 export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   hard_enamel: {
     process: 'hard_enamel',
@@ -254,21 +270,7 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   soft_enamel: {
     process: 'soft_enamel',
     name: 'Soft enamel',
-    steps: [
-      STRIKE,
-      TRIM,
-      POSTS,
-      SAFETY_PIN,
-      POLISH,
-      SANDBLAST,
-      CHECK_BEFORE_PLATING,
-      ...PLATING,
-      softColours,
-      PRINT_OPTIONAL,
-      EPOXY_OPTIONAL,
-      EPOXY_CURE_OPTIONAL,
-      ...FINISH,
-    ],
+    steps: [STRIKE, ...SOFT_COLOURS_AFTER_FORMING],
   },
   die_struck: {
     process: 'die_struck',
@@ -297,21 +299,7 @@ export const DEFAULT_ROUTING_TEMPLATES: Record<Process, RoutingTemplate> = {
   die_cast_3d: {
     process: 'die_cast_3d',
     name: '3D die-cast',
-    steps: [
-      CAST,
-      TRIM,
-      POSTS,
-      SAFETY_PIN,
-      POLISH,
-      SANDBLAST,
-      CHECK_BEFORE_PLATING,
-      ...PLATING,
-      softColours,
-      PRINT_OPTIONAL,
-      EPOXY_OPTIONAL,
-      EPOXY_CURE_OPTIONAL,
-      ...FINISH,
-    ],
+    steps: [CAST, ...SOFT_COLOURS_AFTER_FORMING],
   },
 };
 

@@ -1,16 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, type TestApp } from '../support/test-app';
-import { insertFloorOrder } from '../support/scan-fixtures';
-import { DEFAULT_ROUTING_TEMPLATES, expandRouting } from '@shared/domain/routing';
-import { releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
-import { planOrders } from '../../server/seed/demo-catalogue';
-import { makeRng } from '../../server/seed/prng';
+import { insertDemoFloor } from '../support/scan-fixtures';
 import type { WhatIfResult } from '@shared/schemas/projections';
 
 // A quote's break dates are the what-if's answer for the same spec and quantity: the open
 // floor (the demo catalogue's order mix, released at different steps) projected with the order
 // added, with the same clock, model and seeds.
-const HOUR = 3_600_000;
 const NOW = Math.floor(Date.now() / 60_000) * 60_000; // sessions are checked against the real clock
 let t: TestApp;
 let sales: Awaited<ReturnType<TestApp['agentAs']>>;
@@ -31,19 +26,7 @@ beforeAll(async () => {
   t = makeTestApp();
   t.setNow(NOW);
   sales = await t.agentAs('sales');
-  const rng = makeRng('quote-floor');
-  const plans = planOrders(makeRng('quote-orders'), NOW, 40).filter((p) => p.target === 'in_production' || p.target === 'released');
-  for (const p of plans) {
-    const routing = expandRouting(DEFAULT_ROUTING_TEMPLATES[p.process], p);
-    const trays = splitIntoTrays(releasedQuantity(p.quantity, p.overrunPct), p.traySize);
-    insertFloorOrder(t.deps, {
-      trays: trays.length,
-      quantity: p.traySize,
-      releasedAt: NOW - rng.int(2, 120) * HOUR,
-      routing,
-      stepSeq: routing[rng.int(0, routing.length - 1)].seq,
-    });
-  }
+  insertDemoFloor(t.deps, NOW, 'quote');
 });
 afterAll(() => t.close());
 

@@ -2,11 +2,7 @@ import fs from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { COVERAGE_FILE } from '../../server/backtest/coverage';
 import { makeTestApp, type TestApp } from '../support/test-app';
-import { insertFloorOrder } from '../support/scan-fixtures';
-import { DEFAULT_ROUTING_TEMPLATES, expandRouting } from '@shared/domain/routing';
-import { releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
-import { planOrders } from '../../server/seed/demo-catalogue';
-import { makeRng } from '../../server/seed/prng';
+import { insertDemoFloor } from '../support/scan-fixtures';
 import type { WhatIfResult } from '@shared/schemas/projections';
 
 // "What if we take this order?" on a floor like the demo factory's: the demo catalogue's order
@@ -53,20 +49,7 @@ beforeAll(async () => {
   t.setNow(NOW);
   sales = await t.agentAs('sales');
   planner = await t.agentAs('planner');
-  // the demo's order book, the ones on the floor: released over the last days, each at a step of its routing
-  const rng = makeRng('what-if-floor');
-  const plans = planOrders(makeRng('what-if-orders'), NOW, 40).filter((p) => p.target === 'in_production' || p.target === 'released');
-  for (const p of plans) {
-    const routing = expandRouting(DEFAULT_ROUTING_TEMPLATES[p.process], p);
-    const trays = splitIntoTrays(releasedQuantity(p.quantity, p.overrunPct), p.traySize);
-    insertFloorOrder(t.deps, {
-      trays: trays.length,
-      quantity: p.traySize,
-      releasedAt: NOW - rng.int(2, 120) * HOUR,
-      routing,
-      stepSeq: routing[rng.int(0, routing.length - 1)].seq,
-    });
-  }
+  insertDemoFloor(t.deps, NOW, 'what-if');
 });
 afterAll(() => t.close());
 

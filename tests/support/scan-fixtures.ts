@@ -15,6 +15,10 @@ import { stationsRepository } from '../../server/repositories/stations.repositor
 import { makeTravellerCode } from '@shared/domain/traveller-code';
 import { initialTrayState, type Role, type RoutingStep, type StationKind } from '@shared/domain/vocabulary';
 import type { TestApp } from './test-app';
+import { DEFAULT_ROUTING_TEMPLATES, expandRouting } from '@shared/domain/routing';
+import { releasedQuantity, splitIntoTrays } from '@shared/domain/trays';
+import { planOrders } from '../../server/seed/demo-catalogue';
+import { makeRng } from '../../server/seed/prng';
 
 const step = (seq: number, name: string, stationKind: StationKind, cureMinutes?: number, colour?: number): RoutingStep => ({
   seq,
@@ -190,4 +194,26 @@ export function scan(
   extra: Record<string, unknown> = {},
 ) {
   return { id: crypto.randomUUID(), code, stationId: stationIdValue, type, occurredAt: new Date(occurredAt).toISOString(), ...extra };
+}
+
+/**
+ * A floor like the demo factory's: the demo catalogue's orders on the floor (every process, its
+ * routing from the default templates, its tray sizes), released over the last days, each at a
+ * random step of its routing. `seed` names the two seeded generators (`<seed>-orders`, `<seed>-floor`).
+ */
+export function insertDemoFloor(deps: AppDeps, now: number, seed: string, planned = 40) {
+  const HOUR = 3_600_000;
+  const rng = makeRng(`${seed}-floor`);
+  const plans = planOrders(makeRng(`${seed}-orders`), now, planned).filter((p) => p.target === 'in_production' || p.target === 'released');
+  for (const p of plans) {
+    const routing = expandRouting(DEFAULT_ROUTING_TEMPLATES[p.process], p);
+    const trays = splitIntoTrays(releasedQuantity(p.quantity, p.overrunPct), p.traySize);
+    insertFloorOrder(deps, {
+      trays: trays.length,
+      quantity: p.traySize,
+      releasedAt: now - rng.int(2, 120) * HOUR,
+      routing,
+      stepSeq: routing[rng.int(0, routing.length - 1)].seq,
+    });
+  }
 }

@@ -2,11 +2,10 @@
 // travellers and packing lists print their labels in. Read back with poppler's pdftotext, a tool
 // independent of the library that wrote the PDFs.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import fs from 'node:fs';
 import path from 'node:path';
-import { execFileSync } from 'node:child_process';
 import { makeTestApp, type TestApp } from '../support/test-app';
 import { insertShippingOrder, SEQ } from '../support/shipping-fixtures';
+import { getPdf, pdfToText } from '../support/pdf';
 
 type Agent = Awaited<ReturnType<TestApp['agentAs']>>;
 let t: TestApp;
@@ -21,18 +20,9 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 async function pdfText(agent: Agent, url: string, name: string): Promise<string> {
-  const res = await agent
-    .get(url)
-    .buffer(true)
-    .parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+  const res = await getPdf(agent, url);
   expect(res.status).toBe(200);
-  const file = path.join(t.dataDir, name);
-  fs.writeFileSync(file, res.body as Buffer);
-  return execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+  return pdfToText(res.body as Buffer, path.join(t.dataDir, name));
 }
 
 async function printouts(tag: string) {

@@ -1,8 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { execFileSync } from 'node:child_process';
 import request from 'supertest';
 import { sha256 } from '@noble/hashes/sha2';
 import { bytesToHex } from '@noble/hashes/utils';
@@ -12,6 +10,7 @@ import { quotesService } from '../../server/services/quotes.service';
 import { orders } from '../../server/db/schema/orders';
 import { quotes, quoteVersions } from '../../server/db/schema/quotes';
 import { shareLinks } from '../../server/db/schema/shipping';
+import { getPdf, pdfToText } from '../support/pdf';
 
 type Agent = Awaited<ReturnType<TestApp['agentAs']>>;
 let t: TestApp;
@@ -175,20 +174,11 @@ describe('quotes', () => {
 
   it('the PDF names the factory and carries both languages', async () => {
     const q = (await sales.post('/api/quotes').send(body())).body;
-    const res = await sales
-      .get(`/api/quotes/${q.id}/quote.pdf`)
-      .buffer(true)
-      .parse((r, cb) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (c: Buffer) => chunks.push(c));
-        r.on('end', () => cb(null, Buffer.concat(chunks)));
-      });
+    const res = await getPdf(sales, `/api/quotes/${q.id}/quote.pdf`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
-    const file = path.join(os.tmpdir(), `quote-${q.id}.pdf`);
-    fs.writeFileSync(file, res.body as Buffer);
     // poppler's pdftotext reads the text back independently of pdfkit
-    const text = execFileSync('pdftotext', ['-layout', file, '-']).toString();
+    const text = pdfToText(res.body as Buffer, path.join(os.tmpdir(), `quote-${q.id}.pdf`));
     expect(text).toContain('Trayce factory');
     expect(text).toContain(q.number);
     expect(text).toContain('Unit price');

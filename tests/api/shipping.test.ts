@@ -1,5 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import fs from 'node:fs';
 import path from 'node:path';
 import { execFileSync } from 'node:child_process';
 import { eq } from 'drizzle-orm';
@@ -8,6 +7,7 @@ import { finishDispatch, insertShippingOrder, moveTray, SEQ } from '../support/s
 import { orders } from '../../server/db/schema/orders';
 import { syncOrderStatus } from '../../server/services/shipping.service';
 import { insertBadgeUser, pairTablet, scan, tabletAgent } from '../support/scan-fixtures';
+import { getPdf, pdfToText } from '../support/pdf';
 
 type Agent = Awaited<ReturnType<TestApp['agentAs']>>;
 let t: TestApp;
@@ -180,22 +180,14 @@ describe('shipments', () => {
       .post(`/api/orders/${o.orderId}/shipments`)
       .send({ carrier: 'Invented Parcel Co', trackingNumber: 'IPC-PL-0425', cartons: [carton(4, 100, 2.35), carton(1, 25, 0.7)] });
     expect(ship.status).toBe(201);
-    const res = await sales
-      .get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`)
-      .buffer(true)
-      .parse((r, cb) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (c: Buffer) => chunks.push(c));
-        r.on('end', () => cb(null, Buffer.concat(chunks)));
-      });
+    const res = await getPdf(sales, `/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
     // Read back with an independent tool (poppler's pdftotext), not with the library that wrote it.
     const file = path.join(t.dataDir, 'packing-list.pdf');
-    fs.writeFileSync(file, pdf);
-    const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+    const text = pdfToText(pdf, file);
     for (const s of [o.number, 'Harbour lights enamel pin', 'Invented Parcel Co', 'IPC-PL-0425', '425', '10.1 kg']) expect(text).toContain(s);
     const fonts = execFileSync('pdffonts', [file], { encoding: 'utf8' });
     expect(fonts).toMatch(/Atkinson/i);
@@ -215,18 +207,10 @@ describe('packing list in Chinese', () => {
       .post(`/api/orders/${o.orderId}/shipments`)
       .send({ carrier: '顺达快运', trackingNumber: 'SD-0001-CN', cartons: [carton(1, 120, 1.2)] });
     expect(ship.status).toBe(201);
-    const res = await sales
-      .get(`/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`)
-      .buffer(true)
-      .parse((r, cb) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (c: Buffer) => chunks.push(c));
-        r.on('end', () => cb(null, Buffer.concat(chunks)));
-      });
+    const res = await getPdf(sales, `/api/orders/${o.orderId}/shipments/${ship.body.id}/packing-list.pdf`);
     expect(res.status).toBe(200);
     const file = path.join(t.dataDir, 'packing-list-zh.pdf');
-    fs.writeFileSync(file, res.body as Buffer);
-    const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+    const text = pdfToText(res.body as Buffer, file);
     for (const s of ['星河徽章俱乐部', '李明', '深蓝星河徽章', '顺达快运', 'SD-0001-CN', o.number]) expect(text).toContain(s);
     expect(execFileSync('pdffonts', [file], { encoding: 'utf8' })).toMatch(/NotoSansHans/);
   });
